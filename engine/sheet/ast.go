@@ -1,0 +1,171 @@
+package sheet
+
+import "github.com/sheafcalc/sheaf/engine/diag"
+
+// File is a parsed sheet: every line of the source, in reading order, as an
+// Item. Nothing is dropped, so the canonical printer can rewrite the file
+// without losing a comment or a blank line.
+type File struct {
+	Name  string // path as given, used in positions
+	Src   []byte
+	Items []Item
+}
+
+// Item is one top-level construct: *Meta, *Heading, *Comment, *Blank, *Cell,
+// *FuncDef, *Check, *Table or *Use.
+type Item interface {
+	Span() diag.Range
+}
+
+// Ident is a name with its place.
+type Ident struct {
+	Name  string
+	Range diag.Range
+}
+
+// UnitSpec is a display unit or parameter unit written in square brackets,
+// kept as written (without the brackets).
+type UnitSpec struct {
+	Text  string
+	Range diag.Range // of Text, inside the brackets
+}
+
+// Annot is the trailing annotation of a cell: "-- description @ reference".
+type Annot struct {
+	Description string
+	Reference   string
+	Range       diag.Range // from "--" to the end of the line; zero if absent
+}
+
+// Expr is an expression exactly as written: Text is the source between the
+// "=" (or ":") and the annotation, trimmed, possibly spanning several lines
+// (newlines and indentation kept). Number and unit literals are kept verbatim.
+type Expr struct {
+	Text  string
+	Range diag.Range
+}
+
+// PosAt returns the source position of byte offset off within e.Text.
+func (e Expr) PosAt(off int) diag.Pos {
+	p := e.Range.Start
+	if off > len(e.Text) {
+		off = len(e.Text)
+	}
+	for _, r := range e.Text[:off] {
+		if r == '\n' {
+			p.Line++
+			p.Col = 1
+		} else {
+			p.Col++
+		}
+	}
+	p.Offset += off
+	return p
+}
+
+// RangeAt returns the source range of bytes [from, to) within e.Text.
+func (e Expr) RangeAt(from, to int) diag.Range {
+	return diag.Range{Start: e.PosAt(from), End: e.PosAt(to)}
+}
+
+// Meta is a header line "key: value" (title, project, basis, author,
+// checker, date, revision, units).
+type Meta struct {
+	Key   Ident
+	Value string
+	Range diag.Range
+}
+
+// Heading is a section heading line "## text".
+type Heading struct {
+	Text  string
+	Range diag.Range
+}
+
+// Comment is a full-line comment "# text"; Text excludes the "#".
+type Comment struct {
+	Text  string
+	Range diag.Range
+}
+
+// Blank is an empty line (kept so the printer can keep paragraphs).
+type Blank struct {
+	Range diag.Range
+}
+
+// Cell is "name [unit] = expr -- description @ reference".
+type Cell struct {
+	Name  Ident
+	Unit  *UnitSpec // nil when no display unit is written
+	Expr  Expr
+	Annot Annot
+	Range diag.Range // the whole cell, all its lines
+}
+
+// Param is a parameter of a user function: "name [unit]"; Unit may be nil
+// (a plain number).
+type Param struct {
+	Name Ident
+	Unit *UnitSpec
+}
+
+// FuncDef is a user function "name(p1 [unit], p2) [unit] = expr -- ...".
+type FuncDef struct {
+	Name   Ident
+	Params []Param
+	Unit   *UnitSpec // result display unit; nil if not written
+	Body   Expr
+	Annot  Annot
+	Range  diag.Range
+}
+
+// Check is "check name: demand <= capacity -- ... @ ...". Body holds the whole
+// comparison; the checker splits it at its top-level comparison operator.
+type Check struct {
+	Name  Ident
+	Body  Expr
+	Annot Annot
+	Range diag.Range
+}
+
+// Column is a table column header "name [unit]".
+type Column struct {
+	Name Ident
+	Unit *UnitSpec
+}
+
+// Literal is one table entry as written.
+type Literal struct {
+	Text  string
+	Range diag.Range
+}
+
+// Table is "table name -- ..." followed by an indented header row and
+// indented data rows.
+type Table struct {
+	Name    Ident
+	Annot   Annot
+	Columns []Column
+	Rows    [][]Literal
+	Range   diag.Range
+}
+
+// Use is "use name from "path" -- ..." followed by indented override cells.
+type Use struct {
+	Name      Ident
+	Path      string
+	PathRange diag.Range
+	Overrides []*Cell
+	Annot     Annot
+	Range     diag.Range
+}
+
+func (m *Meta) Span() diag.Range    { return m.Range }
+func (h *Heading) Span() diag.Range { return h.Range }
+func (c *Comment) Span() diag.Range { return c.Range }
+func (b *Blank) Span() diag.Range   { return b.Range }
+func (c *Cell) Span() diag.Range    { return c.Range }
+func (f *FuncDef) Span() diag.Range { return f.Range }
+func (c *Check) Span() diag.Range   { return c.Range }
+func (t *Table) Span() diag.Range   { return t.Range }
+func (u *Use) Span() diag.Range     { return u.Range }
