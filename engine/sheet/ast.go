@@ -9,6 +9,10 @@ type File struct {
 	Name  string // path as given, used in positions
 	Src   []byte
 	Items []Item
+	// Syntax holds the syntax problems Parse found (the same list it
+	// returns). Format refuses a file that has any, so that a broken sheet
+	// is never rewritten.
+	Syntax diag.List
 }
 
 // Item is one top-level construct: *Meta, *Heading, *Comment, *Blank, *Cell,

@@ -1,0 +1,144 @@
+package sheet
+
+import (
+	"fmt"
+	"sort"
+	"unicode"
+	"unicode/utf8"
+
+	"github.com/sheafcalc/sheaf/engine/diag"
+)
+
+// line is one physical line of the source: text[start:end] is its content
+// without the line break ("\n" or "\r\n").
+type line struct {
+	start, end int
+	indent     int  // bytes of leading spaces and tabs
+	blank      bool // only spaces and tabs (or unreadable, see bad)
+	bad        bool // holds invalid UTF-8 or a control character
+}
+
+// splitLines cuts text into lines, starting at offset from (past a BOM). It
+// reports invalid UTF-8 and control characters, one per line, and marks such
+// lines blank so that they end the item above instead of corrupting it.
+func (p *parser) splitLines(from int) {
+	text := p.text
+	n := 0
+	for i := from; i < len(text); i++ {
+		if text[i] == '\n' {
+			n++
+		}
+	}
+	p.lines = make([]line, 0, n+1)
+	start := from
+	for start < len(text) {
+		end := start
+		for end < len(text) && text[end] != '\n' {
+			end++
+		}
+		next := end + 1
+		if end > start && text[end-1] == '\r' {
+			end--
+		}
+		if len(p.lines) >= p.cfg.maxLines {
+			p.errorf(p.pos(start), p.pos(start),
+				fmt.Sprintf("a sheet may hold at most %d lines; the rest of the file is not read", p.cfg.maxLines),
+				"split the calculation into sheets that use one another, or raise the limit (MaxLines)",
+				"too many lines")
+			break
+		}
+		ln := line{start: start, end: end}
+		p.lines = append(p.lines, ln)
+		p.scanLine(&p.lines[len(p.lines)-1])
+		start = next
+	}
+}
+
+// scanLine measures indentation and checks the line's characters.
+func (p *parser) scanLine(ln *line) {
+	text := p.text
+	i := ln.start
+	for i < ln.end && (text[i] == ' ' || text[i] == '\t') {
+		i++
+	}
+	ln.indent = i - ln.start
+	ln.blank = i == ln.end
+	for j := i; j < ln.end; {
+		c := text[j]
+		if c >= 0x20 && c < 0x7f {
+			j++
+			continue
+		}
+		if c == '\t' {
+			j++
+			continue
+		}
+		r, size := utf8.DecodeRuneInString(text[j:ln.end])
+		if r == utf8.RuneError && size <= 1 {
+			p.errorf(p.pos(j), p.pos(j+1),
+				fmt.Sprintf("byte 0x%02x does not start a UTF-8 character", c),
+				"save the sheet as UTF-8 text",
+				"invalid UTF-8")
+			ln.bad, ln.blank = true, true
+			return
+		}
+		if unicode.IsControl(r) || r == '\uFEFF' {
+			p.errorf(p.pos(j), p.pos(j+size),
+				fmt.Sprintf("a sheet holds printable text, spaces, tabs and line breaks; U+%04X is none of these", r),
+				"delete the character (it may have come from a copy and paste)",
+				"unexpected control character U+%04X", r)
+			ln.bad, ln.blank = true, true
+			return
+		}
+		j += size
+	}
+}
+
+// pos converts a byte offset into a position: 1-based line, 1-based column
+// in runes (a tab is one column), and the offset itself.
+func (p *parser) pos(off int) diag.Pos {
+	li := sort.Search(len(p.lines), func(i int) bool { return p.lines[i].start > off }) - 1
+	if li < 0 {
+		// Before the first line (inside a BOM) or no lines split yet.
+		return diag.Pos{File: p.name, Line: 1, Col: 1 + utf8.RuneCountInString(p.text[min(p.bom, off):off]), Offset: off}
+	}
+	return p.posIn(li, off)
+}
+
+// posIn is pos when the line index is known.
+func (p *parser) posIn(li, off int) diag.Pos {
+	start := p.lines[li].start
+	if off < start {
+		off = start
+	}
+	col := 1
+	s := p.text[start:off]
+	ascii := true
+	for i := 0; i < len(s); i++ {
+		if s[i] >= utf8.RuneSelf {
+			ascii = false
+			break
+		}
+	}
+	if ascii {
+		col += len(s)
+	} else {
+		col += utf8.RuneCountInString(s)
+	}
+	return diag.Pos{File: p.name, Line: li + 1, Col: col, Offset: off}
+}
+
+// rng builds a range on line li from byte offsets.
+func (p *parser) rng(li, from, to int) diag.Range {
+	return diag.Range{Start: p.posIn(li, from), End: p.posIn(li, to)}
+}
+
+// errorf records a syntax error.
+func (p *parser) errorf(start, end diag.Pos, detail, hint, format string, args ...any) {
+	p.diags.Errorf(diag.Range{Start: start, End: end}, detail, hint, format, args...)
+}
+
+// errAt records a syntax error over a range.
+func (p *parser) errAt(r diag.Range, detail, hint, format string, args ...any) {
+	p.diags.Errorf(r, detail, hint, format, args...)
+}

@@ -1,0 +1,155 @@
+package sheet
+
+import (
+	"strings"
+
+	"github.com/sheafcalc/sheaf/engine/diag"
+)
+
+// metaKeys are the header keys, in their canonical order of mention.
+var metaKeys = []string{"title", "project", "basis", "author", "checker", "date", "revision", "units"}
+
+func isMetaKey(k string) bool {
+	for _, m := range metaKeys {
+		if m == k {
+			return true
+		}
+	}
+	return false
+}
+
+// parseHeading reads a section heading.
+//
+//	heading = "##" text .
+func (p *parser) parseHeading(i int) Item {
+	ln := p.lines[i]
+	a, b := trimSpan(p.text, ln.start+2, ln.end)
+	return &Heading{Text: p.text[a:b], Range: p.rng(i, ln.start, ln.end)}
+}
+
+// parseComment reads a full-line comment; its text is kept as written
+// (trailing spaces dropped).
+//
+//	comment = "#" text .
+func (p *parser) parseComment(i int) Item {
+	ln := p.lines[i]
+	_, b := trimSpan(p.text, ln.start+1, ln.end)
+	return &Comment{Text: p.text[ln.start+1 : max(b, ln.start+1)], Range: p.rng(i, ln.start, ln.end)}
+}
+
+// parseMeta reads a header line; colon is the offset of its ":".
+//
+//	meta = key ":" text .
+//	key  = "title" | "project" | "basis" | "author" | "checker" | "date" | "revision" | "units" .
+//
+// Header lines come before the first cell, check, table, use or heading;
+// comments and blank lines may mix with them.
+func (p *parser) parseMeta(i, keyEnd, colon int) Item {
+	ln := p.lines[i]
+	t := p.text
+	key := t[ln.start:keyEnd]
+	keyRange := p.rng(i, ln.start, keyEnd)
+	known := isMetaKey(key)
+	if !p.inHeader {
+		if known {
+			p.errAt(keyRange,
+				"header lines such as `"+key+":` describe the whole sheet and come before its first cell or heading",
+				"move the line to the top of the sheet",
+				"header line `%s:` after the first item", key)
+		} else {
+			p.errAt(diag.Range{Start: p.posIn(i, colon), End: p.posIn(i, colon+1)},
+				"a cell is defined with `=`: `"+key+" = expression`; `name:` is used only by header lines and checks",
+				"write `"+key+" = ...`, or `check "+key+": demand <= capacity` for a design check",
+				"unexpected `:` after `%s`", key)
+		}
+		return nil
+	}
+	if !known {
+		hint := "header keys are " + strings.Join(metaKeys, ", ") + "; to define a cell write `" + key + " = ...`"
+		if s := suggest(key, metaKeys); s != "" {
+			hint = "did you mean `" + s + ":`?"
+		}
+		p.errAt(keyRange, "expected one of the header keys "+strings.Join(metaKeys, ", "), hint,
+			"unknown header key `%s`", key)
+		return nil
+	}
+	a, b := trimSpan(t, colon+1, ln.end)
+	value := t[a:b]
+	if prev, dup := p.seenMeta[key]; dup {
+		p.errAt(keyRange,
+			"`"+key+":` is already given at line "+itoa(prev.Start.Line),
+			"keep one `"+key+":` line",
+			"duplicate header key `%s`", key)
+		return nil
+	}
+	if p.seenMeta == nil {
+		p.seenMeta = map[string]diag.Range{}
+	}
+	p.seenMeta[key] = keyRange
+	if value == "" {
+		p.errAt(keyRange, "a header line gives a value after its key", "write e.g. `"+key+": ...` with text after the colon, or delete the line",
+			"empty value for `%s:`", key)
+		return nil
+	}
+	if key == "units" && value != "metric" && value != "us" {
+		p.errAt(p.rng(i, a, b), "`units:` chooses the preferred display system: `metric` or `us`",
+			"write `units: metric` or `units: us`",
+			"unknown unit system `%s`", clip(value))
+		return nil
+	}
+	return &Meta{Key: Ident{Name: key, Range: keyRange}, Value: value, Range: p.rng(i, ln.start, ln.end)}
+}
+
+// itoa formats a small non-negative int without fmt.
+func itoa(n int) string {
+	if n == 0 {
+		return "0"
+	}
+	var b [20]byte
+	i := len(b)
+	for n > 0 {
+		i--
+		b[i] = byte('0' + n%10)
+		n /= 10
+	}
+	return string(b[i:])
+}
+
+// suggest returns the candidate closest to s by edit distance, if it is
+// close enough to be a likely slip (at most 2 edits, and fewer than half
+// the length), or "".
+func suggest(s string, candidates []string) string {
+	best, bestD := "", 3
+	for _, c := range candidates {
+		d := editDistance(strings.ToLower(s), c)
+		if d < bestD && d*2 < max(len([]rune(c)), 2)+1 {
+			best, bestD = c, d
+		}
+	}
+	return best
+}
+
+// editDistance is the Levenshtein distance over runes.
+func editDistance(a, b string) int {
+	ra, rb := []rune(a), []rune(b)
+	if len(ra) > 64 || len(rb) > 64 {
+		return 64
+	}
+	prev := make([]int, len(rb)+1)
+	cur := make([]int, len(rb)+1)
+	for j := range prev {
+		prev[j] = j
+	}
+	for i := 1; i <= len(ra); i++ {
+		cur[0] = i
+		for j := 1; j <= len(rb); j++ {
+			cost := 1
+			if ra[i-1] == rb[j-1] {
+				cost = 0
+			}
+			cur[j] = min(prev[j]+1, cur[j-1]+1, prev[j-1]+cost)
+		}
+		prev, cur = cur, prev
+	}
+	return prev[len(rb)]
+}

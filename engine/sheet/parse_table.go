@@ -1,0 +1,148 @@
+package sheet
+
+import (
+	"fmt"
+
+	"github.com/sheafcalc/sheaf/engine/diag"
+)
+
+// parseTable reads a table on lines [i, j).
+//
+//	table  = "table" name [ annotation ] newline header { row } .
+//	header = indent column { column } newline .
+//	column = name [ unit-spec ] .
+//	row    = indent number { number } newline .
+//
+// Entries are plain numbers in the unit of their column; they are separated
+// by spaces or tabs. A blank line or a line in column 1 ends the table.
+func (p *parser) parseTable(i, j int) Item {
+	ln := p.lines[i]
+	t := p.text
+	k := skipSpace(t, ln.start+len("table"), ln.end)
+	id, ok := p.readName(i, k, "table")
+	if id.Name == "" {
+		return nil
+	}
+	tb := &Table{Name: id, Range: diag.Range{Start: p.posIn(i, ln.start), End: p.posIn(j-1, p.lines[j-1].end)}}
+	k = skipSpace(t, k+len(id.Name), ln.end)
+	switch {
+	case k >= ln.end:
+	case k+1 < ln.end && t[k] == '-' && t[k+1] == '-':
+		tb.Annot = p.annot(i, k)
+	default:
+		p.errAt(p.rng(i, k, ln.end), "a table line holds only the table's name and an optional `-- description`; its columns follow on the next, indented line",
+			"e.g. `table segments -- bar segments` then `    L [m]  A [mm^2]`",
+			"unexpected `%s` after `table %s`", clip(t[k:ln.end]), id.Name)
+		ok = false
+	}
+	if j == i+1 {
+		p.errAt(id.Range, "a table needs an indented header row of columns, then indented rows of numbers",
+			"add a line such as `    L [m]  A [mm^2]` below `table "+id.Name+"`",
+			"table `%s` has no columns", id.Name)
+		return nil
+	}
+	if !p.tableHeader(i+1, tb) {
+		return nil
+	}
+	if j == i+2 {
+		p.errAt(id.Range, "the header row is followed by indented rows of plain numbers, one entry per column",
+			"add rows such as `    2.5  314`", "table `%s` has no rows", id.Name)
+		return nil
+	}
+	for li := i + 2; li < j; li++ {
+		if row, rok := p.tableRow(li, len(tb.Columns)); rok {
+			tb.Rows = append(tb.Rows, row)
+		} else {
+			ok = false
+		}
+	}
+	if !ok {
+		return nil
+	}
+	return tb
+}
+
+// tableHeader reads the columns of a table from line li.
+func (p *parser) tableHeader(li int, tb *Table) bool {
+	ln := p.lines[li]
+	t := p.text
+	k := ln.start + ln.indent
+	if c := t[k]; c == '+' || c == '-' || c == '.' || '0' <= c && c <= '9' {
+		p.errAt(p.rng(li, k, ln.end), "the first indented line of a table names its columns, with their units",
+			"add a header row above the numbers, e.g. `    L [m]  A [mm^2]`",
+			"table `%s` has no header row", tb.Name.Name)
+		return false
+	}
+	seen := map[string]bool{}
+	for k < ln.end {
+		id, ok := p.readName(li, k, "column")
+		if !ok {
+			return false
+		}
+		if seen[id.Name] {
+			p.errAt(id.Range, "each column of a table needs its own name", "rename one of the columns",
+				"duplicate column `%s` in table `%s`", id.Name, tb.Name.Name)
+			return false
+		}
+		seen[id.Name] = true
+		col := Column{Name: id}
+		k = skipSpace(t, k+len(id.Name), ln.end)
+		if k < ln.end && t[k] == '[' {
+			var uok bool
+			col.Unit, k, uok = p.unit(li, k)
+			if !uok {
+				return false
+			}
+			k = skipSpace(t, k, ln.end)
+		}
+		tb.Columns = append(tb.Columns, col)
+	}
+	return true
+}
+
+// tableRow reads one row of n plain numbers from line li.
+func (p *parser) tableRow(li, n int) ([]Literal, bool) {
+	ln := p.lines[li]
+	t := p.text
+	row := make([]Literal, 0, n)
+	for k := ln.start + ln.indent; k < ln.end; {
+		e := k
+		for e < ln.end && t[e] != ' ' && t[e] != '\t' {
+			e++
+		}
+		s := t[k:e]
+		if !isNumber(s) {
+			hint := "write the unit once in the column header, e.g. `L [m]`, and plain numbers in the rows"
+			if s == "-" || s == "+" {
+				hint = "write 0, or leave the row out"
+			}
+			p.errAt(p.rng(li, k, e), "table rows hold plain numbers such as `2.5`, `-40` or `2.1e5`, separated by spaces",
+				hint, "`%s` is not a number", clip(s))
+			return nil, false
+		}
+		row = append(row, Literal{Text: s, Range: p.rng(li, k, e)})
+		k = skipSpace(t, e, ln.end)
+	}
+	if len(row) != n {
+		p.errAt(p.rng(li, ln.start+ln.indent, ln.end),
+			fmt.Sprintf("each row has one entry per column; the header has %d column%s", n, plural(n)),
+			"add or remove entries so the row matches the header",
+			"row has %d entr%s, the table has %d column%s", len(row), pluralY(len(row)), n, plural(n))
+		return nil, false
+	}
+	return row, true
+}
+
+func plural(n int) string {
+	if n == 1 {
+		return ""
+	}
+	return "s"
+}
+
+func pluralY(n int) string {
+	if n == 1 {
+		return "y"
+	}
+	return "ies"
+}
