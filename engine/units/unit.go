@@ -1,0 +1,28 @@
+package units
+
+// Unit is a unit of measurement: how to write it, what it measures and how
+// large it is in SI.
+type Unit struct {
+	// Symbol is the canonical spelling, which Parse reads back to the same
+	// unit: ASCII operators (`*` for a product, `/` for a quotient, `^` for a
+	// power) around the SI letter symbols (`kN*m`, `N/mm^2`, `µm`).
+	Symbol string
+	// Dim is the physical dimension.
+	Dim Dim
+	// Factor is the SI value of one of this unit: 1 kN -> 1000.
+	Factor float64
+	// Quantity is what the unit measures in structural terms ("stress",
+	// "weight density"); empty when no name is known for the dimension.
+	Quantity string
+	// System is the practice the unit belongs to.
+	System System
+}
+
+// String returns the symbol.
+func (u Unit) String() string { return u.Symbol }
+
+// FromSI converts an SI value to a number of this unit.
+func (u Unit) FromSI(si float64) float64 { return si / u.Factor }
+
+// ToSI converts a number of this unit to SI.
+func (u Unit) ToSI(x float64) float64 { return x * u.Factor }
