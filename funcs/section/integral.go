@@ -60,8 +60,8 @@ func (q *integrator) eval(y, z float64) float64 {
 // f(s, z) ds, each edge contributes the integral over the strip between the
 // line y = y0 (the middle of the bounding box) and the edge; the strip is
 // mapped to the unit square and integrated with an 8×8 Gauss–Legendre
-// product rule, split into four cells where the rule and its refinement
-// disagree by more than the cell's share of the tolerance (A. Sommariva and
+// product rule, split into four cells, worst first, until the rule and its
+// refinement agree within the tolerance (A. Sommariva and
 // M. Vianello, "Product Gauss cubature over polygons based on Green's
 // integration formula", BIT Numer. Math. 47 (2007) 441–453, from memory).
 // Polynomials of degree ≤ 14 are integrated exactly at the first level. The
@@ -111,29 +111,144 @@ func Integrate(s *Shape, f Field, tol float64) (Result, error) {
 		return res, nil
 	}
 	absTol := tol * scale
-	for _, p := range pieces {
-		share := absTol * p.mag / scale
-		var v, e float64
-		var err error
-		if p.reg.Ann != nil {
-			v, e, err = q.annulus(p.reg.Ann, p.val, share)
-		} else {
-			v, e, err = q.adapt(p.reg.Ring, p.edge, p.y0, 0, 1, 0, 1, p.val, p.mag, share, 0)
+	// Globally adaptive: every piece becomes a cell with a coarse value and a
+	// refined one; the cell whose two values disagree most is split next,
+	// until the sum of the disagreements is within the tolerance. Refining
+	// the worst cell first also copes with a field that jumps inside the
+	// section, where each level only halves the error.
+	h := &cellHeap{}
+	total, errSum := 0.0, 0.0
+	push := func(c *cell) {
+		total += c.sign * c.fine
+		errSum += c.err
+		if !c.final {
+			h.push(c)
 		}
-		if q.bad != nil {
-			return Result{}, q.bad
-		}
-		if err != nil {
-			return Result{}, err
-		}
-		res.Value += p.reg.Sign * v
-		res.Err += e
 	}
-	res.Evals = q.evals
+	for _, p := range pieces {
+		if p.reg.Ann != nil {
+			push(q.annulusCell(p.reg.Ann, p.reg.Sign, 0, p.val))
+		} else {
+			push(q.stripCell(p.reg.Ring, p.edge, p.y0, p.reg.Sign, 0, 1, 0, 1, p.val, p.mag, 0))
+		}
+	}
+	for errSum > absTol && h.len() > 0 && q.evals < maxEvals && q.bad == nil {
+		c := h.pop()
+		total -= c.sign * c.fine
+		errSum -= c.err
+		for _, k := range q.split(c) {
+			push(k)
+		}
+	}
+	if q.bad != nil {
+		return Result{}, q.bad
+	}
+	res.Value, res.Err, res.Evals = total, math.Max(errSum, 0), q.evals
 	if res.Err > absTol {
 		return res, fmt.Errorf("section integral reached an estimated error of %.3g (relative %.3g), not the requested %g; the field may jump or be singular inside the section, or ask for a looser tolerance", res.Err, res.Err/scale, tol)
 	}
 	return res, nil
+}
+
+// cell is a piece of the integral with a coarse and a refined value.
+type cell struct {
+	sign      float64
+	ring      *Ring // strip cell of edge e, or nil for an annulus level
+	edge      int
+	y0        float64
+	t0, t1    float64
+	u0, u1    float64
+	ann       *Annulus
+	level     int
+	fine, err float64
+	sub       [4]float64 // strip: values and magnitudes of the four children
+	subMag    [4]float64
+	final     bool // refining cannot help (rounding floor or depth limit)
+}
+
+const (
+	maxDepth        = 20
+	maxAnnulusLevel = 9
+	roundFloor      = 64 * 0x1p-52
+)
+
+// stripCell evaluates the four children of a strip cell whose own value is
+// coarse, and returns it with the refined value and its error estimate
+// |refined − coarse| (conservative: the refined value is the more accurate).
+func (q *integrator) stripCell(r *Ring, e int, y0, sign, t0, t1, u0, u1, coarse, mag float64, depth int) *cell {
+	c := &cell{sign: sign, ring: r, edge: e, y0: y0, t0: t0, t1: t1, u0: u0, u1: u1, level: depth}
+	tm, um := (t0+t1)/2, (u0+u1)/2
+	c.sub[0], c.subMag[0] = q.strip(r, e, y0, t0, tm, u0, um)
+	c.sub[1], c.subMag[1] = q.strip(r, e, y0, tm, t1, u0, um)
+	c.sub[2], c.subMag[2] = q.strip(r, e, y0, t0, tm, um, u1)
+	c.sub[3], c.subMag[3] = q.strip(r, e, y0, tm, t1, um, u1)
+	c.fine = c.sub[0] + c.sub[1] + c.sub[2] + c.sub[3]
+	c.err = math.Abs(c.fine - coarse)
+	floor := roundFloor * (c.subMag[0] + c.subMag[1] + c.subMag[2] + c.subMag[3])
+	c.final = c.err <= floor || depth >= maxDepth
+	return c
+}
+
+func (q *integrator) annulusCell(a *Annulus, sign float64, k int, coarse float64) *cell {
+	v, m := q.annulusLevel(a, k+1)
+	c := &cell{sign: sign, ann: a, level: k + 1, fine: v, err: math.Abs(v - coarse)}
+	c.final = c.err <= roundFloor*m || k+1 >= maxAnnulusLevel
+	return c
+}
+
+// split refines a cell: a strip cell into its four children, an annulus into
+// the next level.
+func (q *integrator) split(c *cell) []*cell {
+	if c.ann != nil {
+		return []*cell{q.annulusCell(c.ann, c.sign, c.level, c.fine)}
+	}
+	tm, um := (c.t0+c.t1)/2, (c.u0+c.u1)/2
+	boxes := [4][4]float64{{c.t0, tm, c.u0, um}, {tm, c.t1, c.u0, um}, {c.t0, tm, um, c.u1}, {tm, c.t1, um, c.u1}}
+	out := make([]*cell, 4)
+	for k, b := range boxes {
+		out[k] = q.stripCell(c.ring, c.edge, c.y0, c.sign, b[0], b[1], b[2], b[3], c.sub[k], c.subMag[k], c.level+1)
+	}
+	return out
+}
+
+// cellHeap is a max-heap of cells by error estimate.
+type cellHeap struct{ s []*cell }
+
+func (h *cellHeap) len() int { return len(h.s) }
+
+func (h *cellHeap) push(c *cell) {
+	h.s = append(h.s, c)
+	i := len(h.s) - 1
+	for i > 0 {
+		p := (i - 1) / 2
+		if h.s[p].err >= h.s[i].err {
+			break
+		}
+		h.s[p], h.s[i] = h.s[i], h.s[p]
+		i = p
+	}
+}
+
+func (h *cellHeap) pop() *cell {
+	top := h.s[0]
+	n := len(h.s) - 1
+	h.s[0] = h.s[n]
+	h.s = h.s[:n]
+	i := 0
+	for {
+		l, r, m := 2*i+1, 2*i+2, i
+		if l < n && h.s[l].err > h.s[m].err {
+			m = l
+		}
+		if r < n && h.s[r].err > h.s[m].err {
+			m = r
+		}
+		if m == i {
+			return top
+		}
+		h.s[i], h.s[m] = h.s[m], h.s[i]
+		i = m
+	}
 }
 
 // strip integrates the Green strip of edge e over the cell [t0,t1]×[u0,u1] of
@@ -170,42 +285,6 @@ func (q *integrator) strip(r *Ring, e int, y0, t0, t1, u0, u1 float64) (float64,
 	return sum * area, mag * area
 }
 
-const maxDepth = 14
-
-// adapt refines a strip cell into four until the children agree with the
-// parent within tol; the error estimate is the sum of |children − parent|
-// over the accepted cells (conservative: the children are more accurate).
-func (q *integrator) adapt(r *Ring, e int, y0, t0, t1, u0, u1, whole, mag, tol float64, depth int) (float64, float64, error) {
-	tm, um := (t0+t1)/2, (u0+u1)/2
-	var v [4]float64
-	var m [4]float64
-	v[0], m[0] = q.strip(r, e, y0, t0, tm, u0, um)
-	v[1], m[1] = q.strip(r, e, y0, tm, t1, u0, um)
-	v[2], m[2] = q.strip(r, e, y0, t0, tm, um, u1)
-	v[3], m[3] = q.strip(r, e, y0, tm, t1, um, u1)
-	sum := v[0] + v[1] + v[2] + v[3]
-	diff := math.Abs(sum - whole)
-	// Rounding in the sums sets a floor below which refining cannot help.
-	floor := 64 * 0x1p-52 * (m[0] + m[1] + m[2] + m[3])
-	if diff <= tol || diff <= floor || q.bad != nil {
-		return sum, diff, nil
-	}
-	if depth >= maxDepth || q.evals > maxEvals {
-		return sum, diff, nil // Integrate reports the shortfall
-	}
-	total, errSum := 0.0, 0.0
-	cells := [4][4]float64{{t0, tm, u0, um}, {tm, t1, u0, um}, {t0, tm, um, u1}, {tm, t1, um, u1}}
-	for k, c := range cells {
-		cv, ce, err := q.adapt(r, e, y0, c[0], c[1], c[2], c[3], v[k], m[k], tol/4, depth+1)
-		if err != nil {
-			return 0, 0, err
-		}
-		total += cv
-		errSum += ce
-	}
-	return total, errSum, nil
-}
-
 // annulusLevel integrates over an annulus with 16·2^k points in angle and 2^k
 // Gauss cells of 8 points in radius; it returns the value and magnitude.
 func (q *integrator) annulusLevel(a *Annulus, k int) (float64, float64) {
@@ -232,19 +311,6 @@ func (q *integrator) annulusLevel(a *Annulus, k int) (float64, float64) {
 		}
 	}
 	return sum, mag
-}
-
-const maxAnnulusLevel = 8
-
-func (q *integrator) annulus(a *Annulus, prev, tol float64) (float64, float64, error) {
-	for k := 1; ; k++ {
-		v, m := q.annulusLevel(a, k)
-		diff := math.Abs(v - prev)
-		if diff <= tol || diff <= 64*0x1p-52*m || q.bad != nil || k == maxAnnulusLevel {
-			return v, diff, nil
-		}
-		prev = v
-	}
 }
 
 // ErrNoShape is returned when a section value carries no shape.

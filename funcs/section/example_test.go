@@ -1,0 +1,32 @@
+package section_test
+
+import (
+	"fmt"
+
+	"github.com/sheafcalc/sheaf/funcs/section"
+)
+
+// A 219.1 × 10 mm tube: exact area and second moment.
+func ExampleCHS() {
+	s, err := section.CHS(0.2191, 0.010)
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	p := s.Props()
+	fmt.Printf("A = %.1f mm², I = %.4g mm⁴\n", p.A*1e6, p.Iy*1e12)
+	// Output: A = 6569.1 mm², I = 3.598e+07 mm⁴
+}
+
+// ∫ E dA of a modulus that grows linearly over the height of a rectangle.
+func ExampleIntegrate() {
+	s, _ := section.Rect(0.3, 0.5)
+	e := func(y, z float64) float64 { return 30e9 * (1 + (z+0.25)/0.5) }
+	r, err := section.Integrate(s, e, 1e-10)
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	fmt.Printf("EA = %.4g N\n", r.Value)
+	// Output: EA = 6.75e+09 N
+}
