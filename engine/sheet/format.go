@@ -12,10 +12,12 @@ import (
 //   - header values aligned after their keys (`title:   ...`);
 //   - runs of blank lines collapsed to one, none at the start or the end,
 //     and exactly one blank line before each heading;
-//   - in each run of consecutive cells and functions (not parted by a blank
-//     line, comment or heading) the `[unit]`, `=` and `--` columns aligned;
-//     in each run of checks the `--` column aligned; at least two spaces
-//     before `--`, one space around `=` and `@`;
+//   - in each run of consecutive cells (not parted by a blank line, comment,
+//     heading or item of another kind) the `[unit]`, `=` and `--` columns
+//     aligned; runs of functions likewise, apart from cells (a long
+//     parameter list would push every cell's `=` far right); in each run of
+//     checks the `--` column aligned; at least two spaces before `--`, one
+//     space around `=` and `@`;
 //   - continuation lines of an expression indented four spaces past their
 //     item, keeping their indentation relative to one another;
 //   - table columns right-aligned (numbers line up on their last digit),
@@ -56,19 +58,28 @@ func Format(f *File) ([]byte, error) {
 			pr.start()
 			pr.line(pad(it.Key.Name+":", pr.metaWidth) + " " + it.Value)
 			i++
-		case *Cell, *FuncDef:
+		case *Cell:
 			j := i
 			var run []defRow
 			for ; j < len(items); j++ {
-				switch d := items[j].(type) {
-				case *Cell:
-					run = append(run, cellRow(d))
-					continue
-				case *FuncDef:
-					run = append(run, funcRow(d))
-					continue
+				c, ok := items[j].(*Cell)
+				if !ok {
+					break
 				}
-				break
+				run = append(run, cellRow(c))
+			}
+			pr.start()
+			pr.defs(run, "")
+			i = j
+		case *FuncDef:
+			j := i
+			var run []defRow
+			for ; j < len(items); j++ {
+				d, ok := items[j].(*FuncDef)
+				if !ok {
+					break
+				}
+				run = append(run, funcRow(d))
 			}
 			pr.start()
 			pr.defs(run, "")
