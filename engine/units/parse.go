@@ -137,8 +137,8 @@ func (p *parser) product(after string) (term, error) {
 			t.sym += "*" + f.sym
 		case r == '/' || r == ')':
 			return t, nil
-		case r == '.':
-			return t, &Error{Offset: p.pos, End: p.pos + 1, Msg: "unexpected `.` in a unit",
+		case r == '.' || r == '-':
+			return t, &Error{Offset: p.pos, End: p.pos + 1, Msg: fmt.Sprintf("unexpected `%c` in a unit", r),
 				Hint: "write a product as `kN*m` or `kN·m`"}
 		case isNameStart(r) || isDigit(r) || r == '(':
 			end := p.pos + size
@@ -336,7 +336,7 @@ func superscriptDigit(r rune) int {
 // doubled, so a half is exact.
 func (p *parser) exponent(opStart int) (int, error) {
 	bad := func(end int) error {
-		return &Error{Offset: opStart, End: max(end, opStart+1),
+		return &Error{Offset: opStart, End: max(min(end, len(p.text)), opStart+1),
 			Msg:  "expected an exponent after `" + p.text[opStart:opStart+opLen(p.text[opStart:])] + "`",
 			Hint: "write a whole number such as `^2` or `^-1`, or a half such as `^0.5` or `^(1/2)`"}
 	}

@@ -1,5 +1,7 @@
 package units
 
+import "fmt"
+
 // Unit is a unit of measurement: how to write it, what it measures and how
 // large it is in SI.
 type Unit struct {
@@ -26,3 +28,12 @@ func (u Unit) FromSI(si float64) float64 { return si / u.Factor }
 
 // ToSI converts a number of this unit to SI.
 func (u Unit) ToSI(x float64) float64 { return x * u.Factor }
+
+// Convert converts x from unit from to unit to. It fails when the two units
+// measure different dimensions, naming both.
+func Convert(x float64, from, to Unit) (float64, error) {
+	if from.Dim != to.Dim {
+		return 0, fmt.Errorf("cannot convert `%s` (%s) to `%s` (%s)", from.Symbol, from.Dim, to.Symbol, to.Dim)
+	}
+	return x * from.Factor / to.Factor, nil
+}
