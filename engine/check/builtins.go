@@ -1,0 +1,332 @@
+package check
+
+import (
+	"fmt"
+	"math"
+
+	"github.com/sheafcalc/sheaf/engine/units"
+	"github.com/sheafcalc/sheaf/funcs"
+)
+
+// Builtin names a built-in function. Each has a dimension rule, written
+// beside it in builtinRules.
+type Builtin uint8
+
+const (
+	BNone Builtin = iota
+	BSqrt
+	BCbrt
+	BAbs
+	BMin
+	BMax
+	BPow
+	BExp
+	BLn
+	BLog10
+	BSin
+	BCos
+	BTan
+	BAsin
+	BAcos
+	BAtan
+	BAtan2
+	BHypot
+	BRound
+	BFloor
+	BCeil
+	BInterp
+	BSum
+	BMean
+	BLen
+)
+
+// BuiltinInfo documents a built-in for messages and `sheaf funcs`.
+type BuiltinInfo struct {
+	ID   Builtin
+	Name string
+	Sig  string // signature as shown to users
+	Rule string // the dimension rule
+}
+
+// Builtins lists the built-in functions in the order `sheaf funcs` shows them.
+var Builtins = []BuiltinInfo{
+	{BSqrt, "sqrt", "sqrt(x)", "result dimension is half of x's: sqrt(mm^2) is mm"},
+	{BCbrt, "cbrt", "cbrt(x)", "result dimension is a third of x's: cbrt(m^3) is m"},
+	{BAbs, "abs", "abs(x)", "same dimension as x"},
+	{BMin, "min", "min(a, b, ...) or min(list)", "all arguments of one dimension; the result has it"},
+	{BMax, "max", "max(a, b, ...) or max(list)", "all arguments of one dimension; the result has it"},
+	{BPow, "pow", "pow(x, n)", "n is a constant number; the result dimension is x's to the n (halves allowed)"},
+	{BExp, "exp", "exp(x)", "x is a plain number; the result is a plain number"},
+	{BLn, "ln", "ln(x)", "x is a plain number; normalise first, e.g. ln(t / (1 s))"},
+	{BLog10, "log10", "log10(x)", "x is a plain number"},
+	{BSin, "sin", "sin(angle)", "an angle (plain number in radians; write 30 deg for degrees)"},
+	{BCos, "cos", "cos(angle)", "an angle (plain number in radians; write 30 deg for degrees)"},
+	{BTan, "tan", "tan(angle)", "an angle (plain number in radians; write 30 deg for degrees)"},
+	{BAsin, "asin", "asin(x)", "x is a plain number; the result is an angle in radians"},
+	{BAcos, "acos", "acos(x)", "x is a plain number; the result is an angle in radians"},
+	{BAtan, "atan", "atan(x)", "x is a plain number; the result is an angle in radians"},
+	{BAtan2, "atan2", "atan2(y, x)", "y and x of one dimension; the result is an angle in radians"},
+	{BHypot, "hypot", "hypot(a, b, ...)", "all arguments of one dimension; the result has it"},
+	{BRound, "round", "round(x, step) or round(x)", "x and step of one dimension; round(x) needs a plain number"},
+	{BFloor, "floor", "floor(x)", "x is a plain number"},
+	{BCeil, "ceil", "ceil(x)", "x is a plain number"},
+	{BInterp, "interp", "interp(xs, ys, x)", "xs a list of dimension A, ys a list of dimension B, x of dimension A; the result has B. Linear; outside xs is an error, not an extrapolation"},
+	{BSum, "sum", "sum(list)", "the dimension of the list's numbers"},
+	{BMean, "mean", "mean(list)", "the dimension of the list's numbers"},
+	{BLen, "len", "len(list)", "a plain number"},
+}
+
+var builtinByName = func() map[string]BuiltinInfo {
+	m := map[string]BuiltinInfo{}
+	for _, b := range Builtins {
+		m[b.Name] = b
+	}
+	return m
+}()
+
+// Constants built into the language.
+var Constants = map[string]float64{
+	"pi":  math.Pi,
+	"g_n": 9.80665, // standard acceleration of gravity, exact (CGPM 1901; NIST SP 811 (2008) App. B)
+}
+
+// IsReserved reports whether name may not be used for a cell.
+func IsReserved(name string) bool {
+	switch name {
+	case "check", "table", "use", "from", "true", "false", "and", "or", "not", "nil", "let", "in", "if", "else":
+		return true
+	}
+	_, c := Constants[name]
+	_, b := builtinByName[name]
+	return c || b
+}
+
+var numNone = funcs.Num(units.None)
+
+// builtinType applies the dimension rule of b to the argument nodes. It
+// returns the result type or a problem (summary, hint) and the index of the
+// offending argument (-1 for the call as a whole).
+func (t *typer) builtinType(b BuiltinInfo, args []*Node) (*funcs.Type, *argProblem) {
+	n := len(args)
+	arity := func(lo, hi int) *argProblem {
+		if n >= lo && (hi < 0 || n <= hi) {
+			return nil
+		}
+		want := fmt.Sprintf("%d", lo)
+		if hi < 0 {
+			want = fmt.Sprintf("at least %d", lo)
+		} else if hi != lo {
+			want = fmt.Sprintf("%d or %d", lo, hi)
+		}
+		return &argProblem{-1, fmt.Sprintf("%s takes %s argument%s, got %d", b.Name, want, plural(lo), n), "write " + b.Sig}
+	}
+	num := func(i int) *argProblem {
+		if args[i].Type.Kind != funcs.Number {
+			return &argProblem{i, fmt.Sprintf("%s needs a number, got %s", b.Name, t.describeType(args[i].Type)), "write " + b.Sig}
+		}
+		return nil
+	}
+	plain := func(i int) *argProblem {
+		if p := num(i); p != nil {
+			return p
+		}
+		if !args[i].Type.Dim.IsNone() {
+			return &argProblem{i, fmt.Sprintf("%s needs a plain number, got %s", b.Name, t.describeDim(args[i].Type.Dim)),
+				"divide by a unit to normalise, e.g. " + b.Name + "(x / (1 " + t.unitOf(args[i].Type.Dim) + "))"}
+		}
+		return nil
+	}
+	list := func(i int) *argProblem {
+		if args[i].Type.Kind != funcs.List || args[i].Type.Elem.Kind != funcs.Number {
+			return &argProblem{i, fmt.Sprintf("%s needs a list of numbers, got %s", b.Name, t.describeType(args[i].Type)), "write " + b.Sig + ", e.g. a table column `tbl.L` or `[1 m, 2 m]`"}
+		}
+		return nil
+	}
+	same := func(from int) (*funcs.Type, *argProblem) {
+		for i := from; i < n; i++ {
+			if p := num(i); p != nil {
+				return nil, p
+			}
+			if args[i].Type.Dim != args[from].Type.Dim {
+				return nil, &argProblem{i, fmt.Sprintf("%s needs arguments of one dimension: %s and %s", b.Name, t.describeDim(args[from].Type.Dim), t.describeDim(args[i].Type.Dim)), "convert both to the same kind of quantity"}
+			}
+		}
+		return funcs.Num(args[from].Type.Dim), nil
+	}
+	switch b.ID {
+	case BSqrt, BCbrt:
+		if p := arity(1, 1); p != nil {
+			return nil, p
+		}
+		if p := num(0); p != nil {
+			return nil, p
+		}
+		den := 2
+		if b.ID == BCbrt {
+			den = 3
+		}
+		d, ok := args[0].Type.Dim.Pow(1, den)
+		if !ok {
+			return nil, &argProblem{0, fmt.Sprintf("%s of %s has no dimension Sheaf can write", b.Name, t.describeDim(args[0].Type.Dim)), "normalise first, e.g. " + b.Name + "(x / (1 " + t.unitOf(args[0].Type.Dim) + "))"}
+		}
+		return funcs.Num(d), nil
+	case BAbs:
+		if p := arity(1, 1); p != nil {
+			return nil, p
+		}
+		return same(0)
+	case BMin, BMax:
+		if n == 1 {
+			if p := list(0); p != nil {
+				return nil, p
+			}
+			return funcs.Num(args[0].Type.Elem.Dim), nil
+		}
+		if p := arity(2, -1); p != nil {
+			return nil, p
+		}
+		return same(0)
+	case BHypot:
+		if p := arity(2, -1); p != nil {
+			return nil, p
+		}
+		return same(0)
+	case BPow:
+		if p := arity(2, 2); p != nil {
+			return nil, p
+		}
+		return t.powType(args[0], args[1], b.Name)
+	case BExp, BLn, BLog10, BSin, BCos, BTan, BAsin, BAcos, BAtan, BFloor, BCeil:
+		if p := arity(1, 1); p != nil {
+			return nil, p
+		}
+		if p := plain(0); p != nil {
+			return nil, p
+		}
+		return numNone, nil
+	case BAtan2:
+		if p := arity(2, 2); p != nil {
+			return nil, p
+		}
+		if _, p := same(0); p != nil {
+			return nil, p
+		}
+		return numNone, nil
+	case BRound:
+		if p := arity(1, 2); p != nil {
+			return nil, p
+		}
+		if n == 1 {
+			if p := plain(0); p != nil {
+				p.hint = "round to a step of the same unit: round(x, 5 mm)"
+				return nil, p
+			}
+			return numNone, nil
+		}
+		return same(0)
+	case BInterp:
+		if p := arity(3, 3); p != nil {
+			return nil, p
+		}
+		for i := 0; i < 2; i++ {
+			if p := list(i); p != nil {
+				return nil, p
+			}
+		}
+		if p := num(2); p != nil {
+			return nil, p
+		}
+		if args[2].Type.Dim != args[0].Type.Elem.Dim {
+			return nil, &argProblem{2, fmt.Sprintf("interp looks up %s in a list of %s", t.describeDim(args[2].Type.Dim), t.describeDim(args[0].Type.Elem.Dim)), "x must have the dimension of xs"}
+		}
+		return funcs.Num(args[1].Type.Elem.Dim), nil
+	case BSum, BMean:
+		if p := arity(1, 1); p != nil {
+			return nil, p
+		}
+		if p := list(0); p != nil {
+			return nil, p
+		}
+		return funcs.Num(args[0].Type.Elem.Dim), nil
+	case BLen:
+		if p := arity(1, 1); p != nil {
+			return nil, p
+		}
+		if args[0].Type.Kind != funcs.List {
+			return nil, &argProblem{0, "len needs a list, got " + t.describeType(args[0].Type), "write len(xs)"}
+		}
+		return numNone, nil
+	}
+	return nil, &argProblem{-1, "unknown built-in " + b.Name, ""}
+}
+
+type argProblem struct {
+	arg     int
+	summary string
+	hint    string
+}
+
+func plural(n int) string {
+	if n == 1 {
+		return ""
+	}
+	return "s"
+}
+
+// powType is the rule of x^n and pow(x, n): with a dimensioned x, n must be
+// a constant whose value is a fraction with a small denominator.
+func (t *typer) powType(x, e *Node, what string) (*funcs.Type, *argProblem) {
+	if x.Type.Kind != funcs.Number || e.Type.Kind != funcs.Number {
+		return nil, &argProblem{-1, what + " needs numbers", ""}
+	}
+	if !e.Type.Dim.IsNone() {
+		return nil, &argProblem{1, "an exponent must be a plain number, got " + t.describeDim(e.Type.Dim), "normalise the exponent"}
+	}
+	if x.Type.Dim.IsNone() {
+		return numNone, nil
+	}
+	v, ok := fold(e)
+	if !ok {
+		return nil, &argProblem{1, "the exponent of " + t.describeDim(x.Type.Dim) + " must be a constant", "write a number such as 2 or 0.5; to use a computed exponent, normalise the base first: (x / (1 " + t.unitOf(x.Type.Dim) + "))^n"}
+	}
+	for den := 1; den <= 12; den++ {
+		num := v * float64(den)
+		if math.Abs(num-math.Round(num)) < 1e-9 && math.Abs(num) < 1000 {
+			if d, ok := x.Type.Dim.Pow(int(math.Round(num)), den); ok {
+				return funcs.Num(d), nil
+			}
+			break
+		}
+	}
+	return nil, &argProblem{1, fmt.Sprintf("%s to the power %g has no dimension Sheaf can write", t.describeDim(x.Type.Dim), v), "use whole or half powers, or normalise the base"}
+}
+
+// fold evaluates a constant plain-number expression.
+func fold(n *Node) (float64, bool) {
+	switch n.Op {
+	case OpConst:
+		return n.Num, n.Type.Dim.IsNone()
+	case OpNeg:
+		v, ok := fold(n.Args[0])
+		return -v, ok
+	case OpAdd, OpSub, OpMul, OpDiv:
+		a, ok1 := fold(n.Args[0])
+		b, ok2 := fold(n.Args[1])
+		if !ok1 || !ok2 {
+			return 0, false
+		}
+		switch n.Op {
+		case OpAdd:
+			return a + b, true
+		case OpSub:
+			return a - b, true
+		case OpMul:
+			return a * b, true
+		}
+		if b == 0 {
+			return 0, false
+		}
+		return a / b, true
+	}
+	return 0, false
+}

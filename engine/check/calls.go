@@ -1,0 +1,152 @@
+package check
+
+import (
+	"fmt"
+
+	"github.com/expr-lang/expr/ast"
+
+	"github.com/sheafcalc/sheaf/funcs"
+)
+
+// call types a call of name with args: a user function of the sheet, a
+// built-in, or a plugin function from the registry, in that order.
+func (t *typer) call(n ast.Node, name string, argNodes []ast.Node) *Node {
+	if i, ok := t.c.prog.ByName[name]; ok {
+		fn := t.c.prog.Cells[i]
+		if fn.Kind != Function {
+			return t.fail(n, "`"+name+"` is a cell, not a function", "only functions of the sheet, built-ins and plugin functions can be called", "")
+		}
+		if fn.Type == nil {
+			return nil
+		}
+		return t.userCall(n, i, fn, argNodes)
+	}
+	if b, ok := builtinByName[name]; ok {
+		args := t.args(argNodes)
+		if args == nil {
+			return nil
+		}
+		ty, p := t.builtinType(b, args)
+		if p != nil {
+			at := n
+			if p.arg >= 0 {
+				at = argNodes[p.arg]
+			}
+			return t.fail(at, p.summary, "the rule of "+b.Name+": "+b.Rule, p.hint)
+		}
+		r := t.node(n, OpBuiltin, ty, args...)
+		r.Builtin = b.ID
+		r.Str = b.Name
+		return r
+	}
+	if def, ok := funcs.Lookup(name); ok {
+		return t.pluginCall(n, def, argNodes)
+	}
+	if _, ok := Constants[name]; ok {
+		return t.fail(n, "`"+name+"` is a constant, not a function", "", "")
+	}
+	return t.undefined(n, name)
+}
+
+// args types every argument; nil if any failed.
+func (t *typer) args(argNodes []ast.Node) []*Node {
+	args := make([]*Node, len(argNodes))
+	ok := true
+	for i, a := range argNodes {
+		args[i] = t.expr(a)
+		ok = ok && args[i] != nil
+	}
+	if !ok {
+		return nil
+	}
+	return args
+}
+
+func (t *typer) userCall(n ast.Node, idx int, fn *Cell, argNodes []ast.Node) *Node {
+	if len(argNodes) != len(fn.Params) {
+		return t.fail(n, fmt.Sprintf("%s takes %d argument%s, got %d", fn.Name, len(fn.Params), plural(len(fn.Params)), len(argNodes)),
+			"the function is defined at "+fn.Pos.String(), "write "+fn.Name+"("+paramList(fn)+")")
+	}
+	args := t.args(argNodes)
+	if args == nil {
+		return nil
+	}
+	for i, a := range args {
+		p := fn.Params[i]
+		if !p.Type.Accepts(a.Type) {
+			return t.fail(argNodes[i], fmt.Sprintf("argument %s of %s must be %s, got %s", p.Name, fn.Name, t.describeType(p.Type), t.describeType(a.Type)),
+				"the function is defined at "+fn.Pos.String(), "")
+		}
+	}
+	r := t.node(n, OpUser, fn.Type.Result, args...)
+	r.Index = idx
+	r.Str = fn.Name
+	return r
+}
+
+func (t *typer) pluginCall(n ast.Node, def *funcs.Def, argNodes []ast.Node) *Node {
+	lo, hi := def.MinArgs(), len(def.Params)
+	if len(argNodes) < lo || (len(argNodes) > hi && def.Validate == nil) {
+		want := fmt.Sprintf("%d", hi)
+		if lo != hi {
+			want = fmt.Sprintf("%d to %d", lo, hi)
+		}
+		return t.fail(n, fmt.Sprintf("%s takes %s argument%s, got %d", def.Name, want, plural(hi), len(argNodes)), def.Summary, "see `sheaf funcs "+def.Name+"`")
+	}
+	args := make([]*Node, len(argNodes))
+	types := make([]*funcs.Type, len(argNodes))
+	ok := true
+	for i, a := range argNodes {
+		var p *funcs.Param
+		if i < len(def.Params) {
+			p = &def.Params[i]
+		}
+		// A bare name of a user function passed where a function is
+		// expected becomes a function value.
+		if id, isID := a.(*ast.IdentifierNode); isID && p != nil && p.Type.Kind == funcs.Func {
+			if j, found := t.c.prog.ByName[id.Value]; found && t.c.prog.Cells[j].Kind == Function {
+				fn := t.c.prog.Cells[j]
+				if fn.Type == nil {
+					return nil
+				}
+				r := t.node(a, OpFuncRef, fn.Type)
+				r.Index = j
+				r.Str = fn.Name
+				args[i], types[i] = r, fn.Type
+				if !p.Type.Accepts(fn.Type) {
+					t.fail(a, fmt.Sprintf("%s of %s must be %s, got %s", p.Name, def.Name, p.Type.String(), fn.Type.String()), p.Doc, "")
+					ok = false
+				}
+				continue
+			}
+		}
+		x := t.expr(a)
+		if x == nil {
+			ok = false
+			continue
+		}
+		args[i], types[i] = x, x.Type
+		if p != nil && !p.Type.Accepts(x.Type) {
+			t.fail(a, fmt.Sprintf("%s of %s must be %s, got %s", p.Name, def.Name, t.describeType(p.Type), t.describeType(x.Type)), p.Doc, "see `sheaf funcs "+def.Name+"`")
+			ok = false
+		}
+	}
+	if !ok {
+		return nil
+	}
+	res := def.Result
+	if def.Validate != nil {
+		ty, err := def.Validate(types)
+		if err != nil {
+			return t.fail(n, def.Name+": "+err.Error(), def.Summary, "see `sheaf funcs "+def.Name+"`")
+		}
+		res = ty
+	}
+	if res == nil {
+		return t.fail(n, def.Name+" returns nothing", "", "")
+	}
+	r := t.node(n, OpPlugin, res, args...)
+	r.Def = def
+	r.Str = def.Name
+	return r
+}

@@ -1,0 +1,472 @@
+package check
+
+import (
+	"fmt"
+	"runtime"
+	"strconv"
+	"strings"
+	"sync"
+
+	"github.com/expr-lang/expr/ast"
+
+	"github.com/sheafcalc/sheaf/engine/diag"
+	"github.com/sheafcalc/sheaf/engine/formula"
+	"github.com/sheafcalc/sheaf/engine/sheet"
+	"github.com/sheafcalc/sheaf/engine/units"
+	"github.com/sheafcalc/sheaf/funcs"
+)
+
+// Options limit and steer checking.
+type Options struct {
+	MaxCells  int          // 0 means DefaultMaxCells
+	MaxDepth  int          // expression nesting; 0 means formula.DefaultMaxDepth
+	System    units.System // preferred units in messages; Neutral means the sheet's own
+	HasSystem bool
+}
+
+// DefaultMaxCells is the default limit on the number of cells of a sheet.
+const DefaultMaxCells = 1_000_000
+
+type checker struct {
+	prog *Program
+	opt  Options
+	errs diag.List
+	// per cell: the syntax tree to type (nil when none)
+	names []string
+}
+
+// Sheet resolves and types the parsed sheet f. It always returns a
+// Program (possibly with untyped cells); the list holds every problem.
+func Sheet(f *sheet.File, opt Options) (*Program, diag.List) {
+	if opt.MaxCells <= 0 {
+		opt.MaxCells = DefaultMaxCells
+	}
+	c := &checker{prog: &Program{File: f, ByName: map[string]int{}}, opt: opt}
+	c.collect()
+	if len(c.prog.Cells) > opt.MaxCells {
+		c.errs.Errorf(c.prog.Cells[opt.MaxCells].Range, fmt.Sprintf("a sheet may hold at most %d cells; this one has %d", opt.MaxCells, len(c.prog.Cells)),
+			"split the calculation into sheets, or raise the limit", "too many cells")
+		c.errs.Sort()
+		return c.prog, c.errs
+	}
+	c.parseAll()
+	c.resolve()
+	c.order()
+	c.typeAll()
+	c.errs.Sort()
+	return c.prog, c.errs
+}
+
+// collect reads the items into cells, the header into Meta, and reports
+// duplicate and reserved names.
+func (c *checker) collect() {
+	p := c.prog
+	section := ""
+	p.Meta.System = units.Metric
+	for _, it := range p.File.Items {
+		var cell *Cell
+		switch it := it.(type) {
+		case *sheet.Meta:
+			c.meta(it)
+			continue
+		case *sheet.Heading:
+			section = it.Text
+			continue
+		case *sheet.Cell:
+			cell = &Cell{Name: it.Name.Name, Kind: Derived, NameRange: it.Name.Range, Range: it.Range,
+				Expr: it.Expr.Text, Description: it.Annot.Description, Reference: it.Annot.Reference}
+			c.displayUnit(cell, it.Unit)
+			cell.Formula = &formula.Formula{Source: it.Expr}
+		case *sheet.FuncDef:
+			cell = &Cell{Name: it.Name.Name, Kind: Function, NameRange: it.Name.Range, Range: it.Range,
+				Expr: it.Body.Text, Description: it.Annot.Description, Reference: it.Annot.Reference}
+			c.displayUnit(cell, it.Unit)
+			for _, prm := range it.Params {
+				q := Param{Name: prm.Name.Name, Type: numNone}
+				if prm.Unit != nil {
+					u, err := units.Parse(prm.Unit.Text)
+					if err != nil {
+						c.unitErr(prm.Unit, err)
+					} else {
+						q.Unit, q.Type = u, funcs.Num(u.Dim)
+					}
+				}
+				for _, o := range cell.Params {
+					if o.Name == q.Name {
+						c.errs.Errorf(prm.Name.Range, "each parameter needs its own name", "", "parameter `%s` is written twice", q.Name)
+					}
+				}
+				cell.Params = append(cell.Params, q)
+			}
+			cell.Formula = &formula.Formula{Source: it.Body}
+		case *sheet.Check:
+			cell = &Cell{Name: it.Name.Name, Kind: Check, NameRange: it.Name.Range, Range: it.Range,
+				Expr: it.Body.Text, Description: it.Annot.Description, Reference: it.Annot.Reference}
+			cell.Formula = &formula.Formula{Source: it.Body}
+		case *sheet.Table:
+			cell = &Cell{Name: it.Name.Name, Kind: Table, NameRange: it.Name.Range, Range: it.Range,
+				Description: it.Annot.Description, Reference: it.Annot.Reference}
+			c.table(cell, it)
+		case *sheet.Use:
+			c.errs.Errorf(it.Range, "this build of Sheaf cannot read templates yet", "copy the cells of the template into this sheet", "`use` is not available")
+			continue
+		default:
+			continue
+		}
+		cell.Section = section
+		cell.Pos = cell.NameRange.Start
+		if IsReserved(cell.Name) {
+			c.errs.Errorf(cell.NameRange, "built-in names, constants and keywords cannot be redefined", "choose another name, e.g. `"+cell.Name+"_1`", "`%s` is a reserved name", cell.Name)
+		}
+		if strings.HasPrefix(cell.Name, formula.SyntheticPrefix) {
+			c.errs.Errorf(cell.NameRange, "Sheaf uses such names for quantity literals", "rename the cell", "names starting with `%s` are reserved", formula.SyntheticPrefix)
+		}
+		if j, dup := p.ByName[cell.Name]; dup {
+			first := p.Cells[j]
+			c.errs.Errorf(cell.NameRange, "`"+cell.Name+"` is first defined at "+first.Pos.String()+"; each name names one cell",
+				"rename one of them", "`%s` is defined twice", cell.Name)
+			continue
+		}
+		cell.Index = len(p.Cells)
+		p.ByName[cell.Name] = cell.Index
+		p.Cells = append(p.Cells, cell)
+	}
+}
+
+func (c *checker) meta(m *sheet.Meta) {
+	md := &c.prog.Meta
+	switch m.Key.Name {
+	case "title":
+		md.Title = m.Value
+	case "project":
+		md.Project = m.Value
+	case "basis":
+		md.Basis = m.Value
+	case "author":
+		md.Author = m.Value
+	case "checker":
+		md.Checker = m.Value
+	case "date":
+		md.Date = m.Value
+	case "revision":
+		md.Revision = m.Value
+	case "units":
+		md.Units = m.Value
+		switch m.Value {
+		case "us":
+			md.System = units.US
+		case "metric":
+			md.System = units.Metric
+		}
+	}
+}
+
+func (c *checker) unitErr(u *sheet.UnitSpec, err error) {
+	d := &diag.Diagnostic{Range: u.Range, Summary: err.Error(), Detail: "units are written as in `kN`, `N/mm^2`, `kN/m`, `1/K`"}
+	if ue, ok := err.(*units.Error); ok {
+		d.Summary, d.Hint = ue.Msg, ue.Hint
+		if ue.End > ue.Offset && ue.End <= len(u.Text) {
+			e := sheet.Expr{Text: u.Text, Range: u.Range}
+			d.Range = e.RangeAt(ue.Offset, ue.End)
+		}
+	}
+	c.errs.Add(d)
+}
+
+func (c *checker) displayUnit(cell *Cell, u *sheet.UnitSpec) {
+	if u == nil {
+		return
+	}
+	parsed, err := units.Parse(u.Text)
+	if err != nil {
+		c.unitErr(u, err)
+		return
+	}
+	parsed.Symbol = u.Text
+	cell.Unit, cell.HasUnit = parsed, true
+}
+
+// table converts the rows of a table to SI columns.
+func (c *checker) table(cell *Cell, t *sheet.Table) {
+	ty := &funcs.Type{Kind: funcs.Table, Name: ""}
+	factors := make([]float64, len(t.Columns))
+	ok := true
+	for i, col := range t.Columns {
+		d, f := units.None, 1.0
+		if col.Unit != nil {
+			u, err := units.Parse(col.Unit.Text)
+			if err != nil {
+				c.unitErr(col.Unit, err)
+				ok = false
+			} else {
+				d, f = u.Dim, u.Factor
+			}
+		}
+		for _, o := range ty.Fields {
+			if o.Name == col.Name.Name {
+				c.errs.Errorf(col.Name.Range, "each column needs its own name", "", "column `%s` is written twice", col.Name.Name)
+				ok = false
+			}
+		}
+		ty.Fields = append(ty.Fields, funcs.Field{Name: col.Name.Name, Type: funcs.Num(d)})
+		factors[i] = f
+	}
+	if len(t.Columns) == 0 {
+		c.errs.Errorf(t.Name.Range, "a table needs an indented header row such as `L [m]  A [mm^2]`", "", "table `%s` has no columns", t.Name.Name)
+		ok = false
+	}
+	val := &funcs.TableValue{Type: ty, Cols: make([][]float64, len(t.Columns))}
+	for _, row := range t.Rows {
+		for i, lit := range row {
+			if i >= len(val.Cols) {
+				break
+			}
+			v, err := strconv.ParseFloat(strings.ReplaceAll(lit.Text, "_", ""), 64)
+			if err != nil {
+				c.errs.Errorf(lit.Range, "table entries are plain numbers in the unit of their column", "write e.g. 2.75 or 12e-6", "`%s` is not a number", lit.Text)
+				ok = false
+				continue
+			}
+			val.Cols[i] = append(val.Cols[i], v*factors[i])
+		}
+	}
+	if ok {
+		cell.Type, cell.Table = ty, val
+	}
+}
+
+// parseAll parses every formula, in parallel for large sheets: expr-lang's
+// parser dominates the cost of loading.
+func (c *checker) parseAll() {
+	cells := c.prog.Cells
+	lists := make([]diag.List, len(cells))
+	opt := formula.Options{MaxDepth: c.opt.MaxDepth}
+	work := func(lo, hi int) {
+		for i := lo; i < hi; i++ {
+			cell := cells[i]
+			if cell.Formula == nil {
+				continue
+			}
+			f, errs := formula.Parse(cell.Formula.Source, opt)
+			cell.Formula = f
+			lists[i] = errs
+		}
+	}
+	n := len(cells)
+	workers := min(runtime.GOMAXPROCS(0), 8)
+	if n < 2000 || workers < 2 {
+		work(0, n)
+	} else {
+		var wg sync.WaitGroup
+		chunk := (n + workers - 1) / workers
+		for lo := 0; lo < n; lo += chunk {
+			wg.Add(1)
+			go func(lo, hi int) {
+				defer wg.Done()
+				work(lo, hi)
+			}(lo, min(lo+chunk, n))
+		}
+		wg.Wait()
+	}
+	for i, l := range lists {
+		c.errs = append(c.errs, l...)
+		if l.HasErrors() {
+			cells[i].Formula = nil
+			cells[i].Type = nil
+		}
+	}
+}
+
+// resolve finds the dependencies of every cell and decides inputs.
+func (c *checker) resolve() {
+	p := c.prog
+	for _, cell := range p.Cells {
+		if cell.Formula == nil {
+			continue
+		}
+		seen := map[int]bool{}
+		for _, r := range cell.Formula.Refs {
+			if isParam(cell, r.Name) {
+				continue
+			}
+			j, ok := p.ByName[r.Name]
+			if !ok || seen[j] {
+				continue
+			}
+			seen[j] = true
+			cell.DepIdx = append(cell.DepIdx, j)
+			cell.Deps = append(cell.Deps, r.Name)
+		}
+		if cell.Kind == Derived && len(cell.DepIdx) == 0 {
+			cell.Kind = Input
+		}
+	}
+	p.Users = make([][]int, len(p.Cells))
+	for i, cell := range p.Cells {
+		for _, j := range cell.DepIdx {
+			p.Users[j] = append(p.Users[j], i)
+		}
+	}
+}
+
+func isParam(cell *Cell, name string) bool {
+	for _, p := range cell.Params {
+		if p.Name == name {
+			return true
+		}
+	}
+	return false
+}
+
+// suggest returns the known name nearest to name, or "".
+func (c *checker) suggest(name string) string {
+	if c.names == nil {
+		for _, cell := range c.prog.Cells {
+			c.names = append(c.names, cell.Name)
+		}
+		for _, b := range Builtins {
+			c.names = append(c.names, b.Name)
+		}
+		for k := range Constants {
+			c.names = append(c.names, k)
+		}
+		for _, d := range funcs.All() {
+			c.names = append(c.names, d.Name)
+		}
+	}
+	return nearest(name, c.names)
+}
+
+// typeAll types every cell in topological order, so that each cell's
+// dependencies are typed before it.
+func (c *checker) typeAll() {
+	sys := c.prog.Meta.System
+	if c.opt.HasSystem {
+		sys = c.opt.System
+	}
+	for _, i := range c.prog.Order {
+		cell := c.prog.Cells[i]
+		if cell.Formula == nil || cell.Formula.Tree == nil || cell.Kind == Table {
+			continue
+		}
+		blocked := false
+		for _, j := range cell.DepIdx {
+			if c.prog.Cells[j].Type == nil {
+				blocked = true
+			}
+		}
+		t := &typer{c: c, f: cell.Formula, cell: cell, params: cell.Params, system: sys, errs: &c.errs}
+		if blocked {
+			// A dependency failed: type anyway to find this cell's own
+			// problems, but leave the cell untyped (its users stay silent).
+			t.errs = new(diag.List)
+		}
+		switch cell.Kind {
+		case Check:
+			c.typeCheck(t, cell)
+		case Function:
+			body := t.expr(cell.Formula.Tree)
+			if body == nil {
+				continue
+			}
+			if !c.fitsUnit(t, cell, body) {
+				continue
+			}
+			ps := make([]*funcs.Type, len(cell.Params))
+			for k, p := range cell.Params {
+				ps[k] = p.Type
+			}
+			cell.Body = body
+			cell.Type = funcs.FuncOf(body.Type, ps...)
+		default:
+			body := t.expr(cell.Formula.Tree)
+			if body == nil || !c.fitsUnit(t, cell, body) {
+				continue
+			}
+			cell.Body, cell.Type = body, body.Type
+		}
+		if blocked {
+			cell.Type = nil
+		}
+	}
+}
+
+// fitsUnit reports whether the display unit fits the expression.
+func (c *checker) fitsUnit(t *typer, cell *Cell, body *Node) bool {
+	if !cell.HasUnit {
+		return true
+	}
+	if body.Type.Kind != funcs.Number {
+		t.errs.Errorf(cell.Formula.Source.Range, "a display unit applies to a number", "remove [`"+cell.Unit.Symbol+"`]",
+			"display unit %s given for %s", cell.Unit.Symbol, t.describeType(body.Type))
+		return false
+	}
+	if body.Type.Dim != cell.Unit.Dim {
+		what := t.describeDim(cell.Unit.Dim)
+		if cell.Unit.Quantity != "" {
+			what = cell.Unit.Quantity
+		}
+		t.errs.Errorf(cell.Formula.Source.Range,
+			"the unit in brackets sets how the value is shown and must have the dimension of the expression",
+			"write the unit of the result, e.g. ["+t.unitOf(body.Type.Dim)+"], or correct the formula",
+			"display unit %s is %s but the expression is %s", cell.Unit.Symbol, article(what), t.describeDim(body.Type.Dim))
+		return false
+	}
+	return true
+}
+
+func article(s string) string {
+	if strings.HasPrefix(s, "a ") || s == "" {
+		return s
+	}
+	if strings.ContainsRune("aeiou", rune(s[0])) {
+		return "an " + s
+	}
+	return "a " + s
+}
+
+// typeCheck splits a check at its top-level comparison.
+func (c *checker) typeCheck(t *typer, cell *Cell) {
+	b, ok := cell.Formula.Tree.(*ast.BinaryNode)
+	if !ok || (b.Operator != "<=" && b.Operator != ">=" && b.Operator != "<" && b.Operator != ">") {
+		t.errs.Errorf(cell.Formula.Source.Range, "a check compares a demand with a capacity", "write `check name: demand <= capacity` or `capacity >= demand`",
+			"check `%s` needs `<=` or `>=` at the top", cell.Name)
+		return
+	}
+	l, r := t.expr(b.Left), t.expr(b.Right)
+	if l == nil || r == nil {
+		return
+	}
+	if l.Type.Kind != funcs.Number || r.Type.Kind != funcs.Number {
+		t.fail(b, "a check compares two numbers", "", "")
+		return
+	}
+	if l.Type.Dim != r.Type.Dim {
+		t.fail(b, fmt.Sprintf("cannot compare %s with %s", t.describeDim(l.Type.Dim), t.describeDim(r.Type.Dim)),
+			"the demand and the capacity of a check must be the same kind of quantity", "check the units of the two sides")
+		return
+	}
+	cell.Op = b.Operator
+	if b.Operator == "<=" || b.Operator == "<" {
+		cell.Demand, cell.Capacity = l, r
+	} else {
+		cell.Demand, cell.Capacity = r, l
+	}
+	cell.Type = numNone
+}
+
+// TypeValue types a stand-alone value such as an override `45 kN`: a
+// formula that may use literals, constants and built-ins but no cell.
+func (p *Program) TypeValue(f *formula.Formula, sys units.System) (*Node, diag.List) {
+	var errs diag.List
+	for _, r := range f.Refs {
+		if _, ok := p.ByName[r.Name]; ok {
+			errs.Errorf(r.Range, "a value given for an input is a quantity such as `45 kN`", "", "a value cannot refer to the cell `%s`", r.Name)
+			return nil, errs
+		}
+	}
+	c := &checker{prog: &Program{ByName: map[string]int{}}}
+	t := &typer{c: c, f: f, system: sys, errs: &errs}
+	n := t.expr(f.Tree)
+	return n, errs
+}

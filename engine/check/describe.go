@@ -1,0 +1,97 @@
+package check
+
+import (
+	"github.com/sheafcalc/sheaf/engine/units"
+	"github.com/sheafcalc/sheaf/funcs"
+)
+
+// describeDim renders a dimension for a message as a quantity and its
+// preferred unit, e.g. "force (kN)", falling back to SI base units.
+func (t *typer) describeDim(d units.Dim) string {
+	if d.IsNone() {
+		return "a plain number"
+	}
+	u, ok := units.Preferred(d, t.system)
+	if !ok {
+		return "a quantity in " + siSymbol(d)
+	}
+	if u.Quantity != "" {
+		return u.Quantity + " (" + u.Symbol + ")"
+	}
+	return "a quantity in " + u.Symbol
+}
+
+// unitOf names a unit of dimension d for hints.
+func (t *typer) unitOf(d units.Dim) string {
+	if u, ok := units.Preferred(d, t.system); ok {
+		return u.Symbol
+	}
+	return siSymbol(d)
+}
+
+var siNames = [...]string{"m", "kg", "s", "A", "K", "mol", "cd"}
+
+// siSymbol writes d in SI base units, e.g. "kg*m^-1*s^-2".
+func siSymbol(d units.Dim) string {
+	s := ""
+	for i, e := range d {
+		if e == 0 {
+			continue
+		}
+		if s != "" {
+			s += "*"
+		}
+		s += siNames[i]
+		switch {
+		case e == 2:
+		case e%2 == 0:
+			s += "^" + itoa(int(e)/2)
+		default:
+			s += "^(" + itoa(int(e)) + "/2)"
+		}
+	}
+	if s == "" {
+		return "1"
+	}
+	return s
+}
+
+func itoa(n int) string {
+	if n < 0 {
+		return "-" + itoa(-n)
+	}
+	if n < 10 {
+		return string(rune('0' + n))
+	}
+	return itoa(n/10) + string(rune('0'+n%10))
+}
+
+// describeType renders a type for a message, with dimensions as units.
+func (t *typer) describeType(ty *funcs.Type) string {
+	if ty == nil {
+		return "nothing"
+	}
+	switch ty.Kind {
+	case funcs.Number:
+		return t.describeDim(ty.Dim)
+	case funcs.List:
+		if ty.Elem != nil && ty.Elem.Kind == funcs.Number {
+			return "a list of " + t.describeDim(ty.Elem.Dim)
+		}
+		return "a list"
+	case funcs.Record:
+		if ty.Name != "" {
+			return "a " + ty.Name + " record"
+		}
+		return "a record"
+	case funcs.Table:
+		return "a table"
+	case funcs.Bool:
+		return "a yes/no value (a comparison)"
+	case funcs.String:
+		return "text"
+	case funcs.Func:
+		return "a function"
+	}
+	return ty.Kind.String()
+}

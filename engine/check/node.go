@@ -1,0 +1,55 @@
+package check
+
+import (
+	"github.com/sheafcalc/sheaf/engine/diag"
+	"github.com/sheafcalc/sheaf/funcs"
+)
+
+// Op is the operation of a typed node.
+type Op uint8
+
+const (
+	OpConst   Op = iota // Num
+	OpBool              // Num != 0
+	OpString            // Str
+	OpCell              // value of cell Index
+	OpParam             // parameter Index of the enclosing user function
+	OpNeg               // -Args[0]
+	OpNot               // not Args[0]
+	OpAdd               // Args[0] + Args[1]
+	OpSub               // Args[0] - Args[1]
+	OpMul               // Args[0] * Args[1]
+	OpDiv               // Args[0] / Args[1]
+	OpPow               // Args[0] ^ Args[1]
+	OpLT                // comparisons of numbers
+	OpLE                //
+	OpGT                //
+	OpGE                //
+	OpEQ                //
+	OpNE                //
+	OpAnd               // Args[0] and Args[1]
+	OpOr                // Args[0] or Args[1]
+	OpCond              // Args[0] ? Args[1] : Args[2]
+	OpBuiltin           // built-in Builtin applied to Args
+	OpPlugin            // plugin Def applied to Args
+	OpUser              // user function cell Index applied to Args
+	OpFuncRef           // user function cell Index as a function value
+	OpField             // field Index of record Args[0]
+	OpColumn            // column Index of table Args[0], as a list
+	OpIndex             // Args[0][Args[1]]
+	OpList              // [Args...]
+	OpRecord            // {Str[i]: Args[i]}; field names in Type.Fields
+)
+
+// Node is a typed expression: the checker's output, the evaluator's input.
+type Node struct {
+	Op      Op
+	Type    *funcs.Type
+	Num     float64
+	Str     string
+	Index   int
+	Builtin Builtin
+	Def     *funcs.Def
+	Args    []*Node
+	Range   diag.Range // the source text of the node, for runtime messages
+}

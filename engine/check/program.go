@@ -1,0 +1,90 @@
+package check
+
+import (
+	"github.com/sheafcalc/sheaf/engine/diag"
+	"github.com/sheafcalc/sheaf/engine/formula"
+	"github.com/sheafcalc/sheaf/engine/sheet"
+	"github.com/sheafcalc/sheaf/engine/units"
+	"github.com/sheafcalc/sheaf/funcs"
+)
+
+// Kind says what a cell is.
+type Kind uint8
+
+const (
+	Input    Kind = iota // its expression refers to no other cell: may be overridden
+	Derived              // computed from other cells
+	Check                // a design check: demand against capacity
+	Function             // a user function with parameters
+	Table                // a table of numbers with unit-bearing columns
+)
+
+var kindNames = [...]string{"input", "derived", "check", "function", "table"}
+
+func (k Kind) String() string { return kindNames[k] }
+
+// Meta is the header of a sheet.
+type Meta struct {
+	Title, Project, Basis, Author, Checker, Date, Revision string
+	Units                                                  string       // "metric", "us" or "" as written
+	System                                                 units.System // from Units; Metric when not written
+}
+
+// Cell is one named item of a sheet: an input, a derived cell, a check, a
+// user function or a table.
+type Cell struct {
+	Name        string
+	Kind        Kind
+	Index       int    // position in Program.Cells (reading order)
+	Section     string // text of the heading above it, "" before the first
+	Description string
+	Reference   string
+	Expr        string     // the expression as written ("" for a table)
+	Unit        units.Unit // display unit; Symbol as written; zero when none
+	HasUnit     bool       // a display unit was written
+	Type        *funcs.Type
+	Pos         diag.Pos   // where the name is
+	Range       diag.Range // the whole item
+	NameRange   diag.Range
+	Deps        []string // names of the cells it uses, in order of first use
+	DepIdx      []int    // the same as indices into Program.Cells
+	Formula     *formula.Formula
+
+	// Body is the typed tree of the value (Input, Derived, Function).
+	Body *Node
+	// Check cells: the two sides and the operator as written ("<=" or ">=").
+	Demand, Capacity *Node
+	Op               string
+	// Function cells: the parameters.
+	Params []Param
+	// Table cells: the value, in SI.
+	Table *funcs.TableValue
+}
+
+// Param is a parameter of a user function.
+type Param struct {
+	Name string
+	Unit units.Unit // declared unit (zero for a plain number)
+	Type *funcs.Type
+}
+
+// Program is a checked sheet.
+type Program struct {
+	File   *sheet.File
+	Meta   Meta
+	Cells  []*Cell
+	ByName map[string]int
+	// Order lists every cell index in a topological order of the
+	// dependency graph (dependencies first; reading order between equals).
+	Order []int
+	// Users are the reverse edges: Users[i] lists the cells that use cell i.
+	Users [][]int
+}
+
+// Lookup returns the named cell or nil.
+func (p *Program) Lookup(name string) *Cell {
+	if i, ok := p.ByName[name]; ok {
+		return p.Cells[i]
+	}
+	return nil
+}

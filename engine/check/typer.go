@@ -1,0 +1,350 @@
+package check
+
+import (
+	"fmt"
+	"slices"
+
+	"github.com/expr-lang/expr/ast"
+
+	"github.com/sheafcalc/sheaf/engine/diag"
+	"github.com/sheafcalc/sheaf/engine/formula"
+	"github.com/sheafcalc/sheaf/engine/units"
+	"github.com/sheafcalc/sheaf/funcs"
+)
+
+// typer types one formula.
+type typer struct {
+	c      *checker
+	f      *formula.Formula
+	cell   *Cell
+	params []Param // of the user function being typed
+	system units.System
+	errs   *diag.List
+}
+
+func (t *typer) fail(n ast.Node, summary, detail, hint string) *Node {
+	t.errs.Add(&diag.Diagnostic{Range: t.f.Range(n), Summary: summary, Detail: detail, Hint: hint})
+	return nil
+}
+
+func (t *typer) node(n ast.Node, op Op, ty *funcs.Type, args ...*Node) *Node {
+	return &Node{Op: op, Type: ty, Args: args, Range: t.f.Range(n)}
+}
+
+// expr types n. It returns nil after reporting a problem, or silently when
+// a cell it uses has failed (one mistake, one message).
+func (t *typer) expr(n ast.Node) *Node {
+	switch n := n.(type) {
+	case *ast.IntegerNode:
+		r := t.node(n, OpConst, numNone)
+		r.Num = float64(n.Value)
+		return r
+	case *ast.FloatNode:
+		r := t.node(n, OpConst, numNone)
+		r.Num = n.Value
+		return r
+	case *ast.BoolNode:
+		r := t.node(n, OpBool, funcs.BoolType)
+		if n.Value {
+			r.Num = 1
+		}
+		return r
+	case *ast.StringNode:
+		r := t.node(n, OpString, funcs.StringType)
+		r.Str = n.Value
+		return r
+	case *ast.IdentifierNode:
+		return t.ident(n)
+	case *ast.UnaryNode:
+		x := t.expr(n.Node)
+		if x == nil {
+			return nil
+		}
+		if n.Operator == "not" || n.Operator == "!" {
+			if x.Type.Kind != funcs.Bool {
+				return t.fail(n, "`not` needs a comparison, got "+t.describeType(x.Type), "", "")
+			}
+			return t.node(n, OpNot, funcs.BoolType, x)
+		}
+		if x.Type.Kind != funcs.Number {
+			return t.fail(n, "cannot negate "+t.describeType(x.Type), "", "")
+		}
+		if n.Operator == "+" {
+			return x
+		}
+		return t.node(n, OpNeg, x.Type, x)
+	case *ast.BinaryNode:
+		return t.binary(n)
+	case *ast.ConditionalNode:
+		c, a, b := t.expr(n.Cond), t.expr(n.Exp1), t.expr(n.Exp2)
+		if c == nil || a == nil || b == nil {
+			return nil
+		}
+		if c.Type.Kind != funcs.Bool {
+			return t.fail(n.Cond, "the condition of `? :` must be a comparison, got "+t.describeType(c.Type), "", "write e.g. `N > 0 ? a : b`")
+		}
+		if !sameType(a.Type, b.Type) {
+			return t.fail(n, fmt.Sprintf("the two choices of `? :` differ: %s and %s", t.describeType(a.Type), t.describeType(b.Type)), "both results of a choice must be the same kind of quantity", "")
+		}
+		return t.node(n, OpCond, a.Type, c, a, b)
+	case *ast.MemberNode:
+		return t.member(n)
+	case *ast.CallNode:
+		name := n.Callee.(*ast.IdentifierNode).Value
+		return t.call(n, name, n.Arguments)
+	case *ast.BuiltinNode:
+		return t.call(n, n.Name, n.Arguments)
+	case *ast.ArrayNode:
+		return t.list(n)
+	case *ast.MapNode:
+		return t.record(n)
+	case *ast.ChainNode:
+		return t.expr(n.Node)
+	}
+	return t.fail(n, "this construct is not part of the sheet language", "", "")
+}
+
+func sameType(a, b *funcs.Type) bool {
+	if a.Kind != b.Kind {
+		return false
+	}
+	if a.Kind == funcs.Number {
+		return a.Dim == b.Dim
+	}
+	return a.Accepts(b) && b.Accepts(a)
+}
+
+func (t *typer) ident(n *ast.IdentifierNode) *Node {
+	if q, ok := t.f.Quantity(n); ok {
+		if q.Unit.Factor == 0 {
+			return nil // the unit was reported already
+		}
+		r := t.node(n, OpConst, funcs.Num(q.Unit.Dim))
+		r.Num = q.SI
+		return r
+	}
+	name := n.Value
+	for i, p := range t.params {
+		if p.Name == name {
+			r := t.node(n, OpParam, p.Type)
+			r.Index = i
+			return r
+		}
+	}
+	if i, ok := t.c.prog.ByName[name]; ok {
+		dep := t.c.prog.Cells[i]
+		if dep.Kind == Function {
+			if dep.Type == nil {
+				return nil
+			}
+			return t.fail(n, "`"+name+"` is a function and needs arguments", "", "call it: "+name+"("+paramList(dep)+")")
+		}
+		if dep.Type == nil {
+			return nil // failed or in a cycle: reported there
+		}
+		r := t.node(n, OpCell, dep.Type)
+		r.Index = i
+		return r
+	}
+	if v, ok := Constants[name]; ok {
+		r := t.node(n, OpConst, numNone)
+		r.Num = v
+		return r
+	}
+	if _, ok := builtinByName[name]; ok {
+		return t.fail(n, "`"+name+"` is a function and needs arguments", "", "write "+builtinByName[name].Sig)
+	}
+	if _, ok := funcs.Lookup(name); ok {
+		return t.fail(n, "`"+name+"` is a function and needs arguments", "", "see `sheaf funcs` for its parameters")
+	}
+	return t.undefined(n, name)
+}
+
+func paramList(c *Cell) string {
+	s := ""
+	for i, p := range c.Params {
+		if i > 0 {
+			s += ", "
+		}
+		s += p.Name
+	}
+	return s
+}
+
+func (t *typer) undefined(n ast.Node, name string) *Node {
+	hint := ""
+	if s := t.c.suggest(name); s != "" {
+		hint = "did you mean `" + s + "`?"
+	}
+	return t.fail(n, "undefined name `"+name+"`", "no cell, function or constant of that name is defined in this sheet", hint)
+}
+
+var cmpOps = map[string]Op{"<": OpLT, "<=": OpLE, ">": OpGT, ">=": OpGE, "==": OpEQ, "!=": OpNE}
+
+func (t *typer) binary(n *ast.BinaryNode) *Node {
+	a, b := t.expr(n.Left), t.expr(n.Right)
+	if a == nil || b == nil {
+		return nil
+	}
+	op := n.Operator
+	switch op {
+	case "and", "&&", "or", "||":
+		if a.Type.Kind != funcs.Bool || b.Type.Kind != funcs.Bool {
+			return t.fail(n, "`"+op+"` joins comparisons", "both sides must be comparisons such as `a < b`", "")
+		}
+		if op == "and" || op == "&&" {
+			return t.node(n, OpAnd, funcs.BoolType, a, b)
+		}
+		return t.node(n, OpOr, funcs.BoolType, a, b)
+	}
+	if a.Type.Kind != funcs.Number || b.Type.Kind != funcs.Number {
+		bad := a
+		if a.Type.Kind == funcs.Number {
+			bad = b
+		}
+		hint := ""
+		if bad.Type.Kind == funcs.Record {
+			hint = "pick a field, e.g. `mat.E`"
+		} else if bad.Type.Kind == funcs.List || bad.Type.Kind == funcs.Table {
+			hint = "reduce the list first, e.g. sum(xs) or max(xs), or pick one element xs[0]"
+		}
+		return t.fail(n, fmt.Sprintf("`%s` needs numbers, got %s", op, t.describeType(bad.Type)), "arithmetic and comparisons work on numbers with units", hint)
+	}
+	da, db := a.Type.Dim, b.Type.Dim
+	switch op {
+	case "+", "-":
+		if da != db {
+			verb := "add"
+			if op == "-" {
+				verb = "subtract"
+			}
+			return t.fail(n, fmt.Sprintf("cannot %s %s and %s", verb, t.describeDim(da), t.describeDim(db)),
+				"both sides of + and - must be the same kind of quantity", "check the units of the two sides")
+		}
+		if op == "+" {
+			return t.node(n, OpAdd, a.Type, a, b)
+		}
+		return t.node(n, OpSub, a.Type, a, b)
+	case "*":
+		return t.node(n, OpMul, funcs.Num(da.Mul(db)), a, b)
+	case "/":
+		return t.node(n, OpDiv, funcs.Num(da.Div(db)), a, b)
+	case "^", "**":
+		ty, p := t.powType(a, b, "`^`")
+		if p != nil {
+			at := n.Right
+			if p.arg < 0 {
+				at = n
+			}
+			return t.fail(at, p.summary, "", p.hint)
+		}
+		return t.node(n, OpPow, ty, a, b)
+	}
+	if o, ok := cmpOps[op]; ok {
+		if da != db {
+			return t.fail(n, fmt.Sprintf("cannot compare %s with %s", t.describeDim(da), t.describeDim(db)),
+				"both sides of a comparison must be the same kind of quantity", "check the units of the two sides")
+		}
+		return t.node(n, o, funcs.BoolType, a, b)
+	}
+	return t.fail(n, "operator `"+op+"` is not part of the sheet language", "", "")
+}
+
+func (t *typer) member(n *ast.MemberNode) *Node {
+	x := t.expr(n.Node)
+	if x == nil {
+		return nil
+	}
+	if s, ok := n.Property.(*ast.StringNode); ok {
+		field := s.Value
+		switch x.Type.Kind {
+		case funcs.Record, funcs.Table:
+			i := x.Type.Field(field)
+			if i < 0 {
+				names := make([]string, len(x.Type.Fields))
+				for j, f := range x.Type.Fields {
+					names[j] = f.Name
+				}
+				hint := "its fields are: " + join(names)
+				if s := nearest(field, names); s != "" {
+					hint = "did you mean `" + s + "`?"
+				}
+				what := "record"
+				if x.Type.Kind == funcs.Table {
+					what = "table"
+				}
+				return t.fail(n.Property, fmt.Sprintf("%s has no field `%s`", what, field), "", hint)
+			}
+			if x.Type.Kind == funcs.Table {
+				r := t.node(n, OpColumn, funcs.ListOf(x.Type.Fields[i].Type), x)
+				r.Index = i
+				return r
+			}
+			r := t.node(n, OpField, x.Type.Fields[i].Type, x)
+			r.Index = i
+			return r
+		}
+		return t.fail(n, "`."+field+"` needs a record or a table, got "+t.describeType(x.Type), "", "")
+	}
+	i := t.expr(n.Property)
+	if i == nil {
+		return nil
+	}
+	if x.Type.Kind != funcs.List {
+		return t.fail(n, "indexing `[i]` needs a list, got "+t.describeType(x.Type), "", "")
+	}
+	if i.Type.Kind != funcs.Number || !i.Type.Dim.IsNone() {
+		return t.fail(n.Property, "an index must be a plain number, got "+t.describeType(i.Type), "", "the first element is xs[0]")
+	}
+	return t.node(n, OpIndex, x.Type.Elem, x, i)
+}
+
+func join(xs []string) string {
+	s := ""
+	for i, x := range xs {
+		if i > 0 {
+			s += ", "
+		}
+		s += x
+	}
+	return s
+}
+
+func (t *typer) list(n *ast.ArrayNode) *Node {
+	if len(n.Nodes) == 0 {
+		return t.fail(n, "an empty list has no type", "a list holds one or more values of one kind", "write at least one value: [1 m]")
+	}
+	var args []*Node
+	for _, e := range n.Nodes {
+		x := t.expr(e)
+		if x == nil {
+			return nil
+		}
+		args = append(args, x)
+	}
+	for i, x := range args[1:] {
+		if !sameType(args[0].Type, x.Type) {
+			return t.fail(n.Nodes[i+1], fmt.Sprintf("a list holds values of one kind: %s and %s", t.describeType(args[0].Type), t.describeType(x.Type)), "", "")
+		}
+	}
+	return t.node(n, OpList, funcs.ListOf(args[0].Type), args...)
+}
+
+func (t *typer) record(n *ast.MapNode) *Node {
+	var args []*Node
+	var fields []funcs.Field
+	for _, p := range n.Pairs {
+		p := p.(*ast.PairNode)
+		key := p.Key.(*ast.StringNode).Value
+		if slices.ContainsFunc(fields, func(f funcs.Field) bool { return f.Name == key }) {
+			return t.fail(p.Key, "field `"+key+"` is written twice", "", "")
+		}
+		x := t.expr(p.Value)
+		if x == nil {
+			return nil
+		}
+		args = append(args, x)
+		fields = append(fields, funcs.Field{Name: key, Type: x.Type})
+	}
+	return t.node(n, OpRecord, funcs.RecordOf("", fields...), args...)
+}

@@ -1,0 +1,352 @@
+package eval
+
+import (
+	"math"
+
+	"github.com/sheafcalc/sheaf/engine/check"
+	"github.com/sheafcalc/sheaf/funcs"
+)
+
+// Machine is a compiled program. It is immutable after Compile and shared
+// by every State evaluating it.
+type Machine struct {
+	P        *check.Program
+	num      []numFn // Number cells and Number-valued function bodies
+	val      []valFn // every other cell and function body
+	bool_    []func(*Frame) bool
+	demand   []numFn
+	capacity []numFn
+	topoPos  []int32
+}
+
+// Compile turns every typed cell of p into closures. Cells without a type
+// (they failed checking) get none and evaluate as unknown.
+func Compile(p *check.Program) *Machine {
+	n := len(p.Cells)
+	m := &Machine{P: p, num: make([]numFn, n), val: make([]valFn, n), bool_: make([]func(*Frame) bool, n),
+		demand: make([]numFn, n), capacity: make([]numFn, n), topoPos: make([]int32, n)}
+	for k, i := range p.Order {
+		m.topoPos[i] = int32(k)
+	}
+	for _, c := range p.Cells {
+		if c.Type == nil {
+			continue
+		}
+		switch c.Kind {
+		case check.Check:
+			m.demand[c.Index] = m.numOf(c.Demand)
+			m.capacity[c.Index] = m.numOf(c.Capacity)
+		case check.Table:
+		default:
+			if c.Body == nil {
+				continue
+			}
+			switch c.Body.Type.Kind {
+			case funcs.Number:
+				m.num[c.Index] = m.numOf(c.Body)
+			case funcs.Bool:
+				b := m.boolOf(c.Body)
+				m.bool_[c.Index] = b
+				m.val[c.Index] = func(f *Frame) funcs.Value { return b(f) }
+			default:
+				m.val[c.Index] = m.valOf(c.Body)
+			}
+		}
+	}
+	return m
+}
+
+var nan = math.NaN()
+
+// numOf compiles a Number-typed node.
+func (m *Machine) numOf(n *check.Node) numFn {
+	switch n.Op {
+	case check.OpConst:
+		v := n.Num
+		return func(*Frame) float64 { return v }
+	case check.OpCell:
+		i := n.Index
+		return func(f *Frame) float64 { return f.Num[i] }
+	case check.OpParam:
+		i := n.Index
+		return func(f *Frame) float64 { return f.Args[i] }
+	case check.OpNeg:
+		a := m.numOf(n.Args[0])
+		return func(f *Frame) float64 { return -a(f) }
+	case check.OpAdd:
+		a, b := m.numOf(n.Args[0]), m.numOf(n.Args[1])
+		return func(f *Frame) float64 { return a(f) + b(f) }
+	case check.OpSub:
+		a, b := m.numOf(n.Args[0]), m.numOf(n.Args[1])
+		return func(f *Frame) float64 { return a(f) - b(f) }
+	case check.OpMul:
+		a, b := m.numOf(n.Args[0]), m.numOf(n.Args[1])
+		if n.Args[1].Op == check.OpConst {
+			k := n.Args[1].Num
+			return func(f *Frame) float64 { return a(f) * k }
+		}
+		return func(f *Frame) float64 { return a(f) * b(f) }
+	case check.OpDiv:
+		a, b := m.numOf(n.Args[0]), m.numOf(n.Args[1])
+		den := n.Args[1]
+		return func(f *Frame) float64 {
+			d := b(f)
+			if d == 0 {
+				f.fail(den, "division by zero", "the divisor is zero with these inputs")
+				return nan
+			}
+			return a(f) / d
+		}
+	case check.OpPow:
+		return m.pow(n)
+	case check.OpCond:
+		c, a, b := m.boolOf(n.Args[0]), m.numOf(n.Args[1]), m.numOf(n.Args[2])
+		return func(f *Frame) float64 {
+			if c(f) {
+				return a(f)
+			}
+			return b(f)
+		}
+	case check.OpBuiltin:
+		return m.builtin(n)
+	case check.OpUser:
+		return m.userCall(n)
+	case check.OpIndex:
+		xs, ix := m.listOf(n.Args[0]), m.numOf(n.Args[1])
+		return func(f *Frame) float64 {
+			l, i := xs(f), ix(f)
+			k := int(i)
+			if float64(k) != i || k < 0 || k >= len(l) {
+				f.fail(n, "index out of range", "the list has "+itoa(len(l))+" elements, numbered from 0")
+				return nan
+			}
+			return l[k]
+		}
+	}
+	// Fields, plugin calls and anything else: through the general path.
+	v := m.valOf(n)
+	return func(f *Frame) float64 {
+		x, ok := v(f).(float64)
+		if !ok {
+			if f.Fail == nil {
+				f.fail(n, "expected a number", "")
+			}
+			return nan
+		}
+		return x
+	}
+}
+
+func itoa(n int) string {
+	if n < 0 {
+		return "-" + itoa(-n)
+	}
+	if n < 10 {
+		return string(rune('0' + n))
+	}
+	return itoa(n/10) + string(rune('0'+n%10))
+}
+
+func (m *Machine) pow(n *check.Node) numFn {
+	a, b := m.numOf(n.Args[0]), m.numOf(n.Args[1])
+	if e := n.Args[1]; e.Op == check.OpConst {
+		switch e.Num {
+		case 2:
+			return func(f *Frame) float64 { x := a(f); return x * x }
+		case 3:
+			return func(f *Frame) float64 { x := a(f); return x * x * x }
+		}
+	}
+	return func(f *Frame) float64 {
+		x, y := a(f), b(f)
+		r := math.Pow(x, y)
+		if math.IsNaN(r) && !math.IsNaN(x) && !math.IsNaN(y) {
+			f.fail(n, "a negative number to a fractional power", "the base is negative with these inputs")
+		}
+		return r
+	}
+}
+
+// boolOf compiles a Bool-typed node.
+func (m *Machine) boolOf(n *check.Node) func(*Frame) bool {
+	switch n.Op {
+	case check.OpBool:
+		v := n.Num != 0
+		return func(*Frame) bool { return v }
+	case check.OpNot:
+		a := m.boolOf(n.Args[0])
+		return func(f *Frame) bool { return !a(f) }
+	case check.OpAnd:
+		a, b := m.boolOf(n.Args[0]), m.boolOf(n.Args[1])
+		return func(f *Frame) bool { return a(f) && b(f) }
+	case check.OpOr:
+		a, b := m.boolOf(n.Args[0]), m.boolOf(n.Args[1])
+		return func(f *Frame) bool { return a(f) || b(f) }
+	case check.OpLT, check.OpLE, check.OpGT, check.OpGE, check.OpEQ, check.OpNE:
+		a, b := m.numOf(n.Args[0]), m.numOf(n.Args[1])
+		switch n.Op {
+		case check.OpLT:
+			return func(f *Frame) bool { return a(f) < b(f) }
+		case check.OpLE:
+			return func(f *Frame) bool { return a(f) <= b(f) }
+		case check.OpGT:
+			return func(f *Frame) bool { return a(f) > b(f) }
+		case check.OpGE:
+			return func(f *Frame) bool { return a(f) >= b(f) }
+		case check.OpEQ:
+			return func(f *Frame) bool { return a(f) == b(f) }
+		}
+		return func(f *Frame) bool { return a(f) != b(f) }
+	case check.OpCell:
+		i := n.Index
+		return func(f *Frame) bool { b, _ := f.Val[i].(bool); return b }
+	case check.OpCond:
+		c, a, b := m.boolOf(n.Args[0]), m.boolOf(n.Args[1]), m.boolOf(n.Args[2])
+		return func(f *Frame) bool {
+			if c(f) {
+				return a(f)
+			}
+			return b(f)
+		}
+	}
+	v := m.valOf(n)
+	return func(f *Frame) bool { b, _ := v(f).(bool); return b }
+}
+
+// listOf compiles a node typed as a list of numbers.
+func (m *Machine) listOf(n *check.Node) func(*Frame) []float64 {
+	v := m.valOf(n)
+	return func(f *Frame) []float64 { l, _ := v(f).([]float64); return l }
+}
+
+// valOf compiles any node to the general path.
+func (m *Machine) valOf(n *check.Node) valFn {
+	switch n.Type.Kind {
+	case funcs.Number:
+		switch n.Op {
+		case check.OpField, check.OpPlugin:
+		default:
+			x := m.numOf(n)
+			return func(f *Frame) funcs.Value { return x(f) }
+		}
+	case funcs.Bool:
+		switch n.Op {
+		case check.OpBool, check.OpNot, check.OpAnd, check.OpOr, check.OpLT, check.OpLE, check.OpGT,
+			check.OpGE, check.OpEQ, check.OpNE, check.OpCell, check.OpCond:
+			b := m.boolOf(n)
+			return func(f *Frame) funcs.Value { return b(f) }
+		}
+	}
+	switch n.Op {
+	case check.OpString:
+		s := n.Str
+		return func(*Frame) funcs.Value { return s }
+	case check.OpCell:
+		i := n.Index
+		return func(f *Frame) funcs.Value { return f.Val[i] }
+	case check.OpList:
+		if n.Type.Elem.Kind == funcs.Number {
+			xs := make([]numFn, len(n.Args))
+			for i, a := range n.Args {
+				xs[i] = m.numOf(a)
+			}
+			return func(f *Frame) funcs.Value {
+				out := make([]float64, len(xs))
+				for i, x := range xs {
+					out[i] = x(f)
+				}
+				return out
+			}
+		}
+		xs := m.vals(n.Args)
+		return func(f *Frame) funcs.Value {
+			out := make([]funcs.Value, len(xs))
+			for i, x := range xs {
+				out[i] = x(f)
+			}
+			return out
+		}
+	case check.OpRecord:
+		xs := m.vals(n.Args)
+		ty := n.Type
+		return func(f *Frame) funcs.Value {
+			r := &funcs.RecordValue{Type: ty, Fields: make([]funcs.Value, len(xs))}
+			for i, x := range xs {
+				r.Fields[i] = x(f)
+			}
+			return r
+		}
+	case check.OpField:
+		rec, i := m.valOf(n.Args[0]), n.Index
+		return func(f *Frame) funcs.Value {
+			r, ok := rec(f).(*funcs.RecordValue)
+			if !ok || i >= len(r.Fields) {
+				f.fail(n, "the record has no such field", "")
+				return nil
+			}
+			return r.Fields[i]
+		}
+	case check.OpColumn:
+		tbl, i := m.valOf(n.Args[0]), n.Index
+		return func(f *Frame) funcs.Value {
+			t, ok := tbl(f).(*funcs.TableValue)
+			if !ok || i >= len(t.Cols) {
+				f.fail(n, "the table has no such column", "")
+				return []float64(nil)
+			}
+			return t.Cols[i]
+		}
+	case check.OpIndex:
+		xs, ix := m.valOf(n.Args[0]), m.numOf(n.Args[1])
+		return func(f *Frame) funcs.Value {
+			l, _ := xs(f).([]funcs.Value)
+			i := ix(f)
+			k := int(i)
+			if float64(k) != i || k < 0 || k >= len(l) {
+				f.fail(n, "index out of range", "the list has "+itoa(len(l))+" elements, numbered from 0")
+				return nil
+			}
+			return l[k]
+		}
+	case check.OpCond:
+		c, a, b := m.boolOf(n.Args[0]), m.valOf(n.Args[1]), m.valOf(n.Args[2])
+		return func(f *Frame) funcs.Value {
+			if c(f) {
+				return a(f)
+			}
+			return b(f)
+		}
+	case check.OpPlugin:
+		return m.plugin(n)
+	case check.OpFuncRef:
+		return m.funcRef(n)
+	case check.OpUser:
+		return m.userCallVal(n)
+	}
+	return func(f *Frame) funcs.Value {
+		f.fail(n, "cannot evaluate this expression", "")
+		return nil
+	}
+}
+
+func (m *Machine) vals(ns []*check.Node) []valFn {
+	out := make([]valFn, len(ns))
+	for i, a := range ns {
+		out[i] = m.valOf(a)
+	}
+	return out
+}
+
+// Value evaluates a stand-alone typed node that uses no cell.
+func Value(n *check.Node) (funcs.Value, *Failure) {
+	m := &Machine{P: &check.Program{}}
+	f := &Frame{}
+	var v funcs.Value
+	switch n.Type.Kind {
+	case funcs.Number:
+		v = m.numOf(n)(f)
+	default:
+		v = m.valOf(n)(f)
+	}
+	return v, f.Fail
+}

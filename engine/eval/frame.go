@@ -1,0 +1,34 @@
+package eval
+
+import (
+	"github.com/sheafcalc/sheaf/engine/check"
+	"github.com/sheafcalc/sheaf/funcs"
+)
+
+// Frame is what a compiled expression reads: the numeric slots and general
+// values of every cell, the arguments of the user function being run, and
+// the first failure met.
+type Frame struct {
+	Num   []float64
+	Val   []funcs.Value
+	Args  []float64
+	Stack []float64 // argument stack for calls of user functions
+	Fail  *Failure
+}
+
+// Failure is a run-time problem at a node: division by zero, a square root
+// of a negative number, a plugin error.
+type Failure struct {
+	Node *check.Node
+	Msg  string
+	Hint string
+}
+
+func (f *Frame) fail(n *check.Node, msg, hint string) {
+	if f.Fail == nil {
+		f.Fail = &Failure{Node: n, Msg: msg, Hint: hint}
+	}
+}
+
+type numFn func(f *Frame) float64
+type valFn func(f *Frame) funcs.Value

@@ -1,0 +1,222 @@
+package eval
+
+import (
+	"math"
+	"slices"
+
+	"github.com/sheafcalc/sheaf/engine/check"
+	"github.com/sheafcalc/sheaf/engine/diag"
+	"github.com/sheafcalc/sheaf/funcs"
+)
+
+// State holds the values of one evaluation of a Machine. A State is not
+// safe for concurrent use; Clone gives each worker its own.
+type State struct {
+	M        *Machine
+	F        Frame
+	Known    []bool
+	Demand   []float64 // check cells: demand in SI
+	Capacity []float64 // check cells: capacity in SI
+	Problem  []*diag.Diagnostic
+	over     []bool // overridden inputs
+	dirty    []int
+	mark     []uint32
+	gen      uint32
+	done     bool
+	last     []int
+}
+
+// NewState returns a state with every input at its written value, not yet
+// evaluated.
+func (m *Machine) NewState() *State {
+	n := len(m.P.Cells)
+	return &State{
+		M:        m,
+		F:        Frame{Num: make([]float64, n), Val: make([]funcs.Value, n), Stack: make([]float64, 0, 16)},
+		Known:    make([]bool, n),
+		Demand:   make([]float64, n),
+		Capacity: make([]float64, n),
+		Problem:  make([]*diag.Diagnostic, n),
+		over:     make([]bool, n),
+		mark:     make([]uint32, n),
+	}
+}
+
+// Clone copies the state. Values are shared where they are immutable
+// (records, lists, tables), so a clone costs a few slice copies.
+func (s *State) Clone() *State {
+	c := &State{
+		M:        s.M,
+		F:        Frame{Num: slices.Clone(s.F.Num), Val: slices.Clone(s.F.Val), Stack: make([]float64, 0, 16)},
+		Known:    slices.Clone(s.Known),
+		Demand:   slices.Clone(s.Demand),
+		Capacity: slices.Clone(s.Capacity),
+		Problem:  slices.Clone(s.Problem),
+		over:     slices.Clone(s.over),
+		dirty:    slices.Clone(s.dirty),
+		mark:     make([]uint32, len(s.mark)),
+		done:     s.done,
+		last:     slices.Clone(s.last),
+	}
+	return c
+}
+
+// Set overrides cell i with v (already checked against its type) and marks
+// it stale.
+func (s *State) Set(i int, v funcs.Value) {
+	if x, ok := v.(float64); ok {
+		s.F.Num[i] = x
+		s.F.Val[i] = nil
+	} else {
+		s.F.Val[i] = v
+	}
+	s.over[i] = true
+	s.dirty = append(s.dirty, i)
+}
+
+// Reset returns cell i to its written expression and marks it stale.
+func (s *State) Reset(i int) {
+	s.over[i] = false
+	s.dirty = append(s.dirty, i)
+}
+
+// Overridden reports whether cell i holds a value set with Set.
+func (s *State) Overridden(i int) bool { return s.over[i] }
+
+// Eval evaluates every stale cell: all of them the first time, then only
+// the cells downstream of inputs set since. It returns the indices of the
+// cells evaluated, in evaluation order (valid until the next Eval).
+func (s *State) Eval() []int {
+	p := s.M.P
+	if !s.done {
+		s.done = true
+		s.dirty = s.dirty[:0]
+		s.last = append(s.last[:0], p.Order...)
+		for _, i := range p.Order {
+			s.run(i)
+		}
+		return s.last
+	}
+	s.last = s.last[:0]
+	if len(s.dirty) == 0 {
+		return s.last
+	}
+	s.gen++
+	if s.gen == 0 { // wrapped: clear the marks once every 4 billion runs
+		clear(s.mark)
+		s.gen = 1
+	}
+	g := s.gen
+	for _, i := range s.dirty {
+		if s.mark[i] != g {
+			s.mark[i] = g
+			s.last = append(s.last, i)
+		}
+	}
+	s.dirty = s.dirty[:0]
+	for k := 0; k < len(s.last); k++ {
+		for _, u := range p.Users[s.last[k]] {
+			if s.mark[u] != g {
+				s.mark[u] = g
+				s.last = append(s.last, u)
+			}
+		}
+	}
+	pos := s.M.topoPos
+	slices.SortFunc(s.last, func(a, b int) int { return int(pos[a]) - int(pos[b]) })
+	for _, i := range s.last {
+		s.run(i)
+	}
+	return s.last
+}
+
+// run evaluates cell i.
+func (s *State) run(i int) {
+	c := s.M.P.Cells[i]
+	s.Problem[i] = nil
+	s.Known[i] = false
+	if c.Type == nil {
+		return
+	}
+	for _, j := range c.DepIdx {
+		if !s.Known[j] {
+			return // skipped: the failing cell reported it
+		}
+	}
+	f := &s.F
+	f.Fail = nil
+	f.Args = nil
+	switch c.Kind {
+	case check.Function:
+		s.Known[i] = true
+		return
+	case check.Table:
+		if !s.over[i] {
+			f.Val[i] = c.Table
+		}
+		s.Known[i] = true
+		return
+	case check.Check:
+		d := s.M.demand[i](f)
+		cp := s.M.capacity[i](f)
+		if f.Fail != nil {
+			s.failed(c, f.Fail)
+			return
+		}
+		s.Demand[i], s.Capacity[i] = d, cp
+		if !(cp > 0) || math.IsInf(cp, 0) || !isFinite(d) {
+			s.Problem[i] = &diag.Diagnostic{Range: c.Formula.Source.Range,
+				Summary: "check `" + c.Name + "` cannot be assessed: the capacity must be a positive finite number",
+				Detail:  "utilisation is demand / capacity; with these inputs the capacity is not positive",
+				Hint:    "check the inputs of the capacity side"}
+			return
+		}
+		f.Num[i] = d / cp
+		s.Known[i] = true
+		return
+	}
+	if s.over[i] {
+		s.Known[i] = true
+		return
+	}
+	if fn := s.M.num[i]; fn != nil {
+		v := fn(f)
+		if f.Fail != nil {
+			s.failed(c, f.Fail)
+			return
+		}
+		if !isFinite(v) {
+			s.Problem[i] = &diag.Diagnostic{Range: c.Formula.Source.Range,
+				Summary: "`" + c.Name + "` is not a finite number with these inputs",
+				Detail:  "the formula overflowed or produced NaN; cells that use it are skipped",
+				Hint:    "check the inputs and the formula"}
+			return
+		}
+		f.Num[i] = v
+		s.Known[i] = true
+		return
+	}
+	if fn := s.M.val[i]; fn != nil {
+		v := fn(f)
+		if f.Fail != nil {
+			s.failed(c, f.Fail)
+			return
+		}
+		f.Val[i] = v
+		s.Known[i] = true
+	}
+}
+
+func isFinite(x float64) bool { return !math.IsNaN(x) && !math.IsInf(x, 0) }
+
+func (s *State) failed(c *check.Cell, fl *Failure) {
+	r := c.Formula.Source.Range
+	if fl.Node != nil && fl.Node.Range.Start.IsValid() {
+		r = fl.Node.Range
+	}
+	detail := "`" + c.Name + "` has no value; cells that use it are skipped"
+	s.Problem[c.Index] = &diag.Diagnostic{Range: r, Summary: "`" + c.Name + "` cannot be computed: " + fl.Msg, Detail: detail, Hint: fl.Hint}
+}
+
+// Last returns the indices of the cells the last Eval computed.
+func (s *State) Last() []int { return s.last }

@@ -1,0 +1,13 @@
+// Package formula is the expression layer of a sheet. It takes the text of
+// one expression as written (with quantity literals such as `38 kN` or
+// `7850 kg/m^3`), replaces every quantity literal by a synthetic identifier
+// so that expr-lang's parser accepts the text, parses it, and maps every
+// position back to the sheet. It also rejects, with a clear message, the
+// parts of expr-lang's syntax that the sheet language does not offer
+// (closures, pipes, `let`, ranges, `??`, `%` as modulo, ...).
+//
+// The result keeps the expr-lang syntax tree (Tree), the literals that were
+// replaced (Quantities) and the names the formula refers to (Refs): the
+// checker types the tree, the evaluator compiles it, and the workbook
+// exporter rewrites it as a spreadsheet formula.
+package formula

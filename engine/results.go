@@ -1,0 +1,160 @@
+package engine
+
+import (
+	"math"
+
+	"github.com/sheafcalc/sheaf/engine/diag"
+	"github.com/sheafcalc/sheaf/engine/units"
+	"github.com/sheafcalc/sheaf/funcs"
+)
+
+// Results are the values of every cell after an evaluation.
+type Results struct {
+	Meta     Meta
+	Cells    []CellResult  // every cell, reading order (checks included)
+	Checks   []CheckResult // the design checks, reading order
+	Problems diag.List     // run-time problems, one per failed cell
+}
+
+// CellResult is the value of one cell.
+type CellResult struct {
+	Cell    *Cell
+	Known   bool        // false when the cell failed or a cell it uses failed
+	Value   funcs.Value // SI value (float64 for numbers)
+	SI      float64     // numbers: the value in SI base units
+	Unit    units.Unit  // display unit
+	Display float64     // numbers: the value in the display unit
+	Text    string      // numbers: e.g. "121 MPa"; other kinds: a short description
+}
+
+// CheckResult is the outcome of one design check.
+type CheckResult struct {
+	Cell     *Cell
+	Known    bool
+	Demand   float64    // SI
+	Capacity float64    // SI
+	Unit     units.Unit // display unit of demand and capacity
+	Util     float64    // demand / capacity
+	Pass     bool       // Util <= 1
+}
+
+// Failed returns the number of checks that fail or could not be assessed.
+func (r *Results) Failed() int {
+	n := 0
+	for _, c := range r.Checks {
+		if !c.Pass {
+			n++
+		}
+	}
+	return n
+}
+
+// Cell returns the result of the named cell, or nil.
+func (r *Results) Cell(name string) *CellResult {
+	for i := range r.Cells {
+		if r.Cells[i].Cell.Name == name {
+			return &r.Cells[i]
+		}
+	}
+	return nil
+}
+
+// Results builds the results of the current values.
+func (st *State) Results() *Results {
+	s := st.sheet
+	e := st.st
+	r := &Results{Meta: s.prog.Meta, Cells: make([]CellResult, len(s.prog.Cells))}
+	for i, c := range s.prog.Cells {
+		cr := CellResult{Cell: c, Known: e.Known[i], Unit: s.DisplayUnit(c)}
+		if p := e.Problem[i]; p != nil {
+			r.Problems = append(r.Problems, p)
+		}
+		if cr.Known {
+			cr.Value = st.value(c)
+			if x, ok := cr.Value.(float64); ok {
+				cr.SI = x
+				cr.Display = x / cr.Unit.Factor
+				cr.Text = units.Format(x, cr.Unit, s.sigFigs)
+			} else {
+				cr.Text = describeValue(cr.Value, s.sigFigs)
+			}
+		} else {
+			cr.SI = math.NaN()
+			cr.Display = math.NaN()
+			cr.Text = "unknown"
+		}
+		if c.Kind == Function {
+			cr.Text = "function"
+		}
+		r.Cells[i] = cr
+		if c.Kind == Check {
+			cu := s.checkUnit(c)
+			ch := CheckResult{Cell: c, Known: cr.Known, Unit: cu, Demand: e.Demand[i], Capacity: e.Capacity[i], Util: math.NaN()}
+			if cr.Known {
+				ch.Util = cr.SI
+				ch.Pass = ch.Util <= 1
+			}
+			r.Checks = append(r.Checks, ch)
+		}
+	}
+	r.Problems.Sort()
+	return r
+}
+
+// checkUnit is the display unit of a check's demand and capacity: the
+// written unit of the capacity or demand cell when the side is a bare cell
+// reference, else the preferred unit.
+func (s *Sheet) checkUnit(c *Cell) units.Unit {
+	if c.Demand == nil {
+		return units.Unit{Factor: 1}
+	}
+	for _, side := range []*Node{c.Capacity, c.Demand} {
+		if side.Op == OpCell {
+			if d := s.prog.Cells[side.Index]; d.HasUnit {
+				return d.Unit
+			}
+		}
+	}
+	u, _ := units.Preferred(c.Demand.Type.Dim, s.system)
+	if u.Factor == 0 {
+		u.Factor = 1
+	}
+	return u
+}
+
+// describeValue writes a non-numeric value briefly.
+func describeValue(v funcs.Value, sig int) string {
+	switch v := v.(type) {
+	case bool:
+		if v {
+			return "yes"
+		}
+		return "no"
+	case string:
+		return v
+	case []float64:
+		return "list of " + itoa(len(v))
+	case []funcs.Value:
+		return "list of " + itoa(len(v))
+	case *funcs.RecordValue:
+		if v.Type != nil && v.Type.Name != "" {
+			return v.Type.Name + " record"
+		}
+		return "record"
+	case *funcs.TableValue:
+		return "table, " + itoa(v.Rows()) + " rows"
+	case *funcs.FuncValue:
+		return "function"
+	}
+	return ""
+}
+
+func itoa(n int) string {
+	if n < 0 {
+		return "-" + itoa(-n)
+	}
+	if n < 10 {
+		return string(rune('0' + n))
+	}
+	return itoa(n/10) + string(rune('0'+n%10))
+}

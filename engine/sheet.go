@@ -1,0 +1,163 @@
+package engine
+
+import (
+	"fmt"
+	"os"
+
+	"github.com/sheafcalc/sheaf/engine/check"
+	"github.com/sheafcalc/sheaf/engine/diag"
+	"github.com/sheafcalc/sheaf/engine/eval"
+	"github.com/sheafcalc/sheaf/engine/sheet"
+	"github.com/sheafcalc/sheaf/engine/units"
+)
+
+// Kind says what a cell is.
+type Kind = check.Kind
+
+// Cell kinds.
+const (
+	Input    = check.Input
+	Derived  = check.Derived
+	Check    = check.Check
+	Function = check.Function
+	Table    = check.Table
+)
+
+// Cell is one named item of a sheet (see check.Cell for the fields:
+// Name, Kind, Section, Description, Reference, Expr, Unit, HasUnit, Type,
+// Pos, Deps, Formula, ...).
+type Cell = check.Cell
+
+// Meta is the header of a sheet: title, project, basis, author, checker,
+// date, revision, units.
+type Meta = check.Meta
+
+// Sheet is a loaded, checked and compiled sheet. It is immutable and safe
+// for concurrent use.
+type Sheet struct {
+	name    string
+	src     []byte
+	file    *sheet.File
+	prog    *check.Program
+	mach    *eval.Machine
+	system  units.System
+	sigFigs int
+	cfg     config
+}
+
+// Load reads, checks and compiles the sheet at path. Sheet errors come back
+// as a diag.List (render it with diag.Render and s.Sources(), or with the
+// Sources of the returned error's sheet: use LoadSources); I/O errors as
+// they are.
+func Load(path string, opts ...Option) (*Sheet, error) {
+	cfg := newConfig(opts)
+	fi, err := os.Stat(path)
+	if err != nil {
+		return nil, err
+	}
+	if fi.IsDir() {
+		return nil, fmt.Errorf("%s is a directory, not a sheet", path)
+	}
+	if fi.Size() > int64(cfg.maxBytes) {
+		return nil, diag.List{{Range: diag.Range{Start: diag.Pos{File: path}}, Summary: fmt.Sprintf("sheet is too large: %d bytes, the limit is %d", fi.Size(), cfg.maxBytes),
+			Detail: "a sheet is written by a person; split it, or raise the limit"}}
+	}
+	src, err := os.ReadFile(path)
+	if err != nil {
+		return nil, err
+	}
+	return Compile(path, src, opts...)
+}
+
+// Compile checks and compiles the sheet source src named name (the name
+// appears in positions). Sheet errors come back as a diag.List, sorted,
+// one per line.
+func Compile(name string, src []byte, opts ...Option) (*Sheet, error) {
+	cfg := newConfig(opts)
+	f, errs := sheet.Parse(name, src, sheet.MaxBytes(cfg.maxBytes))
+	if f == nil {
+		errs.Sort()
+		return nil, errs
+	}
+	prog, cerrs := check.Sheet(f, cfg.checkOptions())
+	errs = append(errs, cerrs...)
+	errs.Sort()
+	if errs.HasErrors() {
+		return nil, errs
+	}
+	s := &Sheet{name: name, src: src, file: f, prog: prog, mach: eval.Compile(prog), sigFigs: cfg.sigFigs, cfg: cfg}
+	s.system = prog.Meta.System
+	if cfg.hasSystem && cfg.system != units.Neutral {
+		s.system = cfg.system
+	}
+	return s, nil
+}
+
+// Name returns the name the sheet was loaded under.
+func (s *Sheet) Name() string { return s.name }
+
+// Source returns the text of the sheet.
+func (s *Sheet) Source() []byte { return s.src }
+
+// File returns the syntax tree.
+func (s *Sheet) File() *sheet.File { return s.file }
+
+// Program returns the checked program (for exporters that walk the typed
+// trees).
+func (s *Sheet) Program() *check.Program { return s.prog }
+
+// Meta returns the header.
+func (s *Sheet) Meta() Meta { return s.prog.Meta }
+
+// System returns the unit system used for display.
+func (s *Sheet) System() units.System { return s.system }
+
+// Cells returns every cell in reading order.
+func (s *Sheet) Cells() []*Cell { return s.prog.Cells }
+
+// Lookup returns the named cell, or nil.
+func (s *Sheet) Lookup(name string) *Cell { return s.prog.Lookup(name) }
+
+// Sources returns the source text for rendering diagnostics.
+func (s *Sheet) Sources() diag.Sources { return diag.Sources{s.name: s.src} }
+
+// DisplayUnit returns the unit a cell's value is shown in: the written
+// unit, else the preferred unit of the sheet's system, else SI.
+func (s *Sheet) DisplayUnit(c *Cell) units.Unit {
+	if c.HasUnit {
+		return c.Unit
+	}
+	if c.Type == nil {
+		return units.Unit{Factor: 1}
+	}
+	d := c.Type.Dim
+	if c.Kind == Check {
+		d = units.None
+	}
+	u, _ := units.Preferred(d, s.system)
+	if u.Factor == 0 {
+		u.Factor = 1
+	}
+	return u
+}
+
+// Run evaluates the sheet with the given overrides (values in SI, as from
+// ParseInput) and returns the results.
+func (s *Sheet) Run(overrides map[string]any) *Results {
+	st := s.NewState()
+	var problems diag.List
+	for name, v := range overrides {
+		if err := st.Set(name, v); err != nil {
+			problems.Add(&diag.Diagnostic{Summary: err.Error()})
+		}
+	}
+	r := st.Eval()
+	r.Problems = append(problems, r.Problems...)
+	return r
+}
+
+// Node is a typed expression of the checked program.
+type Node = check.Node
+
+// OpCell is the Node operation that reads a cell.
+const OpCell = check.OpCell
