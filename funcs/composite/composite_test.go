@@ -1,0 +1,221 @@
+package composite
+
+import (
+	"math"
+	"testing"
+
+	"github.com/sheafcalc/sheaf/funcs"
+	_ "github.com/sheafcalc/sheaf/funcs/section"
+)
+
+func relErr(got, want float64) float64 {
+	if want == 0 {
+		return math.Abs(got)
+	}
+	return math.Abs(got-want) / math.Abs(want)
+}
+
+func call(t *testing.T, name string, args ...funcs.Value) funcs.Value {
+	t.Helper()
+	d, ok := funcs.Lookup(name)
+	if !ok {
+		t.Fatalf("%s is not registered", name)
+	}
+	v, err := d.Call(args)
+	if err != nil {
+		t.Fatalf("%s: %v", name, err)
+	}
+	return v
+}
+
+// mat builds a material record as a sheet would write it.
+func mat(fields map[string]float64) *funcs.RecordValue {
+	r := &funcs.RecordValue{Type: &funcs.Type{Kind: funcs.Record}}
+	for _, n := range []string{"E", "alpha", "f_y", "f_c"} {
+		if v, ok := fields[n]; ok {
+			r.Type.Fields = append(r.Type.Fields, funcs.Field{Name: n, Type: funcs.Num(Stress)})
+			r.Fields = append(r.Fields, v)
+		}
+	}
+	return r
+}
+
+const (
+	mm  = 1e-3
+	kN  = 1e3
+	MPa = 1e6
+	GPa = 1e9
+)
+
+type check struct {
+	name      string
+	got, want float64
+	tol       float64
+}
+
+func runChecks(t *testing.T, src string, cs []check) {
+	t.Helper()
+	for _, c := range cs {
+		if e := relErr(c.got, c.want); e > c.tol {
+			t.Errorf("%s = %.10g, want %.10g (rel %.2g; %s)", c.name, c.got, c.want, e, src)
+		}
+	}
+}
+
+func steelAluminium(t *testing.T) funcs.Value {
+	core := call(t, "circle", 40*mm)
+	tube := call(t, "chs", 60*mm, 10*mm)
+	steel := mat(map[string]float64{"E": 210 * GPa, "alpha": 12e-6})
+	alu := mat(map[string]float64{"E": 70 * GPa, "alpha": 23e-6})
+	return call(t, "composite", []funcs.Value{call(t, "part", core, steel, nil), call(t, "part", tube, alu, nil)})
+}
+
+// Source: REFERENCES.md C8a (Gere & Goodno §2.4, composite bar): N_i = N·E_iA_i/ΣEA.
+func TestC8aLoadSharing(t *testing.T) {
+	c := steelAluminium(t)
+	r := call(t, "composite_axial", c, 200*kN, nil).(*funcs.RecordValue)
+	n := r.Get("N_parts").([]float64)
+	s := r.Get("sigma_parts").([]float64)
+	runChecks(t, "REFERENCES C8a", []check{
+		{"N_s", n[0], 141.176471 * kN, 1e-8},
+		{"N_a", n[1], 58.8235294 * kN, 1e-8},
+		{"σ_s", s[0], 112.344666 * MPa, 1e-8},
+		{"σ_a", s[1], 37.4482219 * MPa, 1e-8},
+		{"δ over 1 m", r.Num("eps", 0) * 1.0, 0.534974599 * mm, 1e-8},
+	})
+}
+
+// Source: REFERENCES.md C8b (Gere & Goodno §2.5): F = (α_a − α_s)ΔT/(1/EA_s + 1/EA_a).
+func TestC8bThermal(t *testing.T) {
+	c := steelAluminium(t)
+	r := call(t, "composite_axial", c, 0.0, 50.0).(*funcs.RecordValue)
+	n := r.Get("N_parts").([]float64)
+	s := r.Get("sigma_parts").([]float64)
+	th := r.Get("sigma_thermal").([]float64)
+	runChecks(t, "REFERENCES C8b", []check{
+		{"F", n[0], 42.6887002 * kN, 1e-8},
+		{"σ_s", s[0], 33.9705882 * MPa, 1e-8},
+		{"σ_a", s[1], -27.1764706 * MPa, 1e-8},
+		{"σ_s thermal", th[0], 33.9705882 * MPa, 1e-8},
+	})
+	if math.Abs(n[0]+n[1]) > 1e-9*kN {
+		t.Errorf("thermal forces not self-equilibrated: %g", n[0]+n[1])
+	}
+}
+
+// Source: REFERENCES.md C8c with E_cm from B4 (EN 1992-1-1 Table 3.1 formula, f_ck 30 MPa).
+func TestC8cConcreteFilledTube(t *testing.T) {
+	ecm := call(t, "concrete_ecm", 30*MPa).(float64)
+	tube := call(t, "chs", 219.1*mm, 10*mm)
+	core := call(t, "circle", 199.1*mm)
+	c := call(t, "composite", []funcs.Value{
+		call(t, "part", tube, mat(map[string]float64{"E": 210 * GPa}), nil),
+		call(t, "part", core, mat(map[string]float64{"E": ecm}), nil),
+	})
+	r := call(t, "composite_axial", c, 1000*kN, nil).(*funcs.RecordValue)
+	n := r.Get("N_parts").([]float64)
+	s := r.Get("sigma_parts").([]float64)
+	runChecks(t, "REFERENCES C8c, B4", []check{
+		{"E_cm", ecm, 32836.5680 * MPa, 1e-9},
+		{"N_steel", n[0], 574.355095 * kN, 1e-8},
+		{"N_conc", n[1], 425.644905 * kN, 1e-8},
+		{"σ_s", s[0], 87.4332401 * MPa, 1e-8},
+		{"σ_c", s[1], 13.6714645 * MPa, 1e-8},
+	})
+	// Transformed area in steel: EA/E_s. Source: Gere & Goodno §6.3.
+	at := call(t, "transformed_area", c, 210*GPa).(float64)
+	want := c.(*funcs.RecordValue).Num("EA", 0) / (210 * GPa)
+	if relErr(at, want) > 1e-15 {
+		t.Errorf("transformed area %g want %g", at, want)
+	}
+}
+
+// Source: REFERENCES.md B4, EN 1992-1-1 Table 3.1 formula E_cm = 22(f_cm/10)^0.3.
+func TestConcreteEcm(t *testing.T) {
+	for _, c := range []struct{ fck, want float64 }{{20, 29.9619511}, {40, 35.2204623}, {30, 32.8365680}} {
+		got, err := EcmEN1992(c.fck * MPa)
+		if err != nil || relErr(got, c.want*GPa) > 5e-9 { // values rounded to 9 figures
+			t.Errorf("f_ck %g: %g, %v", c.fck, got, err)
+		}
+	}
+	for _, bad := range []float64{0, -30 * MPa, math.NaN(), 30} {
+		if _, err := EcmEN1992(bad); err == nil && bad != 30 {
+			t.Errorf("f_ck %g accepted", bad)
+		}
+	}
+	if _, err := EcmEN1992(30e9); err == nil {
+		t.Error("30 GPa accepted as f_ck")
+	}
+}
+
+// Source: REFERENCES.md C12: rectangle 300×500 with E(z) = E0(1 + z/h) from the bottom.
+func TestC12GradedRectangle(t *testing.T) {
+	rect := call(t, "rect", 300*mm, 500*mm)
+	e := &funcs.FuncValue{Name: "E", Call: func(a ...float64) float64 { return 30 * GPa * (1 + (a[1]+0.25)/0.5) }}
+	c := call(t, "composite", []funcs.Value{call(t, "part_graded", rect, e, nil)}).(*funcs.RecordValue)
+	runChecks(t, "REFERENCES C12", []check{
+		{"EA", c.Num("EA", 0), 6.75e9, 1e-12},
+		{"z̄ from bottom", c.Num("z_E", 0) + 0.25, 277.777778 * mm, 1e-8},
+		{"EI", c.Num("EI_y", 0), 1.35416667e14 * mm * mm, 1e-8},
+	})
+}
+
+// Property: EA and the flexural rigidities about the modulus-weighted
+// centroid do not depend on where the section is placed; the centroid moves
+// with it (common practice: invariance of integrals under translation).
+func TestPlacementInvariance(t *testing.T) {
+	base := steelAluminium(t).(*funcs.RecordValue)
+	for _, d := range [][2]float64{{1, 0}, {-3, 2.5}, {0.01, -40}} {
+		core := call(t, "place", call(t, "circle", 40*mm), d[0], d[1], nil)
+		tube := call(t, "place", call(t, "chs", 60*mm, 10*mm), d[0], d[1], nil)
+		c := call(t, "composite", []funcs.Value{
+			call(t, "part", core, mat(map[string]float64{"E": 210 * GPa}), nil),
+			call(t, "part", tube, mat(map[string]float64{"E": 70 * GPa}), nil),
+		}).(*funcs.RecordValue)
+		runChecks(t, "invariance", []check{
+			{"EA", c.Num("EA", 0), base.Num("EA", 0), 1e-14},
+			{"EI_y", c.Num("EI_y", 0), base.Num("EI_y", 0), 1e-9},
+			{"y_E", c.Num("y_E", 0), d[0], 1e-12},
+			{"z_E", c.Num("z_E", 0), d[1], 1e-12},
+		})
+	}
+}
+
+func TestCompositeErrors(t *testing.T) {
+	d, _ := funcs.Lookup("composite_axial")
+	core := call(t, "circle", 40*mm)
+	noAlpha := call(t, "composite", []funcs.Value{call(t, "part", core, mat(map[string]float64{"E": 210 * GPa}), nil)})
+	if _, err := d.Call([]funcs.Value{noAlpha, 0.0, 10.0}); err == nil {
+		t.Error("ΔT without alpha accepted")
+	}
+	if _, err := d.Call([]funcs.Value{noAlpha, math.Inf(1), nil}); err == nil {
+		t.Error("infinite N accepted")
+	}
+	p, _ := funcs.Lookup("part")
+	if _, err := p.Call([]funcs.Value{core, mat(map[string]float64{"E": -1}), nil}); err == nil {
+		t.Error("negative E accepted")
+	}
+	c, _ := funcs.Lookup("composite")
+	if _, err := c.Call([]funcs.Value{[]funcs.Value{}}); err == nil {
+		t.Error("empty composite accepted")
+	}
+	if _, err := c.Call([]funcs.Value{[]funcs.Value{core}}); err == nil {
+		t.Error("a section accepted as a part")
+	}
+	g, _ := funcs.Lookup("part_graded")
+	neg := &funcs.FuncValue{Call: func(a ...float64) float64 { return -1 }}
+	if _, err := g.Call([]funcs.Value{core, neg, nil}); err == nil {
+		t.Error("negative modulus field accepted")
+	}
+}
+
+// The material parameter matches sheet records structurally.
+func TestMaterialParamAccepts(t *testing.T) {
+	sheetRec := funcs.RecordOf("", funcs.Field{Name: "E", Type: funcs.Num(Stress)}, funcs.Field{Name: "alpha", Type: funcs.Num(PerK)})
+	if !MaterialParam.Accepts(sheetRec) {
+		t.Error("a {E, alpha} record is not accepted")
+	}
+	if MaterialParam.Accepts(funcs.RecordOf("", funcs.Field{Name: "alpha", Type: funcs.Num(PerK)})) {
+		t.Error("a record without E is accepted")
+	}
+}
