@@ -116,6 +116,8 @@ combinations come from the local code and licensed practice.`,
 	})
 	root.AddCommand(
 		newUnitsCmd(a),
+		newRunCmd(a),
+		newCheckCmd(a),
 	)
 	return root
 }

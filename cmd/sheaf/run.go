@@ -1,0 +1,108 @@
+package main
+
+import (
+	"errors"
+	"fmt"
+	"strings"
+
+	"github.com/spf13/cobra"
+
+	"github.com/sheafcalc/sheaf/engine"
+	"github.com/sheafcalc/sheaf/engine/diag"
+	"github.com/sheafcalc/sheaf/engine/export/jsonout"
+	"github.com/sheafcalc/sheaf/engine/export/text"
+	"github.com/sheafcalc/sheaf/engine/units"
+)
+
+// runOptions are the flags of `sheaf run`.
+type runOptions struct {
+	sets   []string
+	json   bool
+	system string
+}
+
+func newRunCmd(a *app) *cobra.Command {
+	o := &runOptions{}
+	cmd := &cobra.Command{
+		Use:   "run FILE",
+		Short: "Evaluate a sheet and print its results and design checks",
+		Long: `Run checks the sheet, evaluates every cell in dependency order and prints
+the results: each cell in its display unit, then the design checks with their
+utilisation. Inputs can be replaced with --set name=value (the value takes a
+unit: --set P=45kN --set "d=24 mm").
+
+Exit status: 0 when every design check passes, 1 when a check fails or
+cannot be assessed, 2 when the sheet or a --set has errors.`,
+		Args: cobra.ExactArgs(1),
+		RunE: func(cmd *cobra.Command, args []string) error {
+			return runRun(a, o, args[0])
+		},
+	}
+	cmd.Flags().StringArrayVar(&o.sets, "set", nil, "replace an input: name=value with a unit, e.g. P=45kN (repeatable)")
+	cmd.Flags().BoolVar(&o.json, "json", false, "print the results as JSON")
+	cmd.Flags().StringVar(&o.system, "system", "", "display units for cells without a written unit: metric or us")
+	return cmd
+}
+
+// loadSheet loads a sheet with the --system choice, rendering sheet errors.
+func loadSheet(a *app, path, system string) (*engine.Sheet, error) {
+	var opts []engine.Option
+	if system != "" {
+		s, ok := units.ParseSystem(system)
+		if !ok || s == units.Neutral {
+			return nil, userErrorf("unknown unit system %q: use metric or us", system)
+		}
+		opts = append(opts, engine.WithSystem(s))
+	}
+	s, err := engine.Load(path, opts...)
+	if err != nil {
+		var list diag.List
+		if errors.As(err, &list) {
+			src, _ := readSource(path)
+			_ = diag.Render(a.stderr, list, diag.Sources{path: src})
+			n := len(list)
+			fmt.Fprintf(a.stderr, "%d problem%s in %s\n", n, map[bool]string{true: "", false: "s"}[n == 1], path)
+			return nil, &reportedError{err, exitInput}
+		}
+		return nil, &inputError{err}
+	}
+	return s, nil
+}
+
+func runRun(a *app, o *runOptions, path string) error {
+	s, err := loadSheet(a, path, o.system)
+	if err != nil {
+		return err
+	}
+	st := s.NewState()
+	for _, kv := range o.sets {
+		name, val, ok := strings.Cut(kv, "=")
+		name, val = strings.TrimSpace(name), strings.TrimSpace(val)
+		if !ok || name == "" || val == "" {
+			return userErrorf("--set %q: expected name=value, e.g. --set P=45kN", kv)
+		}
+		v, err := s.ParseInput(name, val)
+		if err != nil {
+			return userErrorf("--set %s: %v", kv, err)
+		}
+		if err := st.Set(name, v); err != nil {
+			return userErrorf("--set %s: %v", kv, err)
+		}
+	}
+	res := st.Eval()
+	if o.json {
+		err = jsonout.Write(a.stdout, res)
+	} else {
+		err = text.Write(a.stdout, res, engine.DefaultSigFigs)
+	}
+	if err != nil {
+		return err
+	}
+	if len(res.Problems) > 0 && !o.json {
+		_ = diag.Render(a.stderr, res.Problems, s.Sources())
+	}
+	if n := res.Failed(); n > 0 {
+		return &reportedError{&checksFailedError{n}, exitChecks}
+	}
+	return nil
+}
