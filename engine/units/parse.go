@@ -41,6 +41,10 @@ type parser struct {
 //
 // Errors are *Error values with byte offsets into text.
 func Parse(text string) (Unit, error) {
+	// Fast path: a catalogue symbol is already normalised.
+	if u, ok := catalogueIndex[text]; ok {
+		return u, nil
+	}
 	if len(text) > maxUnitLen {
 		return Unit{}, &Error{Offset: maxUnitLen, End: len(text),
 			Msg:  fmt.Sprintf("unit text is too long (%d bytes)", len(text)),
