@@ -34,7 +34,12 @@ Temperatures are differences only: 1 degC = 1 K, 1 degF = 5/9 K.`,
 		Example: `  sheaf units
   sheaf units --dim stress
   sheaf units --dim kN/m --system us`,
-		Args: cobra.NoArgs,
+		Args: func(_ *cobra.Command, args []string) error {
+			if len(args) > 0 {
+				return userErrorf("units takes no arguments, got %q; filter with --dim %s", args[0], args[0])
+			}
+			return nil
+		},
 		RunE: func(cmd *cobra.Command, _ []string) error {
 			return runUnits(a, o)
 		},
@@ -72,8 +77,12 @@ func runUnits(a *app, o unitsOptions) error {
 		rows = append(rows, u)
 	}
 	if len(rows) == 0 {
-		fmt.Fprintf(a.stdout, "no listed unit of dimension %s in system %s; its SI unit is %s\n",
-			dim, sys, units.Coherent(dim).Symbol)
+		which := "unit"
+		if sys != units.Neutral {
+			which = sys.String() + " unit"
+		}
+		fmt.Fprintf(a.stdout, "no listed %s has dimension %s; its coherent SI unit is %s\n",
+			which, dim, units.Coherent(dim).Symbol)
 		return nil
 	}
 	return writeUnitTable(a.stdout, rows)
