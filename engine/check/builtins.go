@@ -85,9 +85,15 @@ var builtinByName = func() map[string]BuiltinInfo {
 }()
 
 // Constants built into the language.
-var Constants = map[string]float64{
-	"pi":  math.Pi,
-	"g_n": 9.80665, // standard acceleration of gravity, exact (CGPM 1901; NIST SP 811 (2008) App. B)
+var Constants = map[string]Constant{
+	"pi":  {math.Pi, units.None},
+	"g_n": {9.80665, units.Base(units.Length).Div(units.Base(units.Time)).Div(units.Base(units.Time))}, // standard acceleration of gravity in m/s^2, exact (3rd CGPM 1901; NIST SP 811 (2008) App. B)
+}
+
+// Constant is a named constant: SI value and dimension.
+type Constant struct {
+	SI  float64
+	Dim units.Dim
 }
 
 // IsReserved reports whether name may not be used for a cell.

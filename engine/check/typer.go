@@ -146,9 +146,9 @@ func (t *typer) ident(n *ast.IdentifierNode) *Node {
 		r.Index = i
 		return r
 	}
-	if v, ok := Constants[name]; ok {
-		r := t.node(n, OpConst, numNone)
-		r.Num = v
+	if k, ok := Constants[name]; ok {
+		r := t.node(n, OpConst, funcs.Num(k.Dim))
+		r.Num = k.SI
 		return r
 	}
 	if _, ok := builtinByName[name]; ok {
@@ -269,11 +269,11 @@ func (t *typer) member(n *ast.MemberNode) *Node {
 				if s := nearest(field, names); s != "" {
 					hint = "did you mean `" + s + "`?"
 				}
-				what := "record"
+				what := "record has no field"
 				if x.Type.Kind == funcs.Table {
-					what = "table"
+					what = "table has no column"
 				}
-				return t.fail(n.Property, fmt.Sprintf("%s has no field `%s`", what, field), "", hint)
+				return t.fail(n.Property, fmt.Sprintf("%s `%s`", what, field), "", hint)
 			}
 			if x.Type.Kind == funcs.Table {
 				r := t.node(n, OpColumn, funcs.ListOf(x.Type.Fields[i].Type), x)

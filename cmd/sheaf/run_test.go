@@ -1,0 +1,160 @@
+package main
+
+import (
+	"bytes"
+	"flag"
+	"os"
+	"path/filepath"
+	"strings"
+	"testing"
+)
+
+var update = flag.Bool("update", false, "rewrite golden files")
+
+// sheaf runs the command line from the repository root, so that file names
+// in messages read as a user would type them.
+func sheaf(t *testing.T, args ...string) (stdout, stderr string, code int) {
+	t.Helper()
+	var out, errb bytes.Buffer
+	code = Main(args, strings.NewReader(""), &out, &errb)
+	return out.String(), errb.String(), code
+}
+
+func golden(t *testing.T, path, got string) {
+	t.Helper()
+	if *update {
+		if err := os.MkdirAll(filepath.Dir(path), 0o755); err != nil {
+			t.Fatal(err)
+		}
+		if err := os.WriteFile(path, []byte(got), 0o644); err != nil {
+			t.Fatal(err)
+		}
+		return
+	}
+	want, err := os.ReadFile(path)
+	if err != nil {
+		t.Fatalf("missing golden file %s (run go test ./cmd/sheaf -update): %v", path, err)
+	}
+	if string(want) != got {
+		t.Errorf("%s differs from the output:\n--- got ---\n%s\n--- want ---\n%s", path, got, want)
+	}
+}
+
+// TestSheetsGolden runs every example sheet and compares the text and JSON
+// listings with testdata/sheets/<name>.txt and .json. Hand checks of the
+// numbers sit in each sheet's closing comment.
+func TestSheetsGolden(t *testing.T) {
+	t.Chdir("../..")
+	files, err := filepath.Glob("sheets/*.sheaf")
+	if err != nil || len(files) == 0 {
+		t.Fatalf("no sheets found: %v", err)
+	}
+	for _, f := range files {
+		name := strings.TrimSuffix(filepath.Base(f), ".sheaf")
+		t.Run(name, func(t *testing.T) {
+			out, errs, code := sheaf(t, "run", f)
+			if code != exitOK && code != exitChecks {
+				t.Fatalf("exit %d: %s", code, errs)
+			}
+			golden(t, filepath.Join("testdata", "sheets", name+".txt"), out)
+			js, errs, code2 := sheaf(t, "run", "--json", f)
+			if code2 != code {
+				t.Errorf("--json exit %d, text exit %d: %s", code2, code, errs)
+			}
+			golden(t, filepath.Join("testdata", "sheets", name+".json"), js)
+			again, _, _ := sheaf(t, "run", f)
+			if again != out {
+				t.Error("output is not deterministic")
+			}
+		})
+	}
+}
+
+// TestHangerHandCalc checks the example against the hand calculation in
+// its closing comment (relative 1e-3: the comment rounds).
+func TestHangerHandCalc(t *testing.T) {
+	t.Chdir("../..")
+	out, _, code := sheaf(t, "run", "--json", "sheets/mezzanine-hanger.sheaf")
+	if code != exitOK {
+		t.Fatalf("exit %d", code)
+	}
+	// Source: the arithmetic in the sheet's closing comment; EN 1993-1-8
+	// Table 3.4 for F_t,Rd = k2 f_ub A_s / γM2 (from memory).
+	for _, want := range []string{
+		`"name": "F_tRd"`, `"text": "45.22 kN"`, `"text": "17.2 kN"`, `"text": "109.5 MPa"`, `"text": "0.8544 mm"`,
+	} {
+		if !strings.Contains(out, want) {
+			t.Errorf("JSON lacks %s", want)
+		}
+	}
+}
+
+func TestRunSetOverrides(t *testing.T) {
+	t.Chdir("../..")
+	cases := []struct {
+		name     string
+		args     []string
+		code     int
+		contains string
+	}{
+		// 45 kN on M16 4.6: N_Ed = 45 kN > F_tRd = 45.22? no: the design load is the factored one
+		{"bigger rod", []string{"--set", "d=24 mm"}, exitOK, "353 mm^2"},
+		{"no space", []string{"--set", "d=20mm"}, exitOK, "245 mm^2"},
+		{"heavier walkway fails", []string{"--set", "q_k=25kN/m^2"}, exitChecks, "FAILS"},
+		{"derived cannot be set", []string{"--set", "sigma=100MPa"}, exitInput, "only inputs can be set"},
+		{"wrong dimension", []string{"--set", "d=3 kN"}, exitInput, "must be a length"},
+		{"unknown cell", []string{"--set", "dd=3 mm"}, exitInput, "did you mean `d`?"},
+		{"bad syntax", []string{"--set", "d"}, exitInput, "expected name=value"},
+		{"outside the table", []string{"--set", "d=30 mm"}, exitChecks, "outside the table"},
+	}
+	for _, c := range cases {
+		t.Run(c.name, func(t *testing.T) {
+			args := append([]string{"run", "sheets/mezzanine-hanger.sheaf"}, c.args...)
+			out, errs, code := sheaf(t, args...)
+			if code != c.code {
+				t.Fatalf("exit %d, want %d\n%s%s", code, c.code, out, errs)
+			}
+			if !strings.Contains(out+errs, c.contains) {
+				t.Errorf("output lacks %q:\n%s%s", c.contains, out, errs)
+			}
+		})
+	}
+}
+
+func TestCheckCommand(t *testing.T) {
+	t.Chdir("../..")
+	out, errs, code := sheaf(t, "check", "sheets/mezzanine-hanger.sheaf")
+	if code != exitOK || !strings.HasPrefix(out, "ok: ") {
+		t.Fatalf("exit %d: %s%s", code, out, errs)
+	}
+	if _, _, code := sheaf(t, "check", "no/such/file.sheaf"); code != exitInput {
+		t.Errorf("missing file: exit %d, want %d", code, exitInput)
+	}
+}
+
+// TestBrokenSheets runs every sheet under testdata/broken: each must exit 2
+// without a panic and print exactly the diagnostics in its .err file.
+func TestBrokenSheets(t *testing.T) {
+	t.Chdir("../..")
+	files, _ := filepath.Glob("testdata/broken/*.sheaf")
+	if len(files) < 40 {
+		t.Errorf("want at least 40 broken sheets, have %d", len(files))
+	}
+	for _, f := range files {
+		name := strings.TrimSuffix(filepath.Base(f), ".sheaf")
+		t.Run(name, func(t *testing.T) {
+			out, errs, code := sheaf(t, "check", f)
+			if code != exitInput {
+				t.Fatalf("exit %d, want %d\n%s%s", code, exitInput, out, errs)
+			}
+			if strings.Contains(errs, "internal error") {
+				t.Fatalf("panic: %s", errs)
+			}
+			golden(t, strings.TrimSuffix(f, ".sheaf")+".err", errs)
+			_, errs2, code2 := sheaf(t, "run", f)
+			if code2 != exitInput || errs2 != errs {
+				t.Errorf("run disagrees with check: exit %d\n%s", code2, errs2)
+			}
+		})
+	}
+}
