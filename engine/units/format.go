@@ -79,13 +79,13 @@ func trimZeros(b []byte, start int) []byte {
 }
 
 // Format writes the SI value si in unit u with sig significant figures and a
-// space before the symbol: "121 MPa", "0.757 mm", "5 %". A dimensionless
-// unit with an empty symbol gives the number alone. Format does not check
+// space before the symbol: "121 MPa", "0.757 mm", "5 %". A plain number
+// (symbol "" or "1") gives the number alone. Format does not check
 // that si has u's dimension; the checker has done that before evaluation.
 func Format(si float64, u Unit, sig int) string {
 	var buf [48]byte
 	b := appendNumber(buf[:0], si/u.Factor, sig)
-	if u.Symbol != "" {
+	if u.Symbol != "" && u.Symbol != "1" {
 		b = append(b, ' ')
 		b = append(b, u.Symbol...)
 	}

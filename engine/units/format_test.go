@@ -71,6 +71,7 @@ func TestFormat(t *testing.T) {
 		{0.05, "%", 3, "5 %"},
 		{1e-3, "‰", 3, "1 ‰"},
 		{0.5, "", 3, "0.5"},
+		{0.5, "1", 3, "0.5"},
 	}
 	for _, tc := range tests {
 		u := Unit{Factor: 1}
