@@ -321,16 +321,19 @@ func (p *parser) lineOf(off, i, j int) int {
 }
 
 // annot reads the annotation that starts with "--" at offset at on line li.
-// The description and the reference are split at the first " @ ".
+// The description and the reference are split at the first "@" that stands
+// alone (spaces or tabs, or the ends of the annotation, on both sides), so
+// that an address such as `a@b` stays in the description.
 func (p *parser) annot(li, at int) Annot {
 	ln := p.lines[li]
 	raw := p.text[at+2 : ln.end]
-	var desc, ref string
-	if k := strings.Index(" "+raw+" ", " @ "); k >= 0 {
-		desc = trimText(raw[:max(k-1, 0)])
-		ref = trimText(raw[min(k+1, len(raw)):])
-	} else {
-		desc = trimText(raw)
+	desc, ref := trimText(raw), ""
+	for k := 0; k < len(raw); k++ {
+		if raw[k] == '@' && (k == 0 || raw[k-1] == ' ' || raw[k-1] == '\t') &&
+			(k+1 == len(raw) || raw[k+1] == ' ' || raw[k+1] == '\t') {
+			desc, ref = trimText(raw[:k]), trimText(raw[k+1:])
+			break
+		}
 	}
 	return Annot{Description: desc, Reference: ref, Range: p.rng(li, at, ln.end)}
 }

@@ -33,8 +33,11 @@ func (p *parser) parseHeading(i int) Item {
 //	comment = "#" text .
 func (p *parser) parseComment(i int) Item {
 	ln := p.lines[i]
-	_, b := trimSpan(p.text, ln.start+1, ln.end)
-	return &Comment{Text: p.text[ln.start+1 : max(b, ln.start+1)], Range: p.rng(i, ln.start, ln.end)}
+	b := ln.end
+	for b > ln.start+1 && (p.text[b-1] == ' ' || p.text[b-1] == '\t') {
+		b--
+	}
+	return &Comment{Text: p.text[ln.start+1 : b], Range: p.rng(i, ln.start, ln.end)}
 }
 
 // parseMeta reads a header line; colon is the offset of its ":".
