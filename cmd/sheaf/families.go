@@ -4,5 +4,8 @@ package main
 // functions in init.
 import (
 	_ "github.com/sheafcalc/sheaf/funcs/bar"
+	_ "github.com/sheafcalc/sheaf/funcs/composite"
+	_ "github.com/sheafcalc/sheaf/funcs/plastic"
+	_ "github.com/sheafcalc/sheaf/funcs/section"
 	_ "github.com/sheafcalc/sheaf/funcs/stability"
 )

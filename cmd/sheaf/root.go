@@ -118,6 +118,7 @@ combinations come from the local code and licensed practice.`,
 		newUnitsCmd(a),
 		newRunCmd(a),
 		newCheckCmd(a),
+		newFuncsCmd(a),
 	)
 	return root
 }
