@@ -31,43 +31,43 @@ func TestBuiltins(t *testing.T) {
 		expr string
 		want float64
 	}{
-		{"sqrt(2)", math.Sqrt(2)},                      // Source: Go math.Sqrt
-		{"sqrt(16 mm^2)", 0.004},                       // closed form: 4 mm
-		{"cbrt(27 m^3)", 3},                            // closed form
-		{"abs(-3 kN)", 3000},                           // closed form
-		{"min(3 m, 2 m, 5 m)", 2},                      // closed form
-		{"max([1 kN, 5 kN, 2 kN])", 5000},              // closed form
-		{"min([4 mm, 2 mm])", 0.002},                   // closed form
-		{"pow(16 mm^2, 0.5)", 0.004},                   // closed form
-		{"pow(2, 10)", 1024},                           // closed form
-		{"(3 m)^2", 9},                                 // closed form
-		{"2 ** 3", 8},                                  // closed form
-		{"exp(1)", math.E},                             // Source: Go math.E
-		{"ln(10)", math.Ln10},                          // Source: Go math.Ln10
-		{"log10(1000)", 3},                             // closed form
-		{"sin(30 deg)", 0.5},                           // closed form sin 30° = 1/2
-		{"cos(60 deg)", 0.5},                           // closed form
-		{"tan(45 deg)", 1},                             // closed form
-		{"asin(1)", math.Pi / 2},                       // closed form
-		{"acos(0.5)", math.Pi / 3},                     // closed form
-		{"atan(1)", math.Pi / 4},                       // closed form
-		{"atan2(1 m, 1 m)", math.Pi / 4},               // closed form
-		{"hypot(3 m, 4 m)", 5},                         // closed form 3-4-5
-		{"round(17 mm, 5 mm)", 0.015},                  // closed form
-		{"round(2.5)", 3},                              // Go math.Round: half away from zero
-		{"floor(2.7)", 2},                              // closed form
-		{"ceil(2.1)", 3},                               // closed form
-		{"sum([1 kN, 2 kN, 3.5 kN])", 6500},            // closed form
-		{"mean([1 m, 2 m, 6 m])", 3},                   // closed form
-		{"len([1, 2, 3])", 3},                          // closed form
+		{"sqrt(2)", math.Sqrt(2)},           // Source: Go math.Sqrt
+		{"sqrt(16 mm^2)", 0.004},            // closed form: 4 mm
+		{"cbrt(27 m^3)", 3},                 // closed form
+		{"abs(-3 kN)", 3000},                // closed form
+		{"min(3 m, 2 m, 5 m)", 2},           // closed form
+		{"max([1 kN, 5 kN, 2 kN])", 5000},   // closed form
+		{"min([4 mm, 2 mm])", 0.002},        // closed form
+		{"pow(16 mm^2, 0.5)", 0.004},        // closed form
+		{"pow(2, 10)", 1024},                // closed form
+		{"(3 m)^2", 9},                      // closed form
+		{"2 ** 3", 8},                       // closed form
+		{"exp(1)", math.E},                  // Source: Go math.E
+		{"ln(10)", math.Ln10},               // Source: Go math.Ln10
+		{"log10(1000)", 3},                  // closed form
+		{"sin(30 deg)", 0.5},                // closed form sin 30° = 1/2
+		{"cos(60 deg)", 0.5},                // closed form
+		{"tan(45 deg)", 1},                  // closed form
+		{"asin(1)", math.Pi / 2},            // closed form
+		{"acos(0.5)", math.Pi / 3},          // closed form
+		{"atan(1)", math.Pi / 4},            // closed form
+		{"atan2(1 m, 1 m)", math.Pi / 4},    // closed form
+		{"hypot(3 m, 4 m)", 5},              // closed form 3-4-5
+		{"round(17 mm, 5 mm)", 0.015},       // closed form
+		{"round(2.5)", 3},                   // Go math.Round: half away from zero
+		{"floor(2.7)", 2},                   // closed form
+		{"ceil(2.1)", 3},                    // closed form
+		{"sum([1 kN, 2 kN, 3.5 kN])", 6500}, // closed form
+		{"mean([1 m, 2 m, 6 m])", 3},        // closed form
+		{"len([1, 2, 3])", 3},               // closed form
 		{"interp([0 m, 2 m, 4 m], [0 kN, 10 kN, 30 kN], 3 m)", 20000}, // linear: 10 + (3-2)/2·20 kN
-		{"interp([0 m, 2 m], [1 kN, 3 kN], 2 m)", 3000},                // end point
-		{"g_n * 1 kg", 9.80665},                        // Source: NIST SP 811 (2008) App. B, standard gravity, exact
-		{"pi", math.Pi},                                // Source: Go math.Pi
-		{"5 %", 0.05},                                  // common practice: percent = 0.01
-		{"3 > 2 ? 1 m : 2 m", 1},                       // closed form
-		{"-(2 m) + 5 m", 3},                            // closed form
-		{"38kN / (2 * 1 m)", 19000},                    // closed form
+		{"interp([0 m, 2 m], [1 kN, 3 kN], 2 m)", 3000},               // end point
+		{"g_n * 1 kg", 9.80665},                                       // Source: NIST SP 811 (2008) App. B, standard gravity, exact
+		{"pi", math.Pi},                                               // Source: Go math.Pi
+		{"5 %", 0.05},                                                 // common practice: percent = 0.01
+		{"3 > 2 ? 1 m : 2 m", 1},                                      // closed form
+		{"-(2 m) + 5 m", 3},                                           // closed form
+		{"38kN / (2 * 1 m)", 19000},                                   // closed form
 	}
 	for _, c := range cases {
 		t.Run(c.expr, func(t *testing.T) {
