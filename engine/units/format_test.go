@@ -43,7 +43,7 @@ func TestFormatNumber(t *testing.T) {
 	}
 }
 
-// TestFormatChecks formats closed-form results from the check-value list in
+// TestFormat formats closed-form results from the check-value list in
 // the units an engineer reads them in.
 func TestFormat(t *testing.T) {
 	unit := func(s string) Unit {
