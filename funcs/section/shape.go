@@ -68,8 +68,8 @@ func NewRing(ys, zs []float64) (*Ring, error) {
 	}
 	a := r.signedArea()
 	ext := r.extent()
-	if !(math.Abs(a) > 1e-12*ext*ext) {
-		return nil, errors.New("polygon has zero area; its vertices lie on one line")
+	if !(math.Abs(a) > 1e-10*ext*ext) {
+		return nil, errors.New("polygon has no area (its vertices lie on one line, or it is a sliver thinner than 1e-10 of its length)")
 	}
 	if i, j, ok := r.selfIntersection(); ok {
 		return nil, fmt.Errorf("polygon edges %d and %d cross; give the vertices in order around the boundary", i+1, j+1)
@@ -80,12 +80,16 @@ func NewRing(ys, zs []float64) (*Ring, error) {
 	return r, nil
 }
 
+// signedArea is positive for a counter-clockwise ring. Coordinates are
+// taken from the first vertex, so that a small polygon far from the origin
+// keeps its digits.
 func (r *Ring) signedArea() float64 {
 	n := len(r.Y)
+	y0, z0 := r.Y[0], r.Z[0]
 	s := 0.0
 	for i := range n {
 		j := (i + 1) % n
-		s += r.Y[i]*r.Z[j] - r.Y[j]*r.Z[i]
+		s += (r.Y[i]-y0)*(r.Z[j]-z0) - (r.Y[j]-y0)*(r.Z[i]-z0)
 	}
 	return s / 2
 }
