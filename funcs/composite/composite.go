@@ -87,6 +87,13 @@ func New(parts []*Part) (*Composite, error) {
 	if len(parts) == 0 {
 		return nil, fmt.Errorf("a composite needs at least one part")
 	}
+	for i := range parts {
+		for j := i + 1; j < len(parts); j++ {
+			if _, err := section.Join(parts[i].Shape, parts[j].Shape); err != nil {
+				return nil, fmt.Errorf("parts %d and %d overlap; a core inside a tube is the tube's hole, e.g. circle(d − 2t) with chs(d, t) (%v)", i+1, j+1, err)
+			}
+		}
+	}
 	c := &Composite{Parts: parts}
 	y0, y1, z0, z1 := math.Inf(1), math.Inf(-1), math.Inf(1), math.Inf(-1)
 	for _, p := range parts {

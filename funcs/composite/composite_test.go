@@ -202,6 +202,10 @@ func TestCompositeErrors(t *testing.T) {
 	if _, err := c.Call([]funcs.Value{[]funcs.Value{core}}); err == nil {
 		t.Error("a section accepted as a part")
 	}
+	big := call(t, "circle", 60*mm)
+	if _, err := c.Call([]funcs.Value{[]funcs.Value{call(t, "part", core, mat(map[string]float64{"E": 1}), nil), call(t, "part", big, mat(map[string]float64{"E": 1}), nil)}}); err == nil {
+		t.Error("overlapping parts accepted")
+	}
 	g, _ := funcs.Lookup("part_graded")
 	neg := &funcs.FuncValue{Call: func(a ...float64) float64 { return -1 }}
 	if _, err := g.Call([]funcs.Value{core, neg, nil}); err == nil {
