@@ -45,6 +45,7 @@ func Parse(name string, src []byte, opts ...Option) (*File, diag.List) {
 		p.bom = len("\uFEFF")
 	}
 	p.splitLines(p.bom)
+	p.file.Items = make([]Item, 0, len(p.lines))
 	p.parseItems()
 	p.diags.Sort()
 	p.file.Syntax = p.diags

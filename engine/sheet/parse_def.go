@@ -76,7 +76,7 @@ func (p *parser) unit(li, at int) (*UnitSpec, int, bool) {
 			"empty unit `[]`")
 		return nil, close + 1, false
 	}
-	return &UnitSpec{Text: p.text[a:b], Range: p.rng(li, a, b)}, close + 1, true
+	return &UnitSpec{Text: p.text[a:b], Range: p.rng(li, a, b)}, close + 1, true // escapes only for parameters and columns
 }
 
 // parseDef reads a cell or (when funcs is true) a user function on lines
@@ -132,7 +132,16 @@ func (p *parser) parseDef(i, j, at int, funcs bool) Item {
 	if isFunc {
 		return &FuncDef{Name: id, Params: params, Unit: u, Body: body, Annot: annot, Range: r}
 	}
-	return &Cell{Name: id, Unit: u, Expr: body, Annot: annot, Range: r}
+	// One allocation for the cell and its unit: a long sheet is mostly cells.
+	a := &struct {
+		c Cell
+		u UnitSpec
+	}{c: Cell{Name: id, Expr: body, Annot: annot, Range: r}}
+	if u != nil {
+		a.u = *u
+		a.c.Unit = &a.u
+	}
+	return &a.c
 }
 
 // expectEquals checks that offset k on line i holds the defining "=" and
@@ -272,6 +281,14 @@ func (p *parser) body(i, j, from int) (Expr, Annot, bool) {
 			annotAt, annotLine = a, li
 			break
 		}
+	}
+	if sc.unclosed > 0 {
+		o := sc.unclosed - 1
+		oli := p.lineOf(o, i, j)
+		p.errAt(p.rng(oli, o, p.lines[oli].end), "a string starts and ends on one line; this one has no closing quote",
+			"close the string with `"+t[o:o+1]+"` on the same line",
+			"unterminated string")
+		return Expr{}, Annot{}, false
 	}
 	if len(sc.open) > 0 {
 		o := sc.open[0]

@@ -14,7 +14,8 @@ import (
 // A string ends at its closing quote or at the end of the line; expression
 // checking reports an unterminated one.
 type bracketScanner struct {
-	open []int // offsets of brackets not yet closed, innermost last
+	open     []int // offsets of brackets not yet closed, innermost last
+	unclosed int   // offset+1 of the first string left open at a line end; 0 if none
 }
 
 // scan reads text[from:to] and returns the offset of the first "--" outside
@@ -30,6 +31,9 @@ func (s *bracketScanner) scan(text string, from, to int) int {
 					j++
 				}
 				j++
+			}
+			if j >= to && s.unclosed == 0 {
+				s.unclosed = i + 1
 			}
 			i = j
 		case '(', '[', '{':
