@@ -53,7 +53,8 @@
 // The normalised Symbol of a parsed unit uses ASCII operators around the SI
 // letter symbols: `kN*m`, `N/mm^2`, `m^-1`, `MPa^(1/2)`, `µm`. ASCII
 // operators survive every file, terminal and spreadsheet, and the symbol
-// parses back to the same unit.
+// parses back to the same unit. Unit.Pretty gives the typographic form
+// (`kN·m`, `N/mm²`) for reports; it parses back too.
 //
 // # Display
 //

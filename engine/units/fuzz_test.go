@@ -31,5 +31,8 @@ func FuzzParse(f *testing.F) {
 		if back.Symbol != u.Symbol || back.Dim != u.Dim || back.Factor != u.Factor {
 			t.Fatalf("Parse(%q) = %+v, but its symbol parses to %+v", text, u, back)
 		}
+		if pretty, err := Parse(u.Pretty()); err != nil || pretty.Symbol != u.Symbol {
+			t.Fatalf("Parse(%q).Pretty() = %q parses to %q, %v", text, u.Pretty(), pretty.Symbol, err)
+		}
 	})
 }

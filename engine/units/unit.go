@@ -1,6 +1,9 @@
 package units
 
-import "fmt"
+import (
+	"fmt"
+	"strings"
+)
 
 // Unit is a unit of measurement: how to write it, what it measures and how
 // large it is in SI.
@@ -37,3 +40,35 @@ func Convert(x float64, from, to Unit) (float64, error) {
 	}
 	return x * from.Factor / to.Factor, nil
 }
+
+// Pretty returns the symbol in typographic form for reports and workbooks:
+// a middle dot for products and superscript exponents ("kN·m", "N/mm²",
+// "m⁻¹", "MPa^(1/2)" keeps its half exponent spelt out). Parse reads it back.
+func (u Unit) Pretty() string {
+	s := u.Symbol
+	if !strings.ContainsAny(s, "*^") {
+		return s
+	}
+	var b strings.Builder
+	for i := 0; i < len(s); i++ {
+		switch c := s[i]; {
+		case c == '*':
+			b.WriteString("·")
+		case c == '^' && i+1 < len(s) && (s[i+1] == '-' || isDigit(rune(s[i+1]))):
+			i++
+			if s[i] == '-' {
+				b.WriteString("⁻")
+				i++
+			}
+			for ; i < len(s) && isDigit(rune(s[i])); i++ {
+				b.WriteString(superscripts[s[i]-'0'])
+			}
+			i--
+		default:
+			b.WriteByte(c)
+		}
+	}
+	return b.String()
+}
+
+var superscripts = [10]string{"⁰", "¹", "²", "³", "⁴", "⁵", "⁶", "⁷", "⁸", "⁹"}
