@@ -52,9 +52,10 @@ func (q *integrator) eval(y, z float64) float64 {
 	return v
 }
 
-// Integrate returns ∫ f dA over s to the relative tolerance tol (relative to
-// ∫|f| dA, so fields whose integral cancels to zero also converge), with the
-// achieved error estimate.
+// Integrate returns ∫ f dA over s to the relative tolerance tol, with the
+// achieved error estimate. The tolerance is relative to the magnitude of f
+// over the quadrature cells (Σ|w·f·J|, about ∫|f| dA), so a field whose
+// integral cancels to zero converges too.
 //
 // Polygons: by Green's theorem ∫∫ f dA = ∮ F dz with F(y, z) = ∫_{y0}^{y}
 // f(s, z) ds, each edge contributes the integral over the strip between the
