@@ -16,8 +16,9 @@ import (
 //     heading or item of another kind) the `[unit]`, `=` and `--` columns
 //     aligned; runs of functions likewise, apart from cells (a long
 //     parameter list would push every cell's `=` far right); in each run of
-//     checks the `--` column aligned; at least two spaces before `--`, one
-//     space around `=` and `@`;
+//     checks the `--` column aligned (lines longer than 60 runes stay out
+//     of the `--` alignment); at least two spaces before `--`, one space
+//     around `=` and `@`;
 //   - continuation lines of an expression indented four spaces past their
 //     item, keeping their indentation relative to one another;
 //   - table columns right-aligned (numbers line up on their last digit),
@@ -190,6 +191,12 @@ func annotText(a Annot) string {
 	return "-- " + a.Description + " @ " + a.Reference
 }
 
+// annotColumnMax is the widest line that takes part in aligning the `--`
+// column. A longer line gets its annotation two spaces after its end, so one
+// long record literal does not push every annotation of its run far right
+// (and adding it does not re-indent every line of the run in a diff).
+const annotColumnMax = 60
+
 // defs prints a run of definitions with aligned columns, each line starting
 // with indent.
 func (pr *printer) defs(run []defRow, indent string) {
@@ -213,8 +220,8 @@ func (pr *printer) defs(run []defRow, indent string) {
 		}
 		first, _, multi := strings.Cut(r.body, "\n")
 		firsts[i] = s + strings.TrimRight(first, " \t\r")
-		if !multi && r.annot != "" {
-			wLine = max(wLine, width(firsts[i]))
+		if w := width(firsts[i]); !multi && r.annot != "" && w <= annotColumnMax {
+			wLine = max(wLine, w)
 		}
 	}
 	for i, r := range run {

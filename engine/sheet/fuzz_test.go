@@ -46,3 +46,22 @@ func TestRoundTripSeeds(t *testing.T) {
 		})
 	}
 }
+
+// TestRoundTripSheets runs the round-trip property over the example sheets
+// and templates under sheets/ (issue 6: fmt must never change a sheet's
+// content).
+func TestRoundTripSheets(t *testing.T) {
+	files, _ := filepath.Glob(filepath.Join("..", "..", "sheets", "*.sheaf"))
+	for _, s := range files {
+		t.Run(filepath.Base(s), func(t *testing.T) {
+			src, err := os.ReadFile(s)
+			if err != nil {
+				t.Fatal(err)
+			}
+			if _, errs := Parse(s, src); errs.HasErrors() {
+				t.Fatalf("example sheet has syntax errors: %v", errs)
+			}
+			checkRoundTrip(t, s, src)
+		})
+	}
+}
