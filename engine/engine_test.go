@@ -13,7 +13,7 @@ import (
 
 func compile(t testing.TB, src string) *engine.Sheet {
 	t.Helper()
-	s, err := engine.Compile("t.sheaf", []byte(src))
+	s, err := engine.Compile("t.sheaf", []byte(src), engine.WithMaxBytes(32<<20))
 	if err != nil {
 		var b strings.Builder
 		if l, ok := err.(diag.List); ok {

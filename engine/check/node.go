@@ -1,7 +1,10 @@
 package check
 
 import (
+	"github.com/expr-lang/expr/ast"
+
 	"github.com/sheafcalc/sheaf/engine/diag"
+	"github.com/sheafcalc/sheaf/engine/formula"
 	"github.com/sheafcalc/sheaf/funcs"
 )
 
@@ -51,5 +54,20 @@ type Node struct {
 	Builtin Builtin
 	Def     *funcs.Def
 	Args    []*Node
-	Range   diag.Range // the source text of the node, for runtime messages
+	// Src and F locate the node in the sheet; Range computes the span only
+	// when a message needs it, which keeps checking a large sheet cheap.
+	Src ast.Node
+	F   *formula.Formula
+	rng *diag.Range
+}
+
+// Range returns the source range of the node (zero when it has none).
+func (n *Node) Range() diag.Range {
+	if n.rng != nil {
+		return *n.rng
+	}
+	if n.Src == nil || n.F == nil {
+		return diag.Range{}
+	}
+	return n.F.Range(n.Src)
 }

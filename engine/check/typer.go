@@ -28,7 +28,7 @@ func (t *typer) fail(n ast.Node, summary, detail, hint string) *Node {
 }
 
 func (t *typer) node(n ast.Node, op Op, ty *funcs.Type, args ...*Node) *Node {
-	return &Node{Op: op, Type: ty, Args: args, Range: t.f.Range(n)}
+	return &Node{Op: op, Type: ty, Args: args, Src: n, F: t.f}
 }
 
 // expr types n. It returns nil after reporting a problem, or silently when

@@ -211,8 +211,10 @@ func isFinite(x float64) bool { return !math.IsNaN(x) && !math.IsInf(x, 0) }
 
 func (s *State) failed(c *check.Cell, fl *Failure) {
 	r := c.Formula.Source.Range
-	if fl.Node != nil && fl.Node.Range.Start.IsValid() {
-		r = fl.Node.Range
+	if fl.Node != nil {
+		if nr := fl.Node.Range(); nr.Start.IsValid() {
+			r = nr
+		}
 	}
 	detail := "`" + c.Name + "` has no value; cells that use it are skipped"
 	s.Problem[c.Index] = &diag.Diagnostic{Range: r, Summary: "`" + c.Name + "` cannot be computed: " + fl.Msg, Detail: detail, Hint: fl.Hint}

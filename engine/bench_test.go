@@ -1,0 +1,130 @@
+package engine_test
+
+import (
+	"fmt"
+	"strings"
+	"testing"
+)
+
+// genSheet writes a sheet of chains*length derived cells plus inputs: each
+// chain k starts from its own input P_k; cell i of a chain uses the two
+// cells before it (fan-in) and the input, with units throughout. Changing
+// P_k recomputes exactly the `length` cells of chain k.
+func genSheet(chains, length int) string {
+	var b strings.Builder
+	b.WriteString("title: generated\nA [mm^2] = 314 mm^2\n")
+	for k := 0; k < chains; k++ {
+		fmt.Fprintf(&b, "P%d [kN] = %d kN\n", k, k+1)
+		fmt.Fprintf(&b, "c%d_0 [kN] = P%d * 2 + 1 kN\n", k, k)
+		fmt.Fprintf(&b, "c%d_1 [kN] = c%d_0 * 0.5 + P%d / 4\n", k, k, k)
+		for i := 2; i < length; i++ {
+			if i%10 == 0 {
+				fmt.Fprintf(&b, "c%d_%d [kN] = (c%d_%d / A) * 100 mm^2 + P%d / 10\n", k, i, k, i-1, k)
+			} else {
+				fmt.Fprintf(&b, "c%d_%d [kN] = (c%d_%d + c%d_%d) / 2 + P%d / 10\n", k, i, k, i-1, k, i-2, k)
+			}
+		}
+	}
+	return b.String()
+}
+
+// plain is the same computation written in Go, the baseline for ns/cell.
+func plain(chains, length int, p []float64, out []float64) {
+	const A = 314e-6
+	for k := 0; k < chains; k++ {
+		base := k * length
+		P := p[k]
+		out[base] = P*2 + 1000
+		out[base+1] = out[base]*0.5 + P/4
+		for i := 2; i < length; i++ {
+			if i%10 == 0 {
+				out[base+i] = (out[base+i-1]/A)*100e-6 + P/10
+			} else {
+				out[base+i] = (out[base+i-1]+out[base+i-2])/2 + P/10
+			}
+		}
+	}
+}
+
+const benchChains, benchLen = 100, 1000 // 100,000 derived cells
+
+func BenchmarkLoadCheckEval100k(b *testing.B) {
+	src := []byte(genSheet(benchChains, benchLen))
+	b.ReportAllocs()
+	for b.Loop() {
+		s := compile(b, string(src))
+		st := s.NewState()
+		st.Recompute()
+	}
+}
+
+func BenchmarkEval100k(b *testing.B) {
+	s := compile(b, genSheet(benchChains, benchLen))
+	st := s.NewState()
+	st.Recompute()
+	b.ReportAllocs()
+	b.ResetTimer()
+	for b.Loop() {
+		fresh := s.NewState()
+		fresh.Recompute()
+	}
+	b.ReportMetric(float64(b.Elapsed().Nanoseconds())/float64(b.N)/float64(benchChains*benchLen), "ns/cell")
+}
+
+func BenchmarkEvalResults100k(b *testing.B) {
+	s := compile(b, genSheet(benchChains, benchLen))
+	b.ReportAllocs()
+	for b.Loop() {
+		s.NewState().Eval()
+	}
+}
+
+func BenchmarkRecompute1000(b *testing.B) {
+	s := compile(b, genSheet(benchChains, benchLen))
+	st := s.NewState()
+	st.Recompute()
+	b.ReportAllocs()
+	v := 1000.0
+	for b.Loop() {
+		v++
+		if err := st.Set("P42", v); err != nil {
+			b.Fatal(err)
+		}
+		st.Recompute()
+	}
+	if n := len(st.LastEvaluated()); n != benchLen+1 {
+		b.Fatalf("recomputed %d cells, want %d", n, benchLen+1)
+	}
+}
+
+func BenchmarkPlainGo100k(b *testing.B) {
+	p := make([]float64, benchChains)
+	for k := range p {
+		p[k] = float64(k+1) * 1000
+	}
+	out := make([]float64, benchChains*benchLen)
+	for b.Loop() {
+		plain(benchChains, benchLen, p, out)
+	}
+	b.ReportMetric(float64(b.Elapsed().Nanoseconds())/float64(b.N)/float64(benchChains*benchLen), "ns/cell")
+}
+
+// TestGeneratedMatchesPlain checks the generated sheet against the Go
+// baseline, so the benchmarks compare equal work.
+func TestGeneratedMatchesPlain(t *testing.T) {
+	const chains, length = 3, 50
+	s := compile(t, genSheet(chains, length))
+	r := s.Run(nil)
+	p := []float64{1000, 2000, 3000}
+	out := make([]float64, chains*length)
+	plain(chains, length, p, out)
+	for k := 0; k < chains; k++ {
+		for i := 0; i < length; i++ {
+			got := r.Cell(fmt.Sprintf("c%d_%d", k, i)).SI
+			want := out[k*length+i]
+			if d := got - want; d > 1e-9*want || d < -1e-9*want {
+				t.Fatalf("c%d_%d = %g, want %g", k, i, got, want)
+			}
+		}
+	}
+}
