@@ -193,6 +193,13 @@ func (v *solver) gpart(i int, a, na, x float64) (float64, error) {
 		f, err := v.flex(i, a, x)
 		return na*f + th, err
 	}
+	// N₀(ξ) = na − ∫_a^ξ b: integrate the two parts apart, so that the
+	// integrand never carries the cancellation of na against the load
+	// integral (which would hold the relative test at rounding noise).
+	f, err := v.flex(i, a, x)
+	if err != nil {
+		return 0, err
+	}
 	var inner error
 	r, _, _, err := adaptive(func(t float64) float64 {
 		li, err := v.loadInt(i, a, t)
@@ -202,7 +209,7 @@ func (v *solver) gpart(i int, a, na, x float64) (float64, error) {
 			}
 			return math.NaN()
 		}
-		return (na - li) / (v.modulus(i, t) * v.area(i, t))
+		return li / (v.modulus(i, t) * v.area(i, t))
 	}, a, x)
 	if inner != nil {
 		return 0, inner
@@ -210,5 +217,6 @@ func (v *solver) gpart(i int, a, na, x float64) (float64, error) {
 	if err != nil {
 		return 0, v.quadErr(err, "integral ∫N/(EA)dx", a, x)
 	}
+	r = na*f - r
 	return r + th, nil
 }

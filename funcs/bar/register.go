@@ -89,20 +89,9 @@ func builders() []*funcs.Def {
 		{
 			Name: "bar_fn", Family: family,
 			Params: []funcs.Param{p("L", numLength, "length [m], > 0"),
-				p("A", funcs.AnyType, "area: a number [m²] or a function A(x [m]) [m²]"),
-				p("E", funcs.AnyType, "modulus: a number [Pa] or a function E(x [m]) [Pa]")},
-			Validate: func(args []*funcs.Type) (*funcs.Type, error) {
-				if len(args) != 3 {
-					return nil, fmt.Errorf("bar_fn needs L, A and E")
-				}
-				if !numArea.Accepts(args[1]) && !areaFnType.Accepts(args[1]) {
-					return nil, fmt.Errorf("A must be an area [m²] or a function of x [m] giving an area, not %s", args[1])
-				}
-				if !numStress.Accepts(args[2]) && !stressFn.Accepts(args[2]) {
-					return nil, fmt.Errorf("E must be a stress [Pa] or a function of x [m] giving a stress, not %s", args[2])
-				}
-				return barType, nil
-			},
+				p("A", areaFnType, "area: a function A(x [m]) [m²]"),
+				p("E", stressFn, "modulus: a function E(x [m]) [Pa]")},
+			Result: barType,
 			Call: func(args []funcs.Value) (funcs.Value, error) {
 				l, err := numArg(args[0], "L")
 				if err != nil {
@@ -131,8 +120,9 @@ func builders() []*funcs.Def {
 				return barValue(&Bar{Segments: []Segment{s}}), nil
 			},
 			Summary: "a bar whose area and modulus are functions of x",
-			Doc: "Builds a bar of length L [m] of one segment whose area A and modulus E are each either a " +
-				"number or a user function of the position x [m] from the start. A function must give a " +
+			Doc: "Builds a bar of length L [m] of one segment whose area A and modulus E are user functions " +
+				"of the position x [m] from the start (for a constant modulus write a function that returns " +
+				"it, e.g. E_s(x [m]) [GPa] = 200 GPa). Each function must give a " +
 				"positive finite value over 0 ≤ x ≤ L; where it fails the solver names it and the position. " +
 				"The flexibility ∫dx/(EA) is then taken by adaptive Gauss–Legendre quadrature to a relative " +
 				"accuracy of 1e-13.",
