@@ -1,0 +1,245 @@
+package batch
+
+import (
+	"bytes"
+	"encoding/csv"
+	"errors"
+	"fmt"
+	"io"
+	"strings"
+
+	"github.com/sheafcalc/sheaf/engine"
+	"github.com/sheafcalc/sheaf/engine/check"
+	"github.com/sheafcalc/sheaf/engine/diag"
+	"github.com/sheafcalc/sheaf/engine/units"
+	"github.com/sheafcalc/sheaf/funcs"
+)
+
+// Column is one column of a case table: the input it sets and the unit its
+// values are written in.
+type Column struct {
+	Name    string
+	Cell    *engine.Cell
+	Unit    units.Unit // header unit if written, else the cell's display unit
+	HasUnit bool       // the header wrote a unit: bare numbers are in it
+	Pos     diag.Pos   // of the header field
+}
+
+// Case is one data row.
+type Case struct {
+	N      int           // case number, 1-based, in file order (bad rows too)
+	Line   int           // line of the row in the file
+	Raw    []string      // the fields as written
+	Values []funcs.Value // SI values, one per column; nil when the row is bad
+	Err    *diag.Diagnostic
+}
+
+// Cases is a case table read against a sheet.
+type Cases struct {
+	File    string
+	Src     []byte
+	Columns []Column
+	Cases   []Case
+}
+
+// Bad returns the problems of the rows that could not be read, in file
+// order.
+func (c *Cases) Bad() diag.List {
+	var l diag.List
+	for i := range c.Cases {
+		if e := c.Cases[i].Err; e != nil {
+			l = append(l, e)
+		}
+	}
+	return l
+}
+
+// Read reads a case table from src for sheet s. An error in the header (an
+// unknown or repeated column, a unit that does not fit) is returned as a
+// diag.List: it would spoil every row. A bad row is kept with its Err set.
+//
+// The table is CSV (RFC 4180): a header row, then one row per case. Lines
+// starting with `#` are comments; blank lines are skipped; spaces after a
+// comma are ignored.
+func Read(file string, src []byte, s *engine.Sheet) (*Cases, error) {
+	r := csv.NewReader(bytes.NewReader(src))
+	r.Comment = '#'
+	r.FieldsPerRecord = -1
+	r.TrimLeadingSpace = true
+	r.ReuseRecord = false
+	out := &Cases{File: file, Src: src}
+	header, err := r.Read()
+	if err == io.EOF {
+		return nil, diag.List{{Range: diag.Range{Start: diag.Pos{File: file, Line: 1, Col: 1}},
+			Summary: "the case table is empty", Detail: "a case table starts with a header row naming inputs of the sheet",
+			Hint: "write a header such as `P [kN], d [mm]` and one row per case"}}
+	}
+	if err != nil {
+		return nil, diag.List{csvProblem(file, err)}
+	}
+	var errs diag.List
+	seen := map[string]bool{}
+	for i, h := range header {
+		line, col := r.FieldPos(i)
+		pos := diag.Pos{File: file, Line: line, Col: col}
+		c, d := readHeader(s, h, pos)
+		if d != nil {
+			errs = append(errs, d)
+			continue
+		}
+		if seen[c.Name] {
+			errs = append(errs, &diag.Diagnostic{Range: rangeOf(pos, h), Summary: fmt.Sprintf("column `%s` appears twice", c.Name),
+				Detail: "each input can have one column", Hint: "drop or rename one of them"})
+			continue
+		}
+		seen[c.Name] = true
+		out.Columns = append(out.Columns, c)
+	}
+	if len(errs) > 0 {
+		errs.Sort()
+		return nil, errs
+	}
+	for n := 1; ; n++ {
+		rec, err := r.Read()
+		if err == io.EOF {
+			break
+		}
+		cs := Case{N: n}
+		if err != nil {
+			var pe *csv.ParseError
+			if !errors.As(err, &pe) {
+				return nil, err
+			}
+			cs.Line = pe.Line
+			cs.Err = csvProblem(file, err)
+			out.Cases = append(out.Cases, cs)
+			continue
+		}
+		cs.Line, _ = r.FieldPos(0)
+		cs.Raw = rec
+		out.readRow(s, r, &cs)
+		out.Cases = append(out.Cases, cs)
+	}
+	return out, nil
+}
+
+// readRow converts the fields of one row, setting cs.Err on the first bad
+// one.
+func (c *Cases) readRow(s *engine.Sheet, r *csv.Reader, cs *Case) {
+	if len(cs.Raw) != len(c.Columns) {
+		line, col := r.FieldPos(0)
+		cs.Err = &diag.Diagnostic{Range: diag.Range{Start: diag.Pos{File: c.File, Line: line, Col: col}},
+			Summary: fmt.Sprintf("case %d has %d values, the header has %d columns", cs.N, len(cs.Raw), len(c.Columns)),
+			Detail:  "this row was skipped; the other rows were evaluated",
+			Hint:    "give one value per column, separated by commas"}
+		return
+	}
+	vals := make([]funcs.Value, len(c.Columns))
+	for i, text := range cs.Raw {
+		v, err := Value(s, &c.Columns[i], text)
+		if err != nil {
+			line, col := r.FieldPos(i)
+			pos := diag.Pos{File: c.File, Line: line, Col: col}
+			cs.Err = &diag.Diagnostic{Range: rangeOf(pos, text),
+				Summary: fmt.Sprintf("case %d, column `%s`: %v", cs.N, c.Columns[i].Name, err),
+				Detail:  "this row was skipped; the other rows were evaluated",
+				Hint:    "write a number, with its unit unless the header gives one: `45 kN`, `45kN`, or `45` under `P [kN]`"}
+			return
+		}
+		vals[i] = v
+	}
+	cs.Values = vals
+}
+
+// readHeader reads one header field `name [unit]` or `name`.
+func readHeader(s *engine.Sheet, h string, pos diag.Pos) (Column, *diag.Diagnostic) {
+	text := strings.TrimSpace(h)
+	name, unit, hasUnit := text, "", false
+	if i := strings.IndexByte(text, '['); i >= 0 {
+		if !strings.HasSuffix(text, "]") {
+			return Column{}, &diag.Diagnostic{Range: rangeOf(pos, h), Summary: fmt.Sprintf("column header %q has an unclosed `[`", text),
+				Hint: "write the unit in square brackets after the name, e.g. `P [kN]`"}
+		}
+		name, unit, hasUnit = strings.TrimSpace(text[:i]), strings.TrimSpace(text[i+1:len(text)-1]), true
+	}
+	if name == "" {
+		return Column{}, &diag.Diagnostic{Range: rangeOf(pos, h), Summary: "a column header has no name",
+			Hint: "each header field names an input of the sheet, e.g. `P [kN]`"}
+	}
+	cell := s.Lookup(name)
+	if cell == nil || cell.Kind != engine.Input {
+		d := &diag.Diagnostic{Range: rangeOf(pos, h), Summary: fmt.Sprintf("column `%s` is not an input of the sheet", name),
+			Detail: "every column of a case table sets an input (a cell whose value is given, not computed)"}
+		switch {
+		case cell != nil:
+			d.Detail = fmt.Sprintf("`%s` is a %s cell; only inputs can be set", name, cell.Kind)
+		default:
+			if n := check.Nearest(name, inputNames(s)); n != "" {
+				d.Hint = fmt.Sprintf("did you mean `%s`?", n)
+			}
+		}
+		return Column{}, d
+	}
+	col := Column{Name: name, Cell: cell, Unit: s.DisplayUnit(cell), Pos: pos}
+	if hasUnit {
+		u, err := units.Parse(unit)
+		if err != nil {
+			return Column{}, &diag.Diagnostic{Range: rangeOf(pos, h), Summary: fmt.Sprintf("column `%s`: %v", name, err),
+				Hint: "units are written as in `kN`, `N/mm^2`, `kN/m`"}
+		}
+		if cell.Type == nil || cell.Type.Kind != funcs.Number {
+			return Column{}, &diag.Diagnostic{Range: rangeOf(pos, h), Summary: fmt.Sprintf("column `%s` has a unit, but `%s` is not a number", name, name),
+				Hint: "drop the unit from the header"}
+		}
+		if u.Dim != cell.Type.Dim {
+			return Column{}, &diag.Diagnostic{Range: rangeOf(pos, h),
+				Summary: fmt.Sprintf("column `%s [%s]`: the unit does not fit `%s`, which is %s", name, unit, name, describe(s, cell)),
+				Hint:    fmt.Sprintf("write `%s [%s]`", name, s.DisplayUnit(cell).Symbol)}
+		}
+		col.Unit, col.HasUnit = u, true
+	}
+	return col, nil
+}
+
+func inputNames(s *engine.Sheet) []string {
+	var names []string
+	for _, c := range s.Cells() {
+		if c.Kind == engine.Input {
+			names = append(names, c.Name)
+		}
+	}
+	return names
+}
+
+// describe says what a number cell holds: "a force (kN)", "a plain number".
+func describe(s *engine.Sheet, c *engine.Cell) string {
+	if c.Type == nil || c.Type.Kind != funcs.Number {
+		return "not a number"
+	}
+	if c.Type.Dim.IsNone() {
+		return "a plain number"
+	}
+	u := s.DisplayUnit(c)
+	if u.Quantity != "" {
+		return article(u.Quantity) + " " + u.Quantity + " (" + u.Symbol + ")"
+	}
+	return "a quantity in " + u.Symbol
+}
+
+// rangeOf is the range of field text starting at pos (on one line).
+func rangeOf(pos diag.Pos, text string) diag.Range {
+	end := pos
+	end.Col += max(len([]rune(text)), 1)
+	return diag.Range{Start: pos, End: end}
+}
+
+func csvProblem(file string, err error) *diag.Diagnostic {
+	d := &diag.Diagnostic{Summary: "cannot read the case table: " + err.Error(), Detail: "this row was skipped; the other rows were evaluated",
+		Hint: "a field that holds a comma or a quote is written in double quotes, with quotes doubled"}
+	var pe *csv.ParseError
+	if errors.As(err, &pe) {
+		d.Range.Start = diag.Pos{File: file, Line: pe.Line, Col: max(pe.Column, 1)}
+		d.Summary = "cannot read the case table: " + pe.Err.Error()
+	}
+	return d
+}

@@ -1,0 +1,171 @@
+package batch
+
+import (
+	"encoding/csv"
+	"fmt"
+	"io"
+	"math"
+
+	"github.com/xuri/excelize/v2"
+
+	"github.com/sheafcalc/sheaf/engine/units"
+)
+
+// Header returns the column titles of the output table: `case`, each input
+// column in its unit, each picked cell in its display unit, then for each
+// check its utilisation and verdict, and `problem` last.
+func (o *Outcome) Header() []string {
+	h := []string{"case"}
+	for _, c := range o.Cases.Columns {
+		h = append(h, title(c.Name, c.Unit))
+	}
+	for k, c := range o.Picks {
+		h = append(h, title(c.Name, o.PickUnit(k)))
+	}
+	for _, c := range o.Checks {
+		h = append(h, c.Name+" util", c.Name+" verdict")
+	}
+	return append(h, "problem")
+}
+
+func title(name string, u units.Unit) string {
+	if u.Symbol == "" || u.Symbol == "1" {
+		return name
+	}
+	return name + " [" + u.Symbol + "]"
+}
+
+// cell is one output field: a number (in its display unit) or a text.
+type cell struct {
+	num   float64
+	text  string
+	isNum bool
+}
+
+// fields lays out row r like Header. Unknown numbers are empty.
+func (o *Outcome) fields(r *Row, dst []cell) []cell {
+	dst = append(dst[:0], cell{num: float64(r.Case.N), isNum: true})
+	for j, c := range o.Cases.Columns {
+		switch {
+		case r.Case.Values == nil:
+			if j < len(r.Case.Raw) {
+				dst = append(dst, cell{text: r.Case.Raw[j]})
+			} else {
+				dst = append(dst, cell{})
+			}
+		default:
+			if x, ok := r.Case.Values[j].(float64); ok {
+				dst = append(dst, number(x/c.Unit.Factor))
+			} else {
+				dst = append(dst, cell{text: r.Case.Raw[j]})
+			}
+		}
+	}
+	for k, x := range r.Picks {
+		dst = append(dst, number(x/o.PickUnit(k).Factor))
+	}
+	for k, u := range r.Utils {
+		dst = append(dst, number(u), cell{text: r.Verdict(k)})
+	}
+	problem := r.Problem
+	if r.Case.Err != nil {
+		problem = r.Case.Err.Summary
+	}
+	return append(dst, cell{text: problem})
+}
+
+func number(x float64) cell {
+	if math.IsNaN(x) {
+		return cell{}
+	}
+	return cell{num: x, isNum: true}
+}
+
+// WriteCSV writes the outcome as CSV, numbers with sig significant figures
+// in plain or e-notation (units.FormatNumber), rows in case order.
+func (o *Outcome) WriteCSV(w io.Writer, sig int) error {
+	cw := csv.NewWriter(w)
+	if err := cw.Write(o.Header()); err != nil {
+		return err
+	}
+	var fs []cell
+	var rec []string
+	for i := range o.Rows {
+		fs = o.fields(&o.Rows[i], fs)
+		rec = rec[:0]
+		for _, f := range fs {
+			if f.isNum {
+				rec = append(rec, units.FormatNumber(f.num, sig))
+			} else {
+				rec = append(rec, f.text)
+			}
+		}
+		if err := cw.Write(rec); err != nil {
+			return err
+		}
+	}
+	cw.Flush()
+	return cw.Error()
+}
+
+// WriteXLSX writes the outcome as a workbook with one sheet, "cases":
+// numbers stay numbers at full precision, so the engineer can sort and
+// chart them. The file's properties carry no timestamp that changes from
+// run to run beyond what the library writes.
+func (o *Outcome) WriteXLSX(w io.Writer) error {
+	f := excelize.NewFile()
+	defer f.Close()
+	const name = "cases"
+	if err := f.SetSheetName("Sheet1", name); err != nil {
+		return err
+	}
+	sw, err := f.NewStreamWriter(name)
+	if err != nil {
+		return err
+	}
+	bold, err := f.NewStyle(&excelize.Style{Font: &excelize.Font{Bold: true}})
+	if err != nil {
+		return err
+	}
+	if err := sw.SetPanes(&excelize.Panes{Freeze: true, YSplit: 1, TopLeftCell: "A2", ActivePane: "bottomLeft"}); err != nil {
+		return err
+	}
+	hdr := o.Header()
+	row := make([]any, len(hdr))
+	for i, h := range hdr {
+		row[i] = excelize.Cell{StyleID: bold, Value: h}
+	}
+	if err := sw.SetRow("A1", row); err != nil {
+		return err
+	}
+	var fs []cell
+	for i := range o.Rows {
+		fs = o.fields(&o.Rows[i], fs)
+		row = row[:0]
+		for _, c := range fs {
+			switch {
+			case c.isNum:
+				row = append(row, c.num)
+			case c.text == "":
+				row = append(row, nil)
+			default:
+				row = append(row, c.text)
+			}
+		}
+		ref, err := excelize.CoordinatesToCellName(1, i+2)
+		if err != nil {
+			return err
+		}
+		if err := sw.SetRow(ref, row); err != nil {
+			return err
+		}
+	}
+	if err := sw.Flush(); err != nil {
+		return err
+	}
+	if _, err := f.WriteTo(w); err != nil {
+		return fmt.Errorf("writing the workbook: %w", err)
+	}
+	return nil
+}
+
