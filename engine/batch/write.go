@@ -168,4 +168,3 @@ func (o *Outcome) WriteXLSX(w io.Writer) error {
 	}
 	return nil
 }
-
