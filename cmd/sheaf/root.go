@@ -119,6 +119,7 @@ combinations come from the local code and licensed practice.`,
 		newRunCmd(a),
 		newCheckCmd(a),
 		newFuncsCmd(a),
+		newExportCmd(a),
 	)
 	return root
 }

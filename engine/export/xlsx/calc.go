@@ -1,0 +1,271 @@
+package xlsxout
+
+import (
+	"strconv"
+	"strings"
+
+	"github.com/xuri/excelize/v2"
+
+	"github.com/sheafcalc/sheaf/engine"
+	"github.com/sheafcalc/sheaf/engine/check"
+	"github.com/sheafcalc/sheaf/funcs"
+)
+
+// Columns of the Calculation tab.
+const (
+	colValue = "E"
+)
+
+var calcHeader = []string{"Name", "Description", "Expression as written", "With values", "Value", "Unit", "Reference", "Note"}
+var calcWidths = []float64{16, 34, 30, 46, 13, 9, 26, 30}
+
+// Notes written beside values.
+const (
+	noteInput     = "input: type a new value in the unit shown"
+	noteTable     = "input table: see the Data tab"
+	noteFunction  = "function: inlined in the formulas that call it"
+	noteValueOnly = "value from Sheaf, not recomputed here: "
+)
+
+// text returns a string cell. Strings are always written as strings, so a
+// description starting with = + - @ is never read as a formula.
+func (x *exporter) text(s string, c class) excelize.Cell {
+	return excelize.Cell{StyleID: x.st.id(c, ""), Value: s}
+}
+
+func (x *exporter) number(v float64, c class, sig int) excelize.Cell {
+	return excelize.Cell{StyleID: x.st.id(c, numFormat(v, sig)), Value: v}
+}
+
+func (x *exporter) writeCalc() error {
+	if _, err := x.f.NewSheet(TabCalc); err != nil {
+		return err
+	}
+	sw, err := x.f.NewStreamWriter(TabCalc)
+	if err != nil {
+		return err
+	}
+	for i, w := range calcWidths {
+		if err := sw.SetColWidth(i+1, i+1, w); err != nil {
+			return err
+		}
+	}
+	if err := sw.SetPanes(&excelize.Panes{Freeze: true, YSplit: 2, TopLeftCell: "A3", ActivePane: "bottomLeft"}); err != nil {
+		return err
+	}
+	title := x.s.Meta().Title
+	if title == "" {
+		title = x.s.Name()
+	}
+	if err := sw.SetRow("A1", []any{x.text(title+": calculation", clsTitle)}); err != nil {
+		return err
+	}
+	head := make([]any, len(calcHeader))
+	for i, h := range calcHeader {
+		head[i] = x.text(h, clsHeader)
+	}
+	if err := sw.SetRow("A2", head); err != nil {
+		return err
+	}
+	for i := range x.rows {
+		r := &x.rows[i]
+		var cells []any
+		switch r.kind {
+		case rowHeading:
+			cells = []any{x.text(r.title, clsHeading)}
+			for range len(calcHeader) - 1 {
+				cells = append(cells, x.text("", clsHeading))
+			}
+		case rowCell:
+			cells = x.cellRow(r.cr)
+		case rowField:
+			cells = x.fieldRow(r)
+		}
+		ref, _ := excelize.CoordinatesToCellName(1, r.row)
+		if err := sw.SetRow(ref, cells); err != nil {
+			return err
+		}
+	}
+	if err := sw.Flush(); err != nil {
+		return err
+	}
+	return x.finishTab(TabCalc, true)
+}
+
+// cellRow writes one cell of the sheet: name, description, expression,
+// hand calculation, value, unit, reference, note.
+func (x *exporter) cellRow(cr *engine.CellResult) []any {
+	c := cr.Cell
+	name, expr := c.Name, oneLine(c.Expr)
+	var calc, unit, note string
+	var value any
+	switch {
+	case c.Kind == engine.Function:
+		ps := make([]string, len(c.Params))
+		for i, p := range c.Params {
+			ps[i] = p.Name
+		}
+		name += "(" + strings.Join(ps, ", ") + ")"
+		value, note = x.text("function", clsText), noteFunction
+		if c.HasUnit {
+			unit = c.Unit.Pretty()
+		}
+	case c.Kind == engine.Check:
+		ch := x.checkByCell(c)
+		calc = x.checkCalc(c, ch)
+		value, note = x.checkValue(ch)
+	case !cr.Known:
+		value = x.text("not computed", clsValueOnly)
+		note = "not computed"
+		for _, p := range x.r.Problems {
+			if p.Range.Start.Line == c.Pos.Line && p.Range.Start.File == c.Pos.File {
+				note += ": " + p.Summary
+				break
+			}
+		}
+		x.stats.ValueOnly++
+	case c.Kind == engine.Table:
+		value, note = x.text(cr.Text, clsText), noteTable
+		x.stats.Inputs++
+	default:
+		value, note = x.valueCell(c, cr.Value, c.Kind == engine.Input, c.Body, cr.Unit.Factor)
+		if v, ok := cr.Value.(float64); ok {
+			unit = cr.Unit.Pretty()
+			calc = x.handCalc(c, x.format(v, cr.Unit))
+		} else if _, ok := cr.Value.(bool); !ok {
+			value = x.text(cr.Text, clsText)
+			switch cr.Value.(type) {
+			case *funcs.RecordValue:
+				note = "record: its fields follow"
+			case *funcs.TableValue:
+				note = "table: see the Data tab"
+			}
+		}
+	}
+	if unit == "1" {
+		unit = ""
+	}
+	return []any{x.text(name, clsKey), x.text(c.Description, clsText), x.text(expr, clsExpr), x.text(calc, clsExpr),
+		value, x.text(unit, clsText), x.text(c.Reference, clsText), x.text(note, clsText)}
+}
+
+// valueCell writes a number or a truth value: editable for an input, a
+// live formula when the expression translates, else Sheaf's value marked.
+func (x *exporter) valueCell(c *check.Cell, v funcs.Value, input bool, body *check.Node, factor float64) (excelize.Cell, string) {
+	if factor == 0 {
+		factor = 1
+	}
+	num, isNum := v.(float64)
+	if isNum {
+		num /= factor
+	}
+	if input {
+		x.stats.Inputs++
+		if isNum {
+			return x.number(num, clsInput, x.sig), noteInput
+		}
+		return excelize.Cell{StyleID: x.st.id(clsInput, ""), Value: v}, noteInput
+	}
+	if !isNum {
+		if _, ok := v.(bool); !ok {
+			return x.text("", clsText), ""
+		}
+	}
+	f, err := x.tr.cellFormula(body, factor)
+	cell := excelize.Cell{Value: v}
+	if isNum {
+		cell.Value = num
+	}
+	fmtStr := ""
+	if isNum {
+		fmtStr = numFormat(num, x.sig)
+	}
+	if err != nil {
+		x.stats.ValueOnly++
+		cell.StyleID = x.st.id(clsValueOnly, fmtStr)
+		return cell, noteValueOnly + err.Error()
+	}
+	x.stats.Live++
+	cell.Formula = f
+	cell.StyleID = x.st.id(clsDerived, fmtStr)
+	return cell, ""
+}
+
+// fieldRow writes one field of a record.
+func (x *exporter) fieldRow(r *calcRow) []any {
+	var value any
+	var note, unit string
+	switch v := r.val.(type) {
+	case float64, bool:
+		body := r.formul
+		if body == nil {
+			x.stats.ValueOnly++
+			fmtStr := ""
+			if f, ok := v.(float64); ok {
+				v = f / r.unit.Factor
+				fmtStr = numFormat(f/r.unit.Factor, x.sig)
+			}
+			value = excelize.Cell{StyleID: x.st.id(clsValueOnly, fmtStr), Value: v}
+			note = noteValueOnly + "a field of a result only Sheaf computes"
+		} else {
+			value, note = x.valueCell(nil, r.val, r.input, body, r.unit.Factor)
+		}
+		if _, ok := v.(float64); ok {
+			unit = r.unit.Pretty()
+		}
+	case *funcs.RecordValue:
+		value, note = x.text("record", clsText), "its fields follow"
+	case *funcs.TableValue:
+		value, note = x.text("table, "+itoa(v.Rows())+" rows", clsText), "table: see the Data tab"
+	case string:
+		value = x.text(v, clsText)
+	default:
+		value = x.text("list", clsText)
+	}
+	if unit == "1" {
+		unit = ""
+	}
+	return []any{x.text(r.path, clsKey), x.text(r.desc, clsText), x.text(r.expr, clsExpr), x.text("", clsExpr),
+		value, x.text(unit, clsText), x.text("", clsText), x.text(note, clsText)}
+}
+
+func (x *exporter) checkByCell(c *check.Cell) *checkRow {
+	for _, ch := range x.checks {
+		if ch.cell == c {
+			return ch
+		}
+	}
+	return &checkRow{cell: c}
+}
+
+// Verdict words.
+const (
+	VerdictPass    = "passes"
+	VerdictFail    = "FAILS"
+	VerdictUnknown = "not assessed"
+)
+
+// checkValue writes the utilisation of a check and its live verdict.
+func (x *exporter) checkValue(ch *checkRow) (any, string) {
+	if !ch.known {
+		x.stats.ValueOnly++
+		return x.text(VerdictUnknown, clsFail), VerdictUnknown
+	}
+	f, err := x.tr.checkFormula(ch.cell)
+	cell := excelize.Cell{Value: ch.util, StyleID: x.st.id(clsDerived, "0.000")}
+	if err != nil {
+		x.stats.ValueOnly++
+		cell.StyleID = x.st.id(clsValueOnly, "0.000")
+		return cell, noteValueOnly + err.Error()
+	}
+	x.stats.Live++
+	cell.Formula = f
+	return cell, "utilisation (demand / capacity)"
+}
+
+// verdictFormula is the live verdict of a check named n.
+func verdictFormula(n string) string {
+	return "IF(" + n + "<=1,\"" + VerdictPass + "\",\"" + VerdictFail + "\")"
+}
+
+func itoa(n int) string { return strconv.Itoa(n) }

@@ -1,0 +1,161 @@
+package xlsxout
+
+import (
+	"fmt"
+	"math"
+
+	"github.com/xuri/excelize/v2"
+
+	"github.com/sheafcalc/sheaf/engine/check"
+)
+
+// nodeAlias keeps the summary's signature short.
+type nodeAlias = check.Node
+
+// writeData writes every table, one block under another: a title row, a
+// header row of "column [unit]", then the entries in display units. The
+// entries of the sheet's own tables are inputs.
+func (x *exporter) writeData() error {
+	if len(x.tables) == 0 {
+		return nil
+	}
+	if _, err := x.f.NewSheet(TabData); err != nil {
+		return err
+	}
+	sw, err := x.f.NewStreamWriter(TabData)
+	if err != nil {
+		return err
+	}
+	if err := sw.SetColWidth(1, 16, 14); err != nil {
+		return err
+	}
+	for _, b := range x.tables {
+		title := b.path
+		if b.desc != "" {
+			title += ": " + b.desc
+		}
+		ref, _ := excelize.CoordinatesToCellName(1, b.row)
+		if err := sw.SetRow(ref, []any{x.text(title, clsHeading)}); err != nil {
+			return err
+		}
+		head := make([]any, len(b.t.Type.Fields))
+		fmts := make([]string, len(head))
+		for j, f := range b.t.Type.Fields {
+			h := f.Name
+			if u := b.units[j].Pretty(); u != "" && u != "1" {
+				h += " [" + u + "]"
+			}
+			head[j] = x.text(h, clsHeader)
+			big := 0.0
+			if j < len(b.t.Cols) {
+				for _, v := range b.t.Cols[j] {
+					big = math.Max(big, math.Abs(v/b.units[j].Factor))
+				}
+			}
+			fmts[j] = numFormat(big, x.sig)
+		}
+		ref, _ = excelize.CoordinatesToCellName(1, b.row+1)
+		if err := sw.SetRow(ref, head); err != nil {
+			return err
+		}
+		cls := clsData
+		if b.input {
+			cls = clsInput
+		}
+		for i := 0; i < b.t.Rows(); i++ {
+			cells := make([]any, len(b.t.Cols))
+			for j, col := range b.t.Cols {
+				cells[j] = excelize.Cell{StyleID: x.st.id(cls, fmts[j]), Value: col[i] / b.units[j].Factor}
+			}
+			if b.input {
+				x.stats.Inputs += len(cells)
+			}
+			ref, _ = excelize.CoordinatesToCellName(1, b.firstDataRow()+i)
+			if err := sw.SetRow(ref, cells); err != nil {
+				return err
+			}
+		}
+	}
+	if err := sw.Flush(); err != nil {
+		return err
+	}
+	return x.finishTab(TabData, false)
+}
+
+// chartSpec is one chart: y column against x column of a table.
+type chartSpec struct {
+	b          *tableBlock
+	xc, yc     int
+	title      string
+	xAxis, yAx string
+}
+
+// chartsOf lists the charts of a table by its type name: N(x), u(x) and
+// σ(x) of bar samples, N(ε) of a curve. Other tables are not charted.
+func chartsOf(b *tableBlock) []chartSpec {
+	col := func(n string) int { return b.t.Type.Field(n) }
+	label := func(j int, what string) string {
+		if u := b.units[j].Pretty(); u != "" && u != "1" {
+			return what + " [" + u + "]"
+		}
+		return what
+	}
+	var out []chartSpec
+	switch b.t.Type.Name {
+	case "bar_samples":
+		x := col("x")
+		if x < 0 {
+			return nil
+		}
+		for _, s := range [][3]string{{"N", "N(x)", "axial force N"}, {"u", "u(x)", "displacement u"}, {"sigma", "σ(x)", "axial stress σ"}} {
+			if y := col(s[0]); y >= 0 {
+				out = append(out, chartSpec{b, x, y, b.path + ": " + s[1] + ", " + s[2] + " along the bar", label(x, "position x"), label(y, s[2])})
+			}
+		}
+	case "n_eps_curve":
+		e, n := col("eps"), col("N")
+		if e >= 0 && n >= 0 {
+			out = append(out, chartSpec{b, e, n, b.path + ": N(ε), axial force against uniform strain", label(e, "strain ε"), label(n, "axial force N")})
+		}
+	}
+	return out
+}
+
+// chartHeight is the number of rows one chart takes on the Charts tab.
+const chartHeight = 22
+
+func (x *exporter) writeCharts() error {
+	var specs []chartSpec
+	for _, b := range x.tables {
+		if b.t.Rows() >= 2 {
+			specs = append(specs, chartsOf(b)...)
+		}
+	}
+	if len(specs) == 0 {
+		return nil
+	}
+	if _, err := x.f.NewSheet(TabCharts); err != nil {
+		return err
+	}
+	for i, s := range specs {
+		colRange := func(j int) string {
+			c, _ := excelize.ColumnNumberToName(j + 1)
+			return fmt.Sprintf("%s!$%s$%d:$%s$%d", TabData, c, s.b.firstDataRow(), c, s.b.firstDataRow()+s.b.t.Rows()-1)
+		}
+		ch := &excelize.Chart{
+			Type:      excelize.Scatter,
+			Series:    []excelize.ChartSeries{{Name: s.yAx, Categories: colRange(s.xc), Values: colRange(s.yc), Marker: excelize.ChartMarker{Symbol: "none"}, Line: excelize.LineOptions{Width: 1.5}}},
+			Title:     excelize.ChartTitle{Paragraph: []excelize.RichTextRun{{Text: s.title}}},
+			Legend:    excelize.ChartLegend{Position: "none"},
+			XAxis:     excelize.ChartAxis{MajorGridLines: true, Title: excelize.ChartTitle{Paragraph: []excelize.RichTextRun{{Text: s.xAxis}}}},
+			YAxis:     excelize.ChartAxis{MajorGridLines: true, Title: excelize.ChartTitle{Paragraph: []excelize.RichTextRun{{Text: s.yAx}}}},
+			Dimension: excelize.ChartDimension{Width: 760, Height: 400},
+		}
+		cell, _ := excelize.CoordinatesToCellName(2, 2+i*chartHeight)
+		if err := x.f.AddChart(TabCharts, cell, ch); err != nil {
+			return fmt.Errorf("chart %q: %w", s.title, err)
+		}
+		x.stats.Charts++
+	}
+	return x.finishTab(TabCharts, true)
+}

@@ -1,0 +1,121 @@
+package xlsxout
+
+import (
+	"math"
+	"strings"
+
+	"github.com/xuri/excelize/v2"
+)
+
+// class is the role of a cell, which sets its look and protection. The
+// colours are ours: a warm pale fill says "you may type here", a grey
+// italic says "Sheaf computed this; the workbook cannot".
+type class uint8
+
+const (
+	clsText      class = iota // wrapped text, locked
+	clsTitle                  // the title of the sheet
+	clsHeading                // a section heading
+	clsHeader                 // column headers
+	clsKey                    // a label in the header block
+	clsExpr                   // an expression as written
+	clsInput                  // an input value: editable, unlocked
+	clsDerived                // a live formula: locked
+	clsValueOnly              // a value only Sheaf computes: locked, marked
+	clsData                   // a number of a computed table
+	clsPass                   // verdict: passes
+	clsFail                   // verdict: fails or not assessed
+	clsCaution                // the caution paragraph
+)
+
+// Fill colours by class (also read back by the tests).
+const (
+	fillInput     = "FFF2CC"
+	fillValueOnly = "EDEDED"
+	fillHeader    = "D9E2EC"
+	fontMarked    = "595959"
+)
+
+type styleKey struct {
+	cls class
+	fmt string
+}
+
+// styles creates each (class, number format) style once.
+type styles struct {
+	f     *excelize.File
+	cache map[styleKey]int
+	err   error
+}
+
+func (s *styles) id(c class, numFmt string) int {
+	k := styleKey{c, numFmt}
+	if id, ok := s.cache[k]; ok {
+		return id
+	}
+	st := &excelize.Style{Alignment: &excelize.Alignment{Vertical: "top"}}
+	locked := true
+	switch c {
+	case clsText, clsCaution:
+		st.Alignment.WrapText = true
+	case clsTitle:
+		st.Font = &excelize.Font{Bold: true, Size: 14}
+	case clsHeading:
+		st.Font = &excelize.Font{Bold: true, Size: 11}
+		st.Border = []excelize.Border{{Type: "bottom", Color: "1F3864", Style: 1}}
+	case clsHeader:
+		st.Font = &excelize.Font{Bold: true}
+		st.Fill = excelize.Fill{Type: "pattern", Pattern: 1, Color: []string{fillHeader}}
+		st.Alignment.WrapText = true
+	case clsKey:
+		st.Font = &excelize.Font{Bold: true}
+	case clsExpr:
+		st.Font = &excelize.Font{Family: "Consolas"}
+		st.Alignment.WrapText = true
+	case clsInput:
+		st.Fill = excelize.Fill{Type: "pattern", Pattern: 1, Color: []string{fillInput}}
+		st.Font = &excelize.Font{Color: "1F3864"}
+		st.Border = []excelize.Border{{Type: "bottom", Color: "BF9000", Style: 1}}
+		locked = false
+	case clsValueOnly:
+		st.Fill = excelize.Fill{Type: "pattern", Pattern: 1, Color: []string{fillValueOnly}}
+		st.Font = &excelize.Font{Italic: true, Color: fontMarked}
+	case clsPass:
+		st.Font = &excelize.Font{Bold: true, Color: "2E7D32"}
+	case clsFail:
+		st.Font = &excelize.Font{Bold: true, Color: "C00000"}
+	}
+	if c == clsCaution {
+		st.Font = &excelize.Font{Italic: true}
+	}
+	st.Protection = &excelize.Protection{Locked: locked}
+	if numFmt != "" {
+		nf := numFmt
+		st.CustomNumFmt = &nf
+	}
+	id, err := s.f.NewStyle(st)
+	if err != nil && s.err == nil {
+		s.err = err
+	}
+	s.cache[k] = id
+	return id
+}
+
+// numFormat is the number format that shows x with sig significant
+// figures: fixed decimals for ordinary magnitudes, scientific outside
+// [1e-4, 1e9) as Sheaf's listings do.
+func numFormat(x float64, sig int) string {
+	ax := math.Abs(x)
+	if ax == 0 || math.IsNaN(ax) || math.IsInf(ax, 0) {
+		return "0"
+	}
+	e := int(math.Floor(math.Log10(ax)))
+	if e < -4 || e >= 9 {
+		return "0." + strings.Repeat("0", max(sig-1, 0)) + "E+00"
+	}
+	d := min(max(sig-1-e, 0), 10)
+	if d == 0 {
+		return "0"
+	}
+	return "0." + strings.Repeat("0", d)
+}
