@@ -120,6 +120,11 @@ combinations come from the local code and licensed practice.`,
 		newCheckCmd(a),
 		newFuncsCmd(a),
 		newExportCmd(a),
+		newBatchCmd(a),
+		newDiffCmd(a),
+		newFmtCmd(a),
+		newWatchCmd(a),
+		newNewCmd(a),
 	)
 	return root
 }

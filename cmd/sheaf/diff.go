@@ -1,0 +1,200 @@
+package main
+
+import (
+	"bytes"
+	"errors"
+	"fmt"
+	"os"
+	"os/exec"
+	"path/filepath"
+	"strings"
+
+	"github.com/spf13/cobra"
+
+	"github.com/sheafcalc/sheaf/engine"
+	"github.com/sheafcalc/sheaf/engine/diag"
+	"github.com/sheafcalc/sheaf/engine/diff"
+	"github.com/sheafcalc/sheaf/engine/units"
+)
+
+// diffOptions are the flags of `sheaf diff`.
+type diffOptions struct {
+	rev    string
+	rtol   float64
+	json   bool
+	system string
+}
+
+func newDiffCmd(a *app) *cobra.Command {
+	o := &diffOptions{}
+	cmd := &cobra.Command{
+		Use:   "diff OLD NEW | diff --rev REV FILE",
+		Short: "Compare the results of two versions of a sheet",
+		Long: `Diff evaluates two versions of a sheet and shows what changed: header
+lines, inputs (old → new value), formulas (old → new text), cells added and
+removed, results that moved by more than the relative tolerance --rtol, and
+design checks whose utilisation or verdict changed.
+
+With --rev it compares the file as committed at a git revision (any name git
+understands: HEAD~1, a tag, a commit) with the working copy. Git must be
+installed and the file must be inside a git repository.
+
+Cells are matched by name; formulas are compared with their spacing
+normalised, so a reformatted sheet shows no changes.
+
+Exit status: 0 when no check flipped to fail, 1 when a check that passed (or
+is new) now fails or cannot be assessed, 2 when either sheet has errors.`,
+		Args: func(cmd *cobra.Command, args []string) error {
+			if o.rev != "" {
+				if len(args) != 1 {
+					return userErrorf("diff --rev REV takes one file (the working copy), got %d arguments", len(args))
+				}
+				return nil
+			}
+			if len(args) != 2 {
+				return userErrorf("diff takes two sheets, OLD and NEW (or --rev REV FILE), got %d arguments", len(args))
+			}
+			return nil
+		},
+		RunE: func(cmd *cobra.Command, args []string) error {
+			return runDiff(a, o, args)
+		},
+	}
+	f := cmd.Flags()
+	f.StringVar(&o.rev, "rev", "", "compare FILE at this git revision with the working copy")
+	f.Float64Var(&o.rtol, "rtol", diff.DefaultRelTol, "relative tolerance below which a result counts as unchanged")
+	f.BoolVar(&o.json, "json", false, "print the differences as JSON")
+	f.StringVar(&o.system, "system", "", "display units for cells without a written unit: metric or us")
+	return cmd
+}
+
+func runDiff(a *app, o *diffOptions, args []string) error {
+	if !(o.rtol >= 0) || o.rtol >= 1 {
+		return userErrorf("--rtol %g: give a relative tolerance from 0 to below 1, e.g. 1e-6", o.rtol)
+	}
+	var opts []engine.Option
+	if o.system != "" {
+		s, ok := units.ParseSystem(o.system)
+		if !ok || s == units.Neutral {
+			return userErrorf("unknown unit system %q: use metric or us", o.system)
+		}
+		opts = append(opts, engine.WithSystem(s))
+	}
+	var oldName, newName string
+	var oldSrc, newSrc []byte
+	var err error
+	if o.rev != "" {
+		newName = args[0]
+		if newSrc, err = os.ReadFile(newName); err != nil {
+			return &inputError{err}
+		}
+		if oldName, oldSrc, err = gitShow(o.rev, newName); err != nil {
+			return err
+		}
+	} else {
+		oldName, newName = args[0], args[1]
+		if oldSrc, err = os.ReadFile(oldName); err != nil {
+			return &inputError{err}
+		}
+		if newSrc, err = os.ReadFile(newName); err != nil {
+			return &inputError{err}
+		}
+	}
+	olds, err1 := compileReported(a, oldName, oldSrc, opts)
+	news, err2 := compileReported(a, newName, newSrc, opts)
+	if err1 != nil {
+		return err1
+	}
+	if err2 != nil {
+		return err2
+	}
+	r := diff.Compare(oldName, olds.Run(nil), newName, news.Run(nil), diff.Options{RelTol: o.rtol})
+	if o.json {
+		err = r.WriteJSON(a.stdout)
+	} else {
+		err = r.WriteText(a.stdout)
+	}
+	if err != nil {
+		return err
+	}
+	if r.Flipped > 0 {
+		return &reportedError{fmt.Errorf("%d design checks flipped to fail", r.Flipped), exitChecks}
+	}
+	return nil
+}
+
+// compileReported compiles src, rendering its diagnostics to stderr.
+func compileReported(a *app, name string, src []byte, opts []engine.Option) (*engine.Sheet, error) {
+	s, err := engine.Compile(name, src, opts...)
+	if err == nil {
+		return s, nil
+	}
+	var list diag.List
+	if errors.As(err, &list) {
+		_ = diag.Render(a.stderr, list, diag.Sources{name: src})
+		n := len(list)
+		fmt.Fprintf(a.stderr, "%d problem%s in %s\n", n, map[bool]string{true: "", false: "s"}[n == 1], name)
+		return nil, &reportedError{err, exitInput}
+	}
+	return nil, &inputError{err}
+}
+
+// gitShow returns the content of file at git revision rev, and the name to
+// show for it ("REV:path/in/repo"). It runs the git binary: the repository
+// root comes from `git rev-parse --show-toplevel` in the file's directory.
+func gitShow(rev, file string) (string, []byte, error) {
+	if strings.HasPrefix(rev, "-") {
+		return "", nil, userErrorf("--rev %q: a revision does not start with '-'", rev)
+	}
+	abs, err := filepath.Abs(file)
+	if err != nil {
+		return "", nil, &inputError{err}
+	}
+	if real, err := filepath.EvalSymlinks(abs); err == nil {
+		abs = real
+	}
+	top, err := git(filepath.Dir(abs), "rev-parse", "--show-toplevel")
+	if err != nil {
+		var nf *exec.Error
+		if errors.As(err, &nf) {
+			return "", nil, userErrorf("--rev needs git, which was not found: %v; install git or compare two files with `sheaf diff OLD NEW`", err)
+		}
+		return "", nil, userErrorf("%s is not inside a git repository (%v); commit it first, or compare two files with `sheaf diff OLD NEW`", file, err)
+	}
+	root := strings.TrimSpace(string(top))
+	if real, err := filepath.EvalSymlinks(root); err == nil {
+		root = real
+	}
+	rel, err := filepath.Rel(root, abs)
+	if err != nil || strings.HasPrefix(rel, "..") {
+		return "", nil, userErrorf("%s is not inside the git repository at %s", file, root)
+	}
+	rel = filepath.ToSlash(rel)
+	src, err := git(root, "show", rev+":"+rel)
+	if err != nil {
+		return "", nil, userErrorf("git cannot show %s at revision %q: %v; list the revisions of the file with `git log -- %s`", rel, rev, err, file)
+	}
+	return rev + ":" + rel, src, nil
+}
+
+// git runs git with args in dir and returns its stdout; a failure carries
+// the first line git wrote to stderr.
+func git(dir string, args ...string) ([]byte, error) {
+	cmd := exec.Command("git", append([]string{"-C", dir}, args...)...)
+	var out, errb bytes.Buffer
+	cmd.Stdout, cmd.Stderr = &out, &errb
+	cmd.Env = append(os.Environ(), "GIT_PAGER=cat", "LC_ALL=C")
+	if err := cmd.Run(); err != nil {
+		var ee *exec.ExitError
+		if errors.As(err, &ee) {
+			msg, _, _ := strings.Cut(strings.TrimSpace(errb.String()), "\n")
+			msg = strings.TrimPrefix(strings.TrimPrefix(msg, "fatal: "), "error: ")
+			if msg == "" {
+				msg = err.Error()
+			}
+			return nil, errors.New(msg)
+		}
+		return nil, err
+	}
+	return out.Bytes(), nil
+}

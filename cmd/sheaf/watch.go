@@ -1,0 +1,204 @@
+package main
+
+import (
+	"bytes"
+	"context"
+	"errors"
+	"fmt"
+	"os"
+	"os/signal"
+	"path/filepath"
+	"syscall"
+	"time"
+
+	"github.com/fsnotify/fsnotify"
+	"github.com/spf13/cobra"
+
+	"github.com/sheafcalc/sheaf/engine"
+	"github.com/sheafcalc/sheaf/engine/diag"
+	"github.com/sheafcalc/sheaf/engine/diff"
+	"github.com/sheafcalc/sheaf/engine/export/text"
+	"github.com/sheafcalc/sheaf/engine/units"
+)
+
+// watchOptions are the flags of `sheaf watch`.
+type watchOptions struct {
+	interval time.Duration
+	rtol     float64
+	system   string
+}
+
+func newWatchCmd(a *app) *cobra.Command {
+	o := &watchOptions{}
+	cmd := &cobra.Command{
+		Use:   "watch FILE",
+		Short: "Re-evaluate a sheet each time it is saved and show what changed",
+		Long: `Watch evaluates the sheet, prints its results, then waits. Each time the
+sheet (or a sheet it uses) is saved, it is checked and evaluated again and
+the changes since the last good run are printed as by sheaf diff: inputs,
+formulas, results and checks. A sheet saved with errors shows its
+diagnostics; watching goes on until the next save fixes them.
+
+Saves that come close together (an editor writing a file in several steps)
+are taken as one after --interval of quiet. Ctrl-C stops watching.
+
+Exit status: 0 when stopped with Ctrl-C, 2 when the file cannot be watched.`,
+		Args: cobra.ExactArgs(1),
+		RunE: func(cmd *cobra.Command, args []string) error {
+			ctx := cmd.Context()
+			if ctx == nil {
+				ctx = context.Background()
+			}
+			ctx, stop := signal.NotifyContext(ctx, os.Interrupt, syscall.SIGTERM)
+			defer stop()
+			return runWatch(ctx, a, o, args[0], nil)
+		},
+	}
+	f := cmd.Flags()
+	f.DurationVar(&o.interval, "interval", 100*time.Millisecond, "quiet time after a save before re-evaluating")
+	f.Float64Var(&o.rtol, "rtol", diff.DefaultRelTol, "relative tolerance below which a result counts as unchanged")
+	f.StringVar(&o.system, "system", "", "display units for cells without a written unit: metric or us")
+	return cmd
+}
+
+// watcher re-runs one sheet.
+type watcher struct {
+	a      *app
+	o      *watchOptions
+	path   string
+	opts   []engine.Option
+	last   *engine.Results // of the last good run
+	src    []byte          // source of the last attempt
+	runs   int
+	fs     *fsnotify.Watcher
+	dirs   map[string]bool
+	names  map[string]bool // absolute paths of the files that trigger a run
+	loaded bool            // the last attempt loaded the sheet
+}
+
+// runWatch watches path until ctx ends. ready, when not nil, is called
+// once the first run is printed and the watch is in place (for tests).
+func runWatch(ctx context.Context, a *app, o *watchOptions, path string, ready func()) error {
+	if o.interval <= 0 {
+		return userErrorf("--interval %s: give a positive duration, e.g. 100ms", o.interval)
+	}
+	w := &watcher{a: a, o: o, path: path, dirs: map[string]bool{}, names: map[string]bool{}}
+	if o.system != "" {
+		s, ok := units.ParseSystem(o.system)
+		if !ok || s == units.Neutral {
+			return userErrorf("unknown unit system %q: use metric or us", o.system)
+		}
+		w.opts = append(w.opts, engine.WithSystem(s))
+	}
+	if _, err := os.Stat(path); err != nil {
+		return &inputError{err}
+	}
+	fw, err := fsnotify.NewWatcher()
+	if err != nil {
+		return fmt.Errorf("cannot watch files: %w", err)
+	}
+	defer fw.Close()
+	w.fs = fw
+	files := w.run()
+	if err := w.follow(files); err != nil {
+		return &inputError{err}
+	}
+	fmt.Fprintf(a.stdout, "watching %s; Ctrl-C stops\n", path)
+	if ready != nil {
+		ready()
+	}
+	timer := time.NewTimer(time.Hour)
+	timer.Stop()
+	for {
+		select {
+		case <-ctx.Done():
+			return nil
+		case ev, ok := <-fw.Events:
+			if !ok {
+				return nil
+			}
+			if w.names[clean(ev.Name)] && ev.Op&(fsnotify.Write|fsnotify.Create|fsnotify.Rename|fsnotify.Remove) != 0 {
+				timer.Reset(o.interval)
+			}
+		case err, ok := <-fw.Errors:
+			if !ok {
+				return nil
+			}
+			fmt.Fprintf(a.stderr, "sheaf: watching: %v\n", err)
+		case <-timer.C:
+			files := w.run()
+			if err := w.follow(files); err != nil {
+				fmt.Fprintf(a.stderr, "sheaf: watching: %v\n", err)
+			}
+		}
+	}
+}
+
+// follow watches the directories of files: editors often save by writing a
+// new file and renaming it over the old one, which a watch on the file
+// itself would lose.
+func (w *watcher) follow(files []string) error {
+	for _, f := range files {
+		abs := clean(f)
+		w.names[abs] = true
+		dir := filepath.Dir(abs)
+		if w.dirs[dir] {
+			continue
+		}
+		if err := w.fs.Add(dir); err != nil {
+			return fmt.Errorf("cannot watch %s: %w", dir, err)
+		}
+		w.dirs[dir] = true
+	}
+	return nil
+}
+
+func clean(p string) string {
+	if abs, err := filepath.Abs(p); err == nil {
+		return abs
+	}
+	return filepath.Clean(p)
+}
+
+// run loads and evaluates the sheet and prints the outcome: the whole
+// listing the first time, then the changes since the last good run. It
+// returns the files to watch.
+func (w *watcher) run() []string {
+	files := []string{w.path}
+	src, err := os.ReadFile(w.path)
+	if err != nil {
+		fmt.Fprintf(w.a.stderr, "sheaf: %v; waiting for the file to come back\n", err)
+		w.src = nil
+		return files
+	}
+	if w.src != nil && bytes.Equal(src, w.src) && w.loaded {
+		return files // saved without a change
+	}
+	w.src = src
+	w.runs++
+	s, err := engine.Compile(w.path, src, w.opts...)
+	w.loaded = err == nil
+	if err != nil {
+		var list diag.List
+		if errors.As(err, &list) {
+			_ = diag.Render(w.a.stderr, list, diag.Sources{w.path: src})
+			fmt.Fprintf(w.a.stderr, "%d problem%s in %s; fix and save to re-run\n", len(list), map[bool]string{true: "", false: "s"}[len(list) == 1], w.path)
+		} else {
+			fmt.Fprintf(w.a.stderr, "sheaf: %v\n", err)
+		}
+		return files
+	}
+	res := s.Run(nil)
+	if w.last == nil {
+		_ = text.Write(w.a.stdout, res, engine.DefaultSigFigs)
+	} else {
+		fmt.Fprintf(w.a.stdout, "\n== run %d of %s ==\n", w.runs, w.path)
+		r := diff.Compare("last good run", w.last, fmt.Sprintf("run %d", w.runs), res, diff.Options{RelTol: w.o.rtol})
+		_ = r.WriteText(w.a.stdout)
+	}
+	if len(res.Problems) > 0 {
+		_ = diag.Render(w.a.stderr, res.Problems, s.Sources())
+	}
+	w.last = res
+	return s.Files()
+}
