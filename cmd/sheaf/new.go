@@ -263,4 +263,3 @@ func templateNames(lib string) []string {
 	sort.Strings(names)
 	return names
 }
-
