@@ -25,6 +25,7 @@ const (
 	noteTable     = "input table: see the Data tab"
 	noteFunction  = "function: inlined in the formulas that call it"
 	noteValueOnly = "value from Sheaf, not recomputed here: "
+	notePartly    = "recomputes, but inputs reach it only through values from Sheaf: "
 )
 
 // text returns a string cell. Strings are always written as strings, so a
@@ -129,6 +130,9 @@ func (x *exporter) cellRow(cr *engine.CellResult) []any {
 		x.stats.Inputs++
 	default:
 		value, note = x.valueCell(c, cr.Value, c.Kind == engine.Input, c.Body, cr.Unit.Factor)
+		if reads := x.reads[c.Index]; len(reads) > 0 && note == "" {
+			note = notePartly + strings.Join(reads, ", ")
+		}
 		if v, ok := cr.Value.(float64); ok {
 			unit = cr.Unit.Pretty()
 			calc = x.handCalc(c, x.format(v, cr.Unit))
@@ -171,7 +175,13 @@ func (x *exporter) valueCell(c *check.Cell, v funcs.Value, input bool, body *che
 			return x.text("", clsText), ""
 		}
 	}
-	f, err := x.tr.cellFormula(body, factor)
+	var f string
+	var err error
+	if t, ok := x.formulas[indexOf(c)]; ok && c != nil {
+		f, err = t.f, t.err
+	} else {
+		f, err = x.tr.cellFormula(body, factor)
+	}
 	cell := excelize.Cell{Value: v}
 	if isNum {
 		cell.Value = num
@@ -251,7 +261,8 @@ func (x *exporter) checkValue(ch *checkRow) (any, string) {
 		x.stats.ValueOnly++
 		return x.text(VerdictUnknown, clsFail), VerdictUnknown
 	}
-	f, err := x.tr.checkFormula(ch.cell)
+	t := x.formulas[ch.cell.Index]
+	f, err := t.f, t.err
 	cell := excelize.Cell{Value: ch.util, StyleID: x.st.id(clsDerived, "0.000")}
 	if err != nil {
 		x.stats.ValueOnly++
@@ -260,6 +271,9 @@ func (x *exporter) checkValue(ch *checkRow) (any, string) {
 	}
 	x.stats.Live++
 	cell.Formula = f
+	if reads := x.reads[ch.cell.Index]; len(reads) > 0 {
+		return cell, notePartly + strings.Join(reads, ", ")
+	}
 	return cell, "utilisation (demand / capacity)"
 }
 
@@ -269,3 +283,10 @@ func verdictFormula(n string) string {
 }
 
 func itoa(n int) string { return strconv.Itoa(n) }
+
+func indexOf(c *check.Cell) int {
+	if c == nil {
+		return -1
+	}
+	return c.Index
+}

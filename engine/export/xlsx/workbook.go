@@ -2,6 +2,7 @@ package xlsxout
 
 import (
 	"fmt"
+	"slices"
 	"strings"
 
 	"github.com/xuri/excelize/v2"
@@ -62,7 +63,13 @@ type exporter struct {
 	checks     []*checkRow
 	tables     []*tableBlock
 	dataRanges []namedRange
-	stats      Stats
+	// formulas holds the translation of each derived cell (by index);
+	// opaque marks cells whose workbook value does not recompute, reads
+	// the cells upstream of a live formula that are opaque.
+	formulas map[int]translated
+	opaque   []bool
+	reads    [][]string
+	stats    Stats
 }
 
 // Build makes the workbook of sheet s with results r (from s.NewState()
@@ -197,6 +204,7 @@ func (x *exporter) layout() {
 			x.addTable(c.Name, c.Description, v, x.tableUnits(c, v), c.Kind == engine.Table)
 		}
 	}
+	x.markOpaque()
 	// The Data tab follows the order the tables were met.
 	drow := 1
 	for _, b := range x.tables {
@@ -210,6 +218,58 @@ func (x *exporter) layout() {
 			x.dataRanges = append(x.dataRanges, namedRange{x.tr.refs[p].name, rng})
 		}
 		drow += n + 3
+	}
+}
+
+// translated is a formula or the reason there is none.
+type translated struct {
+	f   string
+	err error
+}
+
+// markOpaque translates every derived cell in dependency order and finds,
+// for each live formula, the opaque cells it reads through other formulas:
+// a client who changes an input upstream of those will not see the change
+// reach it, and the note says so.
+func (x *exporter) markOpaque() {
+	p := x.s.Program()
+	n := len(p.Cells)
+	x.formulas = map[int]translated{}
+	x.opaque = make([]bool, n)
+	x.reads = make([][]string, n)
+	for _, i := range p.Order {
+		c := p.Cells[i]
+		cr := &x.r.Cells[i]
+		switch c.Kind {
+		case engine.Derived:
+			switch cr.Value.(type) {
+			case float64, bool:
+				f, err := x.tr.cellFormula(c.Body, x.tr.refs[c.Name].factor)
+				x.formulas[i] = translated{f, err}
+				x.opaque[i] = err != nil
+			default:
+				x.opaque[i] = !(c.Body != nil && c.Body.Op == check.OpRecord)
+			}
+		case engine.Check:
+			f, err := x.tr.checkFormula(c)
+			x.formulas[i] = translated{f, err}
+			x.opaque[i] = err != nil
+		}
+		if x.opaque[i] {
+			continue
+		}
+		var reads []string
+		for _, d := range c.DepIdx {
+			if d < 0 || d >= n {
+				continue
+			}
+			if x.opaque[d] {
+				reads = append(reads, p.Cells[d].Name)
+			}
+			reads = append(reads, x.reads[d]...)
+		}
+		slices.Sort(reads)
+		x.reads[i] = slices.Compact(reads)
 	}
 }
 
