@@ -47,12 +47,12 @@ is new) now fails or cannot be assessed, 2 when either sheet has errors.`,
 		Args: func(cmd *cobra.Command, args []string) error {
 			if o.rev != "" {
 				if len(args) != 1 {
-					return userErrorf("diff --rev REV takes one file (the working copy), got %d arguments", len(args))
+					return userErrorf("diff --rev REV takes one file (the working copy), got %d", len(args))
 				}
 				return nil
 			}
 			if len(args) != 2 {
-				return userErrorf("diff takes two sheets, OLD and NEW (or --rev REV FILE), got %d arguments", len(args))
+				return userErrorf("diff takes two sheets, OLD and NEW (or --rev REV FILE), got %d", len(args))
 			}
 			return nil
 		},

@@ -1,0 +1,93 @@
+package main
+
+import (
+	"fmt"
+	"os"
+	"path/filepath"
+	"strings"
+	"testing"
+
+	"github.com/xuri/excelize/v2"
+)
+
+// transcript joins what a command printed and its exit status, for golden
+// files.
+func transcript(out, errs string, code int) string {
+	return fmt.Sprintf("$ exit %d\n--- stdout\n%s--- stderr\n%s", code, out, errs)
+}
+
+func TestBatchCommand(t *testing.T) {
+	dir := filepath.Join("testdata", "batch")
+	for _, tc := range []struct {
+		name string
+		args []string
+		code int
+	}{
+		{"cases", []string{"cases.csv"}, exitChecks},
+		{"bad", []string{"bad.csv"}, exitInput},
+		{"pick", []string{"cases.csv", "--pick", "A, u", "--sig", "4", "--workers", "1"}, exitChecks},
+		{"pick-none", []string{"cases.csv", "--pick", ""}, exitChecks},
+		{"pick-unknown", []string{"cases.csv", "--pick", "N_rd"}, exitInput},
+		{"bad-out", []string{"cases.csv", "--out", "results.txt"}, exitInput},
+		{"missing", []string{"nothing.csv"}, exitInput},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			args := append([]string{"batch", filepath.Join(dir, "tie.sheaf")}, tc.args...)
+			if !strings.HasPrefix(tc.args[0], "-") {
+				args[2] = filepath.Join(dir, tc.args[0])
+			}
+			out, errs, code := sheaf(t, args...)
+			if code != tc.code {
+				t.Errorf("exit %d, want %d\n%s", code, tc.code, errs)
+			}
+			got := transcript(out, errs, code)
+			golden(t, filepath.Join(dir, tc.name+".golden"), got)
+			if o2, e2, c2 := sheaf(t, args...); transcript(o2, e2, c2) != got {
+				t.Error("a second run prints other bytes")
+			}
+		})
+	}
+}
+
+// TestBatchOutFiles writes CSV and xlsx files and checks they hold what
+// stdout would.
+func TestBatchOutFiles(t *testing.T) {
+	dir := filepath.Join("testdata", "batch")
+	tmp := t.TempDir()
+	stdout, _, _ := sheaf(t, "batch", filepath.Join(dir, "tie.sheaf"), filepath.Join(dir, "cases.csv"))
+	csvPath := filepath.Join(tmp, "r.csv")
+	out, _, code := sheaf(t, "batch", filepath.Join(dir, "tie.sheaf"), filepath.Join(dir, "cases.csv"), "--out", csvPath)
+	if code != exitChecks || out != "" {
+		t.Fatalf("exit %d, stdout %q", code, out)
+	}
+	got, err := os.ReadFile(csvPath)
+	if err != nil || string(got) != stdout {
+		t.Errorf("--out file differs from stdout: %v\n%s", err, got)
+	}
+	xPath := filepath.Join(tmp, "r.xlsx")
+	if _, errs, code := sheaf(t, "batch", filepath.Join(dir, "tie.sheaf"), filepath.Join(dir, "cases.csv"), "-o", xPath); code != exitChecks {
+		t.Fatalf("xlsx: exit %d: %s", code, errs)
+	}
+	f, err := excelize.OpenFile(xPath)
+	if err != nil {
+		t.Fatal(err)
+	}
+	defer f.Close()
+	rows, err := f.GetRows("cases")
+	if err != nil || len(rows) != 6 {
+		t.Fatalf("%d rows (%v), want 6", len(rows), err)
+	}
+	entries, _ := os.ReadDir(tmp)
+	if len(entries) != 2 {
+		t.Errorf("temporary files left behind: %v", entries)
+	}
+}
+
+func TestBatchStdin(t *testing.T) {
+	dir := filepath.Join("testdata", "batch")
+	var out, errb strings.Builder
+	code := Main([]string{"batch", filepath.Join(dir, "tie.sheaf"), "-"}, strings.NewReader("P [kN]\n10\n20\n"), &out, &errb)
+	if code != exitOK || strings.Count(out.String(), "\n") != 3 {
+		t.Errorf("exit %d\n%s%s", code, out.String(), errb.String())
+	}
+}

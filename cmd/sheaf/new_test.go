@@ -1,0 +1,66 @@
+package main
+
+import (
+	"os"
+	"path/filepath"
+	"strings"
+	"testing"
+)
+
+// TestNewFromEveryTemplate starts a sheet from each template in sheets/
+// and compares it with testdata/new/<name>.golden; fromTemplate itself
+// requires the copy to evaluate as the template does.
+func TestNewFromEveryTemplate(t *testing.T) {
+	golden0, err := filepath.Abs(filepath.Join("testdata", "new"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	tmp := t.TempDir()
+	t.Chdir("../..") // the library is found from the working directory up
+	files, _ := filepath.Glob("sheets/*.sheaf")
+	if len(files) == 0 {
+		t.Fatal("no templates")
+	}
+	for _, f := range files {
+		name := strings.TrimSuffix(filepath.Base(f), ".sheaf")
+		out := filepath.Join(tmp, name+".sheaf")
+		stdout, errs, code := sheaf(t, "new", name, out)
+		if code != exitOK {
+			t.Fatalf("%s: exit %d: %s", name, code, errs)
+		}
+		if !strings.HasPrefix(stdout, "wrote "+out+" from sheets/"+name+".sheaf: ") {
+			t.Errorf("%s: stdout %q", name, stdout)
+		}
+		got, err := os.ReadFile(out)
+		if err != nil {
+			t.Fatal(err)
+		}
+		golden(t, filepath.Join(golden0, name+".golden"), string(got))
+		if !strings.Contains(string(got), "date:") || strings.Contains(string(got), "date:     20") {
+			if strings.Contains(string(got), "date:") {
+				t.Errorf("%s: the date was not replaced by the placeholder", name)
+			}
+		}
+		// Refuses to overwrite; --force does, with the same bytes.
+		if _, errs, code := sheaf(t, "new", name, out); code != exitInput || !strings.Contains(errs, "already exists") {
+			t.Errorf("%s: overwrite: exit %d, %s", name, code, errs)
+		}
+		if _, errs, code := sheaf(t, "new", "--force", f, out); code != exitOK {
+			t.Errorf("%s: --force: exit %d, %s", name, code, errs)
+		}
+		if again, _ := os.ReadFile(out); string(again) != string(got) {
+			t.Errorf("%s: a second run gives other bytes", name)
+		}
+	}
+	for _, tc := range []struct{ name, want string }{
+		{"mezzanine-hangar", `did you mean "mezzanine-hanger"?`},
+		{"nothing-like-it-at-all", "the templates are:"},
+	} {
+		if _, errs, code := sheaf(t, "new", tc.name, filepath.Join(tmp, "x.sheaf")); code != exitInput || !strings.Contains(errs, tc.want) {
+			t.Errorf("%s: exit %d, stderr %q, want %q", tc.name, code, errs, tc.want)
+		}
+	}
+	if _, errs, code := sheaf(t, "new", "--library", tmp, "x", filepath.Join(tmp, "y.sheaf")); code != exitInput || !strings.Contains(errs, "not found") {
+		t.Errorf("empty library: exit %d, %s", code, errs)
+	}
+}
