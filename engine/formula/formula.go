@@ -139,21 +139,35 @@ func Parse(e sheet.Expr, opt Options) (*Formula, diag.List) {
 		}
 		f.runeIdx = append(f.runeIdx, len(f.Rewritten))
 	}
-	cfg := *exprConfig
-	cfg.MaxNodes = opt.MaxNodes
-	tree, err := parser.ParseWithConfig(f.Rewritten, &cfg)
-	if err != nil {
-		errs.Add(f.syntaxDiag(err))
-		errs.Sort()
-		return nil, errs
+	// The fast parser builds the same tree as expr-lang for the common
+	// subset; anything else, and every syntax error, goes to expr-lang so
+	// that its messages stay as they are.
+	if f.Tree = fastParse(f.Rewritten, opt.MaxNodes); f.Tree == nil {
+		tree, err := exprParse(f.Rewritten, opt.MaxNodes)
+		if err != nil {
+			errs.Add(f.syntaxDiag(err))
+			errs.Sort()
+			return nil, errs
+		}
+		f.Tree = tree
 	}
-	f.Tree = tree.Node
 	errs = append(errs, f.restrict(opt.MaxDepth)...)
 	errs.Sort()
 	if errs.HasErrors() {
 		return f, errs
 	}
 	return f, nil
+}
+
+// exprParse parses text with expr-lang's parser and our configuration.
+func exprParse(text string, maxNodes uint) (ast.Node, error) {
+	cfg := *exprConfig
+	cfg.MaxNodes = maxNodes
+	tree, err := parser.ParseWithConfig(text, &cfg)
+	if err != nil {
+		return nil, err
+	}
+	return tree.Node, nil
 }
 
 func isASCII(s string) bool {
