@@ -90,7 +90,8 @@ func (x *exporter) writeCalc() error {
 	if err := sw.Flush(); err != nil {
 		return err
 	}
-	return x.finishTab(TabCalc, true)
+	x.finish = append(x.finish, finishing{TabCalc, true})
+	return nil
 }
 
 // cellRow writes one cell of the sheet: name, description, expression,

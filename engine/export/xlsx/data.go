@@ -79,7 +79,8 @@ func (x *exporter) writeData() error {
 	if err := sw.Flush(); err != nil {
 		return err
 	}
-	return x.finishTab(TabData, false)
+	x.finish = append(x.finish, finishing{TabData, false})
+	return nil
 }
 
 // chartSpec is one chart: y column against x column of a table.
@@ -157,5 +158,6 @@ func (x *exporter) writeCharts() error {
 		}
 		x.stats.Charts++
 	}
-	return x.finishTab(TabCharts, true)
+	x.finish = append(x.finish, finishing{TabCharts, true})
+	return nil
 }

@@ -25,8 +25,7 @@ const maxNameLen = 255
 func DefinedName(n string) string {
 	var b strings.Builder
 	for i, r := range n {
-		ok := r == '_' || unicode.IsLetter(r) || (i > 0 && (unicode.IsDigit(r) || r == '.'))
-		if ok && r < 0x80 || ok && unicode.IsLetter(r) {
+		if r == '_' || unicode.IsLetter(r) || unicode.IsDigit(r) || (i > 0 && r == '.') {
 			b.WriteRune(r)
 		} else {
 			b.WriteByte('_')

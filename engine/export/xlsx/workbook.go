@@ -1,6 +1,7 @@
 package xlsxout
 
 import (
+	"bytes"
 	"fmt"
 	"slices"
 	"strings"
@@ -66,6 +67,7 @@ type exporter struct {
 	// formulas holds the translation of each derived cell (by index);
 	// opaque marks cells whose workbook value does not recompute, reads
 	// the cells upstream of a live formula that are opaque.
+	finish   []finishing
 	formulas map[int]translated
 	opaque   []bool
 	reads    [][]string
@@ -86,8 +88,7 @@ func Build(s *engine.Sheet, r *engine.Results, opt Options) (*excelize.File, Sta
 	x.st = &styles{f: x.f, cache: map[styleKey]int{}}
 	x.tr = &translator{refs: map[string]ref{}, cells: s.Cells()}
 	x.layout()
-	steps := []func() error{x.writeSummary, x.writeCalc, x.writeData, x.writeCharts, x.workbookProps}
-	for _, step := range steps {
+	for _, step := range []func() error{x.writeSummary, x.writeCalc, x.writeData, x.reopen, x.writeCharts, x.finishTabs, x.workbookProps} {
 		if err := step(); err != nil {
 			_ = x.f.Close()
 			return nil, x.stats, err
@@ -98,6 +99,39 @@ func Build(s *engine.Sheet, r *engine.Results, opt Options) (*excelize.File, Sta
 		return nil, x.stats, x.st.err
 	}
 	return x.f, x.stats, nil
+}
+
+// finishing is a tab waiting for its print setup and protection.
+type finishing struct {
+	tab       string
+	landscape bool
+}
+
+// reopen reads the streamed workbook back into memory. The stream writer
+// is the one way to store a formula with its cached value, but what is set
+// on a streamed tab afterwards (print setup, protection) is not saved; the
+// reopened tabs take those settings like any other.
+func (x *exporter) reopen() error {
+	var buf bytes.Buffer
+	if _, err := x.f.WriteTo(&buf); err != nil {
+		return err
+	}
+	_ = x.f.Close()
+	f, err := excelize.OpenReader(&buf)
+	if err != nil {
+		return err
+	}
+	x.f = f
+	return nil
+}
+
+func (x *exporter) finishTabs() error {
+	for _, t := range x.finish {
+		if err := x.finishTab(t.tab, t.landscape); err != nil {
+			return err
+		}
+	}
+	return nil
 }
 
 // rowKind says what a Calculation row shows.
@@ -204,7 +238,6 @@ func (x *exporter) layout() {
 			x.addTable(c.Name, c.Description, v, x.tableUnits(c, v), c.Kind == engine.Table)
 		}
 	}
-	x.markOpaque()
 	// The Data tab follows the order the tables were met.
 	drow := 1
 	for _, b := range x.tables {
@@ -219,6 +252,7 @@ func (x *exporter) layout() {
 		}
 		drow += n + 3
 	}
+	x.markOpaque()
 }
 
 // translated is a formula or the reason there is none.

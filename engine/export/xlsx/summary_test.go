@@ -1,0 +1,141 @@
+package xlsxout
+
+import (
+	"archive/zip"
+	"bytes"
+	"flag"
+	"io"
+	"os"
+	"path/filepath"
+	"strings"
+	"testing"
+
+	"github.com/xuri/excelize/v2"
+)
+
+var update = flag.Bool("update", false, "rewrite the golden files")
+
+// tabText renders a tab as text, one row a line, cells joined by " | ",
+// formula cells showing their cached value.
+func tabText(t *testing.T, f *excelize.File, tab string) string {
+	t.Helper()
+	rows, err := f.GetRows(tab)
+	if err != nil {
+		t.Fatal(err)
+	}
+	var b strings.Builder
+	for _, r := range rows {
+		b.WriteString(strings.TrimRight(strings.Join(r, " | "), " |") + "\n")
+	}
+	return b.String()
+}
+
+func golden(t *testing.T, name, got string) {
+	t.Helper()
+	path := filepath.Join("testdata", name)
+	if *update {
+		if err := os.WriteFile(path, []byte(got), 0o644); err != nil {
+			t.Fatal(err)
+		}
+	}
+	want, err := os.ReadFile(path)
+	if err != nil {
+		t.Fatalf("%v (run with -update to create it)", err)
+	}
+	if got != string(want) {
+		t.Errorf("%s differs (run with -update after checking):\n--- got\n%s--- want\n%s", name, got, want)
+	}
+}
+
+// TestSummaryGolden: the summary tab of each fixture, as text.
+func TestSummaryGolden(t *testing.T) {
+	for _, c := range []struct{ sheet, golden string }{
+		{"../../../sheets/mezzanine-hanger.sheaf", "summary-hanger.golden"},
+		{"testdata/ops.sheaf", "summary-ops.golden"},
+	} {
+		t.Run(c.golden, func(t *testing.T) {
+			s := load(t, c.sheet)
+			f := build(t, s, s.NewState().Eval())
+			text := strings.ReplaceAll(tabText(t, f, TabSummary), s.Name(), filepath.Base(s.Name()))
+			if !strings.Contains(text, Caution) {
+				t.Error("the caution is missing")
+			}
+			golden(t, c.golden, text)
+		})
+	}
+}
+
+// TestCalculationGolden: the calculation tab of the hanger, as text: the
+// reading order, hand calculations, values and notes.
+func TestCalculationGolden(t *testing.T) {
+	s := load(t, "../../../sheets/mezzanine-hanger.sheaf")
+	f := build(t, s, s.NewState().Eval())
+	golden(t, "calculation-hanger.golden", tabText(t, f, TabCalc)+"--- Data\n"+tabText(t, f, TabData))
+}
+
+// TestCharts: every bar result gets N(x), u(x) and σ(x), every N–ε curve
+// its chart, each over the right columns of the Data tab.
+func TestCharts(t *testing.T) {
+	s := load(t, "testdata/charts.sheaf")
+	r := s.NewState().Eval()
+	fb, stats, err := Build(s, r, Options{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	var buf bytes.Buffer
+	if _, err := fb.WriteTo(&buf); err != nil {
+		t.Fatal(err)
+	}
+	if stats.Charts != 4 || stats.Tables != 2 {
+		t.Errorf("stats %+v, want 4 charts and 2 tables", stats)
+	}
+	f, err := excelize.OpenReader(bytes.NewReader(buf.Bytes()))
+	if err != nil {
+		t.Fatal(err)
+	}
+	data := tabText(t, f, TabData)
+	for _, want := range []string{"res.samples: N, σ, u along the bar for plots", "x [mm] | N [kN] | sigma [MPa] | u [mm]", "curve: N against strain", "eps | N [kN]"} {
+		if !strings.Contains(data, want) {
+			t.Errorf("Data tab lacks %q:\n%s", want, data)
+		}
+	}
+	z, err := zip.NewReader(bytes.NewReader(buf.Bytes()), int64(buf.Len()))
+	if err != nil {
+		t.Fatal(err)
+	}
+	var charts []string
+	for _, zf := range z.File {
+		if strings.HasPrefix(zf.Name, "xl/charts/chart") {
+			rc, _ := zf.Open()
+			b, _ := io.ReadAll(rc)
+			rc.Close()
+			charts = append(charts, string(b))
+		}
+	}
+	if len(charts) != 4 {
+		t.Fatalf("%d chart parts, want 4", len(charts))
+	}
+	all := strings.Join(charts, "\n")
+	for _, want := range []string{
+		"res.samples: N(x)", "res.samples: u(x)", "res.samples: σ(x)", "curve: N(ε)",
+		"Data!$A$", "Data!$B$", "Data!$C$", "Data!$D$", "position x [mm]", "strain ε",
+	} {
+		if !strings.Contains(all, want) {
+			t.Errorf("charts lack %q", want)
+		}
+	}
+	// The plotted numbers are Sheaf's samples in display units: the last
+	// u is the displacement of the foot.
+	// Source: δ = P·L/(E·A) = 25 kN · 3 m / (200 GPa · 400 mm²) = 0.9375 mm (closed form).
+	rows, _ := f.GetRows(TabData)
+	var last []string
+	for _, row := range rows[2:] {
+		if len(row) == 0 {
+			break
+		}
+		last = row
+	}
+	if len(last) != 4 || last[0] != "3000" || last[3] != "0.9375" {
+		t.Errorf("last sample row %v, want x = 3000 mm, u = 0.9375 mm", last)
+	}
+}
