@@ -2,8 +2,10 @@ package main
 
 import (
 	"fmt"
+	"math"
 	"os"
 	"path/filepath"
+	"strconv"
 	"strings"
 	"testing"
 
@@ -89,5 +91,34 @@ func TestBatchStdin(t *testing.T) {
 	code := Main([]string{"batch", filepath.Join(dir, "tie.sheaf"), "-"}, strings.NewReader("P [kN]\n10\n20\n"), &out, &errb)
 	if code != exitOK || strings.Count(out.String(), "\n") != 3 {
 		t.Errorf("exit %d\n%s%s", code, out.String(), errb.String())
+	}
+}
+
+// TestBatchHangerHandCalc runs the example case table of the mezzanine
+// hanger: its first row is the sheet as written, so it must match the hand
+// calculation in the sheet's closing comment (N_Ed = 17.195 kN,
+// F_tRd = 45.22 kN, delta = 0.8544 mm; relative 1e-3, the comment rounds).
+func TestBatchHangerHandCalc(t *testing.T) {
+	t.Chdir("../..")
+	out, errs, code := sheaf(t, "batch", "sheets/mezzanine-hanger.sheaf", "sheets/mezzanine-hanger-cases.csv", "--sig", "10")
+	if code != exitOK {
+		t.Fatalf("exit %d: %s", code, errs)
+	}
+	lines := strings.Split(out, "\n")
+	head, row := strings.Split(lines[0], ","), strings.Split(lines[1], ",")
+	want := map[string]float64{"N_Ed [kN]": 17.195, "F_tRd [kN]": 45.216, "delta [mm]": 0.8544}
+	for i, h := range head {
+		w, ok := want[h]
+		if !ok {
+			continue
+		}
+		delete(want, h)
+		got, err := strconv.ParseFloat(row[i], 64)
+		if err != nil || math.Abs(got-w) > 1e-3*w {
+			t.Errorf("%s = %s, want %g (hand calculation)", h, row[i], w)
+		}
+	}
+	if len(want) > 0 {
+		t.Errorf("columns missing from the output: %v", want)
 	}
 }
