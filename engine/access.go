@@ -3,10 +3,17 @@ package engine
 import "github.com/sheafcalc/sheaf/funcs"
 
 // Files returns the source files the sheet was built from, the sheet itself
-// first. A watcher watches all of them; when a sheet uses templates, their
-// files join this list, so callers that watch or hash the sources need not
-// change.
-func (s *Sheet) Files() []string { return []string{s.name} }
+// first, then each template it uses (directly or through other templates)
+// once, in the order first used. A watcher watches all of them.
+func (s *Sheet) Files() []string {
+	out := []string{s.name}
+	for _, f := range s.prog.Files {
+		if f.Name != s.name {
+			out = append(out, f.Name)
+		}
+	}
+	return out
+}
 
 // Number returns the current SI value of a number cell (a check's
 // utilisation for a check) and whether it is known. Unlike Value it neither

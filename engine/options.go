@@ -81,5 +81,5 @@ func WithSigFigs(n int) Option {
 }
 
 func (c config) checkOptions() check.Options {
-	return check.Options{MaxCells: c.maxCells, MaxDepth: c.maxDepth, System: c.system, HasSystem: c.hasSystem}
+	return check.Options{MaxCells: c.maxCells, MaxDepth: c.maxDepth, MaxBytes: c.maxBytes, System: c.system, HasSystem: c.hasSystem}
 }

@@ -45,9 +45,10 @@ type Sheet struct {
 	cfg     config
 }
 
-// Load reads, checks and compiles the sheet at path. Sheet errors come back
-// as a diag.List (render it with diag.Render and s.Sources(), or with the
-// Sources of the returned error's sheet: use LoadSources); I/O errors as
+// Load reads, checks and compiles the sheet at path, and the templates it
+// uses (paths relative to it, inside its project root: see SPEC.md).
+// Sheet errors come back as a diag.List (render it with diag.Render and
+// ReadSources(list): the positions may lie in templates); I/O errors as
 // they are.
 func Load(path string, opts ...Option) (*Sheet, error) {
 	cfg := newConfig(opts)
@@ -118,8 +119,36 @@ func (s *Sheet) Cells() []*Cell { return s.prog.Cells }
 // Lookup returns the named cell, or nil.
 func (s *Sheet) Lookup(name string) *Cell { return s.prog.Lookup(name) }
 
-// Sources returns the source text for rendering diagnostics.
-func (s *Sheet) Sources() diag.Sources { return diag.Sources{s.name: s.src} }
+// Sources returns the text of every file the sheet was built from (the
+// sheet and the templates it uses), for rendering diagnostics.
+func (s *Sheet) Sources() diag.Sources {
+	out := diag.Sources{s.name: s.src}
+	for _, f := range s.prog.Files {
+		out[f.Name] = f.Src
+	}
+	return out
+}
+
+// ReadSources reads every file named in the positions of l, for rendering
+// the diagnostics of a sheet that failed to load: they may sit in the
+// templates it uses. Files that cannot be read are left out (their
+// messages then come without a snippet).
+func ReadSources(l diag.List) diag.Sources {
+	out := diag.Sources{}
+	for _, d := range l {
+		name := d.Range.Start.File
+		if _, done := out[name]; done || name == "" {
+			continue
+		}
+		if fi, err := os.Stat(name); err != nil || fi.IsDir() || fi.Size() > DefaultMaxBytes {
+			continue
+		}
+		if src, err := os.ReadFile(name); err == nil {
+			out[name] = src
+		}
+	}
+	return out
+}
 
 // DisplayUnit returns the unit a cell's value is shown in: the written
 // unit, else the preferred unit of the sheet's system, else SI.

@@ -58,8 +58,7 @@ func loadSheet(a *app, path, system string) (*engine.Sheet, error) {
 	if err != nil {
 		var list diag.List
 		if errors.As(err, &list) {
-			src, _ := readSource(path)
-			_ = diag.Render(a.stderr, list, diag.Sources{path: src})
+			_ = diag.Render(a.stderr, list, engine.ReadSources(list))
 			n := len(list)
 			fmt.Fprintf(a.stderr, "%d problem%s in %s\n", n, map[bool]string{true: "", false: "s"}[n == 1], path)
 			return nil, &reportedError{err, exitInput}

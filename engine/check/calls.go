@@ -11,7 +11,7 @@ import (
 // call types a call of name with args: a user function of the sheet, a
 // built-in, or a plugin function from the registry, in that order.
 func (t *typer) call(n ast.Node, name string, argNodes []ast.Node) *Node {
-	if i, ok := t.c.prog.ByName[name]; ok {
+	if i, ok := t.c.local(t.cell, name); ok {
 		fn := t.c.prog.Cells[i]
 		if fn.Kind != Function {
 			return t.fail(n, "`"+name+"` is a cell, not a function", "only functions of the sheet, built-ins and plugin functions can be called", "")
@@ -104,7 +104,7 @@ func (t *typer) pluginCall(n ast.Node, def *funcs.Def, argNodes []ast.Node) *Nod
 		// A bare name of a user function passed where a function is
 		// expected becomes a function value.
 		if id, isID := a.(*ast.IdentifierNode); isID && p != nil && p.Type.Kind == funcs.Func {
-			if j, found := t.c.prog.ByName[id.Value]; found && t.c.prog.Cells[j].Kind == Function {
+			if j, found := t.c.local(t.cell, id.Value); found && t.c.prog.Cells[j].Kind == Function {
 				fn := t.c.prog.Cells[j]
 				if fn.Type == nil {
 					return nil

@@ -20,6 +20,7 @@ import (
 type Options struct {
 	MaxCells  int          // 0 means DefaultMaxCells
 	MaxDepth  int          // expression nesting; 0 means formula.DefaultMaxDepth
+	MaxBytes  int          // size of a template file; 0 means sheet.DefaultMaxBytes
 	System    units.System // preferred units in messages; Neutral means the sheet's own
 	HasSystem bool
 }
@@ -33,6 +34,8 @@ type checker struct {
 	errs diag.List
 	// per cell: the syntax tree to type (nil when none)
 	names []string
+	// use holds the templates of the sheet (nil when it uses none).
+	use *uses
 }
 
 // Sheet resolves and types the parsed sheet f. It always returns a
@@ -41,7 +44,7 @@ func Sheet(f *sheet.File, opt Options) (*Program, diag.List) {
 	if opt.MaxCells <= 0 {
 		opt.MaxCells = DefaultMaxCells
 	}
-	c := &checker{prog: &Program{File: f, ByName: map[string]int{}}, opt: opt}
+	c := &checker{prog: &Program{File: f, Files: []*sheet.File{f}, ByName: map[string]int{}}, opt: opt}
 	c.collect()
 	if len(c.prog.Cells) > opt.MaxCells {
 		c.errs.Errorf(c.prog.Cells[opt.MaxCells].Range, fmt.Sprintf("a sheet may hold at most %d cells; this one has %d", opt.MaxCells, len(c.prog.Cells)),
@@ -50,6 +53,7 @@ func Sheet(f *sheet.File, opt Options) (*Program, diag.List) {
 		return c.prog, c.errs
 	}
 	c.parseAll()
+	c.applyOverrides()
 	c.resolve()
 	c.order()
 	c.typeAll()
@@ -60,17 +64,35 @@ func Sheet(f *sheet.File, opt Options) (*Program, diag.List) {
 // collect reads the items into cells, the header into Meta, and reports
 // duplicate and reserved names.
 func (c *checker) collect() {
+	c.prog.Meta.System = units.Metric
+	c.collectFile(c.prog.File, "", 0)
+}
+
+// collectFile reads the items of f into cells named scope+name. The sheet
+// itself has scope ""; a template inlined by `use rod` has scope "rod.", its
+// header is ignored and its headings become sections "rod: heading".
+func (c *checker) collectFile(f *sheet.File, scope string, depth int) {
 	p := c.prog
 	section := ""
-	p.Meta.System = units.Metric
-	for _, it := range p.File.Items {
+	if scope != "" {
+		section = strings.TrimSuffix(scope, ".")
+	}
+	for _, it := range f.Items {
+		if len(p.Cells) > c.opt.MaxCells {
+			return // reported by Sheet
+		}
 		var cell *Cell
 		switch it := it.(type) {
 		case *sheet.Meta:
-			c.meta(it)
+			if scope == "" {
+				c.meta(it)
+			}
 			continue
 		case *sheet.Heading:
 			section = it.Text
+			if scope != "" {
+				section = strings.TrimSuffix(scope, ".") + ": " + it.Text
+			}
 			continue
 		case *sheet.Cell:
 			cell = &Cell{Name: it.Name.Name, Kind: Derived, NameRange: it.Name.Range, Range: it.Range,
@@ -108,7 +130,7 @@ func (c *checker) collect() {
 				Description: it.Annot.Description, Reference: it.Annot.Reference}
 			c.table(cell, it)
 		case *sheet.Use:
-			c.errs.Errorf(it.Range, "this build of Sheaf cannot read templates yet", "copy the cells of the template into this sheet", "`use` is not available")
+			c.useTemplate(f, it, scope, depth)
 			continue
 		default:
 			continue
@@ -120,6 +142,14 @@ func (c *checker) collect() {
 		}
 		if strings.HasPrefix(cell.Name, formula.SyntheticPrefix) {
 			c.errs.Errorf(cell.NameRange, "Sheaf uses such names for quantity literals", "rename the cell", "names starting with `%s` are reserved", formula.SyntheticPrefix)
+		}
+		if scope != "" {
+			cell.Name, cell.Scope = scope+cell.Name, scope
+		}
+		if c.use.isAlias(cell.Name) {
+			c.errs.Errorf(cell.NameRange, "`"+cell.Name+"` names a template use at "+c.use.aliasPos(cell.Name).String()+"; each name names one thing",
+				"rename one of them", "`%s` is defined twice", cell.Name)
+			continue
 		}
 		if j, dup := p.ByName[cell.Name]; dup {
 			first := p.Cells[j]
@@ -289,13 +319,13 @@ func (c *checker) resolve() {
 			if isParam(cell, r.Name) {
 				continue
 			}
-			j, ok := p.ByName[r.Name]
+			j, ok := c.ref(cell, r)
 			if !ok || seen[j] {
 				continue
 			}
 			seen[j] = true
 			cell.DepIdx = append(cell.DepIdx, j)
-			cell.Deps = append(cell.Deps, r.Name)
+			cell.Deps = append(cell.Deps, p.Cells[j].Name)
 		}
 		if cell.Kind == Derived && len(cell.DepIdx) == 0 {
 			cell.Kind = Input
@@ -380,7 +410,7 @@ func (c *checker) typeAll() {
 			cell.Type = funcs.FuncOf(body.Type, ps...)
 		default:
 			body := t.expr(cell.Formula.Tree)
-			if body == nil || !c.fitsUnit(t, cell, body) {
+			if body == nil || !c.fitsOverride(t, cell, body) || !c.fitsUnit(t, cell, body) {
 				continue
 			}
 			cell.Body, cell.Type = body, body.Type

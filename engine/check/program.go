@@ -49,6 +49,11 @@ type Cell struct {
 	Deps        []string // names of the cells it uses, in order of first use
 	DepIdx      []int    // the same as indices into Program.Cells
 	Formula     *formula.Formula
+	// Scope is the prefix under which the formula's names are read: "" for
+	// a cell of the sheet itself, "rod." for a cell inlined from
+	// `use rod from ...` (an override keeps the scope of the sheet that
+	// wrote it, though its name is the template's "rod.P").
+	Scope string
 
 	// Body is the typed tree of the value (Input, Derived, Function).
 	Body *Node
@@ -70,7 +75,10 @@ type Param struct {
 
 // Program is a checked sheet.
 type Program struct {
-	File   *sheet.File
+	File *sheet.File
+	// Files lists every file the program was built from: File first, then
+	// each template in the order it was first used (once each).
+	Files  []*sheet.File
 	Meta   Meta
 	Cells  []*Cell
 	ByName map[string]int

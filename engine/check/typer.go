@@ -131,7 +131,7 @@ func (t *typer) ident(n *ast.IdentifierNode) *Node {
 			return r
 		}
 	}
-	if i, ok := t.c.prog.ByName[name]; ok {
+	if i, ok := t.c.local(t.cell, name); ok {
 		dep := t.c.prog.Cells[i]
 		if dep.Kind == Function {
 			if dep.Type == nil {
@@ -145,6 +145,9 @@ func (t *typer) ident(n *ast.IdentifierNode) *Node {
 		r := t.node(n, OpCell, dep.Type)
 		r.Index = i
 		return r
+	}
+	if t.c.use.isAlias(t.scope() + name) {
+		return t.aliasValue(n, name)
 	}
 	if k, ok := Constants[name]; ok {
 		r := t.node(n, OpConst, funcs.Num(k.Dim))
@@ -173,7 +176,7 @@ func paramList(c *Cell) string {
 
 func (t *typer) undefined(n ast.Node, name string) *Node {
 	hint := ""
-	if s := t.c.suggest(name); s != "" {
+	if s := t.c.suggestIn(t.scope(), name); s != "" {
 		hint = "did you mean `" + s + "`?"
 	}
 	return t.fail(n, "undefined name `"+name+"`", "no cell, function or constant of that name is defined in this sheet", hint)
@@ -251,6 +254,9 @@ func (t *typer) binary(n *ast.BinaryNode) *Node {
 }
 
 func (t *typer) member(n *ast.MemberNode) *Node {
+	if r, ok := t.templateMember(n); ok {
+		return r
+	}
 	x := t.expr(n.Node)
 	if x == nil {
 		return nil

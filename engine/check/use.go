@@ -1,0 +1,456 @@
+package check
+
+import (
+	"fmt"
+	"slices"
+	"strings"
+
+	"github.com/expr-lang/expr/ast"
+
+	"github.com/sheafcalc/sheaf/engine/diag"
+	"github.com/sheafcalc/sheaf/engine/formula"
+	"github.com/sheafcalc/sheaf/engine/sheet"
+	"github.com/sheafcalc/sheaf/engine/units"
+	"github.com/sheafcalc/sheaf/funcs"
+)
+
+// Template use is inlining. `use rod from "hanger.sheaf"` checks nothing
+// apart: the template's cells join this program under the names
+// `rod.<name>`, in reading order at the place of the use, and their
+// formulas read names in the scope "rod.". Overrides replace the formulas
+// of the template's inputs and keep the scope of the sheet that wrote them,
+// so `P = N_Ed` links the two sheets in one dependency graph. Everything
+// downstream — ordering, cycles, typing, evaluation, incremental
+// recompute, checks and results — then works on one program, and a
+// template's design checks are checks of the using sheet (`rod.tension`).
+
+// uses is the template state of one check.
+type uses struct {
+	ld      *loader
+	aliases map[string]*alias // by qualified name: "rod", "rod.bolt"
+	blocks  []*useBlock
+	// replaced holds, per overridden cell, the template's own formula, so
+	// that the override can be held to its type.
+	replaced map[int]*replaced
+	// targets caches, per formula, the cell each member chain `rod.x`
+	// refers to, keyed by the chain's root identifier.
+	targets map[*formula.Formula]map[*ast.IdentifierNode]int
+}
+
+// alias is a name given by `use NAME from ...`.
+type alias struct {
+	pos    diag.Pos
+	file   string // the template's file as shown in positions
+	failed bool   // the template could not be used: stay silent about it
+}
+
+// useBlock is one instance: the use, the scope it is written in, and the
+// prefix of the cells it brought in.
+type useBlock struct {
+	use    *sheet.Use
+	scope  string // of the using file: "" or "rod."
+	prefix string // scope + name + "."
+	file   string
+}
+
+type replaced struct {
+	orig  *formula.Formula
+	scope string
+}
+
+func (u *uses) isAlias(name string) bool {
+	if u == nil {
+		return false
+	}
+	_, ok := u.aliases[name]
+	return ok
+}
+
+func (u *uses) aliasPos(name string) diag.Pos {
+	if a := u.aliases[name]; a != nil {
+		return a.pos
+	}
+	return diag.Pos{}
+}
+
+// useTemplate reads the template of u, written in file from under scope,
+// and inlines its cells.
+func (c *checker) useTemplate(from *sheet.File, u *sheet.Use, scope string, depth int) {
+	if c.use == nil {
+		c.use = &uses{ld: newLoader(c.prog.File, c.opt.MaxBytes), aliases: map[string]*alias{},
+			replaced: map[int]*replaced{}, targets: map[*formula.Formula]map[*ast.IdentifierNode]int{}}
+	}
+	name := scope + u.Name.Name
+	if IsReserved(u.Name.Name) {
+		c.errs.Errorf(u.Name.Range, "built-in names, constants and keywords cannot name a template use", "choose another name, e.g. `"+u.Name.Name+"_1`", "`%s` is a reserved name", u.Name.Name)
+		return
+	}
+	if j, dup := c.prog.ByName[name]; dup {
+		c.errs.Errorf(u.Name.Range, "`"+name+"` is first defined at "+c.prog.Cells[j].Pos.String()+"; each name names one thing",
+			"rename one of them", "`%s` is defined twice", name)
+		return
+	}
+	if a, dup := c.use.aliases[name]; dup {
+		c.errs.Errorf(u.Name.Range, "`"+name+"` is first defined at "+a.pos.String()+"; each name names one thing",
+			"use the template twice under two names, e.g. `"+name+"_1`", "`%s` is defined twice", name)
+		return
+	}
+	a := &alias{pos: u.Name.Range.Start}
+	c.use.aliases[name] = a
+	f := c.use.ld.open(from, u, &c.errs)
+	if f == nil {
+		a.failed = true
+		return
+	}
+	defer c.use.ld.done()
+	a.file = f.Name
+	if !slices.Contains(c.prog.Files, f) {
+		c.prog.Files = append(c.prog.Files, f)
+	}
+	b := &useBlock{use: u, scope: scope, prefix: name + ".", file: f.Name}
+	c.use.blocks = append(c.use.blocks, b)
+	c.collectFile(f, b.prefix, depth+1)
+}
+
+// local returns the cell that name means in the scope of cell (nil cell:
+// the sheet itself).
+func (c *checker) local(cell *Cell, name string) (int, bool) {
+	if cell != nil && cell.Scope != "" {
+		name = cell.Scope + name
+	}
+	i, ok := c.prog.ByName[name]
+	return i, ok
+}
+
+// scope returns the scope the typed formula reads names in.
+func (t *typer) scope() string {
+	if t.cell == nil {
+		return ""
+	}
+	return t.cell.Scope
+}
+
+// ref returns the cell a formula's name refers to: a cell of its scope, or
+// for the root of a chain `rod.x`, the template's cell `rod.x`.
+func (c *checker) ref(cell *Cell, r formula.Ref) (int, bool) {
+	if i, ok := c.local(cell, r.Name); ok {
+		return i, true
+	}
+	if c.use == nil || r.Node == nil || !c.use.isAlias(cell.Scope+r.Name) {
+		return 0, false
+	}
+	m, ok := c.use.targets[cell.Formula]
+	if !ok {
+		m = c.memberTargets(cell)
+		c.use.targets[cell.Formula] = m
+	}
+	i, ok := m[r.Node]
+	return i, ok
+}
+
+// memberTargets finds the member chains of cell's formula that name a
+// template's cell.
+func (c *checker) memberTargets(cell *Cell) map[*ast.IdentifierNode]int {
+	m := map[*ast.IdentifierNode]int{}
+	v := visitor(func(n ast.Node) {
+		mem, ok := n.(*ast.MemberNode)
+		if !ok {
+			return
+		}
+		prefix, root, ok := c.usePath(cell, mem.Node)
+		if !ok {
+			return
+		}
+		if s, ok := mem.Property.(*ast.StringNode); ok {
+			if i, ok := c.prog.ByName[prefix+s.Value]; ok {
+				m[root] = i
+			}
+		}
+	})
+	tree := cell.Formula.Tree
+	ast.Walk(&tree, v)
+	return m
+}
+
+type visitor func(ast.Node)
+
+func (v visitor) Visit(n *ast.Node) { v(*n) }
+
+// usePath reports whether n names a template use in cell's scope (`rod`,
+// or `rod.bolt` for a template that rod uses) and returns its prefix
+// ("rod.", "rod.bolt.") and the chain's root identifier.
+func (c *checker) usePath(cell *Cell, n ast.Node) (string, *ast.IdentifierNode, bool) {
+	if c.use == nil {
+		return "", nil, false
+	}
+	switch n := n.(type) {
+	case *ast.IdentifierNode:
+		scope := ""
+		if cell != nil {
+			scope = cell.Scope
+			if isParam(cell, n.Value) {
+				return "", nil, false
+			}
+		}
+		if c.use.isAlias(scope + n.Value) {
+			return scope + n.Value + ".", n, true
+		}
+	case *ast.MemberNode:
+		pre, root, ok := c.usePath(cell, n.Node)
+		if !ok {
+			return "", nil, false
+		}
+		if s, ok := n.Property.(*ast.StringNode); ok && c.use.isAlias(pre+s.Value) {
+			return pre + s.Value + ".", root, true
+		}
+	}
+	return "", nil, false
+}
+
+// templateMember types `rod.x` when rod names a template use; ok is false
+// when n is an ordinary member access (a record's field, a table's column).
+func (t *typer) templateMember(n *ast.MemberNode) (*Node, bool) {
+	pre, _, ok := t.c.usePath(t.cell, n.Node)
+	if !ok {
+		return nil, false
+	}
+	qual := strings.TrimSuffix(pre, ".")
+	a := t.c.use.aliases[qual]
+	if a.failed {
+		return nil, true // reported at the use
+	}
+	written := strings.TrimPrefix(qual, t.scope())
+	s, ok := n.Property.(*ast.StringNode)
+	if !ok {
+		return t.fail(n, "`"+written+"` is a template use, not a list", "its cells are named, not numbered", "refer to a cell by name, e.g. `"+written+"."+t.c.firstCell(pre)+"`"), true
+	}
+	name := pre + s.Value
+	if t.c.use.isAlias(name) {
+		return t.fail(n, "`"+written+"."+s.Value+"` is a template use, not a value", "`"+written+"` uses it to bring in the cells of "+t.c.use.aliases[name].file,
+			"refer to one of its cells, e.g. `"+written+"."+s.Value+"."+t.c.firstCell(name+".")+"`"), true
+	}
+	i, ok := t.c.prog.ByName[name]
+	if !ok {
+		hint := ""
+		if near := nearest(s.Value, t.c.localNames(pre)); near != "" {
+			hint = "did you mean `" + written + "." + near + "`?"
+		}
+		return t.fail(n.Property, "template `"+written+"` has no cell `"+s.Value+"`", "`"+written+"` brings in the cells of "+a.file, hint), true
+	}
+	dep := t.c.prog.Cells[i]
+	if dep.Kind == Function {
+		if dep.Type == nil {
+			return nil, true
+		}
+		return t.fail(n, "`"+written+"."+s.Value+"` is a function of the template", "a template's functions serve its own cells; only its values can be used here",
+			"copy the function into this sheet, or give the template a cell that computes the value you need"), true
+	}
+	if dep.Type == nil {
+		return nil, true // failed or in a cycle: reported there
+	}
+	r := t.node(n, OpCell, dep.Type)
+	r.Index = i
+	return r, true
+}
+
+// aliasValue reports a template use's name written as a value.
+func (t *typer) aliasValue(n *ast.IdentifierNode, name string) *Node {
+	qual := t.scope() + name
+	a := t.c.use.aliases[qual]
+	if a.failed {
+		return nil
+	}
+	return t.fail(n, "`"+name+"` is a template use, not a value", "it brings in the cells of "+a.file,
+		"refer to one of its cells, e.g. `"+name+"."+t.c.firstCell(qual+".")+"`")
+}
+
+// localNames lists the cells brought in under prefix, by their names in
+// the template.
+func (c *checker) localNames(prefix string) []string {
+	var out []string
+	for _, cell := range c.prog.Cells {
+		if rest, ok := strings.CutPrefix(cell.Name, prefix); ok && !strings.Contains(rest, ".") {
+			out = append(out, rest)
+		}
+	}
+	return out
+}
+
+// firstCell names a cell brought in under prefix, for examples in hints:
+// the last value cell (usually the result), else any.
+func (c *checker) firstCell(prefix string) string {
+	names := c.localNames(prefix)
+	for k := len(c.prog.Cells) - 1; k >= 0; k-- {
+		cell := c.prog.Cells[k]
+		if rest, ok := strings.CutPrefix(cell.Name, prefix); ok && !strings.Contains(rest, ".") && (cell.Kind == Derived || cell.Kind == Input) {
+			return rest
+		}
+	}
+	if len(names) > 0 {
+		return names[0]
+	}
+	return "x"
+}
+
+// suggestIn returns the known name nearest to name in scope, or "".
+func (c *checker) suggestIn(scope, name string) string {
+	if scope == "" {
+		return c.suggest(name)
+	}
+	names := c.localNames(scope)
+	for _, b := range Builtins {
+		names = append(names, b.Name)
+	}
+	for k := range Constants {
+		names = append(names, k)
+	}
+	return nearest(name, names)
+}
+
+// applyOverrides replaces the template inputs named in each use block with
+// the block's cells. It runs after the formulas are parsed, since whether a
+// template cell is an input depends on the names its formula reads.
+func (c *checker) applyOverrides() {
+	if c.use == nil {
+		return
+	}
+	opt := formula.Options{MaxDepth: c.opt.MaxDepth}
+	for _, b := range c.use.blocks {
+		seen := map[string]diag.Pos{}
+		written := strings.TrimPrefix(strings.TrimSuffix(b.prefix, "."), b.scope)
+		for _, o := range b.use.Overrides {
+			local := o.Name.Name
+			if first, dup := seen[local]; dup {
+				c.errs.Errorf(o.Name.Range, "`"+local+"` is first replaced at "+first.String(), "keep one of the two lines", "`%s` is replaced twice in this use", local)
+				continue
+			}
+			seen[local] = o.Name.Range.Start
+			f, ferrs := formula.Parse(o.Expr, opt)
+			c.errs = append(c.errs, ferrs...)
+			i, ok := c.prog.ByName[b.prefix+local]
+			if !ok {
+				hint := ""
+				inputs := c.inputsOf(b.prefix)
+				if near := nearest(local, inputs); near != "" {
+					hint = "did you mean `" + near + "`?"
+				} else if len(inputs) > 0 {
+					if len(inputs) > 8 {
+						inputs = append(inputs[:8], "...")
+					}
+					hint = "its inputs are: " + strings.Join(inputs, ", ")
+				}
+				c.errs.Errorf(o.Name.Range, "`"+written+"` brings in the cells of "+b.file+"; a use block replaces its inputs",
+					hint, "template `%s` has no cell `%s`", written, local)
+				continue
+			}
+			cell := c.prog.Cells[i]
+			if !c.overridable(b, written, cell, o) {
+				continue
+			}
+			c.use.replaced[i] = &replaced{orig: cell.Formula, scope: cell.Scope}
+			cell.Expr = o.Expr.Text
+			cell.Scope = b.scope
+			cell.Range, cell.NameRange, cell.Pos = o.Range, o.Name.Range, o.Name.Range.Start
+			if o.Annot.Description != "" || o.Annot.Reference != "" {
+				cell.Description, cell.Reference = o.Annot.Description, o.Annot.Reference
+			}
+			if o.Unit != nil {
+				cell.Unit, cell.HasUnit = units.Unit{}, false
+				c.displayUnit(cell, o.Unit)
+			}
+			cell.Formula = f
+			if ferrs.HasErrors() {
+				cell.Formula, cell.Type = nil, nil
+			}
+		}
+	}
+}
+
+// overridable reports whether cell may be replaced by override o, and says
+// why not at the override.
+func (c *checker) overridable(b *useBlock, written string, cell *Cell, o *sheet.Cell) bool {
+	local := o.Name.Name
+	what := ""
+	switch cell.Kind {
+	case Check:
+		what = "a design check"
+	case Function:
+		what = "a function"
+	case Table:
+		what = "a table"
+	}
+	if what != "" {
+		c.errs.Errorf(o.Name.Range, "`"+local+"` is "+what+" of the template, defined at "+cell.Pos.String()+"; a use block replaces inputs only",
+			"replace the inputs it is computed from", "`%s` of template `%s` cannot be replaced", local, written)
+		return false
+	}
+	if deps := c.templateDeps(cell); len(deps) > 0 {
+		if len(deps) > 3 {
+			deps = append(deps[:3], "...")
+		}
+		c.errs.Errorf(o.Name.Range, "`"+local+"` is computed from "+strings.Join(deps, ", ")+" at "+cell.Pos.String()+"; a use block replaces inputs only",
+			"replace the inputs it is computed from", "`%s` of template `%s` is derived, not an input", local, written)
+		return false
+	}
+	return true
+}
+
+// templateDeps lists, by their names in the template, the cells cell's
+// own formula reads; none for an input.
+func (c *checker) templateDeps(cell *Cell) []string {
+	if cell.Formula == nil {
+		return nil
+	}
+	var out []string
+	for _, r := range cell.Formula.Refs {
+		if isParam(cell, r.Name) {
+			continue
+		}
+		if j, ok := c.ref(cell, r); ok {
+			n := strings.TrimPrefix(c.prog.Cells[j].Name, cell.Scope)
+			if !slices.Contains(out, n) {
+				out = append(out, n)
+			}
+		}
+	}
+	return out
+}
+
+// inputsOf lists the inputs of the template brought in under prefix.
+func (c *checker) inputsOf(prefix string) []string {
+	var out []string
+	for _, cell := range c.prog.Cells {
+		rest, ok := strings.CutPrefix(cell.Name, prefix)
+		if ok && !strings.Contains(rest, ".") && cell.Kind == Derived && len(c.templateDeps(cell)) == 0 {
+			out = append(out, rest)
+		}
+	}
+	return out
+}
+
+// fitsOverride reports whether the typed override body has the type of the
+// template input it replaces, and says so at the override when not.
+func (c *checker) fitsOverride(t *typer, cell *Cell, body *Node) bool {
+	if c.use == nil {
+		return true
+	}
+	r := c.use.replaced[cell.Index]
+	if r == nil || r.orig == nil || r.orig.Tree == nil {
+		return true
+	}
+	var scratch diag.List
+	ot := &typer{c: c, f: r.orig, cell: &Cell{Name: cell.Name, Scope: r.scope}, system: t.system, errs: &scratch}
+	want := ot.expr(r.orig.Tree)
+	if want == nil || sameType(want.Type, body.Type) {
+		return true // a broken template input is reported when the template is checked alone
+	}
+	local := strings.TrimPrefix(cell.Name, r.scope)
+	written := strings.TrimPrefix(strings.TrimSuffix(r.scope, "."), cell.Scope)
+	hint := "the template writes `" + r.orig.Source.Text + "`"
+	if want.Type.Kind == funcs.Number && !want.Type.Dim.IsNone() {
+		hint = fmt.Sprintf("write a value in %s, as the template does: `%s`", t.unitOf(want.Type.Dim), r.orig.Source.Text)
+	}
+	t.errs.Errorf(cell.Formula.Source.Range, "a use block replaces an input with a value of the same kind, so that the template's formulas keep their units",
+		hint, "`%s` of template `%s` is %s, but this value is %s", local, written, article(t.describeType(want.Type)), article(t.describeType(body.Type)))
+	return false
+}
