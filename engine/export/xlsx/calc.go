@@ -42,6 +42,11 @@ func (x *exporter) writeCalc() error {
 	if _, err := x.f.NewSheet(TabCalc); err != nil {
 		return err
 	}
+	// Print setup and protection go on before streaming: the stream
+	// writer keeps what the tab had, but drops what is set after it.
+	if err := x.finishTab(TabCalc, true); err != nil {
+		return err
+	}
 	sw, err := x.f.NewStreamWriter(TabCalc)
 	if err != nil {
 		return err
@@ -90,7 +95,6 @@ func (x *exporter) writeCalc() error {
 	if err := sw.Flush(); err != nil {
 		return err
 	}
-	x.finish = append(x.finish, finishing{TabCalc, true})
 	return nil
 }
 

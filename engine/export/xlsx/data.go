@@ -22,6 +22,11 @@ func (x *exporter) writeData() error {
 	if _, err := x.f.NewSheet(TabData); err != nil {
 		return err
 	}
+	// Print setup and protection go on before streaming: the stream
+	// writer keeps what the tab had, but drops what is set after it.
+	if err := x.finishTab(TabData, false); err != nil {
+		return err
+	}
 	sw, err := x.f.NewStreamWriter(TabData)
 	if err != nil {
 		return err
@@ -79,7 +84,6 @@ func (x *exporter) writeData() error {
 	if err := sw.Flush(); err != nil {
 		return err
 	}
-	x.finish = append(x.finish, finishing{TabData, false})
 	return nil
 }
 

@@ -22,6 +22,11 @@ func (x *exporter) writeSummary() error {
 	if err := x.f.SetSheetName("Sheet1", tab); err != nil {
 		return err
 	}
+	// Print setup and protection go on before streaming: the stream
+	// writer keeps what the tab had, but drops what is set after it.
+	if err := x.finishTab(tab, false); err != nil {
+		return err
+	}
 	sw, err := x.f.NewStreamWriter(tab)
 	if err != nil {
 		return err
@@ -124,7 +129,6 @@ func (x *exporter) writeSummary() error {
 	if err := sw.Flush(); err != nil {
 		return err
 	}
-	x.finish = append(x.finish, finishing{tab, false})
 	return nil
 }
 

@@ -1,7 +1,6 @@
 package xlsxout
 
 import (
-	"bytes"
 	"fmt"
 	"slices"
 	"strings"
@@ -88,7 +87,7 @@ func Build(s *engine.Sheet, r *engine.Results, opt Options) (*excelize.File, Sta
 	x.st = &styles{f: x.f, cache: map[styleKey]int{}}
 	x.tr = &translator{refs: map[string]ref{}, cells: s.Cells()}
 	x.layout()
-	for _, step := range []func() error{x.writeSummary, x.writeCalc, x.writeData, x.reopen, x.writeCharts, x.finishTabs, x.workbookProps} {
+	for _, step := range []func() error{x.writeSummary, x.writeCalc, x.writeData, x.writeCharts, x.finishTabs, x.workbookProps} {
 		if err := step(); err != nil {
 			_ = x.f.Close()
 			return nil, x.stats, err
@@ -105,24 +104,6 @@ func Build(s *engine.Sheet, r *engine.Results, opt Options) (*excelize.File, Sta
 type finishing struct {
 	tab       string
 	landscape bool
-}
-
-// reopen reads the streamed workbook back into memory. The stream writer
-// is the one way to store a formula with its cached value, but what is set
-// on a streamed tab afterwards (print setup, protection) is not saved; the
-// reopened tabs take those settings like any other.
-func (x *exporter) reopen() error {
-	var buf bytes.Buffer
-	if _, err := x.f.WriteTo(&buf); err != nil {
-		return err
-	}
-	_ = x.f.Close()
-	f, err := excelize.OpenReader(&buf)
-	if err != nil {
-		return err
-	}
-	x.f = f
-	return nil
 }
 
 func (x *exporter) finishTabs() error {
