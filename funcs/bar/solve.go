@@ -49,6 +49,21 @@ func newSolver(b *Bar) (*solver, error) {
 		}
 	}
 	v.hasDist = b.B0 != 0 || b.B1 != 0 || b.Gamma != 0 || len(b.LoadFns) > 0
+	// Gauss–Legendre never evaluates the ends of a segment, so an area or
+	// modulus function that reaches zero there would only show as a
+	// quadrature that does not converge. Probing the ends names the function
+	// and the position instead.
+	for i := range v.segs {
+		if s := &v.segs[i]; s.AreaFn != nil || s.EFn != nil {
+			for _, x := range []float64{v.x0[i], v.x0[i] + s.L} {
+				v.area(i, x)
+				v.modulus(i, x)
+			}
+		}
+		if v.fail != nil {
+			return nil, v.fail
+		}
+	}
 	return v, nil
 }
 
