@@ -32,15 +32,18 @@ import (
 //
 // The rule it follows everywhere: when expr-lang's parser would report an
 // error or take a path this code does not mimic exactly, give up.
-func fastParse(src string, maxNodes uint) ast.Node {
+//
+// It also returns the number of identifier nodes of the tree, so that the
+// caller can size the list of references.
+func fastParse(src string, maxNodes uint) (ast.Node, int) {
 	p := fastParser{src: src, maxNodes: maxNodes}
 	p.runes = utf8.RuneCountInString(src)
 	p.next()
 	n := p.sequence()
 	if p.failed || p.tok.kind != tEOF {
-		return nil
+		return nil, 0
 	}
-	return n
+	return n, p.idents
 }
 
 type tokKind uint8
@@ -69,6 +72,7 @@ type fastParser struct {
 	failed   bool
 	nodes    uint
 	maxNodes uint
+	idents   int
 }
 
 // fail gives up on the fast path; it returns nil so callers can write
@@ -517,6 +521,7 @@ func (p *fastParser) secondary() ast.Node {
 			if !p.count() {
 				return nil
 			}
+			p.idents++
 			id := &ast.IdentifierNode{Value: t.val}
 			id.SetLocation(t.loc)
 			n = id
@@ -606,6 +611,7 @@ func (p *fastParser) call(name token) ast.Node {
 	if !p.count() {
 		return nil
 	}
+	p.idents++
 	callee := &ast.IdentifierNode{Value: name.val}
 	callee.SetLocation(name.loc)
 	args := p.arguments()

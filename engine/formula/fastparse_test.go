@@ -96,7 +96,7 @@ func rewrite(text string) string {
 // differ compares the two parsers on text. It reports whether the fast
 // path accepted the text, and a description of any difference.
 func differ(text string, maxNodes uint) (accepted bool, diff string) {
-	fast := fastParse(text, maxNodes)
+	fast, _ := fastParse(text, maxNodes)
 	if fast == nil {
 		return false, ""
 	}

@@ -30,7 +30,6 @@ type Formula struct {
 
 	edits   []edit
 	runeIdx []int // byte offset in Rewritten of each rune; nil when ASCII
-	byIdent map[string]int
 }
 
 // Quantity is a number written with a unit, such as `38 kN`.
@@ -79,18 +78,37 @@ var exprConfig = func() *conf.Config {
 // positions in the sheet; the Formula is nil when the text cannot be
 // parsed at all.
 func Parse(e sheet.Expr, opt Options) (*Formula, diag.List) {
+	f := &Formula{Source: e}
+	ok, errs := f.parse(opt)
+	if !ok {
+		return nil, errs
+	}
+	return f, errs
+}
+
+// ParseSource parses f.Source into f itself, for callers that allocated the
+// Formula already (the checker keeps one per cell): a large sheet then
+// allocates one Formula per cell instead of two. It reports false when the
+// text cannot be parsed at all, which is when Parse returns a nil Formula;
+// f must then not be used.
+func (f *Formula) ParseSource(opt Options) (bool, diag.List) {
+	*f = Formula{Source: f.Source}
+	return f.parse(opt)
+}
+
+func (f *Formula) parse(opt Options) (bool, diag.List) {
 	if opt.MaxDepth <= 0 {
 		opt.MaxDepth = DefaultMaxDepth
 	}
 	if opt.MaxNodes == 0 {
 		opt.MaxNodes = 10000
 	}
-	f := &Formula{Source: e}
+	e := f.Source
 	var errs diag.List
 	text := e.Text
 	if strings.TrimSpace(text) == "" {
 		errs.Errorf(e.Range, "an expression computes the value of the cell", "write a value such as `38 kN` or a formula such as `N / A`", "empty expression")
-		return nil, errs
+		return false, errs
 	}
 	lits, issues, depth := scan(text)
 	for _, is := range issues {
@@ -99,14 +117,56 @@ func Parse(e sheet.Expr, opt Options) (*Formula, diag.List) {
 	if depth > opt.MaxDepth {
 		errs.Errorf(e.Range, "brackets may nest at most "+strconv.Itoa(opt.MaxDepth)+" levels deep",
 			"split the formula into intermediate cells", "expression nested too deeply")
-		return nil, errs
+		return false, errs
 	}
+	f.Rewritten = text
+	if len(lits) > 0 {
+		f.rewrite(lits, &errs)
+	}
+	if !isASCII(f.Rewritten) {
+		f.runeIdx = make([]int, 0, len(f.Rewritten)+1)
+		for i := range f.Rewritten {
+			f.runeIdx = append(f.runeIdx, i)
+		}
+		f.runeIdx = append(f.runeIdx, len(f.Rewritten))
+	}
+	// The fast parser builds the same tree as expr-lang for the common
+	// subset; anything else, and every syntax error, goes to expr-lang so
+	// that its messages stay as they are.
+	var idents int
+	if f.Tree, idents = fastParse(f.Rewritten, opt.MaxNodes); f.Tree == nil {
+		tree, err := exprParse(f.Rewritten, opt.MaxNodes)
+		if err != nil {
+			errs.Add(f.syntaxDiag(err))
+			errs.Sort()
+			return false, errs
+		}
+		f.Tree = tree
+	}
+	if n := idents - len(f.Quantities); n > 0 {
+		f.Refs = make([]Ref, 0, n)
+	}
+	errs = append(errs, f.restrict(opt.MaxDepth)...)
+	errs.Sort()
+	if errs.HasErrors() {
+		return true, errs
+	}
+	return true, nil
+}
+
+// rewrite replaces each quantity literal of the text by its synthetic
+// identifier (`__q0`, `__q1`, ...) and parses its unit.
+func (f *Formula) rewrite(lits []literal, errs *diag.List) {
+	e := f.Source
+	text := e.Text
 	var b strings.Builder
 	b.Grow(len(text) + 4*len(lits))
 	last := 0
+	f.Quantities = make([]Quantity, 0, len(lits))
+	f.edits = make([]edit, 0, len(lits))
 	for i, l := range lits {
 		q := Quantity{
-			Ident:    SyntheticPrefix + strconv.Itoa(i),
+			Ident:    syntheticName(i),
 			Text:     text[l.off:l.end],
 			Number:   l.numberText,
 			Value:    l.value,
@@ -129,34 +189,22 @@ func Parse(e sheet.Expr, opt Options) (*Formula, diag.List) {
 	}
 	b.WriteString(text[last:])
 	f.Rewritten = b.String()
-	f.byIdent = make(map[string]int, len(f.Quantities))
-	for i, q := range f.Quantities {
-		f.byIdent[q.Ident] = i
+}
+
+// syntheticNames holds the names of the first quantity literals, so that
+// the common formula allocates none.
+var syntheticNames = func() (s [16]string) {
+	for i := range s {
+		s[i] = SyntheticPrefix + strconv.Itoa(i)
 	}
-	if !isASCII(f.Rewritten) {
-		for i := range f.Rewritten {
-			f.runeIdx = append(f.runeIdx, i)
-		}
-		f.runeIdx = append(f.runeIdx, len(f.Rewritten))
+	return s
+}()
+
+func syntheticName(i int) string {
+	if i < len(syntheticNames) {
+		return syntheticNames[i]
 	}
-	// The fast parser builds the same tree as expr-lang for the common
-	// subset; anything else, and every syntax error, goes to expr-lang so
-	// that its messages stay as they are.
-	if f.Tree = fastParse(f.Rewritten, opt.MaxNodes); f.Tree == nil {
-		tree, err := exprParse(f.Rewritten, opt.MaxNodes)
-		if err != nil {
-			errs.Add(f.syntaxDiag(err))
-			errs.Sort()
-			return nil, errs
-		}
-		f.Tree = tree
-	}
-	errs = append(errs, f.restrict(opt.MaxDepth)...)
-	errs.Sort()
-	if errs.HasErrors() {
-		return f, errs
-	}
-	return f, nil
+	return SyntheticPrefix + strconv.Itoa(i)
 }
 
 // exprParse parses text with expr-lang's parser and our configuration.
@@ -305,8 +353,8 @@ func (f *Formula) Quantity(n *ast.IdentifierNode) (*Quantity, bool) {
 	if !strings.HasPrefix(n.Value, SyntheticPrefix) {
 		return nil, false
 	}
-	i, ok := f.byIdent[n.Value]
-	if !ok {
+	i, err := strconv.Atoi(n.Value[len(SyntheticPrefix):])
+	if err != nil || i < 0 || i >= len(f.Quantities) || f.Quantities[i].Ident != n.Value {
 		return nil, false
 	}
 	return &f.Quantities[i], true
