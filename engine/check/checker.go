@@ -277,8 +277,10 @@ func (c *checker) parseAll() {
 			if cell.Formula == nil {
 				continue
 			}
-			f, errs := formula.Parse(cell.Formula.Source, opt)
-			cell.Formula = f
+			ok, errs := cell.Formula.ParseSource(opt)
+			if !ok {
+				cell.Formula = nil
+			}
 			lists[i] = errs
 		}
 	}
@@ -310,28 +312,46 @@ func (c *checker) parseAll() {
 // resolve finds the dependencies of every cell and decides inputs.
 func (c *checker) resolve() {
 	p := c.prog
-	for _, cell := range p.Cells {
+	// seen[j] == i+1 when cell i already lists cell j: one slice for the
+	// whole sheet rather than a set per cell.
+	seen := make([]int32, len(p.Cells))
+	users := make([]int32, len(p.Cells)) // number of users of each cell
+	edges := 0
+	for i, cell := range p.Cells {
 		if cell.Formula == nil {
 			continue
 		}
-		seen := map[int]bool{}
 		for _, r := range cell.Formula.Refs {
 			if isParam(cell, r.Name) {
 				continue
 			}
 			j, ok := c.ref(cell, r)
-			if !ok || seen[j] {
+			if !ok || seen[j] == int32(i+1) {
 				continue
 			}
-			seen[j] = true
+			seen[j] = int32(i + 1)
+			if cell.DepIdx == nil {
+				cell.DepIdx = make([]int, 0, len(cell.Formula.Refs))
+				cell.Deps = make([]string, 0, len(cell.Formula.Refs))
+			}
 			cell.DepIdx = append(cell.DepIdx, j)
 			cell.Deps = append(cell.Deps, p.Cells[j].Name)
+			users[j]++
+			edges++
 		}
 		if cell.Kind == Derived && len(cell.DepIdx) == 0 {
 			cell.Kind = Input
 		}
 	}
+	// The reverse edges share one backing array.
 	p.Users = make([][]int, len(p.Cells))
+	flat := make([]int, 0, edges)
+	for j, n := range users {
+		if n > 0 {
+			p.Users[j] = flat[len(flat) : len(flat) : len(flat)+int(n)]
+			flat = flat[:len(flat)+int(n)]
+		}
+	}
 	for i, cell := range p.Cells {
 		for _, j := range cell.DepIdx {
 			p.Users[j] = append(p.Users[j], i)
