@@ -75,7 +75,7 @@ func runNew(a *app, o *newOptions, template, out string) error {
 	if err != nil {
 		return &inputError{err}
 	}
-	text, n, err := fromTemplate(path, src)
+	text, n, err := fromTemplate(path, src, out)
 	if err != nil {
 		var list diag.List
 		if errors.As(err, &list) {
@@ -92,9 +92,9 @@ func runNew(a *app, o *newOptions, template, out string) error {
 	return nil
 }
 
-// fromTemplate builds the text of a new sheet from the template at path and
-// returns it with the number of inputs gathered.
-func fromTemplate(path string, src []byte) ([]byte, int, error) {
+// fromTemplate builds the text of the new sheet out from the template at
+// path and returns it with the number of inputs gathered.
+func fromTemplate(path string, src []byte, out string) ([]byte, int, error) {
 	s, err := engine.Compile(path, src)
 	if err != nil {
 		return nil, 0, err
@@ -147,14 +147,23 @@ func fromTemplate(path string, src []byte) ([]byte, int, error) {
 	}
 	items = append(items, &sheet.Blank{})
 	items = append(items, dropEmptyHeadings(rest)...)
+	uses, err := rebaseUses(items, path, out)
+	if err != nil {
+		return nil, 0, err
+	}
 	text, err := sheet.Format(&sheet.File{Name: path, Items: items})
 	if err != nil {
 		return nil, 0, err
 	}
 	// The copy must read back and evaluate as the template does; anything
-	// else is a fault of this command, not of the template.
-	ns, err := engine.Compile("new sheet", text)
+	// else is a fault of this command, not of the template, except that a
+	// copy placed outside the project cannot reach the templates it uses.
+	ns, err := engine.Compile(out, text)
 	if err != nil {
+		var list diag.List
+		if uses > 0 && errors.As(err, &list) && len(list) > 0 {
+			return nil, 0, userErrorf("%s uses other templates, and the new sheet cannot reach them from %s: %s; write the new sheet inside the same project", path, filepath.Dir(out), list[0].Summary)
+		}
 		return nil, 0, fmt.Errorf("internal error: the new sheet does not check: %v", err)
 	}
 	a, b := s.Run(nil), ns.Run(nil)
@@ -164,6 +173,36 @@ func fromTemplate(path string, src []byte) ([]byte, int, error) {
 		}
 	}
 	return text, len(moved), nil
+}
+
+// rebaseUses rewrites the path of each template use among items, written
+// relative to the template at path, to be relative to the new sheet out,
+// and returns how many there are.
+func rebaseUses(items []sheet.Item, path, out string) (int, error) {
+	from, err := filepath.Abs(filepath.Dir(path))
+	if err != nil {
+		return 0, &inputError{err}
+	}
+	to, err := filepath.Abs(filepath.Dir(out))
+	if err != nil {
+		return 0, &inputError{err}
+	}
+	n := 0
+	for i, it := range items {
+		u, ok := it.(*sheet.Use)
+		if !ok {
+			continue
+		}
+		n++
+		rel, err := filepath.Rel(to, filepath.Join(from, filepath.FromSlash(u.Path)))
+		if err != nil {
+			return 0, userErrorf("cannot write the path of template %q relative to %s: %v", u.Path, out, err)
+		}
+		moved := *u
+		moved.Path = filepath.ToSlash(rel)
+		items[i] = &moved
+	}
+	return n, nil
 }
 
 // dropEmptyHeadings removes the headings left with nothing under them once

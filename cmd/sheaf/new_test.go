@@ -24,6 +24,14 @@ func TestNewFromEveryTemplate(t *testing.T) {
 	for _, f := range files {
 		name := strings.TrimSuffix(filepath.Base(f), ".sheaf")
 		out := filepath.Join(tmp, name+".sheaf")
+		if src, _ := os.ReadFile(f); strings.Contains("\n"+string(src), "\nuse ") {
+			// A template that uses templates cannot be copied out of the
+			// project (TestNewFromTemplateThatUses covers the copy inside).
+			if _, errs, code := sheaf(t, "new", name, out); code != exitInput || !strings.Contains(errs, "leaves the project root") {
+				t.Errorf("%s: copy outside the project: exit %d, %s", name, code, errs)
+			}
+			continue
+		}
 		stdout, errs, code := sheaf(t, "new", name, out)
 		if code != exitOK {
 			t.Fatalf("%s: exit %d: %s", name, code, errs)

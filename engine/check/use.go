@@ -1,7 +1,6 @@
 package check
 
 import (
-	"fmt"
 	"slices"
 	"strings"
 
@@ -11,7 +10,6 @@ import (
 	"github.com/sheafcalc/sheaf/engine/formula"
 	"github.com/sheafcalc/sheaf/engine/sheet"
 	"github.com/sheafcalc/sheaf/engine/units"
-	"github.com/sheafcalc/sheaf/funcs"
 )
 
 // Template use is inlining. `use rod from "hanger.sheaf"` checks nothing
@@ -446,10 +444,7 @@ func (c *checker) fitsOverride(t *typer, cell *Cell, body *Node) bool {
 	}
 	local := strings.TrimPrefix(cell.Name, r.scope)
 	written := strings.TrimPrefix(strings.TrimSuffix(r.scope, "."), cell.Scope)
-	hint := "the template writes `" + r.orig.Source.Text + "`"
-	if want.Type.Kind == funcs.Number && !want.Type.Dim.IsNone() {
-		hint = fmt.Sprintf("write a value in %s, as the template does: `%s`", t.unitOf(want.Type.Dim), r.orig.Source.Text)
-	}
+	hint := "the template writes `" + r.orig.Source.Text + "`; give a value of that kind"
 	t.errs.Errorf(cell.Formula.Source.Range, "a use block replaces an input with a value of the same kind, so that the template's formulas keep their units",
 		hint, "`%s` of template `%s` is %s, but this value is %s", local, written, article(t.describeType(want.Type)), article(t.describeType(body.Type)))
 	return false
