@@ -67,8 +67,9 @@ type watcher struct {
 	o      *watchOptions
 	path   string
 	opts   []engine.Option
-	last   *engine.Results // of the last good run
-	src    []byte          // source of the last attempt
+	last   *engine.Results   // of the last good run
+	src    []byte            // source of the last attempt
+	used   map[string][]byte // sources of the templates the last good run used
 	runs   int
 	fs     *fsnotify.Watcher
 	dirs   map[string]bool
@@ -171,8 +172,8 @@ func (w *watcher) run() []string {
 		w.src = nil
 		return files
 	}
-	if w.src != nil && bytes.Equal(src, w.src) && w.loaded {
-		return files // saved without a change
+	if w.src != nil && bytes.Equal(src, w.src) && w.loaded && w.usedUnchanged() {
+		return append(files, w.usedFiles()...) // saved without a change
 	}
 	w.src = src
 	w.runs++
@@ -200,5 +201,30 @@ func (w *watcher) run() []string {
 		_ = diag.Render(w.a.stderr, res.Problems, s.Sources())
 	}
 	w.last = res
+	w.used = map[string][]byte{}
+	for _, f := range s.Files()[1:] {
+		w.used[f], _ = os.ReadFile(f)
+	}
 	return s.Files()
+}
+
+// usedUnchanged reports whether every template of the last good run still
+// reads as it did: a save of a template re-runs the sheet even though the
+// sheet's own text is the same.
+func (w *watcher) usedUnchanged() bool {
+	for f, src := range w.used {
+		now, err := os.ReadFile(f)
+		if err != nil || !bytes.Equal(now, src) {
+			return false
+		}
+	}
+	return true
+}
+
+func (w *watcher) usedFiles() []string {
+	out := make([]string, 0, len(w.used))
+	for f := range w.used {
+		out = append(out, f)
+	}
+	return out
 }

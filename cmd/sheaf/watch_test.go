@@ -114,3 +114,42 @@ func TestWatchErrors(t *testing.T) {
 		t.Errorf("zero interval: exit %d, %s", code, errs)
 	}
 }
+
+// TestWatchTemplate: saving a template the sheet uses re-runs the sheet.
+func TestWatchTemplate(t *testing.T) {
+	dir := t.TempDir()
+	rod := "title: rod\nP [kN] = 10 kN  -- load\nA [mm^2] = 100 mm^2\nsigma [MPa] = P / A\n"
+	main := "title: user\nuse r from \"rod.sheaf\"  -- the rod\n    P = 20 kN\nf_y [MPa] = 235 MPa\ncheck stress: r.sigma <= f_y\n"
+	for name, text := range map[string]string{"rod.sheaf": rod, "main.sheaf": main} {
+		if err := os.WriteFile(filepath.Join(dir, name), []byte(text), 0o644); err != nil {
+			t.Fatal(err)
+		}
+	}
+	var out, errb syncBuffer
+	a := &app{stdin: strings.NewReader(""), stdout: &out, stderr: &errb}
+	ctx, cancel := context.WithCancel(context.Background())
+	defer cancel()
+	ready := make(chan struct{})
+	done := make(chan error, 1)
+	go func() {
+		done <- runWatch(ctx, a, &watchOptions{interval: 50 * time.Millisecond, rtol: 1e-6}, filepath.Join(dir, "main.sheaf"), func() { close(ready) })
+	}()
+	select {
+	case <-ready:
+	case <-time.After(10 * time.Second):
+		t.Fatalf("the watcher did not start: %s", errb.String())
+	}
+	if !strings.Contains(out.String(), "Design checks") {
+		t.Fatalf("first run:\n%s\n%s", out.String(), errb.String())
+	}
+	// Only the template changes: the area halves, the stress doubles.
+	if err := os.WriteFile(filepath.Join(dir, "rod.sheaf"), []byte(strings.Replace(rod, "100 mm^2", "50 mm^2", 1)), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	waitFor(t, &out, "== run 2")
+	waitFor(t, &out, "85.1 % ok → 170 % FAILS")
+	cancel()
+	if err := <-done; err != nil {
+		t.Error(err)
+	}
+}
