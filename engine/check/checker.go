@@ -36,6 +36,8 @@ type checker struct {
 	names []string
 	// use holds the templates of the sheet (nil when it uses none).
 	use *uses
+	// arena allocates the typed nodes.
+	arena arena
 }
 
 // Sheet resolves and types the parsed sheet f. It always returns a

@@ -47,11 +47,11 @@ const (
 // Node is a typed expression: the checker's output, the evaluator's input.
 type Node struct {
 	Op      Op
+	Builtin Builtin // beside Op: a million nodes, 8 bytes each
 	Type    *funcs.Type
 	Num     float64
 	Str     string
 	Index   int
-	Builtin Builtin
 	Def     *funcs.Def
 	Args    []*Node
 	// Src and F locate the node in the sheet; Range computes the span only

@@ -28,7 +28,9 @@ func (t *typer) fail(n ast.Node, summary, detail, hint string) *Node {
 }
 
 func (t *typer) node(n ast.Node, op Op, ty *funcs.Type, args ...*Node) *Node {
-	return &Node{Op: op, Type: ty, Args: args, Src: n, F: t.f}
+	r := t.c.arena.node()
+	*r = Node{Op: op, Type: ty, Args: t.c.arena.argList(args), Src: n, F: t.f}
+	return r
 }
 
 // expr types n. It returns nil after reporting a problem, or silently when
@@ -119,7 +121,7 @@ func (t *typer) ident(n *ast.IdentifierNode) *Node {
 		if q.Unit.Factor == 0 {
 			return nil // the unit was reported already
 		}
-		r := t.node(n, OpConst, funcs.Num(q.Unit.Dim))
+		r := t.node(n, OpConst, t.c.arena.num(q.Unit.Dim))
 		r.Num = q.SI
 		return r
 	}
@@ -150,7 +152,7 @@ func (t *typer) ident(n *ast.IdentifierNode) *Node {
 		return t.aliasValue(n, name)
 	}
 	if k, ok := Constants[name]; ok {
-		r := t.node(n, OpConst, funcs.Num(k.Dim))
+		r := t.node(n, OpConst, t.c.arena.num(k.Dim))
 		r.Num = k.SI
 		return r
 	}
@@ -229,9 +231,9 @@ func (t *typer) binary(n *ast.BinaryNode) *Node {
 		}
 		return t.node(n, OpSub, a.Type, a, b)
 	case "*":
-		return t.node(n, OpMul, funcs.Num(da.Mul(db)), a, b)
+		return t.node(n, OpMul, t.c.arena.num(da.Mul(db)), a, b)
 	case "/":
-		return t.node(n, OpDiv, funcs.Num(da.Div(db)), a, b)
+		return t.node(n, OpDiv, t.c.arena.num(da.Div(db)), a, b)
 	case "^", "**":
 		ty, p := t.powType(a, b, "`^`")
 		if p != nil {
