@@ -14,6 +14,7 @@ import (
 	"github.com/sheafcalc/sheaf/engine"
 	"github.com/sheafcalc/sheaf/engine/diag"
 	"github.com/sheafcalc/sheaf/engine/diff"
+	"github.com/sheafcalc/sheaf/engine/sheet"
 	"github.com/sheafcalc/sheaf/engine/units"
 )
 
@@ -100,7 +101,14 @@ func runDiff(a *app, o *diffOptions, args []string) error {
 			return &inputError{err}
 		}
 	}
-	olds, err1 := compileReported(a, oldName, oldSrc, opts)
+	oldCompileName := oldName
+	if o.rev != "" && usesTemplates(oldName, oldSrc) {
+		// Templates are found relative to the sheet's own file; the
+		// revision has no file on disk, so they come from the working copy.
+		oldCompileName = newName
+		fmt.Fprintf(a.stderr, "note: the templates %s uses are read from the working copy, not from revision %s\n", oldName, o.rev)
+	}
+	olds, err1 := compileReported(a, oldCompileName, oldSrc, opts)
 	news, err2 := compileReported(a, newName, newSrc, opts)
 	if err1 != nil {
 		return err1
@@ -121,6 +129,20 @@ func runDiff(a *app, o *diffOptions, args []string) error {
 		return &reportedError{fmt.Errorf("%d design checks flipped to fail", r.Flipped), exitChecks}
 	}
 	return nil
+}
+
+// usesTemplates reports whether the sheet src uses other sheets.
+func usesTemplates(name string, src []byte) bool {
+	f, _ := sheet.Parse(name, src)
+	if f == nil {
+		return false
+	}
+	for _, it := range f.Items {
+		if _, ok := it.(*sheet.Use); ok {
+			return true
+		}
+	}
+	return false
 }
 
 // compileReported compiles src, rendering its diagnostics to stderr.

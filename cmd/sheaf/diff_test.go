@@ -92,6 +92,27 @@ func TestDiffRev(t *testing.T) {
 		t.Errorf("HEAD against an unchanged copy: exit %d\n%s%s", code, out, errs)
 	}
 
+	// A sheet that uses a template: the revision's sheet reads the
+	// template from the working copy, and says so.
+	rod := "title: rod\nP [kN] = 10 kN\nA [mm^2] = 100 mm^2\nsigma [MPa] = P / A\n"
+	user := "title: user\nuse r from \"rod.sheaf\"\n    P = 20 kN\nf_y [MPa] = 235 MPa\ncheck stress: r.sigma <= f_y\n"
+	if err := os.WriteFile(filepath.Join(repo, "calcs", "rod.sheaf"), []byte(rod), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	userPath := filepath.Join(repo, "calcs", "user.sheaf")
+	if err := os.WriteFile(userPath, []byte(user), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	gitRun("add", ".")
+	gitRun("commit", "-q", "-m", "template use")
+	if err := os.WriteFile(userPath, []byte(strings.Replace(user, "20 kN", "30 kN", 1)), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	out, errs, code = sheaf(t, "diff", "--rev", "HEAD", userPath)
+	if code != exitChecks || !strings.Contains(errs, "read from the working copy") || !strings.Contains(out, "85.1 % ok → 128 % FAILS") {
+		t.Errorf("template use: exit %d\n%s%s", code, out, errs)
+	}
+
 	// Errors: an unknown revision, a file git does not know, no repository.
 	for _, tc := range []struct {
 		name, rev, file, want string
