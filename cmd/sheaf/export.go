@@ -87,11 +87,20 @@ func runExport(a *app, o *exportOptions, path string) error {
 	if err != nil {
 		return userErrorf("cannot write %s: %v", out, err)
 	}
-	fmt.Fprintf(a.stdout, "wrote %s: %d cells, %d live formulas, %d values only Sheaf computes, %d tables, %d charts\n",
-		out, stats.Cells, stats.Live, stats.ValueOnly, stats.Tables, stats.Charts)
+	fmt.Fprintf(a.stdout, "wrote %s: %s, %s, %s only Sheaf computes, %s, %s\n", out,
+		count(stats.Cells, "cell"), count(stats.Live, "live formula"), count(stats.ValueOnly, "value"),
+		count(stats.Tables, "table"), count(stats.Charts, "chart"))
 	if n := res.Failed(); n > 0 {
 		fmt.Fprintf(a.stderr, "%s; the workbook shows them\n", (&checksFailedError{n}).Error())
 		return &reportedError{&checksFailedError{n}, exitChecks}
 	}
 	return nil
+}
+
+// count renders "1 chart" or "3 charts".
+func count(n int, noun string) string {
+	if n == 1 {
+		return "1 " + noun
+	}
+	return fmt.Sprintf("%d %ss", n, noun)
 }

@@ -105,7 +105,7 @@ const maxStrain = 1.0
 // towards the sign of N and bounded by the strain limits of the laws.
 func (s *Section) StrainFor(n, dT float64) (float64, error) {
 	if math.IsNaN(n) || math.IsInf(n, 0) {
-		return 0, fmt.Errorf("the axial force must be finite, got %g N", n)
+		return 0, fmt.Errorf("the axial force must be finite, got %g kN", n/1e3)
 	}
 	lo, hi := s.Limits(dT)
 	// The free thermal strain gives N = 0 for elastic parts; start there.
@@ -163,7 +163,7 @@ func (s *Section) StrainFor(n, dT float64) (float64, error) {
 			if math.IsInf(lo, -1) && math.IsInf(hi, 1) && limit == dir*maxStrain {
 				hint = fmt.Sprintf("it would need a strain beyond %g", dir*maxStrain)
 			}
-			return 0, fmt.Errorf("N = %.6g N is beyond what the section carries in %s (%.6g N at strain %.6g; %s)", n, what, nMax, b, hint)
+			return 0, fmt.Errorf("N = %.6g kN is beyond what the section carries in %s (%.6g kN at strain %.6g; %s)", n/1e3, what, nMax/1e3, b, hint)
 		}
 		a, f0 = b, fb
 		step *= 2
