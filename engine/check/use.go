@@ -349,8 +349,11 @@ func (c *checker) applyOverrides() {
 			cell.Expr = o.Expr.Text
 			cell.Scope = b.scope
 			cell.Range, cell.NameRange, cell.Pos = o.Range, o.Name.Range, o.Name.Range.Start
-			if o.Annot.Description != "" || o.Annot.Reference != "" {
-				cell.Description, cell.Reference = o.Annot.Description, o.Annot.Reference
+			// The template's description still says what the cell is; its
+			// reference backed the template's value, not this one.
+			cell.Reference = o.Annot.Reference
+			if o.Annot.Description != "" {
+				cell.Description = o.Annot.Description
 			}
 			if o.Unit != nil {
 				cell.Unit, cell.HasUnit = units.Unit{}, false
