@@ -1,0 +1,97 @@
+package main
+
+import (
+	"os"
+	"path/filepath"
+	"strings"
+	"testing"
+)
+
+// TestUseRunSet runs the sheet that uses a template twice
+// (sheets/walkway-pair.sheaf) with --set on both sides of the template
+// boundary. Its plain results are golden in testdata/sheets.
+func TestUseRunSet(t *testing.T) {
+	t.Chdir("../..")
+	cases := []struct {
+		name     string
+		args     []string
+		code     int
+		contains string
+	}{
+		// service N_Ed = 1.35 (2.2·1.44 + 0.02699) + 1.5·5.0·1.44 = 15.11 kN,
+		// N_node = 20.62 + 15.11 = 35.74 kN > 35 kN (arithmetic of the sheet's
+		// hand check with q_k = 5 kN/m²).
+		{"template input from the command line", []string{"--set", "service.q_k=5kN/m^2"}, exitChecks, "35.74 kN of    35 kN"},
+		// s_truss = 3.0 m: A_trib 1.8 and 1.2 m²: N_Ed 17.20 + 9.009 = 26.2 kN.
+		{"shared input", []string{"--set", "s_truss=3.0m"}, exitOK, "26.2 kN of    35 kN"},
+		{"input replaced by a formula", []string{"--set", "access.s=3m"}, exitInput, "`access.s` is computed from s_truss"},
+		{"near miss", []string{"--set", "access.dd=3mm"}, exitInput, "did you mean `access.d`?"},
+	}
+	for _, c := range cases {
+		t.Run(c.name, func(t *testing.T) {
+			out, errs, code := sheaf(t, append([]string{"run", "sheets/walkway-pair.sheaf"}, c.args...)...)
+			if code != c.code {
+				t.Fatalf("exit %d, want %d\n%s%s", code, c.code, out, errs)
+			}
+			if !strings.Contains(out+errs, c.contains) {
+				t.Errorf("output lacks %q:\n%s%s", c.contains, out, errs)
+			}
+		})
+	}
+	out, errs, code := sheaf(t, "check", "sheets/walkway-pair.sheaf")
+	// s_truss, 2 × 23 cells of the hanger, 4 node cells = 51 cells; the
+	// hanger's 2 checks twice and the sheet's 2 = 6 checks.
+	if code != exitOK || out != "ok: 51 cells, 6 checks\n" {
+		t.Errorf("check: exit %d, %q %s", code, out, errs)
+	}
+}
+
+// TestNewFromTemplateThatUses starts a sheet from a template that uses
+// another template, in another folder of the same project: the copy's use
+// paths are rewritten for its folder, and it evaluates as the template.
+func TestNewFromTemplateThatUses(t *testing.T) {
+	proj := t.TempDir()
+	if err := os.WriteFile(filepath.Join(proj, "sheaf.root"), nil, 0o644); err != nil {
+		t.Fatal(err)
+	}
+	for _, name := range []string{"walkway-pair.sheaf", "mezzanine-hanger.sheaf"} {
+		src, err := os.ReadFile(filepath.Join("..", "..", "sheets", name))
+		if err != nil {
+			t.Fatal(err)
+		}
+		if err := os.MkdirAll(filepath.Join(proj, "lib"), 0o755); err != nil {
+			t.Fatal(err)
+		}
+		if err := os.WriteFile(filepath.Join(proj, "lib", name), src, 0o644); err != nil {
+			t.Fatal(err)
+		}
+	}
+	if err := os.Mkdir(filepath.Join(proj, "jobs"), 0o755); err != nil {
+		t.Fatal(err)
+	}
+	t.Chdir(proj)
+	out, errs, code := sheaf(t, "new", "--library", "lib", "walkway-pair", "jobs/bay-7.sheaf")
+	if code != exitOK {
+		t.Fatalf("new: exit %d: %s", code, errs)
+	}
+	text, err := os.ReadFile("jobs/bay-7.sheaf")
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, want := range []string{`use access from "../lib/mezzanine-hanger.sheaf"`, `use service from "../lib/mezzanine-hanger.sheaf"`} {
+		if !strings.Contains(string(text), want) {
+			t.Errorf("new sheet lacks %s:\n%s", want, text)
+		}
+	}
+	got, _, code1 := sheaf(t, "run", "jobs/bay-7.sheaf")
+	want, _, code2 := sheaf(t, "run", "lib/walkway-pair.sheaf")
+	if code1 != exitOK || code2 != exitOK {
+		t.Fatalf("run: exit %d and %d (%s)", code1, code2, out)
+	}
+	// The header and the sections of the inputs differ (the date
+	// placeholder, "## Inputs"); the design checks must not.
+	checks := func(s string) string { return s[strings.Index(s, "Design checks"):] }
+	if checks(got) != checks(want) {
+		t.Errorf("the new sheet evaluates differently from its template:\n%s\n%s", checks(got), checks(want))
+	}
+}
