@@ -3,6 +3,7 @@ package xlsxout
 import (
 	"fmt"
 	"slices"
+	"strconv"
 	"strings"
 
 	"github.com/xuri/excelize/v2"
@@ -288,6 +289,12 @@ func (x *exporter) markOpaque() {
 	}
 }
 
+// calcValueRef is the absolute reference of the value cell in row on the
+// Calculation tab: Calculation!$E$12.
+func calcValueRef(row int) string {
+	return TabCalc + "!$" + colValue + "$" + strconv.Itoa(row)
+}
+
 // namedRange is a defined name of a column range on the Data tab.
 type namedRange struct{ name, rng string }
 
@@ -429,6 +436,7 @@ func (x *exporter) checkOf(c *check.Cell, row int) *checkRow {
 // workbookProps sets what belongs to the whole workbook: the defined
 // names, full recalculation on load, the document properties.
 func (x *exporter) workbookProps() error {
+	names := make([]excelize.DefinedName, 0, len(x.rows)+len(x.dataRanges))
 	for _, r := range x.rows {
 		if r.kind == rowHeading {
 			continue
@@ -444,14 +452,16 @@ func (x *exporter) workbookProps() error {
 		if !ok {
 			continue
 		}
-		if err := x.f.SetDefinedName(&excelize.DefinedName{Name: rf.name, RefersTo: fmt.Sprintf("%s!$%s$%d", TabCalc, colValue, r.row), Comment: p}); err != nil {
-			return fmt.Errorf("defined name %s for %s: %w", rf.name, p, err)
-		}
+		names = append(names, excelize.DefinedName{Name: rf.name, RefersTo: calcValueRef(r.row), Comment: p})
 	}
 	for _, nr := range x.dataRanges {
-		if err := x.f.SetDefinedName(&excelize.DefinedName{Name: nr.name, RefersTo: nr.rng}); err != nil {
-			return fmt.Errorf("defined name %s: %w", nr.name, err)
+		names = append(names, excelize.DefinedName{Name: nr.name, RefersTo: nr.rng})
+	}
+	if i, err := addNames(x.f, names); err != nil {
+		if d := names[i]; d.Comment != "" {
+			return fmt.Errorf("defined name %s for %s: %w", d.Name, d.Comment, err)
 		}
+		return fmt.Errorf("defined name %s: %w", names[i].Name, err)
 	}
 	full := true
 	if err := x.f.SetCalcProps(&excelize.CalcPropsOptions{FullCalcOnLoad: &full}); err != nil {
