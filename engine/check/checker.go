@@ -46,7 +46,7 @@ func Sheet(f *sheet.File, opt Options) (*Program, diag.List) {
 	if opt.MaxCells <= 0 {
 		opt.MaxCells = DefaultMaxCells
 	}
-	c := &checker{prog: &Program{File: f, Files: []*sheet.File{f}, ByName: map[string]int{}}, opt: opt}
+	c := &checker{prog: &Program{File: f, Files: []*sheet.File{f}, ByName: make(map[string]int, len(f.Items))}, opt: opt}
 	c.collect()
 	if len(c.prog.Cells) > opt.MaxCells {
 		c.errs.Errorf(c.prog.Cells[opt.MaxCells].Range, fmt.Sprintf("a sheet may hold at most %d cells; this one has %d", opt.MaxCells, len(c.prog.Cells)),

@@ -133,7 +133,7 @@ func (t *typer) ident(n *ast.IdentifierNode) *Node {
 			return r
 		}
 	}
-	if i, ok := t.c.local(t.cell, name); ok {
+	if i, ok := t.depIndex(name); ok {
 		dep := t.c.prog.Cells[i]
 		if dep.Kind == Function {
 			if dep.Type == nil {
@@ -163,6 +163,20 @@ func (t *typer) ident(n *ast.IdentifierNode) *Node {
 		return t.fail(n, "`"+name+"` is a function and needs arguments", "", "see `sheaf funcs` for its parameters")
 	}
 	return t.undefined(n, name)
+}
+
+// depIndex finds the cell a name refers to. The cell's dependencies,
+// resolved already, are searched first: a short list beats a lookup in a
+// map of every cell of a large sheet.
+func (t *typer) depIndex(name string) (int, bool) {
+	if t.cell != nil && t.cell.Scope == "" {
+		for k, d := range t.cell.Deps {
+			if d == name {
+				return t.cell.DepIdx[k], true
+			}
+		}
+	}
+	return t.c.local(t.cell, name)
 }
 
 func paramList(c *Cell) string {

@@ -2,6 +2,8 @@ package eval
 
 import (
 	"math"
+	"runtime"
+	"sync"
 
 	"github.com/sheafcalc/sheaf/engine/check"
 	"github.com/sheafcalc/sheaf/funcs"
@@ -28,32 +30,62 @@ func Compile(p *check.Program) *Machine {
 	for k, i := range p.Order {
 		m.topoPos[i] = int32(k)
 	}
-	for _, c := range p.Cells {
-		if c.Type == nil {
-			continue
+	// Each cell compiles on its own (closures read other cells' values and
+	// bodies by index at run time), so large programs compile on every
+	// core; each slot is written by exactly one worker.
+	parallel(len(p.Cells), 4096, func(lo, hi int) {
+		for _, c := range p.Cells[lo:hi] {
+			m.compileCell(c)
 		}
-		switch c.Kind {
-		case check.Check:
-			m.demand[c.Index] = m.numOf(c.Demand)
-			m.capacity[c.Index] = m.numOf(c.Capacity)
-		case check.Table:
+	})
+	return m
+}
+
+// parallel runs work over [0, n) in contiguous chunks, one per core, when
+// n is at least minN; else in the calling goroutine.
+func parallel(n, minN int, work func(lo, hi int)) {
+	workers := min(runtime.GOMAXPROCS(0), 8)
+	if n < minN || workers < 2 {
+		work(0, n)
+		return
+	}
+	var wg sync.WaitGroup
+	chunk := (n + workers - 1) / workers
+	for lo := 0; lo < n; lo += chunk {
+		wg.Add(1)
+		go func(lo, hi int) {
+			defer wg.Done()
+			work(lo, hi)
+		}(lo, min(lo+chunk, n))
+	}
+	wg.Wait()
+}
+
+// compileCell fills the slots of cell c.
+func (m *Machine) compileCell(c *check.Cell) {
+	if c.Type == nil {
+		return
+	}
+	switch c.Kind {
+	case check.Check:
+		m.demand[c.Index] = m.numOf(c.Demand)
+		m.capacity[c.Index] = m.numOf(c.Capacity)
+	case check.Table:
+	default:
+		if c.Body == nil {
+			return
+		}
+		switch c.Body.Type.Kind {
+		case funcs.Number:
+			m.num[c.Index] = m.numOf(c.Body)
+		case funcs.Bool:
+			b := m.boolOf(c.Body)
+			m.bool_[c.Index] = b
+			m.val[c.Index] = func(f *Frame) funcs.Value { return b(f) }
 		default:
-			if c.Body == nil {
-				continue
-			}
-			switch c.Body.Type.Kind {
-			case funcs.Number:
-				m.num[c.Index] = m.numOf(c.Body)
-			case funcs.Bool:
-				b := m.boolOf(c.Body)
-				m.bool_[c.Index] = b
-				m.val[c.Index] = func(f *Frame) funcs.Value { return b(f) }
-			default:
-				m.val[c.Index] = m.valOf(c.Body)
-			}
+			m.val[c.Index] = m.valOf(c.Body)
 		}
 	}
-	return m
 }
 
 var nan = math.NaN()
