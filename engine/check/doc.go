@@ -5,6 +5,14 @@
 // Problems of the whole file are collected at once, each with a range, a
 // detail sentence and a hint.
 //
+// A sheet that uses templates (`use rod from "hanger.sheaf"`) is checked
+// as one program: the loader (template.go) finds each template inside the
+// project root, refuses escapes and loops, and reads each file once; the
+// template's cells are inlined under qualified names such as `rod.sigma`
+// (use.go), so dependencies, typing and evaluation cross the boundary
+// without a second mechanism. Positions keep their own file, and
+// Program.Files lists every file read.
+//
 // The output is a typed tree of Nodes per cell that the evaluator compiles;
 // nothing here runs a formula, except folding the constant exponent of a
 // power, which the dimension rule needs.
