@@ -2,7 +2,6 @@ package main
 
 import (
 	"fmt"
-	"os"
 
 	"github.com/spf13/cobra"
 
@@ -45,6 +44,3 @@ func runCheck(a *app, _ *checkOptions, path string) error {
 	_, err = fmt.Fprintf(a.stdout, "ok: %d cells, %d checks\n", cells, checks)
 	return err
 }
-
-// readSource reads a file for diagnostic snippets.
-func readSource(path string) ([]byte, error) { return os.ReadFile(path) }
