@@ -79,7 +79,7 @@ func runNew(a *app, o *newOptions, template, out string) error {
 	if err != nil {
 		var list diag.List
 		if errors.As(err, &list) {
-			_ = diag.Render(a.stderr, list, diag.Sources{path: src})
+			_ = diag.Render(a.stderr, list, sourcesFor(list, path, src))
 			fmt.Fprintf(a.stderr, "the template %s has errors; fix it first\n", path)
 			return &reportedError{err, exitInput}
 		}
