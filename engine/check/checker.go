@@ -513,7 +513,7 @@ func (p *Program) TypeValue(f *formula.Formula, sys units.System) (*Node, diag.L
 	var errs diag.List
 	for _, r := range f.Refs {
 		if _, ok := p.ByName[r.Name]; ok {
-			errs.Errorf(r.Range, "a value given for an input is a quantity such as `45 kN`", "", "a value cannot refer to the cell `%s`", r.Name)
+			errs.Errorf(r.Range(), "a value given for an input is a quantity such as `45 kN`", "", "a value cannot refer to the cell `%s`", r.Name)
 			return nil, errs
 		}
 	}

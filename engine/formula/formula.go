@@ -47,10 +47,20 @@ type Quantity struct {
 // Ref is a name the formula refers to: a cell, a function, a table, a
 // record. Member names after a dot are not refs.
 type Ref struct {
-	Name  string
-	Call  bool // the name is called: f(x)
-	Node  *ast.IdentifierNode
-	Range diag.Range
+	Name string
+	Call bool // the name is called: f(x)
+	Node *ast.IdentifierNode
+	f    *Formula
+}
+
+// Range returns the sheet range of the name. It is computed when asked:
+// a large sheet has hundreds of thousands of references and a message for
+// very few of them.
+func (r Ref) Range() diag.Range {
+	if r.f == nil || r.Node == nil {
+		return diag.Range{}
+	}
+	return r.f.Range(r.Node)
 }
 
 // edit records that text[Off:End] was replaced by an identifier occupying

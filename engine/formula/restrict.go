@@ -69,7 +69,7 @@ func (w *walker) walk(n ast.Node, depth int, c ctx) {
 	switch n := n.(type) {
 	case *ast.IdentifierNode:
 		if _, ok := w.f.Quantity(n); !ok {
-			w.f.Refs = append(w.f.Refs, Ref{Name: n.Value, Node: n, Range: w.f.Range(n)})
+			w.f.Refs = append(w.f.Refs, Ref{Name: n.Value, Node: n, f: w.f})
 		}
 	case *ast.IntegerNode, *ast.FloatNode, *ast.BoolNode:
 	case *ast.StringNode:
