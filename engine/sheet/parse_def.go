@@ -58,6 +58,16 @@ func (p *parser) readName(li, at int, what string) (Ident, bool) {
 //
 //	unit-spec = "[" unit-text "]" .
 func (p *parser) unit(li, at int) (*UnitSpec, int, bool) {
+	u, k, ok := p.unitValue(li, at)
+	if !ok {
+		return nil, k, false
+	}
+	return &u, k, true
+}
+
+// unitValue is unit without the allocation, for the unit of a cell, which
+// is stored beside the cell.
+func (p *parser) unitValue(li, at int) (UnitSpec, int, bool) {
 	ln := p.lines[li]
 	close := strings.IndexByte(p.text[at:ln.end], ']')
 	if close < 0 {
@@ -65,7 +75,7 @@ func (p *parser) unit(li, at int) (*UnitSpec, int, bool) {
 			"a unit is written in square brackets, e.g. `[kN]` or `[kN/m^2]`",
 			"close the unit with `]`",
 			"unclosed `[` in a unit")
-		return nil, ln.end, false
+		return UnitSpec{}, ln.end, false
 	}
 	close += at
 	a, b := trimSpan(p.text, at+1, close)
@@ -74,9 +84,9 @@ func (p *parser) unit(li, at int) (*UnitSpec, int, bool) {
 			"the brackets after a name hold its display unit",
 			"write a unit such as `[mm]`, or leave the brackets out for a plain number",
 			"empty unit `[]`")
-		return nil, close + 1, false
+		return UnitSpec{}, close + 1, false
 	}
-	return &UnitSpec{Text: p.text[a:b], Range: p.rng(li, a, b)}, close + 1, true // escapes only for parameters and columns
+	return UnitSpec{Text: p.text[a:b], Range: p.rng(li, a, b)}, close + 1, true
 }
 
 // parseDef reads a cell or (when funcs is true) a user function on lines
@@ -112,13 +122,15 @@ func (p *parser) parseDef(i, j, at int, funcs bool) Item {
 		}
 		k = skipSpace(t, k, ln.end)
 	}
-	var u *UnitSpec
+	var u UnitSpec
+	hasUnit := false
 	if k < ln.end && t[k] == '[' {
 		var uok bool
-		u, k, uok = p.unit(i, k)
+		u, k, uok = p.unitValue(i, k)
 		if !uok {
 			return nil
 		}
+		hasUnit = true
 		k = skipSpace(t, k, ln.end)
 	}
 	if !p.expectEquals(i, k, id) {
@@ -130,15 +142,20 @@ func (p *parser) parseDef(i, j, at int, funcs bool) Item {
 	}
 	r := diag.Range{Start: p.posIn(i, at), End: p.posIn(j-1, p.lines[j-1].end)}
 	if isFunc {
-		return &FuncDef{Name: id, Params: params, Unit: u, Body: body, Annot: annot, Range: r}
+		fd := &FuncDef{Name: id, Params: params, Body: body, Annot: annot, Range: r}
+		if hasUnit {
+			fu := u
+			fd.Unit = &fu
+		}
+		return fd
 	}
 	// One allocation for the cell and its unit: a long sheet is mostly cells.
 	a := &struct {
 		c Cell
 		u UnitSpec
 	}{c: Cell{Name: id, Expr: body, Annot: annot, Range: r}}
-	if u != nil {
-		a.u = *u
+	if hasUnit {
+		a.u = u
 		a.c.Unit = &a.u
 	}
 	return &a.c
