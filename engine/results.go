@@ -59,13 +59,20 @@ func (r *Results) Cell(name string) *CellResult {
 	return nil
 }
 
-// Results builds the results of the current values.
+// Results builds the results of the current values. The texts of the
+// numbers are written into one buffer and cut from one string: a large
+// sheet then allocates a few blocks instead of a string per cell.
 func (st *State) Results() *Results {
 	s := st.sheet
 	e := st.st
-	r := &Results{Meta: s.prog.Meta, Cells: make([]CellResult, len(s.prog.Cells))}
+	n := len(s.prog.Cells)
+	r := &Results{Meta: s.prog.Meta, Cells: make([]CellResult, n)}
+	buf := make([]byte, 0, 12*n)
+	ends := make([]int32, n) // end of cell i's text in buf; -1 when not a number
 	for i, c := range s.prog.Cells {
-		cr := CellResult{Cell: c, Known: e.Known[i], Unit: s.DisplayUnit(c)}
+		cr := &r.Cells[i]
+		*cr = CellResult{Cell: c, Known: e.Known[i], Unit: s.DisplayUnit(c)}
+		ends[i] = -1
 		if p := e.Problem[i]; p != nil {
 			r.Problems = append(r.Problems, p)
 		}
@@ -74,7 +81,10 @@ func (st *State) Results() *Results {
 			if x, ok := cr.Value.(float64); ok {
 				cr.SI = x
 				cr.Display = x / cr.Unit.Factor
-				cr.Text = units.Format(x, cr.Unit, s.sigFigs)
+				if c.Kind != Function {
+					buf = units.AppendFormat(buf, x, cr.Unit, s.sigFigs)
+					ends[i] = int32(len(buf))
+				}
 			} else {
 				cr.Text = describeValue(cr.Value, s.sigFigs)
 			}
@@ -86,7 +96,6 @@ func (st *State) Results() *Results {
 		if c.Kind == Function {
 			cr.Text = "function"
 		}
-		r.Cells[i] = cr
 		if c.Kind == Check {
 			cu := s.checkUnit(c)
 			ch := CheckResult{Cell: c, Known: cr.Known, Unit: cu, Demand: e.Demand[i], Capacity: e.Capacity[i], Util: math.NaN()}
@@ -95,6 +104,14 @@ func (st *State) Results() *Results {
 				ch.Pass = ch.Util <= 1
 			}
 			r.Checks = append(r.Checks, ch)
+		}
+	}
+	texts := string(buf)
+	from := int32(0)
+	for i, end := range ends {
+		if end >= 0 {
+			r.Cells[i].Text = texts[from:end]
+			from = end
 		}
 	}
 	r.Problems.Sort()

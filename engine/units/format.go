@@ -84,10 +84,16 @@ func trimZeros(b []byte, start int) []byte {
 // that si has u's dimension; the checker has done that before evaluation.
 func Format(si float64, u Unit, sig int) string {
 	var buf [48]byte
-	b := appendNumber(buf[:0], si/u.Factor, sig)
+	return string(AppendFormat(buf[:0], si, u, sig))
+}
+
+// AppendFormat appends the text Format gives to b, for callers that write
+// many values into one buffer (the results of a large sheet).
+func AppendFormat(b []byte, si float64, u Unit, sig int) []byte {
+	b = appendNumber(b, si/u.Factor, sig)
 	if u.Symbol != "" && u.Symbol != "1" {
 		b = append(b, ' ')
 		b = append(b, u.Symbol...)
 	}
-	return string(b)
+	return b
 }
