@@ -16,8 +16,11 @@ const (
 	colValue = "E"
 )
 
-var calcHeader = []string{"Name", "Description", "Expression as written", "With values", "Value", "Unit", "Reference", "Note"}
-var calcWidths = []float64{16, 34, 30, 46, 13, 9, 26, 30}
+// calcCols is the number of columns of the Calculation tab.
+const calcCols = 8
+
+var calcHeader = [calcCols]string{"Name", "Description", "Expression as written", "With values", "Value", "Unit", "Reference", "Note"}
+var calcWidths = [calcCols]float64{16, 34, 30, 46, 13, 9, 26, 30}
 
 // Notes written beside values.
 const (
@@ -73,22 +76,26 @@ func (x *exporter) writeCalc() error {
 	if err := sw.SetRow("A2", head); err != nil {
 		return err
 	}
+	// One row of cells, reused: SetRow writes them out before it returns.
+	var cells [calcCols]excelize.Cell
+	row := make([]any, calcCols)
+	for i := range cells {
+		row[i] = &cells[i]
+	}
 	for i := range x.rows {
 		r := &x.rows[i]
-		var cells []any
 		switch r.kind {
 		case rowHeading:
-			cells = []any{x.text(r.title, clsHeading)}
-			for range len(calcHeader) - 1 {
-				cells = append(cells, x.text("", clsHeading))
+			cells[0] = x.text(r.title, clsHeading)
+			for j := 1; j < calcCols; j++ {
+				cells[j] = x.text("", clsHeading)
 			}
 		case rowCell:
 			cells = x.cellRow(r.cr)
 		case rowField:
 			cells = x.fieldRow(r)
 		}
-		ref, _ := excelize.CoordinatesToCellName(1, r.row)
-		if err := sw.SetRow(ref, cells); err != nil {
+		if err := sw.SetRow("A"+strconv.Itoa(r.row), row); err != nil {
 			return err
 		}
 	}
@@ -100,11 +107,11 @@ func (x *exporter) writeCalc() error {
 
 // cellRow writes one cell of the sheet: name, description, expression,
 // hand calculation, value, unit, reference, note.
-func (x *exporter) cellRow(cr *engine.CellResult) []any {
+func (x *exporter) cellRow(cr *engine.CellResult) [calcCols]excelize.Cell {
 	c := cr.Cell
 	name, expr := c.Name, oneLine(c.Expr)
 	var calc, unit, note string
-	var value any
+	var value excelize.Cell
 	switch {
 	case c.Kind == engine.Function:
 		ps := make([]string, len(c.Params))
@@ -140,7 +147,7 @@ func (x *exporter) cellRow(cr *engine.CellResult) []any {
 		}
 		if v, ok := cr.Value.(float64); ok {
 			unit = cr.Unit.Pretty()
-			calc = x.handCalc(c, x.format(v, cr.Unit))
+			calc = x.handCalc(c, expr, x.format(v, cr.Unit))
 		} else if _, ok := cr.Value.(bool); !ok {
 			value = x.text(cr.Text, clsText)
 			switch cr.Value.(type) {
@@ -154,7 +161,7 @@ func (x *exporter) cellRow(cr *engine.CellResult) []any {
 	if unit == "1" {
 		unit = ""
 	}
-	return []any{x.text(name, clsKey), x.text(c.Description, clsText), x.text(expr, clsExpr), x.text(calc, clsExpr),
+	return [calcCols]excelize.Cell{x.text(name, clsKey), x.text(c.Description, clsText), x.text(expr, clsExpr), x.text(calc, clsExpr),
 		value, x.text(unit, clsText), x.text(c.Reference, clsText), x.text(note, clsText)}
 }
 
@@ -182,7 +189,7 @@ func (x *exporter) valueCell(c *check.Cell, v funcs.Value, input bool, body *che
 	}
 	var f string
 	var err error
-	if t, ok := x.formulas[indexOf(c)]; ok && c != nil {
+	if t, ok := x.formula(indexOf(c)); ok && c != nil {
 		f, err = t.f, t.err
 	} else {
 		f, err = x.tr.cellFormula(body, factor)
@@ -207,8 +214,8 @@ func (x *exporter) valueCell(c *check.Cell, v funcs.Value, input bool, body *che
 }
 
 // fieldRow writes one field of a record.
-func (x *exporter) fieldRow(r *calcRow) []any {
-	var value any
+func (x *exporter) fieldRow(r *calcRow) [calcCols]excelize.Cell {
+	var value excelize.Cell
 	var note, unit string
 	switch v := r.val.(type) {
 	case float64, bool:
@@ -240,7 +247,7 @@ func (x *exporter) fieldRow(r *calcRow) []any {
 	if unit == "1" {
 		unit = ""
 	}
-	return []any{x.text(r.path, clsKey), x.text(r.desc, clsText), x.text(r.expr, clsExpr), x.text("", clsExpr),
+	return [calcCols]excelize.Cell{x.text(r.path, clsKey), x.text(r.desc, clsText), x.text(r.expr, clsExpr), x.text("", clsExpr),
 		value, x.text(unit, clsText), x.text("", clsText), x.text(note, clsText)}
 }
 
@@ -261,12 +268,12 @@ const (
 )
 
 // checkValue writes the utilisation of a check and its live verdict.
-func (x *exporter) checkValue(ch *checkRow) (any, string) {
+func (x *exporter) checkValue(ch *checkRow) (excelize.Cell, string) {
 	if !ch.known {
 		x.stats.ValueOnly++
 		return x.text(VerdictUnknown, clsFail), VerdictUnknown
 	}
-	t := x.formulas[ch.cell.Index]
+	t, _ := x.formula(ch.cell.Index)
 	f, err := t.f, t.err
 	cell := excelize.Cell{Value: ch.util, StyleID: x.st.id(clsDerived, "0.000")}
 	if err != nil {

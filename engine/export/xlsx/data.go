@@ -3,6 +3,7 @@ package xlsxout
 import (
 	"fmt"
 	"math"
+	"strconv"
 
 	"github.com/xuri/excelize/v2"
 
@@ -39,8 +40,7 @@ func (x *exporter) writeData() error {
 		if b.desc != "" {
 			title += ": " + b.desc
 		}
-		ref, _ := excelize.CoordinatesToCellName(1, b.row)
-		if err := sw.SetRow(ref, []any{x.text(title, clsHeading)}); err != nil {
+		if err := sw.SetRow("A"+strconv.Itoa(b.row), []any{x.text(title, clsHeading)}); err != nil {
 			return err
 		}
 		head := make([]any, len(b.t.Type.Fields))
@@ -59,24 +59,33 @@ func (x *exporter) writeData() error {
 			}
 			fmts[j] = numFormat(big, x.sig)
 		}
-		ref, _ = excelize.CoordinatesToCellName(1, b.row+1)
-		if err := sw.SetRow(ref, head); err != nil {
+		if err := sw.SetRow("A"+strconv.Itoa(b.row+1), head); err != nil {
 			return err
 		}
 		cls := clsData
 		if b.input {
 			cls = clsInput
 		}
+		// The style of a column is the same down the column (made only
+		// when there is an entry); one row of cells is reused, as SetRow
+		// writes them out before it returns.
+		ids := make([]int, len(b.t.Cols))
+		cells := make([]excelize.Cell, len(b.t.Cols))
+		row := make([]any, len(b.t.Cols))
+		for j := range b.t.Cols {
+			if b.t.Rows() > 0 {
+				ids[j] = x.st.id(cls, fmts[j])
+			}
+			row[j] = &cells[j]
+		}
 		for i := 0; i < b.t.Rows(); i++ {
-			cells := make([]any, len(b.t.Cols))
 			for j, col := range b.t.Cols {
-				cells[j] = excelize.Cell{StyleID: x.st.id(cls, fmts[j]), Value: col[i] / b.units[j].Factor}
+				cells[j] = excelize.Cell{StyleID: ids[j], Value: col[i] / b.units[j].Factor}
 			}
 			if b.input {
 				x.stats.Inputs += len(cells)
 			}
-			ref, _ = excelize.CoordinatesToCellName(1, b.firstDataRow()+i)
-			if err := sw.SetRow(ref, cells); err != nil {
+			if err := sw.SetRow("A"+strconv.Itoa(b.firstDataRow()+i), row); err != nil {
 				return err
 			}
 		}
@@ -145,7 +154,7 @@ func (x *exporter) writeCharts() error {
 	for i, s := range specs {
 		colRange := func(j int) string {
 			c, _ := excelize.ColumnNumberToName(j + 1)
-			return fmt.Sprintf("%s!$%s$%d:$%s$%d", TabData, c, s.b.firstDataRow(), c, s.b.firstDataRow()+s.b.t.Rows()-1)
+			return dataColumnRef(c, s.b.firstDataRow(), s.b.firstDataRow()+s.b.t.Rows()-1)
 		}
 		ch := &excelize.Chart{
 			Type:      excelize.Scatter,

@@ -1,7 +1,8 @@
 package xlsxout
 
 import (
-	"sort"
+	"cmp"
+	"slices"
 	"strings"
 
 	"github.com/sheafcalc/sheaf/engine/check"
@@ -54,7 +55,7 @@ func (x *exporter) substituted(c *check.Cell, body ...*check.Node) string {
 		walk(b, false)
 	}
 	text := src.Text
-	sort.Slice(spans, func(i, j int) bool { return spans[i].off < spans[j].off })
+	slices.SortFunc(spans, func(a, b span) int { return cmp.Compare(a.off, b.off) })
 	var b strings.Builder
 	last := 0
 	for _, s := range spans {
@@ -70,7 +71,33 @@ func (x *exporter) substituted(c *check.Cell, body ...*check.Node) string {
 }
 
 // oneLine folds an expression written over several lines into one.
-func oneLine(s string) string { return strings.Join(strings.Fields(s), " ") }
+func oneLine(s string) string {
+	if isOneLine(s) {
+		return s // most expressions are: no need to split and join them
+	}
+	return strings.Join(strings.Fields(s), " ")
+}
+
+// isOneLine reports whether oneLine(s) == s: ASCII only (strings.Fields
+// splits at Unicode spaces too), no space at either end, no control
+// character that strings.Fields counts as space, no two spaces in a row.
+func isOneLine(s string) bool {
+	if s == "" {
+		return true
+	}
+	if s[0] == ' ' || s[len(s)-1] == ' ' {
+		return false
+	}
+	for i := 0; i < len(s); i++ {
+		switch b := s[i]; {
+		case b >= 0x80, b >= '\t' && b <= '\r':
+			return false
+		case b == ' ' && s[i+1] == ' ':
+			return false
+		}
+	}
+	return true
+}
 
 // pathValue formats the value of a cell or field for a hand calculation,
 // bracketed when negative so that "a - b" stays readable.
@@ -98,9 +125,9 @@ func (x *exporter) format(si float64, u units.Unit) string {
 
 // handCalc is the hand-calculation line of a value cell:
 // "sigma = N_Ed / A_s = 17.2 kN / 157 mm² = 109.5 MPa". A literal input
-// has none: its expression already says everything.
-func (x *exporter) handCalc(c *check.Cell, result string) string {
-	expr := oneLine(c.Expr)
+// has none: its expression already says everything. expr is
+// oneLine(c.Expr), which the caller has at hand.
+func (x *exporter) handCalc(c *check.Cell, expr, result string) string {
 	sub := x.substituted(c, c.Body)
 	if sub == "" {
 		sub = expr

@@ -95,17 +95,23 @@ type namer struct {
 	used map[string]bool // upper-cased
 }
 
-func newNamer() *namer { return &namer{used: map[string]bool{}} }
+// newNamer returns a namer with room for about size names.
+func newNamer(size int) *namer { return &namer{used: make(map[string]bool, size)} }
 
 // take returns a unique defined name for base (already mangled).
 func (n *namer) take(base string) string {
-	if r := []rune(base); len(r) > maxNameLen-8 {
-		base = string(r[:maxNameLen-8])
+	// A name of no more bytes than the limit has no more runes either.
+	if len(base) > maxNameLen-8 {
+		if r := []rune(base); len(r) > maxNameLen-8 {
+			base = string(r[:maxNameLen-8])
+		}
 	}
 	name := base
-	for k := 2; n.used[strings.ToUpper(name)] || misread(name); k++ {
+	upper := strings.ToUpper(name)
+	for k := 2; n.used[upper] || misread(name); k++ {
 		name = base + "_" + strconv.Itoa(k)
+		upper = strings.ToUpper(name)
 	}
-	n.used[strings.ToUpper(name)] = true
+	n.used[upper] = true
 	return name
 }

@@ -26,6 +26,7 @@ const (
 	clsPass                   // verdict: passes
 	clsFail                   // verdict: fails or not assessed
 	clsCaution                // the caution paragraph
+	clsCount                  // the number of classes
 )
 
 // Fill colours by class (also read back by the tests).
@@ -46,9 +47,27 @@ type styles struct {
 	f     *excelize.File
 	cache map[styleKey]int
 	err   error
+	// plain holds 1 + the style of each class without a number format,
+	// so that the text cells of a row, most of the cells written, skip
+	// the map.
+	plain [clsCount]int
 }
 
 func (s *styles) id(c class, numFmt string) int {
+	if numFmt == "" && c < clsCount {
+		if id := s.plain[c]; id > 0 {
+			return id - 1
+		}
+		id := s.make(c, numFmt)
+		s.plain[c] = id + 1
+		return id
+	}
+	return s.make(c, numFmt)
+}
+
+// make returns the style of class c with number format numFmt, creating
+// it the first time.
+func (s *styles) make(c class, numFmt string) int {
 	k := styleKey{c, numFmt}
 	if id, ok := s.cache[k]; ok {
 		return id
@@ -111,11 +130,30 @@ func numFormat(x float64, sig int) string {
 	}
 	e := int(math.Floor(math.Log10(ax)))
 	if e < -4 || e >= 9 {
-		return "0." + strings.Repeat("0", max(sig-1, 0)) + "E+00"
+		d := max(sig-1, 0)
+		if d < len(sciFormats) {
+			return sciFormats[d]
+		}
+		return "0." + strings.Repeat("0", d) + "E+00"
 	}
-	d := min(max(sig-1-e, 0), 10)
-	if d == 0 {
-		return "0"
+	return fixedFormats[min(max(sig-1-e, 0), 10)]
+}
+
+// Number formats by count of decimals, made once: numFormat runs for
+// every number written. Fixed: 0, 0.0, 0.00, ...; scientific: 0.E+00,
+// 0.0E+00, ... (with sig 1 the point stays, as it always has).
+var (
+	fixedFormats = decimalFormats(10, "")
+	sciFormats   = decimalFormats(15, "E+00")
+)
+
+func decimalFormats(n int, suffix string) []string {
+	out := make([]string, n+1)
+	for d := range out {
+		out[d] = "0." + strings.Repeat("0", d) + suffix
 	}
-	return "0." + strings.Repeat("0", d)
+	if suffix == "" {
+		out[0] = "0"
+	}
+	return out
 }

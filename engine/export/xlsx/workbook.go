@@ -68,7 +68,7 @@ type exporter struct {
 	// opaque marks cells whose workbook value does not recompute, reads
 	// the cells upstream of a live formula that are opaque.
 	finish   []finishing
-	formulas map[int]translated
+	formulas []translated
 	opaque   []bool
 	reads    [][]string
 	stats    Stats
@@ -77,7 +77,8 @@ type exporter struct {
 // Build makes the workbook of sheet s with results r (from s.NewState()
 // after any overrides, then Eval).
 func Build(s *engine.Sheet, r *engine.Results, opt Options) (*excelize.File, Stats, error) {
-	x := &exporter{s: s, r: r, sig: opt.SigFigs, gen: opt.Generator, names: newNamer(), values: map[string]valueAt{}}
+	n := len(r.Cells)
+	x := &exporter{s: s, r: r, sig: opt.SigFigs, gen: opt.Generator, names: newNamer(n), values: make(map[string]valueAt, n)}
 	if x.sig <= 0 {
 		x.sig = engine.DefaultSigFigs
 	}
@@ -86,7 +87,7 @@ func Build(s *engine.Sheet, r *engine.Results, opt Options) (*excelize.File, Sta
 	}
 	x.f = excelize.NewFile()
 	x.st = &styles{f: x.f, cache: map[styleKey]int{}}
-	x.tr = &translator{refs: map[string]ref{}, cells: s.Cells()}
+	x.tr = &translator{refs: make(map[string]ref, n), cells: s.Cells()}
 	x.layout()
 	for _, step := range []func() error{x.writeSummary, x.writeCalc, x.writeData, x.writeCharts, x.finishTabs, x.workbookProps} {
 		if err := step(); err != nil {
@@ -179,6 +180,17 @@ func (x *exporter) pathName(p string) string {
 func (x *exporter) layout() {
 	row := 3 // row 1: title, row 2: column headers
 	section := ""
+	headings := 0
+	for i := range x.r.Cells {
+		if s := x.r.Cells[i].Cell.Section; s != section {
+			section = s
+			if s != "" {
+				headings++
+			}
+		}
+	}
+	section = ""
+	x.rows = make([]calcRow, 0, len(x.r.Cells)+headings) // record fields may add more
 	for i := range x.r.Cells {
 		cr := &x.r.Cells[i]
 		c := cr.Cell
@@ -227,7 +239,7 @@ func (x *exporter) layout() {
 		n := b.t.Rows()
 		for j, fld := range b.t.Type.Fields {
 			col, _ := excelize.ColumnNumberToName(j + 1)
-			rng := fmt.Sprintf("%s!$%s$%d:$%s$%d", TabData, col, b.firstDataRow(), col, b.firstDataRow()+max(n, 1)-1)
+			rng := dataColumnRef(col, b.firstDataRow(), b.firstDataRow()+max(n, 1)-1)
 			p := b.path + "." + fld.Name
 			x.tr.refs[p] = ref{name: x.pathName(p), factor: b.units[j].Factor, rows: n}
 			x.dataRanges = append(x.dataRanges, namedRange{x.tr.refs[p].name, rng})
@@ -239,8 +251,18 @@ func (x *exporter) layout() {
 
 // translated is a formula or the reason there is none.
 type translated struct {
-	f   string
-	err error
+	f    string
+	err  error
+	done bool // the cell was translated
+}
+
+// formula returns the translation of cell i, if it was translated.
+func (x *exporter) formula(i int) (translated, bool) {
+	if i < 0 || i >= len(x.formulas) {
+		return translated{}, false
+	}
+	t := x.formulas[i]
+	return t, t.done
 }
 
 // markOpaque translates every derived cell in dependency order and finds,
@@ -250,7 +272,7 @@ type translated struct {
 func (x *exporter) markOpaque() {
 	p := x.s.Program()
 	n := len(p.Cells)
-	x.formulas = map[int]translated{}
+	x.formulas = make([]translated, n)
 	x.opaque = make([]bool, n)
 	x.reads = make([][]string, n)
 	for _, i := range p.Order {
@@ -261,14 +283,14 @@ func (x *exporter) markOpaque() {
 			switch cr.Value.(type) {
 			case float64, bool:
 				f, err := x.tr.cellFormula(c.Body, x.tr.refs[c.Name].factor)
-				x.formulas[i] = translated{f, err}
+				x.formulas[i] = translated{f, err, true}
 				x.opaque[i] = err != nil
 			default:
 				x.opaque[i] = !(c.Body != nil && c.Body.Op == check.OpRecord)
 			}
 		case engine.Check:
 			f, err := x.tr.checkFormula(c)
-			x.formulas[i] = translated{f, err}
+			x.formulas[i] = translated{f, err, true}
 			x.opaque[i] = err != nil
 		}
 		if x.opaque[i] {
@@ -293,6 +315,12 @@ func (x *exporter) markOpaque() {
 // Calculation tab: Calculation!$E$12.
 func calcValueRef(row int) string {
 	return TabCalc + "!$" + colValue + "$" + strconv.Itoa(row)
+}
+
+// dataColumnRef is the absolute reference of rows first to last of column
+// col on the Data tab: Data!$B$4:$B$20.
+func dataColumnRef(col string, first, last int) string {
+	return TabData + "!$" + col + "$" + strconv.Itoa(first) + ":$" + col + "$" + strconv.Itoa(last)
 }
 
 // namedRange is a defined name of a column range on the Data tab.
