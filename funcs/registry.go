@@ -26,7 +26,9 @@ type Def struct {
 	// Validate, when set, replaces the plain Params/Result rule: it gets the
 	// argument types (already checked against Params where a Param is given,
 	// Any otherwise) and returns the result type or an error that says what
-	// was expected. Use it where the result depends on the arguments.
+	// was expected. Use it where the result depends on the arguments. When
+	// the result type does not depend on them, set Result too: listings
+	// show it.
 	Validate func(args []*Type) (*Type, error)
 
 	// Call computes the result from SI values. Omitted optional arguments

@@ -155,7 +155,7 @@ func signature(d *funcs.Def) string {
 
 func resultText(d *funcs.Def) string {
 	if d.Result == nil {
-		return "number [from the arguments]"
+		return "number [unit from the arguments]"
 	}
 	return typeText(d.Result)
 }

@@ -46,6 +46,7 @@ func builders() []*funcs.Def {
 		{
 			Name: "bar", Family: family,
 			Params: []funcs.Param{p("segs", segmentTable, "segment table: L [m], E [Pa], the area as A | d | d1, d2 | A1, A2, optionally dT [K] and alpha [1/K]")},
+			Result: barType,
 			Validate: func(args []*funcs.Type) (*funcs.Type, error) {
 				if len(args) < 1 {
 					return nil, fmt.Errorf("bar needs a segment table")
@@ -344,6 +345,7 @@ func solvers() []*funcs.Def {
 			Params: []funcs.Param{p("bar", barParam, "the bar"),
 				p("start", funcs.AnyType, "support at x = 0: \"fixed\", \"free\", spring_support(k) or gap_support(g, k)"),
 				p("end", funcs.AnyType, "support at x = L: same choices")},
+			Result: resultType,
 			Validate: func(args []*funcs.Type) (*funcs.Type, error) {
 				if len(args) != 3 {
 					return nil, fmt.Errorf("solve_bar needs a bar and the supports at its start and end")
