@@ -29,6 +29,7 @@ func (m *Machine) userCall(n *check.Node) numFn {
 		if body != nil {
 			r = body(f)
 		}
+		m.inFunc(f, idx)
 		f.Args = saved
 		f.Stack = f.Stack[:base]
 		return r
@@ -54,9 +55,19 @@ func (m *Machine) userCallVal(n *check.Node) valFn {
 		if body := m.val[idx]; body != nil {
 			r = body(f)
 		}
+		m.inFunc(f, idx)
 		f.Args = saved
 		f.Stack = f.Stack[:base]
 		return r
+	}
+}
+
+// inFunc records that a failure met while running the body of user
+// function idx lies in that function (the innermost one, when functions
+// call functions), so that it is reported at the calling cell.
+func (m *Machine) inFunc(f *Frame, idx int) {
+	if f.Fail != nil && f.Fail.Func == "" {
+		f.Fail.Func = m.P.Cells[idx].Name
 	}
 }
 

@@ -22,6 +22,9 @@ type Failure struct {
 	Node *check.Node
 	Msg  string
 	Hint string
+	// Func names the user function in whose body Node lies, "" when it
+	// lies in the failing cell's own formula.
+	Func string
 }
 
 func (f *Frame) fail(n *check.Node, msg, hint string) {
