@@ -1,7 +1,9 @@
 package engine
 
 import (
+	"cmp"
 	"math"
+	"slices"
 
 	"github.com/sheafcalc/sheaf/engine/diag"
 	"github.com/sheafcalc/sheaf/engine/units"
@@ -114,7 +116,12 @@ func (st *State) Results() *Results {
 			from = end
 		}
 	}
-	r.Problems.Sort()
+	// Sorted by position but not thinned to one per line as diag.List.Sort
+	// does: there is one problem per failed cell already, and the cells of
+	// a template used twice fail on the same line of the template.
+	slices.SortStableFunc(r.Problems, func(a, b *diag.Diagnostic) int {
+		return cmp.Or(a.Range.Start.Compare(b.Range.Start), cmp.Compare(a.Summary, b.Summary))
+	})
 	return r
 }
 
