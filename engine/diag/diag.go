@@ -36,7 +36,9 @@ func (p Pos) String() string {
 	return fmt.Sprintf("%s:%d:%d", p.File, p.Line, p.Col)
 }
 
-// Compare orders positions by file, then offset.
+// Compare orders positions by file, then line, then column (the offset
+// is not consulted: positions built from line and column alone compare
+// too).
 func (p Pos) Compare(q Pos) int {
 	if c := cmp.Compare(p.File, q.File); c != 0 {
 		return c
@@ -77,8 +79,13 @@ type Diagnostic struct {
 	Hint     string // optional: what to try, e.g. "did you mean `f_yd`?"
 }
 
-// Error renders the diagnostic as file:line:col: summary.
+// Error renders the diagnostic as file:line:col: summary, with "warning: "
+// before the summary of a warning (an error needs no label: it is the
+// usual case, and the exit code says it).
 func (d *Diagnostic) Error() string {
+	if d.Severity == Warning {
+		return d.Range.Start.String() + ": warning: " + d.Summary
+	}
 	return d.Range.Start.String() + ": " + d.Summary
 }
 

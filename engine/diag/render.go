@@ -40,10 +40,12 @@ func Render(w io.Writer, l List, src Sources) error {
 }
 
 // writeSnippet writes the line holding r.Start with carets under the span
-// (clipped to that line; at least one caret).
+// (clipped to that line; at least one caret). A line that is empty or
+// missing (a position at the end of the file) gets no snippet: there is
+// nothing to point at.
 func writeSnippet(b *strings.Builder, text []byte, r Range) {
-	line := lineText(text, r.Start.Line)
-	if line == "" && r.Start.Line > 1 && r.Start.Col <= 1 {
+	line, ok := lineText(text, r.Start.Line)
+	if !ok || line == "" {
 		return
 	}
 	n := utf8.RuneCountInString(line)
@@ -62,18 +64,19 @@ func writeSnippet(b *strings.Builder, text []byte, r Range) {
 	b.WriteString(strings.Repeat(" ", len(num)-2) + "| " + strings.Repeat(" ", max(r.Start.Col-1, 0)) + strings.Repeat("^", width) + "\n")
 }
 
-// lineText returns line n (1-based) of text without its line break.
-func lineText(text []byte, n int) string {
+// lineText returns line n (1-based) of text without its line break, and
+// false when text has no such line.
+func lineText(text []byte, n int) (string, bool) {
 	s := string(text)
 	for i := 1; i < n; i++ {
 		j := strings.IndexByte(s, '\n')
 		if j < 0 {
-			return ""
+			return "", false
 		}
 		s = s[j+1:]
 	}
 	if j := strings.IndexByte(s, '\n'); j >= 0 {
 		s = s[:j]
 	}
-	return strings.TrimSuffix(s, "\r")
+	return strings.TrimSuffix(s, "\r"), true
 }
