@@ -17,6 +17,7 @@ import (
 
 	"github.com/sheafcalc/sheaf/engine/batch"
 	"github.com/sheafcalc/sheaf/engine/diag"
+	"github.com/sheafcalc/sheaf/internal/atomicfile"
 )
 
 // batchOptions are the flags of `sheaf batch`.
@@ -142,9 +143,9 @@ func runBatch(ctx context.Context, a *app, o *batchOptions, sheetPath, casesPath
 	case "":
 		err = out.WriteCSV(a.stdout, o.sig)
 	case "csv":
-		err = writeAtomic(o.out, 0o644, func(w io.Writer) error { return out.WriteCSV(w, o.sig) })
+		err = atomicfile.Write(o.out, 0o644, func(w io.Writer) error { return out.WriteCSV(w, o.sig) })
 	case "xlsx":
-		err = writeAtomic(o.out, 0o644, out.WriteXLSX)
+		err = atomicfile.Write(o.out, 0o644, out.WriteXLSX)
 	}
 	if err != nil {
 		return fmt.Errorf("writing the results: %w", err)

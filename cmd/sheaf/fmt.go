@@ -11,6 +11,7 @@ import (
 
 	"github.com/sheafcalc/sheaf/engine/diag"
 	"github.com/sheafcalc/sheaf/engine/sheet"
+	"github.com/sheafcalc/sheaf/internal/atomicfile"
 )
 
 // fmtOptions are the flags of `sheaf fmt`.
@@ -120,7 +121,7 @@ func fmtFile(a *app, o *fmtOptions, path string) (bool, error) {
 	if o.check {
 		return true, nil
 	}
-	if err := writeFileAtomic(path, out, fi.Mode().Perm()); err != nil {
+	if err := atomicfile.WriteFile(path, out, fi.Mode().Perm()); err != nil {
 		return false, fmt.Errorf("cannot rewrite %s: %w", path, err)
 	}
 	return true, nil

@@ -1,12 +1,10 @@
 package xlsxout
 
 import (
-	"fmt"
 	"io"
-	"os"
-	"path/filepath"
 
 	"github.com/sheafcalc/sheaf/engine"
+	"github.com/sheafcalc/sheaf/internal/atomicfile"
 )
 
 // WriteFile builds the workbook and writes it to path. The bytes go to a
@@ -24,32 +22,8 @@ func WriteFile(path string, s *engine.Sheet, r *engine.Results, opt Options) (St
 	})
 }
 
-// writeAtomic writes through write to a temporary file beside path and
-// renames it to path on success; on failure it removes the temporary file
-// and leaves path as it was.
-func writeAtomic(path string, write func(io.Writer) error) (err error) {
-	dir := filepath.Dir(path)
-	tmp, err := os.CreateTemp(dir, "."+filepath.Base(path)+".*.tmp")
-	if err != nil {
-		return fmt.Errorf("cannot write in %s: %w", dir, err)
-	}
-	defer func() {
-		if err != nil {
-			_ = tmp.Close()
-			_ = os.Remove(tmp.Name())
-		}
-	}()
-	if err = write(tmp); err != nil {
-		return err
-	}
-	if err = tmp.Sync(); err != nil {
-		return err
-	}
-	if err = tmp.Close(); err != nil {
-		return err
-	}
-	if err = os.Chmod(tmp.Name(), 0o644); err != nil {
-		return err
-	}
-	return os.Rename(tmp.Name(), path)
+// writeAtomic writes the workbook file whole or not at all, readable by
+// everyone as a workbook handed to a client is (see package atomicfile).
+func writeAtomic(path string, write func(io.Writer) error) error {
+	return atomicfile.Write(path, 0o644, write)
 }
