@@ -5,7 +5,6 @@ import (
 	"slices"
 	"strings"
 
-	"github.com/sheafcalc/sheaf/engine/check"
 	"github.com/sheafcalc/sheaf/engine/diag"
 	"github.com/sheafcalc/sheaf/engine/eval"
 	"github.com/sheafcalc/sheaf/engine/formula"
@@ -145,7 +144,7 @@ func (s *Sheet) settable(name string) (*Cell, error) {
 			}
 		}
 		msg := fmt.Sprintf("the sheet has no cell `%s`", name)
-		if n := check.Nearest(name, names); n != "" {
+		if n := diag.Nearest(name, names); n != "" {
 			msg += fmt.Sprintf("; did you mean `%s`?", n)
 		}
 		return nil, fmt.Errorf("%s", msg)

@@ -8,6 +8,7 @@ import (
 
 	"github.com/spf13/cobra"
 
+	"github.com/sheafcalc/sheaf/engine/diag"
 	"github.com/sheafcalc/sheaf/engine/units"
 	"github.com/sheafcalc/sheaf/funcs"
 )
@@ -237,40 +238,12 @@ func wrap(w io.Writer, text, indent string, width int) {
 	}
 }
 
-// didYouMean suggests the closest name within a small edit distance.
+// didYouMean formats diag.Nearest's suggestion for a one-line error, or
+// gives "" when nothing is close.
 func didYouMean(name string, names []string) string {
-	best, bestD := "", 3
-	if len(name) > 8 {
-		bestD = 4
-	}
-	for _, n := range names {
-		if d := levenshtein(name, n); d < bestD {
-			best, bestD = n, d
-		}
-	}
+	best := diag.Nearest(name, names)
 	if best == "" {
 		return ""
 	}
 	return fmt.Sprintf(" (did you mean %q?)", best)
-}
-
-func levenshtein(a, b string) int {
-	ra, rb := []rune(a), []rune(b)
-	prev := make([]int, len(rb)+1)
-	cur := make([]int, len(rb)+1)
-	for j := range prev {
-		prev[j] = j
-	}
-	for i := 1; i <= len(ra); i++ {
-		cur[0] = i
-		for j := 1; j <= len(rb); j++ {
-			c := 1
-			if ra[i-1] == rb[j-1] {
-				c = 0
-			}
-			cur[j] = min(prev[j]+1, cur[j-1]+1, prev[j-1]+c)
-		}
-		prev, cur = cur, prev
-	}
-	return prev[len(rb)]
 }

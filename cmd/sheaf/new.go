@@ -11,7 +11,6 @@ import (
 	"github.com/spf13/cobra"
 
 	"github.com/sheafcalc/sheaf/engine"
-	"github.com/sheafcalc/sheaf/engine/check"
 	"github.com/sheafcalc/sheaf/engine/diag"
 	"github.com/sheafcalc/sheaf/engine/sheet"
 )
@@ -251,7 +250,7 @@ func findTemplate(name, library string) (string, error) {
 	}
 	names := templateNames(lib)
 	msg := fmt.Sprintf("template %q not found in %s", name, lib)
-	if n := check.Nearest(strings.TrimSuffix(name, ".sheaf"), names); n != "" {
+	if n := diag.Nearest(strings.TrimSuffix(name, ".sheaf"), names); n != "" {
 		msg += fmt.Sprintf("; did you mean %q?", n)
 	} else if len(names) > 0 {
 		msg += "; the templates are: " + strings.Join(names, ", ")

@@ -9,7 +9,6 @@ import (
 	"strings"
 
 	"github.com/sheafcalc/sheaf/engine"
-	"github.com/sheafcalc/sheaf/engine/check"
 	"github.com/sheafcalc/sheaf/engine/diag"
 	"github.com/sheafcalc/sheaf/engine/units"
 	"github.com/sheafcalc/sheaf/funcs"
@@ -174,7 +173,7 @@ func readHeader(s *engine.Sheet, h string, pos diag.Pos) (Column, *diag.Diagnost
 		case cell != nil:
 			d.Detail = fmt.Sprintf("`%s` is a %s cell; only inputs can be set", name, cell.Kind)
 		default:
-			if n := check.Nearest(name, inputNames(s)); n != "" {
+			if n := diag.Nearest(name, inputNames(s)); n != "" {
 				d.Hint = fmt.Sprintf("did you mean `%s`?", n)
 			}
 		}

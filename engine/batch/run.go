@@ -9,7 +9,7 @@ import (
 	"sync/atomic"
 
 	"github.com/sheafcalc/sheaf/engine"
-	"github.com/sheafcalc/sheaf/engine/check"
+	"github.com/sheafcalc/sheaf/engine/diag"
 	"github.com/sheafcalc/sheaf/engine/units"
 	"github.com/sheafcalc/sheaf/funcs"
 )
@@ -227,7 +227,7 @@ func resolvePicks(s *engine.Sheet, names []string) ([]*engine.Cell, error) {
 		switch {
 		case c == nil:
 			msg := fmt.Sprintf("--pick: the sheet has no cell `%s`", n)
-			if m := check.Nearest(n, all); m != "" {
+			if m := diag.Nearest(n, all); m != "" {
 				msg += fmt.Sprintf("; did you mean `%s`?", m)
 			}
 			return nil, fmt.Errorf("%s", msg)

@@ -2,7 +2,9 @@ package check
 
 import (
 	"fmt"
+	"maps"
 	"runtime"
+	"slices"
 	"strconv"
 	"strings"
 	"sync"
@@ -370,7 +372,9 @@ func isParam(cell *Cell, name string) bool {
 	return false
 }
 
-// suggest returns the known name nearest to name, or "".
+// suggest returns the known name nearest to name, or "". The candidates
+// come in a fixed order (cells in reading order, then built-ins, constants
+// and plugin functions), since diag.Nearest breaks ties by order.
 func (c *checker) suggest(name string) string {
 	if c.names == nil {
 		for _, cell := range c.prog.Cells {
@@ -379,14 +383,17 @@ func (c *checker) suggest(name string) string {
 		for _, b := range Builtins {
 			c.names = append(c.names, b.Name)
 		}
-		for k := range Constants {
-			c.names = append(c.names, k)
-		}
+		c.names = append(c.names, constantNames()...)
 		for _, d := range funcs.All() {
 			c.names = append(c.names, d.Name)
 		}
 	}
-	return nearest(name, c.names)
+	return diag.Nearest(name, c.names)
+}
+
+// constantNames lists the built-in constants in sorted order.
+func constantNames() []string {
+	return slices.Sorted(maps.Keys(Constants))
 }
 
 // typeAll types every cell in topological order, so that each cell's

@@ -239,7 +239,7 @@ func (l *loader) missing(u *sheet.Use, at diag.Range, show, joined string, errs 
 		}
 	}
 	hint := "no .sheaf file is in " + filepath.ToSlash(filepath.Dir(show))
-	if s := nearest(filepath.Base(joined), names); s != "" {
+	if s := diag.Nearest(filepath.Base(joined), names); s != "" {
 		hint = fmt.Sprintf("did you mean %q?", path.Join(path.Dir(u.Path), s))
 	} else if len(names) > 0 {
 		if len(names) > 6 {

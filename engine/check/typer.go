@@ -191,7 +191,10 @@ func paramList(c *Cell) string {
 }
 
 func (t *typer) undefined(n ast.Node, name string) *Node {
-	hint := ""
+	hint := "define it on a line of its own, as in `" + name + " = ...`, or correct the spelling"
+	if _, call := n.(*ast.CallNode); call {
+		hint = "`sheaf funcs` lists the functions; a sheet defines its own as `" + name + "(x [m]) = ...`"
+	}
 	if s := t.c.suggestIn(t.scope(), name); s != "" {
 		hint = "did you mean `" + s + "`?"
 	}
@@ -288,12 +291,13 @@ func (t *typer) member(n *ast.MemberNode) *Node {
 					names[j] = f.Name
 				}
 				hint := "its fields are: " + join(names)
-				if s := nearest(field, names); s != "" {
-					hint = "did you mean `" + s + "`?"
-				}
 				what := "record has no field"
 				if x.Type.Kind == funcs.Table {
+					hint = "its columns are: " + join(names)
 					what = "table has no column"
+				}
+				if s := diag.Nearest(field, names); s != "" {
+					hint = "did you mean `" + s + "`?"
 				}
 				return t.fail(n.Property, fmt.Sprintf("%s `%s`", what, field), "", hint)
 			}

@@ -230,7 +230,7 @@ func (t *typer) templateMember(n *ast.MemberNode) (*Node, bool) {
 	i, ok := t.c.prog.ByName[name]
 	if !ok {
 		hint := ""
-		if near := nearest(s.Value, t.c.localNames(pre)); near != "" {
+		if near := diag.Nearest(s.Value, t.c.localNames(pre)); near != "" {
 			hint = "did you mean `" + written + "." + near + "`?"
 		}
 		return t.fail(n.Property, "template `"+written+"` has no cell `"+s.Value+"`", "`"+written+"` brings in the cells of "+a.file, hint), true
@@ -299,10 +299,8 @@ func (c *checker) suggestIn(scope, name string) string {
 	for _, b := range Builtins {
 		names = append(names, b.Name)
 	}
-	for k := range Constants {
-		names = append(names, k)
-	}
-	return nearest(name, names)
+	names = append(names, constantNames()...)
+	return diag.Nearest(name, names)
 }
 
 // applyOverrides replaces the template inputs named in each use block with
@@ -329,7 +327,7 @@ func (c *checker) applyOverrides() {
 			if !ok {
 				hint := ""
 				inputs := c.inputsOf(b.prefix)
-				if near := nearest(local, inputs); near != "" {
+				if near := diag.Nearest(local, inputs); near != "" {
 					hint = "did you mean `" + near + "`?"
 				} else if len(inputs) > 0 {
 					if len(inputs) > 8 {

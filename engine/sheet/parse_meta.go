@@ -69,7 +69,7 @@ func (p *parser) parseMeta(i, keyEnd, colon int) Item {
 	}
 	if !known {
 		hint := "header keys are " + strings.Join(metaKeys, ", ") + "; to define a cell write `" + key + " = ...`"
-		if s := suggest(key, metaKeys); s != "" {
+		if s := diag.Nearest(key, metaKeys); s != "" {
 			hint = "did you mean `" + s + ":`?"
 		}
 		p.errAt(keyRange, "expected one of the header keys "+strings.Join(metaKeys, ", "), hint,
@@ -116,43 +116,4 @@ func itoa(n int) string {
 		n /= 10
 	}
 	return string(b[i:])
-}
-
-// suggest returns the candidate closest to s by edit distance, if it is
-// close enough to be a likely slip (at most 2 edits, and fewer than half
-// the length), or "".
-func suggest(s string, candidates []string) string {
-	best, bestD := "", 3
-	for _, c := range candidates {
-		d := editDistance(strings.ToLower(s), c)
-		if d < bestD && d*2 < max(len([]rune(c)), 2)+1 {
-			best, bestD = c, d
-		}
-	}
-	return best
-}
-
-// editDistance is the Levenshtein distance over runes.
-func editDistance(a, b string) int {
-	ra, rb := []rune(a), []rune(b)
-	if len(ra) > 64 || len(rb) > 64 {
-		return 64
-	}
-	prev := make([]int, len(rb)+1)
-	cur := make([]int, len(rb)+1)
-	for j := range prev {
-		prev[j] = j
-	}
-	for i := 1; i <= len(ra); i++ {
-		cur[0] = i
-		for j := 1; j <= len(rb); j++ {
-			cost := 1
-			if ra[i-1] == rb[j-1] {
-				cost = 0
-			}
-			cur[j] = min(prev[j]+1, cur[j-1]+1, prev[j-1]+cost)
-		}
-		prev, cur = cur, prev
-	}
-	return prev[len(rb)]
 }

@@ -97,12 +97,14 @@ var (
 	quantityIndex  map[string]Dim  // quantity name -> dimension
 	defaultQty     map[Dim]string  // dimension -> default quantity name
 	suggestions    []string        // spellings offered by "did you mean"
+	quantityNames  []string        // quantity names in listing order, for "did you mean"
 )
 
 func init() {
 	quantityIndex = make(map[string]Dim, len(quantities))
 	defaultQty = make(map[Dim]string, len(quantities))
 	for _, q := range quantities {
+		quantityNames = append(quantityNames, q.name)
 		quantityIndex[q.name] = q.dim
 		if _, seen := defaultQty[q.dim]; !seen {
 			defaultQty[q.dim] = q.name

@@ -4,6 +4,8 @@ import (
 	"fmt"
 	"sort"
 	"strings"
+
+	"github.com/sheafcalc/sheaf/engine/diag"
 )
 
 // Quantities returns the quantity names DimOf accepts, sorted.
@@ -43,13 +45,7 @@ func DimOf(quantityOrUnit string) (Dim, error) {
 	}
 	// A word that is not a unit is more likely a misspelt quantity.
 	n := normQuantity(quantityOrUnit)
-	best, bestD := "", 4
-	for _, q := range quantities {
-		if d := editDistance(n, q.name); d < bestD && d < len(n) {
-			best, bestD = q.name, d
-		}
-	}
-	if best != "" {
+	if best := diag.Nearest(n, quantityNames); best != "" {
 		return None, &Error{Offset: 0, End: len(quantityOrUnit),
 			Msg:  fmt.Sprintf("unknown quantity or unit `%s`", quantityOrUnit),
 			Hint: fmt.Sprintf("did you mean `%s`?", best)}
