@@ -153,9 +153,7 @@ func compileReported(a *app, name string, src []byte, opts []engine.Option) (*en
 	}
 	var list diag.List
 	if errors.As(err, &list) {
-		_ = diag.Render(a.stderr, list, sourcesFor(list, name, src))
-		n := len(list)
-		fmt.Fprintf(a.stderr, "%d problem%s in %s\n", n, map[bool]string{true: "", false: "s"}[n == 1], name)
+		reportProblems(a.stderr, list, sourcesFor(list, name, src), name, "")
 		return nil, &reportedError{err, exitInput}
 	}
 	return nil, &inputError{err}

@@ -135,9 +135,7 @@ func formatReported(a *app, name string, src []byte) ([]byte, error) {
 	}
 	var list diag.List
 	if errors.As(err, &list) {
-		_ = diag.Render(a.stderr, list, diag.Sources{name: src})
-		n := len(list)
-		fmt.Fprintf(a.stderr, "%d problem%s in %s; not formatted\n", n, map[bool]string{true: "", false: "s"}[n == 1], name)
+		reportProblems(a.stderr, list, diag.Sources{name: src}, name, "; not formatted")
 		return nil, &reportedError{err, exitInput}
 	}
 	return nil, &inputError{err}

@@ -2,7 +2,6 @@ package main
 
 import (
 	"errors"
-	"fmt"
 	"strings"
 
 	"github.com/spf13/cobra"
@@ -58,9 +57,7 @@ func loadSheet(a *app, path, system string) (*engine.Sheet, error) {
 	if err != nil {
 		var list diag.List
 		if errors.As(err, &list) {
-			_ = diag.Render(a.stderr, list, engine.ReadSources(list))
-			n := len(list)
-			fmt.Fprintf(a.stderr, "%d problem%s in %s\n", n, map[bool]string{true: "", false: "s"}[n == 1], path)
+			reportProblems(a.stderr, list, engine.ReadSources(list), path, "")
 			return nil, &reportedError{err, exitInput}
 		}
 		return nil, &inputError{err}

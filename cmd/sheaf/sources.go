@@ -1,9 +1,21 @@
 package main
 
 import (
+	"fmt"
+	"io"
+
 	"github.com/sheafcalc/sheaf/engine"
 	"github.com/sheafcalc/sheaf/engine/diag"
+	"github.com/sheafcalc/sheaf/internal/plural"
 )
+
+// reportProblems renders the diagnostics of the file name, with their
+// snippets from srcs, and closes with their count ("2 problems in
+// hanger.sheaf") and then after (e.g. "; not formatted").
+func reportProblems(w io.Writer, list diag.List, srcs diag.Sources, name, after string) {
+	_ = diag.Render(w, list, srcs)
+	fmt.Fprintf(w, "%s in %s%s\n", plural.Count(len(list), "problem"), name, after)
+}
 
 // sourcesFor gives the text of every file the diagnostics name, so that a
 // problem inside a template gets its snippet too. The sheet compiled from

@@ -182,8 +182,7 @@ func (w *watcher) run() []string {
 	if err != nil {
 		var list diag.List
 		if errors.As(err, &list) {
-			_ = diag.Render(w.a.stderr, list, sourcesFor(list, w.path, src))
-			fmt.Fprintf(w.a.stderr, "%d problem%s in %s; fix and save to re-run\n", len(list), map[bool]string{true: "", false: "s"}[len(list) == 1], w.path)
+			reportProblems(w.a.stderr, list, sourcesFor(list, w.path, src), w.path, "; fix and save to re-run")
 		} else {
 			fmt.Fprintf(w.a.stderr, "sheaf: %v\n", err)
 		}

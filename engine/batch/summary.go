@@ -7,6 +7,7 @@ import (
 	"strings"
 
 	"github.com/sheafcalc/sheaf/engine/units"
+	"github.com/sheafcalc/sheaf/internal/plural"
 )
 
 // CheckSummary counts how one design check fared over the cases.
@@ -72,9 +73,9 @@ func (o *Outcome) Summarize() *Summary {
 func (s *Summary) Write(w io.Writer, file string) error {
 	var b strings.Builder
 	good := s.Cases - s.Bad
-	fmt.Fprintf(&b, "%d case%s evaluated", good, plural(good))
+	b.WriteString(plural.Count(good, "case") + " evaluated")
 	if s.Bad > 0 {
-		fmt.Fprintf(&b, ", %d bad row%s skipped", s.Bad, plural(s.Bad))
+		b.WriteString(", " + plural.Count(s.Bad, "bad row") + " skipped")
 	}
 	b.WriteString("\n")
 	width := 0
@@ -97,11 +98,4 @@ func (s *Summary) Write(w io.Writer, file string) error {
 	}
 	_, err := io.WriteString(w, b.String())
 	return err
-}
-
-func plural(n int) string {
-	if n == 1 {
-		return ""
-	}
-	return "s"
 }

@@ -8,6 +8,7 @@ import (
 	"unicode/utf8"
 
 	"github.com/sheafcalc/sheaf/engine/units"
+	"github.com/sheafcalc/sheaf/internal/plural"
 )
 
 // WriteText writes the report for a person: one section per kind of
@@ -44,7 +45,7 @@ func (r *Report) WriteText(w io.Writer) error {
 	}
 	section(&b, "checks changed", rows)
 	if r.Flipped > 0 {
-		fmt.Fprintf(&b, "\n%d design check%s flipped to fail\n", r.Flipped, map[bool]string{true: "", false: "s"}[r.Flipped == 1])
+		b.WriteString("\n" + plural.Count(r.Flipped, "design check") + " flipped to fail\n")
 	}
 	_, err := io.WriteString(w, b.String())
 	return err

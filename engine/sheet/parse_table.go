@@ -1,9 +1,8 @@
 package sheet
 
 import (
-	"fmt"
-
 	"github.com/sheafcalc/sheaf/engine/diag"
+	"github.com/sheafcalc/sheaf/internal/plural"
 )
 
 // parseTable reads a table on lines [i, j).
@@ -125,24 +124,10 @@ func (p *parser) tableRow(li, n int) ([]Literal, bool) {
 	}
 	if len(row) != n {
 		p.errAt(p.rng(li, ln.start+ln.indent, ln.end),
-			fmt.Sprintf("each row has one entry per column; the header has %d column%s", n, plural(n)),
+			"each row has one entry per column; the header has "+plural.Count(n, "column"),
 			"add or remove entries so the row matches the header",
-			"row has %d entr%s, the table has %d column%s", len(row), pluralY(len(row)), n, plural(n))
+			"row has %s, the table has %s", plural.Count(len(row), "entry"), plural.Count(n, "column"))
 		return nil, false
 	}
 	return row, true
-}
-
-func plural(n int) string {
-	if n == 1 {
-		return ""
-	}
-	return "s"
-}
-
-func pluralY(n int) string {
-	if n == 1 {
-		return "y"
-	}
-	return "ies"
 }
