@@ -13,6 +13,8 @@ import (
 	"github.com/sheafcalc/sheaf/engine"
 	"github.com/sheafcalc/sheaf/engine/diag"
 	"github.com/sheafcalc/sheaf/engine/sheet"
+	"github.com/sheafcalc/sheaf/internal/atomicfile"
+	"github.com/sheafcalc/sheaf/internal/plural"
 )
 
 // newOptions are the flags of `sheaf new`.
@@ -84,10 +86,10 @@ func runNew(a *app, o *newOptions, template, out string) error {
 		}
 		return err
 	}
-	if err := writeFileAtomic(out, text, 0o644); err != nil {
+	if err := atomicfile.WriteFile(out, text, 0o644); err != nil {
 		return &inputError{fmt.Errorf("cannot write %s: %w", out, err)}
 	}
-	fmt.Fprintf(a.stdout, "wrote %s from %s: %d input%s listed first under \"## Inputs\"\n", out, path, n, map[bool]string{true: "", false: "s"}[n == 1])
+	fmt.Fprintf(a.stdout, "wrote %s from %s: %s listed first under \"## Inputs\"\n", out, path, plural.Count(n, "input"))
 	return nil
 }
 
