@@ -16,10 +16,11 @@ func (t *typer) call(n ast.Node, name string, argNodes []ast.Node) *Node {
 		if fn.Kind != Function {
 			return t.fail(n, "`"+name+"` is a cell, not a function", "only functions of the sheet, built-ins and plugin functions can be called", "")
 		}
-		if fn.Type == nil {
+		fnType := t.c.typeOf(i)
+		if fnType == nil {
 			return nil
 		}
-		return t.userCall(n, i, fn, argNodes)
+		return t.userCall(n, i, fn, fnType, argNodes)
 	}
 	if b, ok := builtinByName[name]; ok {
 		args := t.args(argNodes)
@@ -62,7 +63,9 @@ func (t *typer) args(argNodes []ast.Node) []*Node {
 	return args
 }
 
-func (t *typer) userCall(n ast.Node, idx int, fn *Cell, argNodes []ast.Node) *Node {
+// userCall types a call of the user function fn (cell idx) whose type is
+// fnType: its own, or the stand-in of a function that failed.
+func (t *typer) userCall(n ast.Node, idx int, fn *Cell, fnType *funcs.Type, argNodes []ast.Node) *Node {
 	if len(argNodes) != len(fn.Params) {
 		return t.fail(n, fmt.Sprintf("%s takes %d argument%s, got %d", fn.Name, len(fn.Params), plural(len(fn.Params)), len(argNodes)),
 			"the function is defined at "+fn.Pos.String(), "write "+fn.Name+"("+paramList(fn)+")")
@@ -78,7 +81,7 @@ func (t *typer) userCall(n ast.Node, idx int, fn *Cell, argNodes []ast.Node) *No
 				"the function is defined at "+fn.Pos.String(), "")
 		}
 	}
-	r := t.node(n, OpUser, fn.Type.Result, args...)
+	r := t.node(n, OpUser, fnType.Result, args...)
 	r.Index = idx
 	r.Str = fn.Name
 	return r
@@ -106,15 +109,16 @@ func (t *typer) pluginCall(n ast.Node, def *funcs.Def, argNodes []ast.Node) *Nod
 		if id, isID := a.(*ast.IdentifierNode); isID && p != nil && p.Type.Kind == funcs.Func {
 			if j, found := t.c.local(t.cell, id.Value); found && t.c.prog.Cells[j].Kind == Function {
 				fn := t.c.prog.Cells[j]
-				if fn.Type == nil {
+				fnType := t.c.typeOf(j)
+				if fnType == nil {
 					return nil
 				}
-				r := t.node(a, OpFuncRef, fn.Type)
+				r := t.node(a, OpFuncRef, fnType)
 				r.Index = j
 				r.Str = fn.Name
-				args[i], types[i] = r, fn.Type
-				if !p.Type.Accepts(fn.Type) {
-					t.fail(a, fmt.Sprintf("%s of %s must be %s, got %s", p.Name, def.Name, p.Type.String(), fn.Type.String()), p.Doc, "")
+				args[i], types[i] = r, fnType
+				if !p.Type.Accepts(fnType) {
+					t.fail(a, fmt.Sprintf("%s of %s must be %s, got %s", p.Name, def.Name, p.Type.String(), fnType.String()), p.Doc, "")
 					ok = false
 				}
 				continue

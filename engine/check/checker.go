@@ -40,6 +40,15 @@ type checker struct {
 	use *uses
 	// arena allocates the typed nodes.
 	arena arena
+	// standIn holds, per cell index, the type users of a failed cell are
+	// checked against (see typeAll); nil until the first failure.
+	standIn []*funcs.Type
+	// badParams marks the user functions with a parameter whose unit did
+	// not parse.
+	badParams map[*Cell]bool
+	// looped marks the cells of a cycle and those after one (nil when the
+	// sheet has none): they stay silent.
+	looped []bool
 }
 
 // Sheet resolves and types the parsed sheet f. It always returns a
@@ -113,6 +122,10 @@ func (c *checker) collectFile(f *sheet.File, scope string, depth int) {
 					u, err := units.Parse(prm.Unit.Text)
 					if err != nil {
 						c.unitErr(prm.Unit, err)
+						if c.badParams == nil {
+							c.badParams = map[*Cell]bool{}
+						}
+						c.badParams[cell] = true
 					} else {
 						q.Unit, q.Type = u, funcs.Num(u.Dim)
 					}
@@ -398,6 +411,15 @@ func constantNames() []string {
 
 // typeAll types every cell in topological order, so that each cell's
 // dependencies are typed before it.
+//
+// A cell that fails is left untyped (Type nil) and is never evaluated. What
+// its users see depends on what the sheet declares: a failed cell with a
+// display unit (`P [kN] = 38 kn`), or a user function with a result unit,
+// stands in with that dimension, so a real mistake downstream
+// (`sigma [MPa] = P / A + 3 m`) is still reported in the same run; a failed
+// cell without one blocks its users, which are typed for their own problems
+// but report nothing (one mistake, one message). A cell typed cleanly from
+// stand-ins stays untyped too, but passes on the type it found.
 func (c *checker) typeAll() {
 	sys := c.prog.Meta.System
 	if c.opt.HasSystem {
@@ -405,49 +427,109 @@ func (c *checker) typeAll() {
 	}
 	for _, i := range c.prog.Order {
 		cell := c.prog.Cells[i]
-		if cell.Formula == nil || cell.Formula.Tree == nil || cell.Kind == Table {
+		if cell.Kind == Table {
+			continue // typed when read
+		}
+		if cell.Formula == nil || cell.Formula.Tree == nil {
+			if c.looped == nil || !c.looped[i] {
+				c.standInFor(cell, nil, false) // its formula did not parse
+			}
 			continue
 		}
-		blocked := false
+		blocked, tainted := false, false
 		for _, j := range cell.DepIdx {
 			if c.prog.Cells[j].Type == nil {
-				blocked = true
+				if c.typeOf(j) == nil {
+					blocked = true
+				} else {
+					tainted = true
+				}
 			}
 		}
 		t := &typer{c: c, f: cell.Formula, cell: cell, params: cell.Params, system: sys, errs: &c.errs}
 		if blocked {
-			// A dependency failed: type anyway to find this cell's own
-			// problems, but leave the cell untyped (its users stay silent).
+			// A dependency failed unseen: type anyway to find this cell's
+			// own problems, but keep them to itself.
 			t.errs = new(diag.List)
 		}
-		switch cell.Kind {
-		case Check:
-			c.typeCheck(t, cell)
-		case Function:
-			body := t.expr(cell.Formula.Tree)
-			if body == nil {
-				continue
-			}
-			if !c.fitsUnit(t, cell, body) {
-				continue
-			}
-			ps := make([]*funcs.Type, len(cell.Params))
-			for k, p := range cell.Params {
-				ps[k] = p.Type
-			}
-			cell.Body = body
-			cell.Type = funcs.FuncOf(body.Type, ps...)
-		default:
-			body := t.expr(cell.Formula.Tree)
-			if body == nil || !c.fitsOverride(t, cell, body) || !c.fitsUnit(t, cell, body) {
-				continue
-			}
-			cell.Body, cell.Type = body, body.Type
-		}
-		if blocked {
+		c.typeCell(t, cell)
+		if blocked || tainted || cell.Type == nil {
+			found := cell.Type
 			cell.Type = nil
+			c.standInFor(cell, found, blocked)
 		}
 	}
+}
+
+// typeCell types one cell, setting Body (or Demand and Capacity) and Type;
+// Type stays nil when the cell has a problem.
+func (c *checker) typeCell(t *typer, cell *Cell) {
+	switch cell.Kind {
+	case Check:
+		c.typeCheck(t, cell)
+	case Function:
+		body := t.expr(cell.Formula.Tree)
+		if body == nil || !c.fitsUnit(t, cell, body) {
+			return
+		}
+		ps := make([]*funcs.Type, len(cell.Params))
+		for k, p := range cell.Params {
+			ps[k] = p.Type
+		}
+		cell.Body = body
+		cell.Type = funcs.FuncOf(body.Type, ps...)
+	default:
+		body := t.expr(cell.Formula.Tree)
+		if body == nil || !c.fitsOverride(t, cell, body) || !c.fitsUnit(t, cell, body) {
+			return
+		}
+		cell.Body, cell.Type = body, body.Type
+	}
+}
+
+// standInFor records the type that the users of an untyped cell are
+// checked against: the dimension its display unit declares (for a function,
+// the declared result unit with the declared parameters), else the type
+// its formula was found to have from stand-ins (found, nil if it failed),
+// else none: its users stay silent. A blocked cell's found type came from
+// guesses and is not passed on.
+func (c *checker) standInFor(cell *Cell, found *funcs.Type, blocked bool) {
+	var ty *funcs.Type
+	switch {
+	case cell.HasUnit && cell.Kind == Function:
+		if c.badParams[cell] {
+			return // a parameter's unit did not parse: its dimension is unknown
+		}
+		ps := make([]*funcs.Type, len(cell.Params))
+		for k, p := range cell.Params {
+			ps[k] = p.Type
+		}
+		ty = funcs.FuncOf(c.arena.num(cell.Unit.Dim), ps...)
+	case cell.HasUnit && cell.Kind != Check:
+		ty = c.arena.num(cell.Unit.Dim)
+	case !blocked:
+		ty = found
+	}
+	if ty == nil {
+		return
+	}
+	if c.standIn == nil {
+		c.standIn = make([]*funcs.Type, len(c.prog.Cells))
+	}
+	c.standIn[cell.Index] = ty
+}
+
+// typeOf returns the type the users of cell i are checked against: its own
+// type, or the stand-in of a cell that failed; nil when it failed without
+// one.
+func (c *checker) typeOf(i int) *funcs.Type {
+	if ty := c.prog.Cells[i].Type; ty != nil {
+		return ty
+	}
+	if c.standIn != nil {
+		return c.standIn[i]
+	}
+	return nil
 }
 
 // fitsUnit reports whether the display unit fits the expression.

@@ -5,6 +5,13 @@
 // Problems of the whole file are collected at once, each with a range, a
 // detail sentence and a hint.
 //
+// One mistake gives one message, yet a second, independent mistake is not
+// hidden by the first: a cell that fails but declares its dimension (a
+// display unit `P [kN] = ...`, or a user function's result unit) stands in
+// with that dimension for the cells that use it, which are then checked as
+// usual; a failed cell that declares nothing keeps its users silent. Cells
+// that failed or were typed from stand-ins stay untyped and never run.
+//
 // A sheet that uses templates (`use rod from "hanger.sheaf"`) is checked
 // as one program: the loader (template.go) finds each template inside the
 // project root, refuses escapes and loops, and reads each file once; the

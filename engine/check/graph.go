@@ -71,10 +71,12 @@ func (c *checker) cycles(indeg []int) {
 			visit(i)
 		}
 	}
+	c.looped = make([]bool, len(p.Cells))
 	for i, cell := range p.Cells {
 		if indeg[i] > 0 {
 			cell.Formula = nil // never typed: its users stay silent
 			cell.Type = nil
+			c.looped[i] = true
 		}
 	}
 }

@@ -135,16 +135,17 @@ func (t *typer) ident(n *ast.IdentifierNode) *Node {
 	}
 	if i, ok := t.depIndex(name); ok {
 		dep := t.c.prog.Cells[i]
+		ty := t.c.typeOf(i)
 		if dep.Kind == Function {
-			if dep.Type == nil {
+			if ty == nil {
 				return nil
 			}
 			return t.fail(n, "`"+name+"` is a function and needs arguments", "", "call it: "+name+"("+paramList(dep)+")")
 		}
-		if dep.Type == nil {
+		if ty == nil {
 			return nil // failed or in a cycle: reported there
 		}
-		r := t.node(n, OpCell, dep.Type)
+		r := t.node(n, OpCell, ty)
 		r.Index = i
 		return r
 	}

@@ -236,17 +236,18 @@ func (t *typer) templateMember(n *ast.MemberNode) (*Node, bool) {
 		return t.fail(n.Property, "template `"+written+"` has no cell `"+s.Value+"`", "`"+written+"` brings in the cells of "+a.file, hint), true
 	}
 	dep := t.c.prog.Cells[i]
+	ty := t.c.typeOf(i)
 	if dep.Kind == Function {
-		if dep.Type == nil {
+		if ty == nil {
 			return nil, true
 		}
 		return t.fail(n, "`"+written+"."+s.Value+"` is a function of the template", "a template's functions serve its own cells; only its values can be used here",
 			"copy the function into this sheet, or give the template a cell that computes the value you need"), true
 	}
-	if dep.Type == nil {
+	if ty == nil {
 		return nil, true // failed or in a cycle: reported there
 	}
-	r := t.node(n, OpCell, dep.Type)
+	r := t.node(n, OpCell, ty)
 	r.Index = i
 	return r, true
 }
