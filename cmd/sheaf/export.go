@@ -8,6 +8,7 @@ import (
 	"github.com/spf13/cobra"
 
 	xlsxout "github.com/sheafcalc/sheaf/engine/export/xlsx"
+	"github.com/sheafcalc/sheaf/internal/plural"
 )
 
 // exportOptions are the flags of `sheaf export`.
@@ -45,7 +46,7 @@ sheet, a flag or the output path is wrong.`,
 		},
 	}
 	cmd.Flags().StringVarP(&o.out, "output", "o", "", "workbook to write (default: the sheet's name with .xlsx)")
-	cmd.Flags().StringArrayVar(&o.sets, "set", nil, "replace an input: name=value with a unit, e.g. P=45kN (repeatable)")
+	cmd.Flags().StringArrayVar(&o.sets, "set", nil, setUsage)
 	cmd.Flags().StringVar(&o.system, "system", "", "display units for cells without a written unit: metric or us")
 	return cmd
 }
@@ -67,20 +68,9 @@ func runExport(a *app, o *exportOptions, path string) error {
 	if err != nil {
 		return err
 	}
-	st := s.NewState()
-	for _, kv := range o.sets {
-		name, val, ok := strings.Cut(kv, "=")
-		name, val = strings.TrimSpace(name), strings.TrimSpace(val)
-		if !ok || name == "" || val == "" {
-			return userErrorf("--set %q: expected name=value, e.g. --set P=45kN", kv)
-		}
-		v, err := s.ParseInput(name, val)
-		if err != nil {
-			return userErrorf("--set %s: %v", kv, err)
-		}
-		if err := st.Set(name, v); err != nil {
-			return userErrorf("--set %s: %v", kv, err)
-		}
+	st, err := stateWithSets(s, o.sets)
+	if err != nil {
+		return err
 	}
 	res := st.Eval()
 	stats, err := xlsxout.WriteFile(out, s, res, xlsxout.Options{Generator: "Sheaf " + versionString()})
@@ -88,19 +78,11 @@ func runExport(a *app, o *exportOptions, path string) error {
 		return userErrorf("cannot write %s: %v", out, err)
 	}
 	fmt.Fprintf(a.stdout, "wrote %s: %s, %s, %s only Sheaf computes, %s, %s\n", out,
-		count(stats.Cells, "cell"), count(stats.Live, "live formula"), count(stats.ValueOnly, "value"),
-		count(stats.Tables, "table"), count(stats.Charts, "chart"))
+		plural.Count(stats.Cells, "cell"), plural.Count(stats.Live, "live formula"), plural.Count(stats.ValueOnly, "value"),
+		plural.Count(stats.Tables, "table"), plural.Count(stats.Charts, "chart"))
 	if n := res.Failed(); n > 0 {
 		fmt.Fprintf(a.stderr, "%s; the workbook shows them\n", (&checksFailedError{n}).Error())
 		return &reportedError{&checksFailedError{n}, exitChecks}
 	}
 	return nil
-}
-
-// count renders "1 chart" or "3 charts".
-func count(n int, noun string) string {
-	if n == 1 {
-		return "1 " + noun
-	}
-	return fmt.Sprintf("%d %ss", n, noun)
 }

@@ -37,7 +37,7 @@ cannot be assessed, 2 when the sheet or a --set has errors.`,
 			return runRun(a, o, args[0])
 		},
 	}
-	cmd.Flags().StringArrayVar(&o.sets, "set", nil, "replace an input: name=value with a unit, e.g. P=45kN (repeatable)")
+	cmd.Flags().StringArrayVar(&o.sets, "set", nil, setUsage)
 	cmd.Flags().BoolVar(&o.json, "json", false, "print the results as JSON")
 	cmd.Flags().StringVar(&o.system, "system", "", "display units for cells without a written unit: metric or us")
 	return cmd
@@ -65,25 +65,38 @@ func loadSheet(a *app, path, system string) (*engine.Sheet, error) {
 	return s, nil
 }
 
+// setUsage is the help of the --set flag of run and export.
+const setUsage = "replace an input: name=value with a unit, e.g. P=45kN (repeatable)"
+
+// stateWithSets returns a new state of s with the inputs of the --set
+// flags (name=value) replaced.
+func stateWithSets(s *engine.Sheet, sets []string) (*engine.State, error) {
+	st := s.NewState()
+	for _, kv := range sets {
+		name, val, ok := strings.Cut(kv, "=")
+		name, val = strings.TrimSpace(name), strings.TrimSpace(val)
+		if !ok || name == "" || val == "" {
+			return nil, userErrorf("--set %q: expected name=value, e.g. --set P=45kN", kv)
+		}
+		v, err := s.ParseInput(name, val)
+		if err != nil {
+			return nil, userErrorf("--set %s: %v", kv, err)
+		}
+		if err := st.Set(name, v); err != nil {
+			return nil, userErrorf("--set %s: %v", kv, err)
+		}
+	}
+	return st, nil
+}
+
 func runRun(a *app, o *runOptions, path string) error {
 	s, err := loadSheet(a, path, o.system)
 	if err != nil {
 		return err
 	}
-	st := s.NewState()
-	for _, kv := range o.sets {
-		name, val, ok := strings.Cut(kv, "=")
-		name, val = strings.TrimSpace(name), strings.TrimSpace(val)
-		if !ok || name == "" || val == "" {
-			return userErrorf("--set %q: expected name=value, e.g. --set P=45kN", kv)
-		}
-		v, err := s.ParseInput(name, val)
-		if err != nil {
-			return userErrorf("--set %s: %v", kv, err)
-		}
-		if err := st.Set(name, v); err != nil {
-			return userErrorf("--set %s: %v", kv, err)
-		}
+	st, err := stateWithSets(s, o.sets)
+	if err != nil {
+		return err
 	}
 	res := st.Eval()
 	if o.json {
