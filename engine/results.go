@@ -4,10 +4,12 @@ import (
 	"cmp"
 	"math"
 	"slices"
+	"strconv"
 
 	"github.com/sheafcalc/sheaf/engine/diag"
 	"github.com/sheafcalc/sheaf/engine/units"
 	"github.com/sheafcalc/sheaf/funcs"
+	"github.com/sheafcalc/sheaf/internal/plural"
 )
 
 // Results are the values of every cell after an evaluation.
@@ -157,28 +159,18 @@ func describeValue(v funcs.Value, sig int) string {
 	case string:
 		return v
 	case []float64:
-		return "list of " + itoa(len(v))
+		return "list of " + strconv.Itoa(len(v))
 	case []funcs.Value:
-		return "list of " + itoa(len(v))
+		return "list of " + strconv.Itoa(len(v))
 	case *funcs.RecordValue:
 		if v.Type != nil && v.Type.Name != "" {
 			return v.Type.Name + " record"
 		}
 		return "record"
 	case *funcs.TableValue:
-		return "table, " + itoa(v.Rows()) + " rows"
+		return "table, " + plural.Count(v.Rows(), "row")
 	case *funcs.FuncValue:
 		return "function"
 	}
 	return ""
-}
-
-func itoa(n int) string {
-	if n < 0 {
-		return "-" + itoa(-n)
-	}
-	if n < 10 {
-		return string(rune('0' + n))
-	}
-	return itoa(n/10) + string(rune('0'+n%10))
 }

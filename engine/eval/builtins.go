@@ -77,32 +77,19 @@ func (m *Machine) builtin(n *check.Node) numFn {
 		if isList || n.Builtin == check.BSum || n.Builtin == check.BMean || n.Builtin == check.BLen {
 			return m.listReduce(n)
 		}
-		xs := make([]numFn, len(n.Args))
-		for i, a := range n.Args {
-			xs[i] = m.numOf(a)
-		}
+		xs := m.nums(n.Args)
+		g := math.Hypot
 		switch n.Builtin {
 		case check.BMin:
-			return func(f *Frame) float64 {
-				r := xs[0](f)
-				for _, x := range xs[1:] {
-					r = math.Min(r, x(f))
-				}
-				return r
-			}
+			g = math.Min
 		case check.BMax:
-			return func(f *Frame) float64 {
-				r := xs[0](f)
-				for _, x := range xs[1:] {
-					r = math.Max(r, x(f))
-				}
-				return r
-			}
+			g = math.Max
 		}
+		// Folded pairwise from the left: min(a, b, c) = min(min(a, b), c).
 		return func(f *Frame) float64 {
 			r := xs[0](f)
 			for _, x := range xs[1:] {
-				r = math.Hypot(r, x(f))
+				r = g(r, x(f))
 			}
 			return r
 		}
@@ -180,14 +167,14 @@ func (m *Machine) interp(n *check.Node) numFn {
 // message instead of a value when the lookup is not possible.
 func Interp(xs, ys []float64, x float64) (float64, string) {
 	if len(xs) != len(ys) {
-		return 0, "interp needs lists of equal length (" + itoa(len(xs)) + " and " + itoa(len(ys)) + ")"
+		return 0, "interp needs lists of equal length (" + strconv.Itoa(len(xs)) + " and " + strconv.Itoa(len(ys)) + ")"
 	}
 	if len(xs) == 0 {
 		return 0, "interp needs at least one point"
 	}
 	for i := 1; i < len(xs); i++ {
 		if !(xs[i] > xs[i-1]) {
-			return 0, "interp needs xs in increasing order (entry " + itoa(i) + " is not greater than the one before)"
+			return 0, "interp needs xs in increasing order (entry " + strconv.Itoa(i) + " is not greater than the one before)"
 		}
 	}
 	if math.IsNaN(x) || x < xs[0] || x > xs[len(xs)-1] {

@@ -8,58 +8,38 @@ import (
 	"github.com/sheafcalc/sheaf/funcs"
 )
 
-// userCall calls a user function with a Number result. Arguments go on the
-// frame's stack, so a call allocates nothing once the stack has grown.
+// userCall calls a user function with a Number result.
 func (m *Machine) userCall(n *check.Node) numFn {
-	args := make([]numFn, len(n.Args))
-	for i, a := range n.Args {
-		args[i] = m.numOf(a)
-	}
-	idx := n.Index
-	return func(f *Frame) float64 {
-		base := len(f.Stack)
-		for _, a := range args {
-			v := a(f)
-			f.Stack = append(f.Stack, v)
-		}
-		saved := f.Args
-		f.Args = f.Stack[base : base+len(args)]
-		body := m.num[idx]
-		r := nan
-		if body != nil {
-			r = body(f)
-		}
-		m.inFunc(f, idx)
-		f.Args = saved
-		f.Stack = f.Stack[:base]
-		return r
-	}
+	args, idx := m.nums(n.Args), n.Index
+	return func(f *Frame) float64 { return call(m, f, args, idx, m.num[idx], nan) }
 }
 
 // userCallVal calls a user function whose result is not a number.
 func (m *Machine) userCallVal(n *check.Node) valFn {
-	args := make([]numFn, len(n.Args))
-	for i, a := range n.Args {
-		args[i] = m.numOf(a)
+	args, idx := m.nums(n.Args), n.Index
+	return func(f *Frame) funcs.Value { return call(m, f, args, idx, m.val[idx], nil) }
+}
+
+// call runs body, the compiled body of user function idx (read at run
+// time: bodies compile in parallel), with the values of args as its
+// parameters; none when the function has no body. The arguments go on the
+// frame's stack, so a call allocates nothing once the stack has grown.
+func call[T any](m *Machine, f *Frame, args []numFn, idx int, body func(*Frame) T, none T) T {
+	base := len(f.Stack)
+	for _, a := range args {
+		v := a(f)
+		f.Stack = append(f.Stack, v)
 	}
-	idx := n.Index
-	return func(f *Frame) funcs.Value {
-		base := len(f.Stack)
-		for _, a := range args {
-			v := a(f)
-			f.Stack = append(f.Stack, v)
-		}
-		saved := f.Args
-		f.Args = f.Stack[base : base+len(args)]
-		var r funcs.Value
-		if body := m.val[idx]; body != nil {
-			r = body(f)
-		}
-		m.inFunc(f, idx)
-		f.Args = saved
-		f.Stack = f.Stack[:base]
-		return r
+	saved := f.Args
+	f.Args = f.Stack[base : base+len(args)]
+	r := none
+	if body != nil {
+		r = body(f)
 	}
+	m.inFunc(f, idx)
+	f.Args = saved
+	f.Stack = f.Stack[:base]
+	return r
 }
 
 // inFunc records that a failure met while running the body of user

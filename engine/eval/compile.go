@@ -7,6 +7,7 @@ import (
 
 	"github.com/sheafcalc/sheaf/engine/check"
 	"github.com/sheafcalc/sheaf/funcs"
+	"github.com/sheafcalc/sheaf/internal/plural"
 )
 
 // Machine is a compiled program. It is immutable after Compile and shared
@@ -146,10 +147,9 @@ func (m *Machine) numOf(n *check.Node) numFn {
 	case check.OpIndex:
 		xs, ix := m.listOf(n.Args[0]), m.numOf(n.Args[1])
 		return func(f *Frame) float64 {
-			l, i := xs(f), ix(f)
-			k := int(i)
-			if float64(k) != i || k < 0 || k >= len(l) {
-				f.fail(n, "index out of range", "the list has "+itoa(len(l))+" elements, numbered from 0")
+			l := xs(f)
+			k, ok := index(f, n, ix(f), len(l))
+			if !ok {
 				return nan
 			}
 			return l[k]
@@ -169,14 +169,15 @@ func (m *Machine) numOf(n *check.Node) numFn {
 	}
 }
 
-func itoa(n int) string {
-	if n < 0 {
-		return "-" + itoa(-n)
+// index returns i as an index into a list of length n, or fails at node
+// at when i is not a whole number from 0 to n-1.
+func index(f *Frame, at *check.Node, i float64, n int) (int, bool) {
+	k := int(i)
+	if float64(k) != i || k < 0 || k >= n {
+		f.fail(at, "index out of range", "the list has "+plural.Count(n, "element")+", numbered from 0")
+		return 0, false
 	}
-	if n < 10 {
-		return string(rune('0' + n))
-	}
-	return itoa(n/10) + string(rune('0'+n%10))
+	return k, true
 }
 
 func (m *Machine) pow(n *check.Node) numFn {
@@ -278,10 +279,7 @@ func (m *Machine) valOf(n *check.Node) valFn {
 		return func(f *Frame) funcs.Value { return f.Val[i] }
 	case check.OpList:
 		if n.Type.Elem.Kind == funcs.Number {
-			xs := make([]numFn, len(n.Args))
-			for i, a := range n.Args {
-				xs[i] = m.numOf(a)
-			}
+			xs := m.nums(n.Args)
 			return func(f *Frame) funcs.Value {
 				out := make([]float64, len(xs))
 				for i, x := range xs {
@@ -332,10 +330,8 @@ func (m *Machine) valOf(n *check.Node) valFn {
 		xs, ix := m.valOf(n.Args[0]), m.numOf(n.Args[1])
 		return func(f *Frame) funcs.Value {
 			l, _ := xs(f).([]funcs.Value)
-			i := ix(f)
-			k := int(i)
-			if float64(k) != i || k < 0 || k >= len(l) {
-				f.fail(n, "index out of range", "the list has "+itoa(len(l))+" elements, numbered from 0")
+			k, ok := index(f, n, ix(f), len(l))
+			if !ok {
 				return nil
 			}
 			return l[k]
@@ -359,6 +355,14 @@ func (m *Machine) valOf(n *check.Node) valFn {
 		f.fail(n, "cannot evaluate this expression", "")
 		return nil
 	}
+}
+
+func (m *Machine) nums(ns []*check.Node) []numFn {
+	out := make([]numFn, len(ns))
+	for i, a := range ns {
+		out[i] = m.numOf(a)
+	}
+	return out
 }
 
 func (m *Machine) vals(ns []*check.Node) []valFn {
