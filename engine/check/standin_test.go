@@ -86,7 +86,7 @@ func TestStandIns(t *testing.T) {
 				"A [mm^2] = 245 mm^2\n" +
 				"sigma [MPa] = P + A\n",
 			want: []string{
-				"1: unexpected token end of formula",
+				"1: the formula ends after `+`",
 				"3: cannot add force (kN) and area (mm^2)",
 			},
 			untyped: []string{"P", "sigma"},

@@ -10,7 +10,6 @@ import (
 	"github.com/expr-lang/expr/ast"
 	"github.com/expr-lang/expr/builtin"
 	"github.com/expr-lang/expr/conf"
-	"github.com/expr-lang/expr/file"
 	"github.com/expr-lang/expr/parser"
 
 	"github.com/sheafcalc/sheaf/engine/diag"
@@ -270,8 +269,7 @@ func (f *Formula) syntaxDiag(err error) *diag.Diagnostic {
 		Summary: "cannot read the formula",
 		Detail:  "formulas use + - * / ^, comparisons, `a ? b : c`, calls f(x), fields r.x, lists [a, b] and records {k: v}",
 	}
-	var fe *file.Error
-	if errors.As(err, &fe) {
+	if fe, ok := asFileError(err); ok {
 		from, to := f.orig(f.byteAt(fe.From), false), f.orig(f.byteAt(fe.To), true)
 		if to <= from {
 			to = from + 1
@@ -282,7 +280,11 @@ func (f *Formula) syntaxDiag(err error) *diag.Diagnostic {
 			from--
 		}
 		d.Range = f.Source.RangeAt(from, to)
-		d.Summary = cleanMessage(fe.Message)
+		got, last := f.syntaxWords(fe)
+		d.Summary, d.Hint = reword(fe.Message, got, last)
+		if atEnd(fe.Message) && strings.Contains(f.Source.Text, "?") && !strings.Contains(f.Source.Text, ":") {
+			d.Hint = "a choice is written `condition ? value_if_true : value_if_false`"
+		}
 	}
 	return d
 }
