@@ -12,6 +12,10 @@ import (
 	"github.com/sheafcalc/sheaf/internal/plural"
 )
 
+// Caution is the line every listing and JSON document of results carries:
+// Sheaf computes, the engineer decides.
+const Caution = "Results must be checked by a qualified engineer; limits, factors and load combinations come from the local code and licensed practice."
+
 // Results are the values of every cell after an evaluation.
 type Results struct {
 	Meta     Meta

@@ -88,7 +88,7 @@ type Problem struct {
 }
 
 // Caution is the line every output carries.
-const Caution = "Results must be checked by a qualified engineer; limits, factors and load combinations come from the local code and licensed practice."
+const Caution = engine.Caution
 
 func num(x float64) *float64 {
 	if math.IsNaN(x) || math.IsInf(x, 0) {

@@ -11,7 +11,7 @@ import (
 )
 
 // Caution is printed at the end of every listing.
-const Caution = "Results must be checked by a qualified engineer; limits, factors and load combinations come from the local code and licensed practice."
+const Caution = engine.Caution
 
 // Verdict words for a check.
 const (
