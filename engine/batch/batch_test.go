@@ -16,6 +16,7 @@ import (
 	"github.com/sheafcalc/sheaf/engine/batch"
 	"github.com/sheafcalc/sheaf/engine/diag"
 	"github.com/sheafcalc/sheaf/funcs"
+	"github.com/sheafcalc/sheaf/internal/golden"
 )
 
 var update = flag.Bool("update", false, "rewrite the golden files")
@@ -41,23 +42,6 @@ func read(t testing.TB, s *engine.Sheet, name string) *batch.Cases {
 		t.Fatalf("read %s: %v", name, err)
 	}
 	return cs
-}
-
-func golden(t *testing.T, name string, got []byte) {
-	t.Helper()
-	path := filepath.Join("testdata", name)
-	if *update {
-		if err := os.WriteFile(path, got, 0o644); err != nil {
-			t.Fatal(err)
-		}
-	}
-	want, err := os.ReadFile(path)
-	if err != nil {
-		t.Fatalf("%v (run with -update to create it)", err)
-	}
-	if !bytes.Equal(got, want) {
-		t.Errorf("%s differs from the golden file:\n--- got\n%s\n--- want\n%s", name, got, want)
-	}
 }
 
 // allNumbers picks every number cell that is not a check.
@@ -170,7 +154,7 @@ func TestGolden(t *testing.T) {
 	for _, file := range []string{"cases.csv", "bad.csv"} {
 		t.Run(file, func(t *testing.T) {
 			got := output(t, s, file, 2)
-			golden(t, strings.TrimSuffix(file, ".csv")+".golden", got)
+			golden.Check(t, filepath.Join("testdata", strings.TrimSuffix(file, ".csv")+".golden"), got, *update)
 			// Determinism: any number of workers, any run, the same bytes.
 			for _, w := range []int{1, 3, 8} {
 				if again := output(t, s, file, w); !bytes.Equal(got, again) {
@@ -227,7 +211,7 @@ func TestHeaderErrors(t *testing.T) {
 	if err := diag.Render(&b, list, diag.Sources{path: src}); err != nil {
 		t.Fatal(err)
 	}
-	golden(t, "header.golden", b.Bytes())
+	golden.Check(t, filepath.Join("testdata", "header.golden"), b.Bytes(), *update)
 }
 
 func TestEmptyAndPicks(t *testing.T) {

@@ -11,6 +11,7 @@ import (
 	"github.com/sheafcalc/sheaf/engine"
 	"github.com/sheafcalc/sheaf/engine/diff"
 	"github.com/sheafcalc/sheaf/engine/sheet"
+	"github.com/sheafcalc/sheaf/internal/golden"
 )
 
 var update = flag.Bool("update", false, "rewrite the golden files")
@@ -24,23 +25,6 @@ func run(t *testing.T, name string) *engine.Results {
 	return s.Run(nil)
 }
 
-func golden(t *testing.T, name string, got []byte) {
-	t.Helper()
-	path := filepath.Join("testdata", name)
-	if *update {
-		if err := os.WriteFile(path, got, 0o644); err != nil {
-			t.Fatal(err)
-		}
-	}
-	want, err := os.ReadFile(path)
-	if err != nil {
-		t.Fatalf("%v (run with -update to create it)", err)
-	}
-	if !bytes.Equal(got, want) {
-		t.Errorf("%s differs:\n--- got\n%s\n--- want\n%s", name, got, want)
-	}
-}
-
 func TestCompare(t *testing.T) {
 	old, cur := run(t, "old.sheaf"), run(t, "new.sheaf")
 	r := diff.Compare("old.sheaf", old, "new.sheaf", cur, diff.Options{})
@@ -51,8 +35,8 @@ func TestCompare(t *testing.T) {
 	if err := r.WriteJSON(&js); err != nil {
 		t.Fatal(err)
 	}
-	golden(t, "old-new.golden", txt.Bytes())
-	golden(t, "old-new.json.golden", js.Bytes())
+	golden.Check(t, filepath.Join("testdata", "old-new.golden"), txt.Bytes(), *update)
+	golden.Check(t, filepath.Join("testdata", "old-new.json.golden"), js.Bytes(), *update)
 	var back diff.Report
 	if err := json.Unmarshal(js.Bytes(), &back); err != nil {
 		t.Fatalf("the JSON does not read back: %v", err)

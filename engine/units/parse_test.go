@@ -5,11 +5,12 @@ import (
 	"flag"
 	"fmt"
 	"math"
-	"os"
 	"path/filepath"
 	"strings"
 	"testing"
 	"unicode/utf8"
+
+	"github.com/sheafcalc/sheaf/internal/golden"
 )
 
 var update = flag.Bool("update", false, "rewrite golden files")
@@ -258,22 +259,5 @@ func TestParseErrorsGolden(t *testing.T) {
 		}
 		fmt.Fprintf(&b, "span:  %d..%d\nerror: %s\nhint:  %s\n\n", e.Offset, e.End, e.Msg, e.Hint)
 	}
-	golden(t, filepath.Join("testdata", "errors.golden"), b.String())
-}
-
-// golden compares got with a golden file, rewriting it under -update.
-func golden(t *testing.T, path, got string) {
-	t.Helper()
-	if *update {
-		if err := os.WriteFile(path, []byte(got), 0o644); err != nil {
-			t.Fatal(err)
-		}
-	}
-	want, err := os.ReadFile(path)
-	if err != nil {
-		t.Fatalf("%v (run go test -update to create it)", err)
-	}
-	if string(want) != got {
-		t.Errorf("output differs from %s (run go test -update and review the diff):\n%s", path, got)
-	}
+	golden.Check(t, filepath.Join("testdata", "errors.golden"), []byte(b.String()), *update)
 }

@@ -5,12 +5,13 @@ import (
 	"bytes"
 	"flag"
 	"io"
-	"os"
 	"path/filepath"
 	"strings"
 	"testing"
 
 	"github.com/xuri/excelize/v2"
+
+	"github.com/sheafcalc/sheaf/internal/golden"
 )
 
 var update = flag.Bool("update", false, "rewrite the golden files")
@@ -30,23 +31,6 @@ func tabText(t *testing.T, f *excelize.File, tab string) string {
 	return b.String()
 }
 
-func golden(t *testing.T, name, got string) {
-	t.Helper()
-	path := filepath.Join("testdata", name)
-	if *update {
-		if err := os.WriteFile(path, []byte(got), 0o644); err != nil {
-			t.Fatal(err)
-		}
-	}
-	want, err := os.ReadFile(path)
-	if err != nil {
-		t.Fatalf("%v (run with -update to create it)", err)
-	}
-	if got != string(want) {
-		t.Errorf("%s differs (run with -update after checking):\n--- got\n%s--- want\n%s", name, got, want)
-	}
-}
-
 // TestSummaryGolden: the summary tab of each fixture, as text.
 func TestSummaryGolden(t *testing.T) {
 	for _, c := range []struct{ sheet, golden string }{
@@ -60,7 +44,7 @@ func TestSummaryGolden(t *testing.T) {
 			if !strings.Contains(text, Caution) {
 				t.Error("the caution is missing")
 			}
-			golden(t, c.golden, text)
+			golden.Check(t, filepath.Join("testdata", c.golden), []byte(text), *update)
 		})
 	}
 }
@@ -70,7 +54,7 @@ func TestSummaryGolden(t *testing.T) {
 func TestCalculationGolden(t *testing.T) {
 	s := load(t, "../../../sheets/mezzanine-hanger.sheaf")
 	f := build(t, s, s.NewState().Eval())
-	golden(t, "calculation-hanger.golden", tabText(t, f, TabCalc)+"--- Data\n"+tabText(t, f, TabData))
+	golden.Check(t, filepath.Join("testdata", "calculation-hanger.golden"), []byte(tabText(t, f, TabCalc)+"--- Data\n"+tabText(t, f, TabData)), *update)
 }
 
 // TestCharts: every bar result gets N(x), u(x) and σ(x), every N–ε curve
