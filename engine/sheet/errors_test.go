@@ -11,6 +11,7 @@ import (
 	"testing"
 
 	"github.com/sheafcalc/sheaf/engine/diag"
+	"github.com/sheafcalc/sheaf/internal/golden"
 )
 
 // errorCase is one chunk of testdata/errors.chunks.
@@ -151,17 +152,5 @@ func TestErrorsRender(t *testing.T) {
 			t.Fatal(err)
 		}
 	}
-	golden := filepath.Join("testdata", "errors.render.golden")
-	if *update {
-		if err := os.WriteFile(golden, b.Bytes(), 0o644); err != nil {
-			t.Fatal(err)
-		}
-	}
-	want, err := os.ReadFile(golden)
-	if err != nil {
-		t.Fatalf("%v (run go test -update to create it)", err)
-	}
-	if !bytes.Equal(b.Bytes(), want) {
-		t.Errorf("rendered errors differ from %s (run go test -update and review the diff):\n%s", golden, b.String())
-	}
+	golden.Check(t, filepath.Join("testdata", "errors.render.golden"), b.Bytes(), *update)
 }

@@ -9,6 +9,7 @@ import (
 	"testing"
 
 	"github.com/sheafcalc/sheaf/engine/diag"
+	"github.com/sheafcalc/sheaf/internal/golden"
 )
 
 var update = flag.Bool("update", false, "rewrite golden files")
@@ -37,19 +38,7 @@ func TestFormatGolden(t *testing.T) {
 			if err != nil {
 				t.Fatal(err)
 			}
-			golden := strings.TrimSuffix(in, ".sheaf") + ".golden"
-			if *update {
-				if err := os.WriteFile(golden, got, 0o644); err != nil {
-					t.Fatal(err)
-				}
-			}
-			want, err := os.ReadFile(golden)
-			if err != nil {
-				t.Fatalf("%v (run go test -update to create it)", err)
-			}
-			if !bytes.Equal(got, want) {
-				t.Errorf("Format(%s) differs from %s:\n--- got\n%s--- want\n%s", in, golden, got, want)
-			}
+			golden.Check(t, strings.TrimSuffix(in, ".sheaf")+".golden", got, *update)
 			checkRoundTrip(t, in, src)
 		})
 	}
