@@ -5,6 +5,7 @@ import (
 
 	"github.com/expr-lang/expr/ast"
 
+	"github.com/sheafcalc/sheaf/engine/units"
 	"github.com/sheafcalc/sheaf/funcs"
 )
 
@@ -14,7 +15,8 @@ func (t *typer) call(n ast.Node, name string, argNodes []ast.Node) *Node {
 	if i, ok := t.c.local(t.cell, name); ok {
 		fn := t.c.prog.Cells[i]
 		if fn.Kind != Function {
-			return t.fail(n, "`"+name+"` is a cell, not a function", "only functions of the sheet, built-ins and plugin functions can be called", "")
+			return t.fail(n, "`"+name+"` is a cell, not a function", "only functions of the sheet, built-ins and plugin functions can be called",
+				"to multiply, write the operator: `"+name+" * (...)`")
 		}
 		fnType := t.c.typeOf(i)
 		if fnType == nil {
@@ -44,7 +46,7 @@ func (t *typer) call(n ast.Node, name string, argNodes []ast.Node) *Node {
 		return t.pluginCall(n, def, argNodes)
 	}
 	if _, ok := Constants[name]; ok {
-		return t.fail(n, "`"+name+"` is a constant, not a function", "", "")
+		return t.fail(n, "`"+name+"` is a constant, not a function", "", "to multiply, write the operator: `"+name+" * (...)`")
 	}
 	return t.undefined(n, name)
 }
@@ -78,7 +80,7 @@ func (t *typer) userCall(n ast.Node, idx int, fn *Cell, fnType *funcs.Type, argN
 		p := fn.Params[i]
 		if !p.Type.Accepts(a.Type) {
 			return t.fail(argNodes[i], fmt.Sprintf("argument %s of %s must be %s, got %s", p.Name, fn.Name, t.describeType(p.Type), t.describeType(a.Type)),
-				"the function is defined at "+fn.Pos.String(), "")
+				"the function is defined at "+fn.Pos.String(), t.argHint(p.Type))
 		}
 	}
 	r := t.node(n, OpUser, fnType.Result, args...)
@@ -118,7 +120,8 @@ func (t *typer) pluginCall(n ast.Node, def *funcs.Def, argNodes []ast.Node) *Nod
 				r.Str = fn.Name
 				args[i], types[i] = r, fnType
 				if !p.Type.Accepts(fnType) {
-					t.fail(a, fmt.Sprintf("%s of %s must be %s, got %s", p.Name, def.Name, p.Type.String(), fnType.String()), p.Doc, "")
+					t.fail(a, fmt.Sprintf("%s of %s must be %s, got %s", p.Name, def.Name, p.Type.String(), fnType.String()), p.Doc,
+						"give "+fn.Name+" the parameter and result units "+def.Name+" expects; see `sheaf funcs "+def.Name+"`")
 					ok = false
 				}
 				continue
@@ -147,10 +150,25 @@ func (t *typer) pluginCall(n ast.Node, def *funcs.Def, argNodes []ast.Node) *Nod
 		res = ty
 	}
 	if res == nil {
-		return t.fail(n, def.Name+" returns nothing", "", "")
+		return t.fail(n, def.Name+" returns nothing", "a plugin function must declare its result", "report this to the author of the "+def.Family+" functions")
 	}
 	r := t.node(n, OpPlugin, res, args...)
 	r.Def = def
 	r.Str = def.Name
 	return r
+}
+
+// argHint says what to pass for a parameter of type want.
+func (t *typer) argHint(want *funcs.Type) string {
+	if want.Kind != funcs.Number {
+		return ""
+	}
+	if want.Dim.IsNone() {
+		return "pass a plain number; divide by a unit to make one, as in `L / (1 m)`"
+	}
+	u := t.unitOf(want.Dim)
+	if p, ok := units.Preferred(want.Dim, t.system); ok && p.Quantity != "" {
+		return "pass " + article(p.Quantity) + ", e.g. `1 " + u + "`"
+	}
+	return "pass a value in " + u + ", e.g. `1 " + u + "`"
 }

@@ -132,7 +132,7 @@ func (c *checker) collectFile(f *sheet.File, scope string, depth int) {
 				}
 				for _, o := range cell.Params {
 					if o.Name == q.Name {
-						c.errs.Errorf(prm.Name.Range, "each parameter needs its own name", "", "parameter `%s` is written twice", q.Name)
+						c.errs.Errorf(prm.Name.Range, "each parameter needs its own name", "rename one of them, e.g. `"+q.Name+"_2`", "parameter `%s` is written twice", q.Name)
 					}
 				}
 				cell.Params = append(cell.Params, q)
@@ -251,7 +251,7 @@ func (c *checker) table(cell *Cell, t *sheet.Table) {
 		}
 		for _, o := range ty.Fields {
 			if o.Name == col.Name.Name {
-				c.errs.Errorf(col.Name.Range, "each column needs its own name", "", "column `%s` is written twice", col.Name.Name)
+				c.errs.Errorf(col.Name.Range, "each column needs its own name", "rename one of them, e.g. `"+col.Name.Name+"_2`", "column `%s` is written twice", col.Name.Name)
 				ok = false
 			}
 		}
@@ -259,7 +259,8 @@ func (c *checker) table(cell *Cell, t *sheet.Table) {
 		factors[i] = f
 	}
 	if len(t.Columns) == 0 {
-		c.errs.Errorf(t.Name.Range, "a table needs an indented header row such as `L [m]  A [mm^2]`", "", "table `%s` has no columns", t.Name.Name)
+		c.errs.Errorf(t.Name.Range, "a table needs an indented header row such as `L [m]  A [mm^2]`",
+			"indent the header row and the rows of numbers below `table "+t.Name.Name+"`", "table `%s` has no columns", t.Name.Name)
 		ok = false
 	}
 	val := &funcs.TableValue{Type: ty, Cols: make([][]float64, len(t.Columns))}
@@ -579,7 +580,8 @@ func (c *checker) typeCheck(t *typer, cell *Cell) {
 		return
 	}
 	if l.Type.Kind != funcs.Number || r.Type.Kind != funcs.Number {
-		t.fail(b, "a check compares two numbers", "", "")
+		t.fail(b, "a check compares two numbers", "got "+t.describeType(l.Type)+" and "+t.describeType(r.Type),
+			"compare a number with a number, e.g. a field `mat.f_y` or an element `xs[0]`")
 		return
 	}
 	if l.Type.Dim != r.Type.Dim {
@@ -602,7 +604,8 @@ func (p *Program) TypeValue(f *formula.Formula, sys units.System) (*Node, diag.L
 	var errs diag.List
 	for _, r := range f.Refs {
 		if _, ok := p.ByName[r.Name]; ok {
-			errs.Errorf(r.Range(), "a value given for an input is a quantity such as `45 kN`", "", "a value cannot refer to the cell `%s`", r.Name)
+			errs.Errorf(r.Range(), "a value given for an input is a quantity such as `45 kN`",
+				"write the number with its unit", "a value cannot refer to the cell `%s`", r.Name)
 			return nil, errs
 		}
 	}

@@ -64,12 +64,12 @@ func (t *typer) expr(n ast.Node) *Node {
 		}
 		if n.Operator == "not" || n.Operator == "!" {
 			if x.Type.Kind != funcs.Bool {
-				return t.fail(n, "`not` needs a comparison, got "+t.describeType(x.Type), "", "")
+				return t.fail(n, "`not` needs a comparison, got "+t.describeType(x.Type), "", "write a comparison after it, as in `not (N > 0)`")
 			}
 			return t.node(n, OpNot, funcs.BoolType, x)
 		}
 		if x.Type.Kind != funcs.Number {
-			return t.fail(n, "cannot negate "+t.describeType(x.Type), "", "")
+			return t.fail(n, "cannot negate "+t.describeType(x.Type), "only numbers have a sign", "negate a number, as in `-mat.E` or `-xs[0]`")
 		}
 		if n.Operator == "+" {
 			return x
@@ -86,7 +86,7 @@ func (t *typer) expr(n ast.Node) *Node {
 			return t.fail(n.Cond, "the condition of `? :` must be a comparison, got "+t.describeType(c.Type), "", "write e.g. `N > 0 ? a : b`")
 		}
 		if !sameType(a.Type, b.Type) {
-			return t.fail(n, fmt.Sprintf("the two choices of `? :` differ: %s and %s", t.describeType(a.Type), t.describeType(b.Type)), "both results of a choice must be the same kind of quantity", "")
+			return t.fail(n, fmt.Sprintf("the two choices of `? :` differ: %s and %s", t.describeType(a.Type), t.describeType(b.Type)), "both results of a choice must be the same kind of quantity", "check the units of the two choices")
 		}
 		return t.node(n, OpCond, a.Type, c, a, b)
 	case *ast.MemberNode:
@@ -103,7 +103,7 @@ func (t *typer) expr(n ast.Node) *Node {
 	case *ast.ChainNode:
 		return t.expr(n.Node)
 	}
-	return t.fail(n, "this construct is not part of the sheet language", "", "")
+	return t.fail(n, "this construct is not part of the sheet language", "formulas use + - * / ^, comparisons, calls, fields, lists and records", "")
 }
 
 func sameType(a, b *funcs.Type) bool {
@@ -213,7 +213,7 @@ func (t *typer) binary(n *ast.BinaryNode) *Node {
 	switch op {
 	case "and", "&&", "or", "||":
 		if a.Type.Kind != funcs.Bool || b.Type.Kind != funcs.Bool {
-			return t.fail(n, "`"+op+"` joins comparisons", "both sides must be comparisons such as `a < b`", "")
+			return t.fail(n, "`"+op+"` joins comparisons", "both sides must be comparisons such as `a < b`", "compare each value, as in `a > 0 "+op+" b > 0`")
 		}
 		if op == "and" || op == "&&" {
 			return t.node(n, OpAnd, funcs.BoolType, a, b)
@@ -270,7 +270,7 @@ func (t *typer) binary(n *ast.BinaryNode) *Node {
 		}
 		return t.node(n, o, funcs.BoolType, a, b)
 	}
-	return t.fail(n, "operator `"+op+"` is not part of the sheet language", "", "")
+	return t.fail(n, "operator `"+op+"` is not part of the sheet language", "formulas use + - * / ^ (or **), comparisons, and/or/not and `a ? b : c`", "")
 }
 
 func (t *typer) member(n *ast.MemberNode) *Node {
@@ -311,14 +311,16 @@ func (t *typer) member(n *ast.MemberNode) *Node {
 			r.Index = i
 			return r
 		}
-		return t.fail(n, "`."+field+"` needs a record or a table, got "+t.describeType(x.Type), "", "")
+		return t.fail(n, "`."+field+"` needs a record or a table, got "+t.describeType(x.Type), "fields belong to records such as `{E: 210 GPa}` and columns to tables",
+			"remove `."+field+"`, or name a record or table before it")
 	}
 	i := t.expr(n.Property)
 	if i == nil {
 		return nil
 	}
 	if x.Type.Kind != funcs.List {
-		return t.fail(n, "indexing `[i]` needs a list, got "+t.describeType(x.Type), "", "")
+		return t.fail(n, "indexing `[i]` needs a list, got "+t.describeType(x.Type), "lists are written `[1 m, 2 m]`; a table's column `t.L` is a list too",
+			"remove the index, or index a list")
 	}
 	if i.Type.Kind != funcs.Number || !i.Type.Dim.IsNone() {
 		return t.fail(n.Property, "an index must be a plain number, got "+t.describeType(i.Type), "", "the first element is xs[0]")
@@ -351,7 +353,8 @@ func (t *typer) list(n *ast.ArrayNode) *Node {
 	}
 	for i, x := range args[1:] {
 		if !sameType(args[0].Type, x.Type) {
-			return t.fail(n.Nodes[i+1], fmt.Sprintf("a list holds values of one kind: %s and %s", t.describeType(args[0].Type), t.describeType(x.Type)), "", "")
+			return t.fail(n.Nodes[i+1], fmt.Sprintf("a list holds values of one kind: %s and %s", t.describeType(args[0].Type), t.describeType(x.Type)),
+				"every item of a list has the unit of the first", "use a record for values of different kinds, as in `{L: 2 m, P: 38 kN}`")
 		}
 	}
 	return t.node(n, OpList, funcs.ListOf(args[0].Type), args...)
@@ -364,7 +367,7 @@ func (t *typer) record(n *ast.MapNode) *Node {
 		p := p.(*ast.PairNode)
 		key := p.Key.(*ast.StringNode).Value
 		if slices.ContainsFunc(fields, func(f funcs.Field) bool { return f.Name == key }) {
-			return t.fail(p.Key, "field `"+key+"` is written twice", "", "")
+			return t.fail(p.Key, "field `"+key+"` is written twice", "each field of a record has its own name", "keep one of the two")
 		}
 		x := t.expr(p.Value)
 		if x == nil {

@@ -80,7 +80,7 @@ func (w *walker) walk(n ast.Node, depth int, c ctx) {
 		switch n.Operator {
 		case "-", "+", "not", "!":
 		default:
-			w.fail(n, fmt.Sprintf("unary `%s` is not part of the sheet language", n.Operator), "", "")
+			w.fail(n, fmt.Sprintf("unary `%s` is not part of the sheet language", n.Operator), "a value may be preceded by `-`, `+` or `not`", "remove `"+n.Operator+"`")
 		}
 		w.walk(n.Node, d, ctxOther)
 	case *ast.BinaryNode:
@@ -98,7 +98,7 @@ func (w *walker) walk(n ast.Node, depth int, c ctx) {
 			w.fail(n, "`?.` is not part of the sheet language", "every cell has a value, so optional access is not needed", "write `r.x`")
 		}
 		if n.Method {
-			w.fail(n, "methods are not part of the sheet language", "call functions by name: `f(x)`", "")
+			w.fail(n, "methods are not part of the sheet language", "call functions by name: `f(x)`", "pass the value as the first argument: `f(x)` rather than `x.f()`")
 		}
 		w.walk(n.Node, d, ctxOther)
 		if _, ok := n.Property.(*ast.StringNode); !ok {
@@ -106,7 +106,7 @@ func (w *walker) walk(n ast.Node, depth int, c ctx) {
 		}
 	case *ast.CallNode:
 		if _, ok := n.Callee.(*ast.IdentifierNode); !ok {
-			w.fail(n, "only named functions can be called", "write `f(x)` where f is a built-in, a plugin or a function of the sheet", "")
+			w.fail(n, "only named functions can be called", "write `f(x)` where f is a built-in, a plugin or a function of the sheet", "`sheaf funcs` lists the functions")
 			return
 		}
 		w.walk(n.Callee, d, ctxOther)
@@ -146,7 +146,7 @@ func (w *walker) walk(n ast.Node, depth int, c ctx) {
 		for _, p := range n.Pairs {
 			p := p.(*ast.PairNode)
 			if _, ok := p.Key.(*ast.StringNode); !ok {
-				w.fail(p.Key, "a record field name must be a plain name", "records are written `{E: 210 GPa, f_y: 355 MPa}`", "")
+				w.fail(p.Key, "a record field name must be a plain name", "records are written `{E: 210 GPa, f_y: 355 MPa}`", "write the name without quotes or brackets")
 			}
 			w.walk(p.Value, d, ctxArg)
 		}
@@ -155,14 +155,14 @@ func (w *walker) walk(n ast.Node, depth int, c ctx) {
 	case *ast.SequenceNode:
 		w.fail(n, "a formula is one expression", "`;` separates nothing in a sheet", "put each value in its own cell")
 	case *ast.PredicateNode, *ast.PointerNode:
-		w.fail(n, "closures are not part of the sheet language", "", "use sum(xs), min(xs), max(xs) or mean(xs)")
+		w.fail(n, "closures are not part of the sheet language", "a formula computes one value from cells, lists and tables", "use sum(xs), min(xs), max(xs) or mean(xs)")
 	case *ast.SliceNode:
-		w.fail(n, "slices are not part of the sheet language", "index one element with `xs[i]`", "")
+		w.fail(n, "slices are not part of the sheet language", "index one element with `xs[i]`", "write each element you need, as in `xs[0]`, or use a table")
 	case *ast.NilNode:
-		w.fail(n, "`nil` is not part of the sheet language", "every cell has a value", "")
+		w.fail(n, "`nil` is not part of the sheet language", "every cell has a value", "give the value, e.g. `0 kN`")
 	case *ast.ChainNode:
 		w.walk(n.Node, depth, c)
 	default:
-		w.fail(n, "this construct is not part of the sheet language", "formulas use + - * / ^, comparisons, calls, fields, lists and records", "")
+		w.fail(n, "this construct is not part of the sheet language", "formulas use + - * / ^, comparisons, calls, fields, lists and records", "split the formula into cells that use only these")
 	}
 }
