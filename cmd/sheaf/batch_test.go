@@ -10,6 +10,8 @@ import (
 	"testing"
 
 	"github.com/xuri/excelize/v2"
+
+	"github.com/sheafcalc/sheaf/internal/golden"
 )
 
 // transcript joins what a command printed and its exit status, for golden
@@ -43,7 +45,7 @@ func TestBatchCommand(t *testing.T) {
 				t.Errorf("exit %d, want %d\n%s", code, tc.code, errs)
 			}
 			got := transcript(out, errs, code)
-			golden(t, filepath.Join(dir, tc.name+".golden"), got)
+			golden.Check(t, filepath.Join(dir, tc.name+".golden"), []byte(got), *update)
 			if o2, e2, c2 := sheaf(t, args...); transcript(o2, e2, c2) != got {
 				t.Error("a second run prints other bytes")
 			}

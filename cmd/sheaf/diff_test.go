@@ -6,6 +6,8 @@ import (
 	"path/filepath"
 	"strings"
 	"testing"
+
+	"github.com/sheafcalc/sheaf/internal/golden"
 )
 
 func TestDiffCommand(t *testing.T) {
@@ -30,7 +32,7 @@ func TestDiffCommand(t *testing.T) {
 				t.Errorf("exit %d, want %d\n%s", code, tc.code, errs)
 			}
 			got := transcript(out, errs, code)
-			golden(t, filepath.Join(dir, tc.name+".golden"), got)
+			golden.Check(t, filepath.Join(dir, tc.name+".golden"), []byte(got), *update)
 			if o2, e2, c2 := sheaf(t, append([]string{"diff"}, tc.args...)...); transcript(o2, e2, c2) != got {
 				t.Error("a second run prints other bytes")
 			}

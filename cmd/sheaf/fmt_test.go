@@ -10,6 +10,7 @@ import (
 
 	"github.com/sheafcalc/sheaf/engine"
 	"github.com/sheafcalc/sheaf/engine/sheet"
+	"github.com/sheafcalc/sheaf/internal/golden"
 )
 
 // roundTripInputs returns every sheet in sheets/ and every seed of the
@@ -168,7 +169,7 @@ func TestFmtCommand(t *testing.T) {
 		t.Errorf("fmt: exit %d, stdout %q, stderr %q", code, out, errs)
 	}
 	got, _ := os.ReadFile(path)
-	golden(t, filepath.Join("testdata", "fmt", "messy.golden"), string(got))
+	golden.Check(t, filepath.Join("testdata", "fmt", "messy.golden"), got, *update)
 	if fi, _ := os.Stat(path); fi.Mode().Perm() != 0o600 {
 		t.Errorf("mode %v, want the original 0600", fi.Mode().Perm())
 	}
@@ -199,7 +200,7 @@ func TestFmtCommand(t *testing.T) {
 	if after, _ := os.ReadFile(path); string(after) != string(got) {
 		t.Error("the sound sheet after a broken one was not formatted")
 	}
-	golden(t, filepath.Join("testdata", "fmt", "broken.golden"), strings.ReplaceAll(transcript(out, errs, code), tmp, "TMP"))
+	golden.Check(t, filepath.Join("testdata", "fmt", "broken.golden"), []byte(strings.ReplaceAll(transcript(out, errs, code), tmp, "TMP")), *update)
 
 	// stdin to stdout.
 	var so, se strings.Builder

@@ -5,6 +5,8 @@ import (
 	"path/filepath"
 	"strings"
 	"testing"
+
+	"github.com/sheafcalc/sheaf/internal/golden"
 )
 
 // TestNewFromEveryTemplate starts a sheet from each template in sheets/
@@ -43,7 +45,7 @@ func TestNewFromEveryTemplate(t *testing.T) {
 		if err != nil {
 			t.Fatal(err)
 		}
-		golden(t, filepath.Join(golden0, name+".golden"), string(got))
+		golden.Check(t, filepath.Join(golden0, name+".golden"), got, *update)
 		if !strings.Contains(string(got), "date:") || strings.Contains(string(got), "date:     20") {
 			if strings.Contains(string(got), "date:") {
 				t.Errorf("%s: the date was not replaced by the placeholder", name)

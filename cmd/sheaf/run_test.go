@@ -3,10 +3,11 @@ package main
 import (
 	"bytes"
 	"flag"
-	"os"
 	"path/filepath"
 	"strings"
 	"testing"
+
+	"github.com/sheafcalc/sheaf/internal/golden"
 )
 
 var update = flag.Bool("update", false, "rewrite golden files")
@@ -18,26 +19,6 @@ func sheaf(t *testing.T, args ...string) (stdout, stderr string, code int) {
 	var out, errb bytes.Buffer
 	code = Main(args, strings.NewReader(""), &out, &errb)
 	return out.String(), errb.String(), code
-}
-
-func golden(t *testing.T, path, got string) {
-	t.Helper()
-	if *update {
-		if err := os.MkdirAll(filepath.Dir(path), 0o755); err != nil {
-			t.Fatal(err)
-		}
-		if err := os.WriteFile(path, []byte(got), 0o644); err != nil {
-			t.Fatal(err)
-		}
-		return
-	}
-	want, err := os.ReadFile(path)
-	if err != nil {
-		t.Fatalf("missing golden file %s (run go test ./cmd/sheaf -update): %v", path, err)
-	}
-	if string(want) != got {
-		t.Errorf("%s differs from the output:\n--- got ---\n%s\n--- want ---\n%s", path, got, want)
-	}
 }
 
 // TestSheetsGolden runs every example sheet and compares the text and JSON
@@ -56,12 +37,12 @@ func TestSheetsGolden(t *testing.T) {
 			if code != exitOK && code != exitChecks {
 				t.Fatalf("exit %d: %s", code, errs)
 			}
-			golden(t, filepath.Join("testdata", "sheets", name+".txt"), out)
+			golden.Check(t, filepath.Join("testdata", "sheets", name+".txt"), []byte(out), *update)
 			js, errs, code2 := sheaf(t, "run", "--json", f)
 			if code2 != code {
 				t.Errorf("--json exit %d, text exit %d: %s", code2, code, errs)
 			}
-			golden(t, filepath.Join("testdata", "sheets", name+".json"), js)
+			golden.Check(t, filepath.Join("testdata", "sheets", name+".json"), []byte(js), *update)
 			again, _, _ := sheaf(t, "run", f)
 			if again != out {
 				t.Error("output is not deterministic")
@@ -150,7 +131,7 @@ func TestBrokenSheets(t *testing.T) {
 			if strings.Contains(errs, "internal error") {
 				t.Fatalf("panic: %s", errs)
 			}
-			golden(t, strings.TrimSuffix(f, ".sheaf")+".err", errs)
+			golden.Check(t, strings.TrimSuffix(f, ".sheaf")+".err", []byte(errs), *update)
 			_, errs2, code2 := sheaf(t, "run", f)
 			if code2 != exitInput || errs2 != errs {
 				t.Errorf("run disagrees with check: exit %d\n%s", code2, errs2)

@@ -1,22 +1,15 @@
 package main
 
 import (
-	"bytes"
 	"flag"
-	"os"
 	"path/filepath"
 	"strings"
 	"testing"
+
+	"github.com/sheafcalc/sheaf/internal/golden"
 )
 
 var updateUnitsGolden = flag.Bool("update-units", false, "rewrite the golden files of `sheaf units`")
-
-// runUnitsCLI runs the command line with captured streams.
-func runUnitsCLI(args ...string) (code int, stdout, stderr string) {
-	var out, errb bytes.Buffer
-	code = Main(args, strings.NewReader(""), &out, &errb)
-	return code, out.String(), errb.String()
-}
 
 // TestUnitsCommandGolden pins the listing: the catalogue is part of the
 // language, and a change to it should show up in review as a diff.
@@ -42,7 +35,7 @@ func TestUnitsCommandGolden(t *testing.T) {
 	}
 	for _, tc := range tests {
 		t.Run(tc.name, func(t *testing.T) {
-			code, stdout, stderr := runUnitsCLI(tc.args...)
+			stdout, stderr, code := sheaf(t, tc.args...)
 			if code != tc.code {
 				t.Errorf("exit code %d, want %d (stderr %q)", code, tc.code, stderr)
 			}
@@ -50,22 +43,7 @@ func TestUnitsCommandGolden(t *testing.T) {
 			if stderr != "" {
 				got += "--- stderr\n" + stderr
 			}
-			path := filepath.Join("testdata", "units", tc.name+".golden")
-			if *updateUnitsGolden {
-				if err := os.MkdirAll(filepath.Dir(path), 0o755); err != nil {
-					t.Fatal(err)
-				}
-				if err := os.WriteFile(path, []byte(got), 0o644); err != nil {
-					t.Fatal(err)
-				}
-			}
-			want, err := os.ReadFile(path)
-			if err != nil {
-				t.Fatalf("%v (run go test ./cmd/sheaf -update-units)", err)
-			}
-			if string(want) != got {
-				t.Errorf("output differs from %s:\n%s", path, got)
-			}
+			golden.Check(t, filepath.Join("testdata", "units", tc.name+".golden"), []byte(got), *updateUnitsGolden)
 		})
 	}
 }

@@ -9,6 +9,8 @@ import (
 	"sync"
 	"testing"
 	"time"
+
+	"github.com/sheafcalc/sheaf/internal/golden"
 )
 
 // syncBuffer is a bytes.Buffer safe for the watcher and the test to share.
@@ -81,7 +83,7 @@ func TestWatch(t *testing.T) {
 	}
 	waitFor(t, &out, "checks changed")
 	report := strings.ReplaceAll(out.String()[strings.Index(out.String(), "== run 2"):], dir, "TMP")
-	golden(t, filepath.Join("testdata", "watch", "rerun.golden"), report)
+	golden.Check(t, filepath.Join("testdata", "watch", "rerun.golden"), []byte(report), *update)
 
 	// A broken save shows the diagnostics and the watch goes on.
 	if err := os.WriteFile(path, []byte(changed+"x [kN] = P +\n"), 0o644); err != nil {
