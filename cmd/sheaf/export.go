@@ -64,11 +64,7 @@ func runExport(a *app, o *exportOptions, path string) error {
 			return userErrorf("-o %s would overwrite the sheet itself; choose another name", out)
 		}
 	}
-	s, err := loadSheet(a, path, o.system)
-	if err != nil {
-		return err
-	}
-	st, err := stateWithSets(s, o.sets)
+	s, st, err := loadState(a, path, o.system, o.sets)
 	if err != nil {
 		return err
 	}

@@ -68,33 +68,33 @@ func loadSheet(a *app, path, system string) (*engine.Sheet, error) {
 // setUsage is the help of the --set flag of run and export.
 const setUsage = "replace an input: name=value with a unit, e.g. P=45kN (repeatable)"
 
-// stateWithSets returns a new state of s with the inputs of the --set
-// flags (name=value) replaced.
-func stateWithSets(s *engine.Sheet, sets []string) (*engine.State, error) {
+// loadState loads the sheet at path (see loadSheet) and returns it with a
+// new state whose inputs are replaced as the --set flags (name=value) say.
+func loadState(a *app, path, system string, sets []string) (*engine.Sheet, *engine.State, error) {
+	s, err := loadSheet(a, path, system)
+	if err != nil {
+		return nil, nil, err
+	}
 	st := s.NewState()
 	for _, kv := range sets {
 		name, val, ok := strings.Cut(kv, "=")
 		name, val = strings.TrimSpace(name), strings.TrimSpace(val)
 		if !ok || name == "" || val == "" {
-			return nil, userErrorf("--set %q: expected name=value, e.g. --set P=45kN", kv)
+			return nil, nil, userErrorf("--set %q: expected name=value, e.g. --set P=45kN", kv)
 		}
 		v, err := s.ParseInput(name, val)
 		if err != nil {
-			return nil, userErrorf("--set %s: %v", kv, err)
+			return nil, nil, userErrorf("--set %s: %v", kv, err)
 		}
 		if err := st.Set(name, v); err != nil {
-			return nil, userErrorf("--set %s: %v", kv, err)
+			return nil, nil, userErrorf("--set %s: %v", kv, err)
 		}
 	}
-	return st, nil
+	return s, st, nil
 }
 
 func runRun(a *app, o *runOptions, path string) error {
-	s, err := loadSheet(a, path, o.system)
-	if err != nil {
-		return err
-	}
-	st, err := stateWithSets(s, o.sets)
+	s, st, err := loadState(a, path, o.system, o.sets)
 	if err != nil {
 		return err
 	}

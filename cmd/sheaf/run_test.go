@@ -72,12 +72,7 @@ func TestHangerHandCalc(t *testing.T) {
 
 func TestRunSetOverrides(t *testing.T) {
 	t.Chdir("../..")
-	cases := []struct {
-		name     string
-		args     []string
-		code     int
-		contains string
-	}{
+	cases := []runCase{
 		// 45 kN on M16 4.6: N_Ed = 45 kN > F_tRd = 45.22? no: the design load is the factored one
 		{"bigger rod", []string{"--set", "d=24 mm"}, exitOK, "353 mm^2"},
 		{"no space", []string{"--set", "d=20mm"}, exitOK, "245 mm^2"},
@@ -88,10 +83,25 @@ func TestRunSetOverrides(t *testing.T) {
 		{"bad syntax", []string{"--set", "d"}, exitInput, "expected name=value"},
 		{"outside the table", []string{"--set", "d=30 mm"}, exitChecks, "outside the table"},
 	}
+	runCases(t, "sheets/mezzanine-hanger.sheaf", cases)
+}
+
+// runCase is a `sheaf run` of a sheet with more arguments, the exit code
+// it must give and a text its output (stdout and stderr) must contain.
+type runCase struct {
+	name     string
+	args     []string
+	code     int
+	contains string
+}
+
+// runCases runs `sheaf run path` with each case's arguments, from the
+// repository root (the caller changes to it).
+func runCases(t *testing.T, path string, cases []runCase) {
+	t.Helper()
 	for _, c := range cases {
 		t.Run(c.name, func(t *testing.T) {
-			args := append([]string{"run", "sheets/mezzanine-hanger.sheaf"}, c.args...)
-			out, errs, code := sheaf(t, args...)
+			out, errs, code := sheaf(t, append([]string{"run", path}, c.args...)...)
 			if code != c.code {
 				t.Fatalf("exit %d, want %d\n%s%s", code, c.code, out, errs)
 			}

@@ -12,12 +12,7 @@ import (
 // boundary. Its plain results are golden in testdata/sheets.
 func TestUseRunSet(t *testing.T) {
 	t.Chdir("../..")
-	cases := []struct {
-		name     string
-		args     []string
-		code     int
-		contains string
-	}{
+	cases := []runCase{
 		// service N_Ed = 1.35 (2.2·1.44 + 0.02699) + 1.5·5.0·1.44 = 15.11 kN,
 		// N_node = 20.62 + 15.11 = 35.74 kN > 35 kN (arithmetic of the sheet's
 		// hand check with q_k = 5 kN/m²).
@@ -27,17 +22,7 @@ func TestUseRunSet(t *testing.T) {
 		{"input replaced by a formula", []string{"--set", "access.s=3m"}, exitInput, "`access.s` is computed from s_truss"},
 		{"near miss", []string{"--set", "access.dd=3mm"}, exitInput, "did you mean `access.d`?"},
 	}
-	for _, c := range cases {
-		t.Run(c.name, func(t *testing.T) {
-			out, errs, code := sheaf(t, append([]string{"run", "sheets/walkway-pair.sheaf"}, c.args...)...)
-			if code != c.code {
-				t.Fatalf("exit %d, want %d\n%s%s", code, c.code, out, errs)
-			}
-			if !strings.Contains(out+errs, c.contains) {
-				t.Errorf("output lacks %q:\n%s%s", c.contains, out, errs)
-			}
-		})
-	}
+	runCases(t, "sheets/walkway-pair.sheaf", cases)
 	out, errs, code := sheaf(t, "check", "sheets/walkway-pair.sheaf")
 	// s_truss, 2 × 23 cells of the hanger, 4 node cells = 51 cells; the
 	// hanger's 2 checks twice and the sheet's 2 = 6 checks.
