@@ -9,6 +9,7 @@ import (
 	"github.com/spf13/cobra"
 
 	"github.com/sheafcalc/sheaf/engine/diag"
+	"github.com/sheafcalc/sheaf/internal/plural"
 )
 
 // Exit codes scripts can rely on.
@@ -33,12 +34,7 @@ type app struct {
 // checksFailedError reports that evaluation succeeded but design checks failed.
 type checksFailedError struct{ n int }
 
-func (e *checksFailedError) Error() string {
-	if e.n == 1 {
-		return "1 design check failed"
-	}
-	return fmt.Sprintf("%d design checks failed", e.n)
-}
+func (e *checksFailedError) Error() string { return plural.Count(e.n, "design check") + " failed" }
 
 // inputError is a problem with what the user gave: flags, files, sheets.
 // A diag.List is also an input error; it is rendered with snippets before.
