@@ -2,10 +2,11 @@ package diag
 
 import (
 	"flag"
-	"os"
 	"path/filepath"
 	"strings"
 	"testing"
+
+	"github.com/sheafcalc/sheaf/internal/golden"
 )
 
 var update = flag.Bool("update", false, "rewrite golden files")
@@ -65,7 +66,7 @@ func TestRender(t *testing.T) {
 			t.Fatal(err)
 		}
 	}
-	golden(t, filepath.Join("testdata", "render.golden"), b.String())
+	golden.Check(t, filepath.Join("testdata", "render.golden"), []byte(b.String()), *update)
 }
 
 // TestRenderList renders several diagnostics in one call: each ends with a
@@ -91,22 +92,5 @@ func TestRenderList(t *testing.T) {
 		"\n"
 	if got := b.String(); got != want {
 		t.Errorf("got\n%s\nwant\n%s", got, want)
-	}
-}
-
-// golden compares got with a golden file, rewriting it under -update.
-func golden(t *testing.T, path, got string) {
-	t.Helper()
-	if *update {
-		if err := os.WriteFile(path, []byte(got), 0o644); err != nil {
-			t.Fatal(err)
-		}
-	}
-	want, err := os.ReadFile(path)
-	if err != nil {
-		t.Fatalf("%v (run go test -update to create it)", err)
-	}
-	if string(want) != got {
-		t.Errorf("output differs from %s (run go test -update and review the diff):\n%s", path, got)
 	}
 }
