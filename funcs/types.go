@@ -10,6 +10,8 @@ import (
 type Kind uint8
 
 const (
+	// Invalid is the zero Kind, which no well-formed type has: a Type left
+	// unset shows as "invalid" rather than passing for a number.
 	Invalid Kind = iota
 	Number       // float64 in SI units, with a dimension
 	Bool         // result of a comparison
@@ -23,6 +25,7 @@ const (
 
 var kindNames = [...]string{"invalid", "number", "bool", "text", "record", "list", "table", "function", "any"}
 
+// String names the kind in messages and listings ("number", "record").
 func (k Kind) String() string { return kindNames[k] }
 
 // Type is a static type. Types are built once and shared; treat them as

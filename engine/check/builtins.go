@@ -12,6 +12,8 @@ import (
 // beside it in builtinRules.
 type Builtin uint8
 
+// The built-in functions, one per name of Builtins; BNone marks a node that
+// is not a call of a built-in.
 const (
 	BNone Builtin = iota
 	BSqrt

@@ -21,6 +21,8 @@ const (
 
 var kindNames = [...]string{"input", "derived", "check", "function", "table"}
 
+// String names the kind as listings and the JSON output show it
+// ("input", "derived", "check", "function", "table").
 func (k Kind) String() string { return kindNames[k] }
 
 // Meta is the header of a sheet.

@@ -164,12 +164,29 @@ type Use struct {
 	Range     diag.Range
 }
 
-func (m *Meta) Span() diag.Range    { return m.Range }
+// Span returns the header line's range.
+func (m *Meta) Span() diag.Range { return m.Range }
+
+// Span returns the heading line's range.
 func (h *Heading) Span() diag.Range { return h.Range }
+
+// Span returns the comment line's range.
 func (c *Comment) Span() diag.Range { return c.Range }
-func (b *Blank) Span() diag.Range   { return b.Range }
-func (c *Cell) Span() diag.Range    { return c.Range }
+
+// Span returns the blank line's range.
+func (b *Blank) Span() diag.Range { return b.Range }
+
+// Span returns the range of the cell, continuation lines included.
+func (c *Cell) Span() diag.Range { return c.Range }
+
+// Span returns the range of the function definition.
 func (f *FuncDef) Span() diag.Range { return f.Range }
-func (c *Check) Span() diag.Range   { return c.Range }
-func (t *Table) Span() diag.Range   { return t.Range }
-func (u *Use) Span() diag.Range     { return u.Range }
+
+// Span returns the range of the check.
+func (c *Check) Span() diag.Range { return c.Range }
+
+// Span returns the range of the table, its rows included.
+func (t *Table) Span() diag.Range { return t.Range }
+
+// Span returns the range of the use line and its overrides.
+func (u *Use) Span() diag.Range { return u.Range }

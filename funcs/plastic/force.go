@@ -89,6 +89,8 @@ type StrainRangeError struct {
 	Kind        string
 }
 
+// Error says which side of the range the strain left and what that means
+// for the section.
 func (e *StrainRangeError) Error() string {
 	if e.Eps < e.Lo {
 		return fmt.Sprintf("strain %.6g in part %d is beyond the crushing strain %.6g of its %s law; the section has failed there", e.Eps, e.Part, e.Lo, e.Kind)

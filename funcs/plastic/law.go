@@ -24,22 +24,40 @@ type Law interface {
 // Elastic is σ = E·ε.
 type Elastic struct{ E float64 }
 
-func (l Elastic) Stress(eps float64) float64     { return l.E * eps }
-func (l Elastic) Limits() (float64, float64)     { return math.Inf(-1), math.Inf(1) }
+// Stress is E·ε.
+func (l Elastic) Stress(eps float64) float64 { return l.E * eps }
+
+// Limits: an elastic law covers every strain.
+func (l Elastic) Limits() (float64, float64) { return math.Inf(-1), math.Inf(1) }
+
+// Squash: an elastic law has no plateau.
 func (l Elastic) Squash(float64) (float64, bool) { return 0, false }
-func (l Elastic) Kind() string                   { return "elastic" }
-func (l Elastic) E0() float64                    { return l.E }
+
+// Kind is "elastic".
+func (l Elastic) Kind() string { return "elastic" }
+
+// E0 is E.
+func (l Elastic) E0() float64 { return l.E }
 
 // EPP is elastic–perfectly plastic and symmetric: σ = E·ε clipped to ±f_y.
 // Source: EN 1993-1-5:2006 Annex C.6, Fig. C.2 (a), elastic–plastic model
 // without strain hardening (from memory); common practice.
 type EPP struct{ E, Fy float64 }
 
-func (l EPP) Stress(eps float64) float64     { return math.Max(-l.Fy, math.Min(l.Fy, l.E*eps)) }
-func (l EPP) Limits() (float64, float64)     { return math.Inf(-1), math.Inf(1) }
+// Stress is E·ε clipped to ±f_y.
+func (l EPP) Stress(eps float64) float64 { return math.Max(-l.Fy, math.Min(l.Fy, l.E*eps)) }
+
+// Limits: without strain hardening or rupture the law covers every strain.
+func (l EPP) Limits() (float64, float64) { return math.Inf(-1), math.Inf(1) }
+
+// Squash is the plateau f_y (coef applies to concrete only).
 func (l EPP) Squash(float64) (float64, bool) { return l.Fy, true }
-func (l EPP) Kind() string                   { return "elastic-perfectly plastic" }
-func (l EPP) E0() float64                    { return l.E }
+
+// Kind is "elastic-perfectly plastic".
+func (l EPP) Kind() string { return "elastic-perfectly plastic" }
+
+// E0 is E.
+func (l EPP) E0() float64 { return l.E }
 
 // ParabolaRect is the parabola–rectangle law for concrete in compression,
 // with compression negative:
@@ -52,6 +70,7 @@ func (l EPP) E0() float64                    { return l.E }
 // EN 1992-1-1:2004 §3.1.7(1), Eq. (3.17) and (3.18), Fig. 3.3.
 type ParabolaRect struct{ Fcd, EpsC2, EpsCu2, N float64 }
 
+// Stress is the law above; NaN beyond the crushing strain −ε_cu2.
 func (l ParabolaRect) Stress(eps float64) float64 {
 	switch {
 	case eps >= 0:
@@ -63,10 +82,20 @@ func (l ParabolaRect) Stress(eps float64) float64 {
 	}
 	return math.NaN()
 }
-func (l ParabolaRect) Limits() (float64, float64)          { return -l.EpsCu2, math.Inf(1) }
+
+// Limits runs from the crushing strain −ε_cu2 up; tension carries no
+// stress but is not outside the law.
+func (l ParabolaRect) Limits() (float64, float64) { return -l.EpsCu2, math.Inf(1) }
+
+// Squash is coef·f_cd, the plateau with the coefficient the section
+// applies to concrete.
 func (l ParabolaRect) Squash(coef float64) (float64, bool) { return coef * l.Fcd, true }
-func (l ParabolaRect) Kind() string                        { return "parabola-rectangle" }
-func (l ParabolaRect) E0() float64                         { return l.N * l.Fcd / l.EpsC2 }
+
+// Kind is "parabola-rectangle".
+func (l ParabolaRect) Kind() string { return "parabola-rectangle" }
+
+// E0 is the slope at ε = 0, n·f_cd/ε_c2 (derivative of Eq. (3.17)).
+func (l ParabolaRect) E0() float64 { return l.N * l.Fcd / l.EpsC2 }
 
 // User is a law σ(ε) written in the sheet. It must be non-decreasing for
 // strain_for_force to find a unique strain.
@@ -76,10 +105,20 @@ type User struct {
 	Name   string
 }
 
-func (l User) Stress(eps float64) float64     { return l.F(eps) }
-func (l User) Limits() (float64, float64)     { return l.Lo, l.Hi }
+// Stress calls the sheet's function.
+func (l User) Stress(eps float64) float64 { return l.F(eps) }
+
+// Limits is the range the sheet gave.
+func (l User) Limits() (float64, float64) { return l.Lo, l.Hi }
+
+// Squash: a user law declares no plateau.
 func (l User) Squash(float64) (float64, bool) { return 0, false }
-func (l User) Kind() string                   { return "user law " + l.Name }
+
+// Kind names the sheet's function.
+func (l User) Kind() string { return "user law " + l.Name }
+
+// E0 is the slope at ε = 0 by a central difference with a step of 1e-7
+// (a strain far below yield for any structural material).
 func (l User) E0() float64 {
 	h := 1e-7
 	return (l.F(h) - l.F(-h)) / (2 * h)

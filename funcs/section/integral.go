@@ -31,6 +31,7 @@ type Result struct {
 // FieldError reports a point where the field had no finite value.
 type FieldError struct{ Y, Z, V float64 }
 
+// Error names the point and what the field must be.
 func (e *FieldError) Error() string {
 	return fmt.Sprintf("the field has no finite value at y = %.6g m, z = %.6g m (got %g); it must be defined and finite over the bounding box of the section", e.Y, e.Z, e.V)
 }
