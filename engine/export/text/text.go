@@ -127,6 +127,8 @@ func summary(r *engine.Results) string {
 			return "The design check is ok."
 		}
 		return fmt.Sprintf("All %d design checks are ok.", n)
+	case n == 1:
+		return "The design check FAILS or could not be assessed."
 	}
 	return fmt.Sprintf("%d of %d design checks FAIL or could not be assessed.", failed, n)
 }
