@@ -6,6 +6,7 @@ import (
 
 	"github.com/sheafcalc/sheaf/engine/units"
 	"github.com/sheafcalc/sheaf/funcs"
+	"github.com/sheafcalc/sheaf/internal/plural"
 )
 
 // Builtin names a built-in function. Each has a dimension rule, written
@@ -126,7 +127,7 @@ func (t *typer) builtinType(b BuiltinInfo, args []*Node) (*funcs.Type, *argProbl
 		} else if hi != lo {
 			want = fmt.Sprintf("%d or %d", lo, hi)
 		}
-		return &argProblem{-1, fmt.Sprintf("%s takes %s argument%s, got %d", b.Name, want, plural(lo), n), "write " + b.Sig}
+		return &argProblem{-1, fmt.Sprintf("%s takes %s %s, got %d", b.Name, want, plural.Noun(lo, "argument"), n), "write " + b.Sig}
 	}
 	num := func(i int) *argProblem {
 		if args[i].Type.Kind != funcs.Number {
@@ -272,13 +273,6 @@ type argProblem struct {
 	arg     int
 	summary string
 	hint    string
-}
-
-func plural(n int) string {
-	if n == 1 {
-		return ""
-	}
-	return "s"
 }
 
 // powType is the rule of x^n and pow(x, n): with a dimensioned x, n must be

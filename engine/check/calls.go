@@ -7,6 +7,7 @@ import (
 
 	"github.com/sheafcalc/sheaf/engine/units"
 	"github.com/sheafcalc/sheaf/funcs"
+	"github.com/sheafcalc/sheaf/internal/plural"
 )
 
 // call types a call of name with args: a user function of the sheet, a
@@ -69,7 +70,7 @@ func (t *typer) args(argNodes []ast.Node) []*Node {
 // fnType: its own, or the stand-in of a function that failed.
 func (t *typer) userCall(n ast.Node, idx int, fn *Cell, fnType *funcs.Type, argNodes []ast.Node) *Node {
 	if len(argNodes) != len(fn.Params) {
-		return t.fail(n, fmt.Sprintf("%s takes %d argument%s, got %d", fn.Name, len(fn.Params), plural(len(fn.Params)), len(argNodes)),
+		return t.fail(n, fmt.Sprintf("%s takes %s, got %d", fn.Name, plural.Count(len(fn.Params), "argument"), len(argNodes)),
 			"the function is defined at "+fn.Pos.String(), "write "+fn.Name+"("+paramList(fn)+")")
 	}
 	args := t.args(argNodes)
@@ -96,7 +97,7 @@ func (t *typer) pluginCall(n ast.Node, def *funcs.Def, argNodes []ast.Node) *Nod
 		if lo != hi {
 			want = fmt.Sprintf("%d to %d", lo, hi)
 		}
-		return t.fail(n, fmt.Sprintf("%s takes %s argument%s, got %d", def.Name, want, plural(hi), len(argNodes)), def.Summary, "see `sheaf funcs "+def.Name+"`")
+		return t.fail(n, fmt.Sprintf("%s takes %s %s, got %d", def.Name, want, plural.Noun(hi, "argument"), len(argNodes)), def.Summary, "see `sheaf funcs "+def.Name+"`")
 	}
 	args := make([]*Node, len(argNodes))
 	types := make([]*funcs.Type, len(argNodes))

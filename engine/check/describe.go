@@ -1,6 +1,8 @@
 package check
 
 import (
+	"strconv"
+
 	"github.com/sheafcalc/sheaf/engine/units"
 	"github.com/sheafcalc/sheaf/funcs"
 )
@@ -45,25 +47,15 @@ func siSymbol(d units.Dim) string {
 		switch {
 		case e == 2:
 		case e%2 == 0:
-			s += "^" + itoa(int(e)/2)
+			s += "^" + strconv.Itoa(int(e)/2)
 		default:
-			s += "^(" + itoa(int(e)) + "/2)"
+			s += "^(" + strconv.Itoa(int(e)) + "/2)"
 		}
 	}
 	if s == "" {
 		return "1"
 	}
 	return s
-}
-
-func itoa(n int) string {
-	if n < 0 {
-		return "-" + itoa(-n)
-	}
-	if n < 10 {
-		return string(rune('0' + n))
-	}
-	return itoa(n/10) + string(rune('0'+n%10))
 }
 
 // describeType renders a type for a message, with dimensions as units.

@@ -1,7 +1,3 @@
-// Package diag holds source positions, ranges and diagnostics for every phase
-// of Sheaf. It imports only the standard library so that the sheet reader,
-// the unit parser, the checker and the evaluator can all report problems in
-// one shape, and so that rendering stays apart from producing.
 package diag
 
 import (
@@ -59,10 +55,11 @@ type Range struct {
 type Severity uint8
 
 const (
-	Error Severity = iota
-	Warning
+	Error   Severity = iota // the sheet cannot be evaluated as written
+	Warning                 // worth a look; evaluation goes on
 )
 
+// String returns "error" or "warning".
 func (s Severity) String() string {
 	if s == Warning {
 		return "warning"

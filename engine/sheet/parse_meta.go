@@ -1,6 +1,7 @@
 package sheet
 
 import (
+	"strconv"
 	"strings"
 
 	"github.com/sheafcalc/sheaf/engine/diag"
@@ -80,7 +81,7 @@ func (p *parser) parseMeta(i, keyEnd, colon int) Item {
 	value := t[a:b]
 	if prev, dup := p.seenMeta[key]; dup {
 		p.errAt(keyRange,
-			"`"+key+":` is already given at line "+itoa(prev.Start.Line),
+			"`"+key+":` is already given at line "+strconv.Itoa(prev.Start.Line),
 			"keep one `"+key+":` line",
 			"duplicate header key `%s`", key)
 		return nil
@@ -101,19 +102,4 @@ func (p *parser) parseMeta(i, keyEnd, colon int) Item {
 		return nil
 	}
 	return &Meta{Key: Ident{Name: key, Range: keyRange}, Value: value, Range: p.rng(i, ln.start, ln.end)}
-}
-
-// itoa formats a small non-negative int without fmt.
-func itoa(n int) string {
-	if n == 0 {
-		return "0"
-	}
-	var b [20]byte
-	i := len(b)
-	for n > 0 {
-		i--
-		b[i] = byte('0' + n%10)
-		n /= 10
-	}
-	return string(b[i:])
 }

@@ -9,6 +9,7 @@ import (
 	"github.com/sheafcalc/sheaf/engine"
 	"github.com/sheafcalc/sheaf/engine/check"
 	"github.com/sheafcalc/sheaf/funcs"
+	"github.com/sheafcalc/sheaf/internal/plural"
 )
 
 // Columns of the Calculation tab.
@@ -238,7 +239,7 @@ func (x *exporter) fieldRow(r *calcRow) [calcCols]excelize.Cell {
 	case *funcs.RecordValue:
 		value, note = x.text("record", clsText), "its fields follow"
 	case *funcs.TableValue:
-		value, note = x.text("table, "+itoa(v.Rows())+" rows", clsText), "table: see the Data tab"
+		value, note = x.text("table, "+plural.Count(v.Rows(), "row"), clsText), "table: see the Data tab"
 	case string:
 		value = x.text(v, clsText)
 	default:
@@ -293,8 +294,6 @@ func (x *exporter) checkValue(ch *checkRow) (excelize.Cell, string) {
 func verdictFormula(n string) string {
 	return "IF(" + n + "<=1,\"" + VerdictPass + "\",\"" + VerdictFail + "\")"
 }
-
-func itoa(n int) string { return strconv.Itoa(n) }
 
 func indexOf(c *check.Cell) int {
 	if c == nil {
