@@ -20,6 +20,20 @@ type Machine struct {
 	demand   []numFn
 	capacity []numFn
 	topoPos  []int32
+	// plan is p.Order with what the first, full evaluation needs of each
+	// cell, read in one pass over contiguous memory.
+	plan []step
+	// needVal is set when some cell keeps its value in Frame.Val; else a
+	// state leaves Val nil.
+	needVal  bool
+	hasCheck bool
+}
+
+// step is one cell of the full evaluation: fn is its Number body when the
+// cell is a typed Number cell with no other path (fast), else nil.
+type step struct {
+	fn numFn
+	i  int32
 }
 
 // Compile turns every typed cell of p into closures. Cells without a type
@@ -34,11 +48,34 @@ func Compile(p *check.Program) *Machine {
 	// Each cell compiles on its own (closures read other cells' values and
 	// bodies by index at run time), so large programs compile on every
 	// core; each slot is written by exactly one worker.
-	parallel(len(p.Cells), 4096, func(lo, hi int) {
-		for _, c := range p.Cells[lo:hi] {
-			m.compileCell(c)
+	// They compile in evaluation order, so the closures of cells evaluated
+	// one after the other lie side by side in memory: on a large sheet,
+	// evaluation then streams through them instead of missing the cache
+	// at every cell.
+	parallel(len(p.Order), 4096, func(lo, hi int) {
+		for _, i := range p.Order[lo:hi] {
+			m.compileCell(p.Cells[i])
 		}
 	})
+	m.plan = make([]step, len(p.Order))
+	for k, i := range p.Order {
+		c := p.Cells[i]
+		m.plan[k] = step{i: int32(i)}
+		if c.Type == nil {
+			continue
+		}
+		switch c.Kind {
+		case check.Check:
+			m.hasCheck = true
+		case check.Function, check.Table:
+			m.needVal = true
+		default:
+			if c.Type.Kind != funcs.Number || m.val[i] != nil {
+				m.needVal = true
+			}
+			m.plan[k].fn = m.num[i]
+		}
+	}
 	return m
 }
 
@@ -106,21 +143,35 @@ func (m *Machine) numOf(n *check.Node) numFn {
 	case check.OpNeg:
 		a := m.numOf(n.Args[0])
 		return func(f *Frame) float64 { return -a(f) }
-	case check.OpAdd:
+	case check.OpAdd, check.OpSub, check.OpMul:
+		if fn := arith(n); fn != nil {
+			return fn
+		}
 		a, b := m.numOf(n.Args[0]), m.numOf(n.Args[1])
-		return func(f *Frame) float64 { return a(f) + b(f) }
-	case check.OpSub:
-		a, b := m.numOf(n.Args[0]), m.numOf(n.Args[1])
-		return func(f *Frame) float64 { return a(f) - b(f) }
-	case check.OpMul:
-		a, b := m.numOf(n.Args[0]), m.numOf(n.Args[1])
+		switch n.Op {
+		case check.OpAdd:
+			if y := n.Args[1]; y.Op == check.OpConst {
+				k := y.Num
+				return func(f *Frame) float64 { return a(f) + k }
+			}
+			return func(f *Frame) float64 { return a(f) + b(f) }
+		case check.OpSub:
+			return func(f *Frame) float64 { return a(f) - b(f) }
+		}
 		if n.Args[1].Op == check.OpConst {
 			k := n.Args[1].Num
 			return func(f *Frame) float64 { return a(f) * k }
 		}
 		return func(f *Frame) float64 { return a(f) * b(f) }
 	case check.OpDiv:
+		if fn := arith(n); fn != nil {
+			return fn
+		}
 		a, b := m.numOf(n.Args[0]), m.numOf(n.Args[1])
+		if y := n.Args[1]; y.Op == check.OpConst && y.Num != 0 {
+			k := y.Num // a nonzero constant divisor cannot fail
+			return func(f *Frame) float64 { return a(f) / k }
+		}
 		den := n.Args[1]
 		return func(f *Frame) float64 {
 			d := b(f)
@@ -167,6 +218,52 @@ func (m *Machine) numOf(n *check.Node) numFn {
 		}
 		return x
 	}
+}
+
+// arith compiles the commonest leaves of a formula, an operation on two
+// cells or on a cell and a constant, into one closure; nil for anything
+// else. The arithmetic is the same as through the general closures
+// (a / k, not a * (1/k)), so results are bit for bit the same; a division
+// by a cell still checks for zero, through the general path.
+func arith(n *check.Node) numFn {
+	x, y := n.Args[0], n.Args[1]
+	switch {
+	case x.Op == check.OpCell && y.Op == check.OpCell:
+		i, j := x.Index, y.Index
+		switch n.Op {
+		case check.OpAdd:
+			return func(f *Frame) float64 { return f.Num[i] + f.Num[j] }
+		case check.OpSub:
+			return func(f *Frame) float64 { return f.Num[i] - f.Num[j] }
+		case check.OpMul:
+			return func(f *Frame) float64 { return f.Num[i] * f.Num[j] }
+		}
+	case x.Op == check.OpCell && y.Op == check.OpConst:
+		i, k := x.Index, y.Num
+		switch n.Op {
+		case check.OpAdd:
+			return func(f *Frame) float64 { return f.Num[i] + k }
+		case check.OpSub:
+			return func(f *Frame) float64 { return f.Num[i] - k }
+		case check.OpMul:
+			return func(f *Frame) float64 { return f.Num[i] * k }
+		case check.OpDiv:
+			if k != 0 {
+				return func(f *Frame) float64 { return f.Num[i] / k }
+			}
+		}
+	case x.Op == check.OpConst && y.Op == check.OpCell:
+		k, j := x.Num, y.Index
+		switch n.Op {
+		case check.OpAdd:
+			return func(f *Frame) float64 { return k + f.Num[j] }
+		case check.OpSub:
+			return func(f *Frame) float64 { return k - f.Num[j] }
+		case check.OpMul:
+			return func(f *Frame) float64 { return k * f.Num[j] }
+		}
+	}
+	return nil
 }
 
 // index returns i as an index into a list of length n, or fails at node

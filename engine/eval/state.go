@@ -24,22 +24,33 @@ type State struct {
 	gen      uint32
 	done     bool
 	last     []int
+	// lastShared is set while last is Program.Order itself, which must
+	// not be appended to.
+	lastShared bool
 }
 
 // NewState returns a state with every input at its written value, not yet
 // evaluated.
 func (m *Machine) NewState() *State {
 	n := len(m.P.Cells)
-	return &State{
-		M:        m,
-		F:        Frame{Num: make([]float64, n), Val: make([]funcs.Value, n), Stack: make([]float64, 0, 16)},
-		Known:    make([]bool, n),
-		Demand:   make([]float64, n),
-		Capacity: make([]float64, n),
-		Problem:  make([]*diag.Diagnostic, n),
-		over:     make([]bool, n),
-		mark:     make([]uint32, n),
+	s := &State{
+		M:       m,
+		F:       Frame{Num: make([]float64, n), Stack: make([]float64, 0, 16)},
+		Known:   make([]bool, n),
+		Problem: make([]*diag.Diagnostic, n),
+		over:    make([]bool, n),
 	}
+	// A sheet of numbers and no checks (the large generated ones) needs
+	// neither general values nor check sides: a fresh state is then a
+	// third of the memory, and on a large sheet memory is time.
+	if m.needVal {
+		s.F.Val = make([]funcs.Value, n)
+	}
+	if m.hasCheck {
+		s.Demand = make([]float64, n)
+		s.Capacity = make([]float64, n)
+	}
+	return s
 }
 
 // Clone copies the state. Values are shared where they are immutable
@@ -54,7 +65,6 @@ func (s *State) Clone() *State {
 		Problem:  slices.Clone(s.Problem),
 		over:     slices.Clone(s.over),
 		dirty:    slices.Clone(s.dirty),
-		mark:     make([]uint32, len(s.mark)),
 		done:     s.done,
 		last:     slices.Clone(s.last),
 	}
@@ -66,8 +76,13 @@ func (s *State) Clone() *State {
 func (s *State) Set(i int, v funcs.Value) {
 	if x, ok := v.(float64); ok {
 		s.F.Num[i] = x
-		s.F.Val[i] = nil
+		if s.F.Val != nil {
+			s.F.Val[i] = nil
+		}
 	} else {
+		if s.F.Val == nil {
+			s.F.Val = make([]funcs.Value, len(s.F.Num))
+		}
 		s.F.Val[i] = v
 	}
 	s.over[i] = true
@@ -91,11 +106,14 @@ func (s *State) Eval() []int {
 	if !s.done {
 		s.done = true
 		s.dirty = s.dirty[:0]
-		s.last = append(s.last[:0], p.Order...)
-		for _, i := range p.Order {
-			s.run(i)
-		}
+		// The order itself is the list of cells evaluated: shared, not
+		// copied (a copy is most of a megabyte on a large sheet).
+		s.last, s.lastShared = p.Order[:len(p.Order):len(p.Order)], true
+		s.full()
 		return s.last
+	}
+	if s.lastShared {
+		s.last, s.lastShared = nil, false
 	}
 	s.last = s.last[:0]
 	if len(s.dirty) == 0 {
@@ -107,6 +125,9 @@ func (s *State) Eval() []int {
 		s.gen = 1
 	}
 	g := s.gen
+	if s.mark == nil {
+		s.mark = make([]uint32, len(p.Cells))
+	}
 	for _, i := range s.dirty {
 		if s.mark[i] != g {
 			s.mark[i] = g
@@ -128,6 +149,64 @@ func (s *State) Eval() []int {
 		s.run(i)
 	}
 	return s.last
+}
+
+// full evaluates every cell in topological order, on a state not yet
+// evaluated (so no cell is known and none has a problem yet). While every
+// cell so far is known, the dependencies of the next one are known too
+// (they come before it in the order), so a Number cell needs no look at
+// them: it runs its body and stores the value. The first cell left
+// unknown switches to run, which checks the dependencies of each cell.
+func (s *State) full() {
+	f := &s.F
+	num, known, over := f.Num, s.Known, s.over
+	plan := s.M.plan
+	for k, st := range plan {
+		i := st.i
+		if st.fn == nil || over[i] {
+			s.run(int(i))
+			if !known[i] {
+				s.rest(plan[k+1:])
+				return
+			}
+			continue
+		}
+		v := st.fn(f)
+		if f.Fail != nil || v-v != 0 { // v-v is NaN for NaN and ±Inf
+			s.numDone(s.M.P.Cells[i], v)
+			s.rest(plan[k+1:])
+			return
+		}
+		num[i] = v
+		known[i] = true
+	}
+}
+
+// rest evaluates the remaining steps of a full evaluation with run.
+func (s *State) rest(plan []step) {
+	for _, st := range plan {
+		s.run(int(st.i))
+	}
+}
+
+// numDone stores v, the value of Number cell c just computed, or reports
+// why c has none.
+func (s *State) numDone(c *check.Cell, v float64) {
+	f := &s.F
+	i := c.Index
+	if f.Fail != nil {
+		s.failed(c, f.Fail)
+		return
+	}
+	if !isFinite(v) {
+		s.Problem[i] = &diag.Diagnostic{Range: c.Formula.Source.Range,
+			Summary: "`" + c.Name + "` is not a finite number with these inputs",
+			Detail:  "the formula overflowed or produced NaN; cells that use it are skipped",
+			Hint:    "check the inputs and the formula"}
+		return
+	}
+	f.Num[i] = v
+	s.Known[i] = true
 }
 
 // run evaluates cell i.
@@ -180,20 +259,7 @@ func (s *State) run(i int) {
 		return
 	}
 	if fn := s.M.num[i]; fn != nil {
-		v := fn(f)
-		if f.Fail != nil {
-			s.failed(c, f.Fail)
-			return
-		}
-		if !isFinite(v) {
-			s.Problem[i] = &diag.Diagnostic{Range: c.Formula.Source.Range,
-				Summary: "`" + c.Name + "` is not a finite number with these inputs",
-				Detail:  "the formula overflowed or produced NaN; cells that use it are skipped",
-				Hint:    "check the inputs and the formula"}
-			return
-		}
-		f.Num[i] = v
-		s.Known[i] = true
+		s.numDone(c, fn(f))
 		return
 	}
 	if fn := s.M.val[i]; fn != nil {
