@@ -40,7 +40,7 @@ func (t *typer) call(n ast.Node, name string, argNodes []ast.Node) *Node {
 		}
 		r := t.node(n, OpBuiltin, ty, args...)
 		r.Builtin = b.ID
-		r.Str = b.Name
+		r.setStr(b.Name)
 		return r
 	}
 	if def, ok := funcs.Lookup(name); ok {
@@ -85,8 +85,8 @@ func (t *typer) userCall(n ast.Node, idx int, fn *Cell, fnType *funcs.Type, argN
 		}
 	}
 	r := t.node(n, OpUser, fnType.Result, args...)
-	r.Index = idx
-	r.Str = fn.Name
+	r.Index = int32(idx)
+	r.setStr(fn.Name)
 	return r
 }
 
@@ -117,8 +117,8 @@ func (t *typer) pluginCall(n ast.Node, def *funcs.Def, argNodes []ast.Node) *Nod
 					return nil
 				}
 				r := t.node(a, OpFuncRef, fnType)
-				r.Index = j
-				r.Str = fn.Name
+				r.Index = int32(j)
+				r.setStr(fn.Name)
 				args[i], types[i] = r, fnType
 				if !p.Type.Accepts(fnType) {
 					t.fail(a, fmt.Sprintf("%s of %s must be %s, got %s", p.Name, def.Name, p.Type.String(), fnType.String()), p.Doc,
@@ -154,8 +154,8 @@ func (t *typer) pluginCall(n ast.Node, def *funcs.Def, argNodes []ast.Node) *Nod
 		return t.fail(n, def.Name+" returns nothing", "a plugin function must declare its result", "report this to the author of the "+def.Family+" functions")
 	}
 	r := t.node(n, OpPlugin, res, args...)
-	r.Def = def
-	r.Str = def.Name
+	r.setDef(def)
+	r.setStr(def.Name)
 	return r
 }
 

@@ -45,27 +45,62 @@ const (
 )
 
 // Node is a typed expression: the checker's output, the evaluator's input.
+// A large sheet types about ten nodes per cell, so the node is kept small:
+// the index is 32 bits beside the operation, and the name and plugin that
+// few nodes carry sit behind one pointer.
 type Node struct {
 	Op      Op
 	Builtin Builtin // beside Op: a million nodes, 8 bytes each
+	Index   int32
 	Type    *funcs.Type
 	Num     float64
-	Str     string
-	Index   int
-	Def     *funcs.Def
 	Args    []*Node
 	// Src and F locate the node in the sheet; Range computes the span only
 	// when a message needs it, which keeps checking a large sheet cheap.
 	Src ast.Node
 	F   *formula.Formula
-	rng *diag.Range
+	ext *nodeExt
+}
+
+// nodeExt holds what only a few nodes carry.
+type nodeExt struct {
+	str string
+	def *funcs.Def
+}
+
+// Str is the text of a string constant, or the name of the function a
+// call or function value names ("" for other nodes).
+func (n *Node) Str() string {
+	if n.ext == nil {
+		return ""
+	}
+	return n.ext.str
+}
+
+// Def is the plugin a plugin call applies (nil for other nodes).
+func (n *Node) Def() *funcs.Def {
+	if n.ext == nil {
+		return nil
+	}
+	return n.ext.def
+}
+
+func (n *Node) setStr(s string) {
+	if n.ext == nil {
+		n.ext = &nodeExt{}
+	}
+	n.ext.str = s
+}
+
+func (n *Node) setDef(d *funcs.Def) {
+	if n.ext == nil {
+		n.ext = &nodeExt{}
+	}
+	n.ext.def = d
 }
 
 // Range returns the source range of the node (zero when it has none).
 func (n *Node) Range() diag.Range {
-	if n.rng != nil {
-		return *n.rng
-	}
 	if n.Src == nil || n.F == nil {
 		return diag.Range{}
 	}

@@ -53,7 +53,7 @@ func (t *typer) expr(n ast.Node) *Node {
 		return r
 	case *ast.StringNode:
 		r := t.node(n, OpString, funcs.StringType)
-		r.Str = n.Value
+		r.setStr(n.Value)
 		return r
 	case *ast.IdentifierNode:
 		return t.ident(n)
@@ -129,7 +129,7 @@ func (t *typer) ident(n *ast.IdentifierNode) *Node {
 	for i, p := range t.params {
 		if p.Name == name {
 			r := t.node(n, OpParam, p.Type)
-			r.Index = i
+			r.Index = int32(i)
 			return r
 		}
 	}
@@ -146,7 +146,7 @@ func (t *typer) ident(n *ast.IdentifierNode) *Node {
 			return nil // failed or in a cycle: reported there
 		}
 		r := t.node(n, OpCell, ty)
-		r.Index = i
+		r.Index = int32(i)
 		return r
 	}
 	if t.c.use.isAlias(t.scope() + name) {
@@ -304,11 +304,11 @@ func (t *typer) member(n *ast.MemberNode) *Node {
 			}
 			if x.Type.Kind == funcs.Table {
 				r := t.node(n, OpColumn, funcs.ListOf(x.Type.Fields[i].Type), x)
-				r.Index = i
+				r.Index = int32(i)
 				return r
 			}
 			r := t.node(n, OpField, x.Type.Fields[i].Type, x)
-			r.Index = i
+			r.Index = int32(i)
 			return r
 		}
 		return t.fail(n, "`."+field+"` needs a record or a table, got "+t.describeType(x.Type), "fields belong to records such as `{E: 210 GPa}` and columns to tables",

@@ -248,7 +248,7 @@ func (t *typer) templateMember(n *ast.MemberNode) (*Node, bool) {
 		return nil, true // failed or in a cycle: reported there
 	}
 	r := t.node(n, OpCell, ty)
-	r.Index = i
+	r.Index = int32(i)
 	return r, true
 }
 

@@ -97,7 +97,7 @@ func (m *Machine) builtin(n *check.Node) numFn {
 		return m.interp(n)
 	}
 	return func(f *Frame) float64 {
-		f.fail(n, "cannot evaluate "+n.Str, "")
+		f.fail(n, "cannot evaluate "+n.Str(), "")
 		return nan
 	}
 }
@@ -123,7 +123,7 @@ func (m *Machine) listReduce(n *check.Node) numFn {
 			if id == check.BSum {
 				return 0
 			}
-			f.fail(n, n.Str+" of an empty list", "")
+			f.fail(n, n.Str()+" of an empty list", "")
 			return nan
 		}
 		r := l[0]

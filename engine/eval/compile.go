@@ -16,7 +16,6 @@ type Machine struct {
 	P        *check.Program
 	num      []numFn // Number cells and Number-valued function bodies
 	val      []valFn // every other cell and function body
-	bool_    []func(*Frame) bool
 	demand   []numFn
 	capacity []numFn
 	topoPos  []int32
@@ -40,8 +39,13 @@ type step struct {
 // (they failed checking) get none and evaluate as unknown.
 func Compile(p *check.Program) *Machine {
 	n := len(p.Cells)
-	m := &Machine{P: p, num: make([]numFn, n), val: make([]valFn, n), bool_: make([]func(*Frame) bool, n),
-		demand: make([]numFn, n), capacity: make([]numFn, n), topoPos: make([]int32, n)}
+	m := &Machine{P: p, num: make([]numFn, n), val: make([]valFn, n), topoPos: make([]int32, n)}
+	for _, c := range p.Cells {
+		if c.Kind == check.Check {
+			m.demand, m.capacity = make([]numFn, n), make([]numFn, n)
+			break
+		}
+	}
 	for k, i := range p.Order {
 		m.topoPos[i] = int32(k)
 	}
@@ -118,7 +122,6 @@ func (m *Machine) compileCell(c *check.Cell) {
 			m.num[c.Index] = m.numOf(c.Body)
 		case funcs.Bool:
 			b := m.boolOf(c.Body)
-			m.bool_[c.Index] = b
 			m.val[c.Index] = func(f *Frame) funcs.Value { return b(f) }
 		default:
 			m.val[c.Index] = m.valOf(c.Body)
@@ -369,7 +372,7 @@ func (m *Machine) valOf(n *check.Node) valFn {
 	}
 	switch n.Op {
 	case check.OpString:
-		s := n.Str
+		s := n.Str()
 		return func(*Frame) funcs.Value { return s }
 	case check.OpCell:
 		i := n.Index
@@ -404,7 +407,7 @@ func (m *Machine) valOf(n *check.Node) valFn {
 			return r
 		}
 	case check.OpField:
-		rec, i := m.valOf(n.Args[0]), n.Index
+		rec, i := m.valOf(n.Args[0]), int(n.Index)
 		return func(f *Frame) funcs.Value {
 			r, ok := rec(f).(*funcs.RecordValue)
 			if !ok || i >= len(r.Fields) {
@@ -414,7 +417,7 @@ func (m *Machine) valOf(n *check.Node) valFn {
 			return r.Fields[i]
 		}
 	case check.OpColumn:
-		tbl, i := m.valOf(n.Args[0]), n.Index
+		tbl, i := m.valOf(n.Args[0]), int(n.Index)
 		return func(f *Frame) funcs.Value {
 			t, ok := tbl(f).(*funcs.TableValue)
 			if !ok || i >= len(t.Cols) {

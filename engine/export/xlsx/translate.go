@@ -95,7 +95,7 @@ func describeNode(t *translator, n *check.Node) string {
 	}
 	switch n.Op {
 	case check.OpPlugin:
-		return "`" + n.Def.Name + "`"
+		return "`" + n.Def().Name + "`"
 	case check.OpIndex:
 		return "a list element"
 	}
@@ -127,7 +127,7 @@ func (t *translator) expr(n *check.Node) (term, error) {
 		}
 		return t.value(n)
 	case check.OpParam:
-		if len(t.args) == 0 || n.Index >= len(t.args[len(t.args)-1]) {
+		if len(t.args) == 0 || int(n.Index) >= len(t.args[len(t.args)-1]) {
 			return term{}, fail("a parameter outside its function")
 		}
 		a := t.args[len(t.args)-1][n.Index]
@@ -184,7 +184,7 @@ func (t *translator) expr(n *check.Node) (term, error) {
 	case check.OpUser:
 		return t.user(n)
 	case check.OpPlugin:
-		return term{}, fail("uses `"+n.Def.Name+"`", ", which only Sheaf computes")
+		return term{}, fail("uses `"+n.Def().Name+"`", ", which only Sheaf computes")
 	case check.OpIndex:
 		return term{}, fail("picks an element of a list")
 	}
