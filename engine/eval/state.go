@@ -100,7 +100,8 @@ func (s *State) Overridden(i int) bool { return s.over[i] }
 
 // Eval evaluates every stale cell: all of them the first time, then only
 // the cells downstream of inputs set since. It returns the indices of the
-// cells evaluated, in evaluation order (valid until the next Eval).
+// cells evaluated, in evaluation order (valid until the next Eval; read
+// only: after the first Eval it is the program's Order itself).
 func (s *State) Eval() []int {
 	p := s.M.P
 	if !s.done {
