@@ -23,9 +23,12 @@ const calcCols = 8
 var calcHeader = [calcCols]string{"Name", "Description", "Expression as written", "With values", "Value", "Unit", "Reference", "Note"}
 var calcWidths = [calcCols]float64{16, 34, 30, 46, 13, 9, 26, 30}
 
+// calcMono marks the columns shown in the monospaced expression font.
+var calcMono = [calcCols]bool{2: true, 3: true}
+
 // Notes written beside values.
 const (
-	noteInput     = "input: type a new value in the unit shown"
+	noteInput     = "input: edit in the unit shown"
 	noteTable     = "input table: see the Data tab"
 	noteFunction  = "function: inlined in the formulas that call it"
 	noteValueOnly = "value from Sheaf, not recomputed here: "
@@ -96,7 +99,7 @@ func (x *exporter) writeCalc() error {
 		case rowField:
 			cells = x.fieldRow(r)
 		}
-		if err := sw.SetRow("A"+strconv.Itoa(r.row), row); err != nil {
+		if err := sw.SetRow("A"+strconv.Itoa(r.row), row, excelize.RowOpts{Height: rowHeight(cells[:], calcWidths[:], calcMono[:])}); err != nil {
 			return err
 		}
 	}

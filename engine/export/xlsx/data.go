@@ -156,9 +156,18 @@ func (x *exporter) writeCharts() error {
 			c, _ := excelize.ColumnNumberToName(j + 1)
 			return dataColumnRef(c, s.b.firstDataRow(), s.b.firstDataRow()+s.b.t.Rows()-1)
 		}
+		headerRef := func(j int) string {
+			c, _ := excelize.ColumnNumberToName(j + 1)
+			row := strconv.Itoa(s.b.firstDataRow() - 1)
+			return TabData + "!$" + c + "$" + row
+		}
 		ch := &excelize.Chart{
 			Type:      excelize.Scatter,
-			Series:    []excelize.ChartSeries{{Name: s.yAx, Categories: colRange(s.xc), Values: colRange(s.yc), Marker: excelize.ChartMarker{Symbol: "none"}, Line: excelize.LineOptions{Width: 1.5}}},
+			// The series name must be a cell reference: the header of the
+			// plotted column. A scatter series draws no line unless its
+			// type is set.
+			Series: []excelize.ChartSeries{{Name: headerRef(s.yc), Categories: colRange(s.xc), Values: colRange(s.yc),
+				Marker: excelize.ChartMarker{Symbol: "none"}, Line: excelize.LineOptions{Type: excelize.LineSolid, Width: 1.5}}},
 			Title:     excelize.ChartTitle{Paragraph: []excelize.RichTextRun{{Text: s.title}}},
 			Legend:    excelize.ChartLegend{Position: "none"},
 			XAxis:     excelize.ChartAxis{MajorGridLines: true, Title: excelize.ChartTitle{Paragraph: []excelize.RichTextRun{{Text: s.xAxis}}}},

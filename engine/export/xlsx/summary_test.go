@@ -6,6 +6,7 @@ import (
 	"flag"
 	"io"
 	"path/filepath"
+	"regexp"
 	"strings"
 	"testing"
 
@@ -98,6 +99,19 @@ func TestCharts(t *testing.T) {
 	}
 	if len(charts) != 4 {
 		t.Fatalf("%d chart parts, want 4", len(charts))
+	}
+	for i, c := range charts {
+		// Every series is drawn with a line, and its name is a reference
+		// to a header cell, not free text (which a spreadsheet program
+		// would reject as a broken formula).
+		if strings.Contains(c, "<a:ln><a:noFill>") {
+			t.Errorf("chart %d draws its series without a line", i+1)
+		}
+		for _, m := range regexp.MustCompile(`<tx><strRef><f>([^<]*)</f>`).FindAllStringSubmatch(c, -1) {
+			if !regexp.MustCompile(`^Data!\$[A-Z]+\$[0-9]+$`).MatchString(m[1]) {
+				t.Errorf("chart %d names its series %q, not a cell reference", i+1, m[1])
+			}
+		}
 	}
 	all := strings.Join(charts, "\n")
 	for _, want := range []string{
