@@ -162,7 +162,7 @@ func (x *exporter) writeCharts() error {
 			return TabData + "!$" + c + "$" + row
 		}
 		ch := &excelize.Chart{
-			Type:      excelize.Scatter,
+			Type: excelize.Scatter,
 			// The series name must be a cell reference: the header of the
 			// plotted column. A scatter series draws no line unless its
 			// type is set.
