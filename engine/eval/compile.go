@@ -6,6 +6,7 @@ import (
 	"sync"
 
 	"github.com/sheafcalc/sheaf/engine/check"
+	"github.com/sheafcalc/sheaf/engine/diag"
 	"github.com/sheafcalc/sheaf/funcs"
 	"github.com/sheafcalc/sheaf/internal/plural"
 )
@@ -26,6 +27,10 @@ type Machine struct {
 	// state leaves Val nil.
 	needVal  bool
 	hasCheck bool
+	// noProblem and noOver are all nil and all false, shared read only by
+	// every state until it writes its own (see State.setProblem).
+	noProblem []*diag.Diagnostic
+	noOver    []bool
 }
 
 // step is one cell of the full evaluation: fn is its Number body when the
@@ -39,7 +44,8 @@ type step struct {
 // (they failed checking) get none and evaluate as unknown.
 func Compile(p *check.Program) *Machine {
 	n := len(p.Cells)
-	m := &Machine{P: p, num: make([]numFn, n), val: make([]valFn, n), topoPos: make([]int32, n)}
+	m := &Machine{P: p, num: make([]numFn, n), val: make([]valFn, n), topoPos: make([]int32, n),
+		noProblem: make([]*diag.Diagnostic, n), noOver: make([]bool, n)}
 	for _, c := range p.Cells {
 		if c.Kind == check.Check {
 			m.demand, m.capacity = make([]numFn, n), make([]numFn, n)

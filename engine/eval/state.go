@@ -19,11 +19,14 @@ type State struct {
 	Capacity []float64 // check cells: capacity in SI
 	Problem  []*diag.Diagnostic
 	over     []bool // overridden inputs
-	dirty    []int
-	mark     []uint32
-	gen      uint32
-	done     bool
-	last     []int
+	// Problem and over start as the machine's shared empty slices (most
+	// states never write either) and are copied on the first write.
+	ownProblem, ownOver bool
+	dirty               []int
+	mark                []uint32
+	gen                 uint32
+	done                bool
+	last                []int
 	// lastShared is set while last is Program.Order itself, which must
 	// not be appended to.
 	lastShared bool
@@ -37,8 +40,8 @@ func (m *Machine) NewState() *State {
 		M:       m,
 		F:       Frame{Num: make([]float64, n), Stack: make([]float64, 0, 16)},
 		Known:   make([]bool, n),
-		Problem: make([]*diag.Diagnostic, n),
-		over:    make([]bool, n),
+		Problem: m.noProblem,
+		over:    m.noOver,
 	}
 	// A sheet of numbers and no checks (the large generated ones) needs
 	// neither general values nor check sides: a fresh state is then a
@@ -62,11 +65,20 @@ func (s *State) Clone() *State {
 		Known:    slices.Clone(s.Known),
 		Demand:   slices.Clone(s.Demand),
 		Capacity: slices.Clone(s.Capacity),
-		Problem:  slices.Clone(s.Problem),
-		over:     slices.Clone(s.over),
-		dirty:    slices.Clone(s.dirty),
-		done:     s.done,
-		last:     slices.Clone(s.last),
+		Problem:  s.Problem,
+		over:     s.over,
+		// Own lists are copied; the machine's shared empty ones are not.
+		ownProblem: s.ownProblem,
+		ownOver:    s.ownOver,
+		dirty:      slices.Clone(s.dirty),
+		done:       s.done,
+		last:       slices.Clone(s.last),
+	}
+	if c.ownProblem {
+		c.Problem = slices.Clone(s.Problem)
+	}
+	if c.ownOver {
+		c.over = slices.Clone(s.over)
 	}
 	return c
 }
@@ -85,12 +97,14 @@ func (s *State) Set(i int, v funcs.Value) {
 		}
 		s.F.Val[i] = v
 	}
+	s.ownOverrides()
 	s.over[i] = true
 	s.dirty = append(s.dirty, i)
 }
 
 // Reset returns cell i to its written expression and marks it stale.
 func (s *State) Reset(i int) {
+	s.ownOverrides()
 	s.over[i] = false
 	s.dirty = append(s.dirty, i)
 }
@@ -200,10 +214,10 @@ func (s *State) numDone(c *check.Cell, v float64) {
 		return
 	}
 	if !isFinite(v) {
-		s.Problem[i] = &diag.Diagnostic{Range: c.Formula.Source.Range,
+		s.setProblem(i, &diag.Diagnostic{Range: c.Formula.Source.Range,
 			Summary: "`" + c.Name + "` is not a finite number with these inputs",
 			Detail:  "the formula overflowed or produced NaN; cells that use it are skipped",
-			Hint:    "check the inputs and the formula"}
+			Hint:    "check the inputs and the formula"})
 		return
 	}
 	f.Num[i] = v
@@ -213,7 +227,7 @@ func (s *State) numDone(c *check.Cell, v float64) {
 // run evaluates cell i.
 func (s *State) run(i int) {
 	c := s.M.P.Cells[i]
-	s.Problem[i] = nil
+	s.setProblem(i, nil)
 	s.Known[i] = false
 	if c.Type == nil {
 		return
@@ -245,10 +259,10 @@ func (s *State) run(i int) {
 		}
 		s.Demand[i], s.Capacity[i] = d, cp
 		if !(cp > 0) || math.IsInf(cp, 0) || !isFinite(d) {
-			s.Problem[i] = &diag.Diagnostic{Range: c.Formula.Source.Range,
+			s.setProblem(i, &diag.Diagnostic{Range: c.Formula.Source.Range,
 				Summary: "check `" + c.Name + "` cannot be assessed: the capacity must be a positive finite number",
 				Detail:  "utilisation is demand / capacity; with these inputs the capacity is not positive",
-				Hint:    "check the inputs of the capacity side"}
+				Hint:    "check the inputs of the capacity side"})
 			return
 		}
 		f.Num[i] = d / cp
@@ -291,8 +305,30 @@ func (s *State) failed(c *check.Cell, fl *Failure) {
 			}
 		}
 	}
-	s.Problem[c.Index] = &diag.Diagnostic{Range: r, Summary: "`" + c.Name + "` cannot be computed: " + fl.Msg, Detail: detail, Hint: fl.Hint}
+	s.setProblem(c.Index, &diag.Diagnostic{Range: r, Summary: "`" + c.Name + "` cannot be computed: " + fl.Msg, Detail: detail, Hint: fl.Hint})
 }
 
 // Last returns the indices of the cells the last Eval computed.
 func (s *State) Last() []int { return s.last }
+
+// setProblem records d (nil: none) as the problem of cell i. A state
+// shares the machine's empty problem list until its first problem: a
+// fresh state of a large sheet then costs a slice less, and clearing a
+// problem it never had writes nothing.
+func (s *State) setProblem(i int, d *diag.Diagnostic) {
+	if !s.ownProblem {
+		if d == nil {
+			return
+		}
+		s.Problem, s.ownProblem = slices.Clone(s.Problem), true
+	}
+	s.Problem[i] = d
+}
+
+// ownOverrides gives the state its own list of overrides before it
+// writes one (it starts with the machine's shared empty list).
+func (s *State) ownOverrides() {
+	if !s.ownOver {
+		s.over, s.ownOver = slices.Clone(s.over), true
+	}
+}
