@@ -1,6 +1,7 @@
 package formula
 
 import (
+	"errors"
 	"strconv"
 	"strings"
 	"unicode"
@@ -17,6 +18,7 @@ type literal struct {
 	numberText string
 	unitText   string
 	hasUnit    bool
+	outOfRange bool // the number overflows, or underflows to zero
 }
 
 // scanIssue is a problem found before parsing, as offsets into the text.
@@ -76,6 +78,11 @@ func scan(text string) (lits []literal, issues []scanIssue, depth int) {
 				"use sum(xs), min(xs), max(xs), mean(xs) or a table column"})
 		case isDigit(c) || (c == '.' && i+1 < len(text) && isDigit(text[i+1]) && (i == 0 || text[i-1] != '.')):
 			lit, next := scanNumber(text, i)
+			if lit.outOfRange {
+				issues = append(issues, scanIssue{lit.off, lit.numEnd, "the number `" + lit.numberText + "` is out of range",
+					"numbers are 64-bit floating point: their magnitude must lie between about 2.2e-308 and 1.8e308",
+					"check the exponent"})
+			}
 			if lit.hasUnit {
 				lits = append(lits, lit)
 			}
@@ -140,11 +147,13 @@ func scanNumber(text string, i int) (literal, int) {
 		}
 	}
 	numText := text[i:j]
-	v, err := strconv.ParseFloat(strings.ReplaceAll(numText, "_", ""), 64)
+	digits := strings.ReplaceAll(numText, "_", "")
+	v, err := strconv.ParseFloat(digits, 64)
+	outOfRange := errors.Is(err, strconv.ErrRange) || (err == nil && v == 0 && strings.ContainsAny(mantissa(digits), "123456789"))
 	if err != nil {
-		v = 0 // expr-lang reports the malformed number when it parses
+		v = 0 // expr-lang reports a malformed number when it parses
 	}
-	lit := literal{off: i, end: j, numEnd: j, unitOff: j, value: v, numberText: numText}
+	lit := literal{off: i, end: j, numEnd: j, unitOff: j, value: v, numberText: numText, outOfRange: outOfRange}
 	k := j
 	for k < len(text) && (text[k] == ' ' || text[k] == '\t') {
 		k++
@@ -165,6 +174,14 @@ func scanNumber(text string, i int) (literal, int) {
 	}
 	lit.unitOff, lit.end, lit.unitText, lit.hasUnit = k, e, text[k:e], true
 	return lit, e
+}
+
+// mantissa returns the digits of a number before its exponent.
+func mantissa(num string) string {
+	if k := strings.IndexAny(num, "eE"); k >= 0 {
+		return num[:k]
+	}
+	return num
 }
 
 // unitStart reports whether s begins a unit run.
