@@ -3,7 +3,9 @@ package xlsxout
 import (
 	"fmt"
 	"math"
+	"regexp"
 	"strconv"
+	"strings"
 
 	"github.com/xuri/excelize/v2"
 
@@ -180,6 +182,29 @@ func (x *exporter) writeCharts() error {
 		}
 		x.stats.Charts++
 	}
+	numericXValues(x.f)
 	x.finish = append(x.finish, finishing{TabCharts, true})
 	return nil
+}
+
+// xValText matches the x values of a scatter series written as a text
+// reference; xValNumber is what replaces it.
+var (
+	xValText   = regexp.MustCompile(`<xVal><strRef>(<f>[^<]*</f>)</strRef></xVal>`)
+	xValNumber = []byte(`<xVal><numRef>$1</numRef></xVal>`)
+)
+
+// numericXValues makes the x values of every scatter series a numeric
+// reference. excelize writes them as a text reference, which a spreadsheet
+// program may read as category labels and plot at x = 1, 2, 3, …: wrong for
+// samples spaced unevenly along a bar (they crowd at every joint and load).
+func numericXValues(f *excelize.File) {
+	f.Pkg.Range(func(key, value any) bool {
+		name, _ := key.(string)
+		b, ok := value.([]byte)
+		if ok && strings.HasPrefix(name, "xl/charts/chart") {
+			f.Pkg.Store(name, xValText.ReplaceAll(b, xValNumber))
+		}
+		return true
+	})
 }

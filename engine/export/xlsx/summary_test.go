@@ -104,6 +104,9 @@ func TestCharts(t *testing.T) {
 		// Every series is drawn with a line, and its name is a reference
 		// to a header cell, not free text (which a spreadsheet program
 		// would reject as a broken formula).
+		if !strings.Contains(c, "<xVal><numRef>") || strings.Contains(c, "<xVal><strRef>") {
+			t.Errorf("chart %d does not give its x values as numbers", i+1)
+		}
 		if strings.Contains(c, "<a:ln><a:noFill>") {
 			t.Errorf("chart %d draws its series without a line", i+1)
 		}
