@@ -3,11 +3,9 @@ package check
 import (
 	"fmt"
 	"maps"
-	"runtime"
 	"slices"
 	"strconv"
 	"strings"
-	"sync"
 
 	"github.com/expr-lang/expr/ast"
 
@@ -16,6 +14,7 @@ import (
 	"github.com/sheafcalc/sheaf/engine/sheet"
 	"github.com/sheafcalc/sheaf/engine/units"
 	"github.com/sheafcalc/sheaf/funcs"
+	"github.com/sheafcalc/sheaf/internal/parallel"
 )
 
 // Options limit and steer checking.
@@ -302,22 +301,7 @@ func (c *checker) parseAll() {
 			lists[i] = errs
 		}
 	}
-	n := len(cells)
-	workers := min(runtime.GOMAXPROCS(0), 8)
-	if n < 2000 || workers < 2 {
-		work(0, n)
-	} else {
-		var wg sync.WaitGroup
-		chunk := (n + workers - 1) / workers
-		for lo := 0; lo < n; lo += chunk {
-			wg.Add(1)
-			go func(lo, hi int) {
-				defer wg.Done()
-				work(lo, hi)
-			}(lo, min(lo+chunk, n))
-		}
-		wg.Wait()
-	}
+	parallel.Chunks(len(cells), 2000, work)
 	for i, l := range lists {
 		c.errs = append(c.errs, l...)
 		if l.HasErrors() {

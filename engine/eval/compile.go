@@ -2,12 +2,11 @@ package eval
 
 import (
 	"math"
-	"runtime"
-	"sync"
 
 	"github.com/sheafcalc/sheaf/engine/check"
 	"github.com/sheafcalc/sheaf/engine/diag"
 	"github.com/sheafcalc/sheaf/funcs"
+	"github.com/sheafcalc/sheaf/internal/parallel"
 	"github.com/sheafcalc/sheaf/internal/plural"
 )
 
@@ -62,7 +61,7 @@ func Compile(p *check.Program) *Machine {
 	// one after the other lie side by side in memory: on a large sheet,
 	// evaluation then streams through them instead of missing the cache
 	// at every cell.
-	parallel(len(p.Order), 4096, func(lo, hi int) {
+	parallel.Chunks(len(p.Order), 4096, func(lo, hi int) {
 		for _, i := range p.Order[lo:hi] {
 			m.compileCell(p.Cells[i])
 		}
@@ -87,26 +86,6 @@ func Compile(p *check.Program) *Machine {
 		}
 	}
 	return m
-}
-
-// parallel runs work over [0, n) in contiguous chunks, one per core, when
-// n is at least minN; else in the calling goroutine.
-func parallel(n, minN int, work func(lo, hi int)) {
-	workers := min(runtime.GOMAXPROCS(0), 8)
-	if n < minN || workers < 2 {
-		work(0, n)
-		return
-	}
-	var wg sync.WaitGroup
-	chunk := (n + workers - 1) / workers
-	for lo := 0; lo < n; lo += chunk {
-		wg.Add(1)
-		go func(lo, hi int) {
-			defer wg.Done()
-			work(lo, hi)
-		}(lo, min(lo+chunk, n))
-	}
-	wg.Wait()
 }
 
 // compileCell fills the slots of cell c.
