@@ -8,6 +8,7 @@ import (
 
 	"github.com/spf13/cobra"
 
+	"github.com/sheafcalc/sheaf/engine/check"
 	"github.com/sheafcalc/sheaf/engine/diag"
 	"github.com/sheafcalc/sheaf/engine/units"
 	"github.com/sheafcalc/sheaf/funcs"
@@ -24,7 +25,8 @@ func newFuncsCmd(a *app) *cobra.Command {
 	cmd := &cobra.Command{
 		Use:   "funcs [NAME]",
 		Short: "List the functions a sheet may call, or describe one",
-		Long: `Without a name, list every function by family with its signature in
+		Long: `Without a name, list the built-in math functions with their dimension
+rules, then every structural function by family with its signature in
 units: name(parameter [unit], ...) -> result [unit], and a one-line summary.
 A parameter marked ? may be left out. Units shown are the preferred metric
 display units; a sheet may pass any unit of the same dimension.
@@ -52,10 +54,15 @@ result, which a sheet reads as r.field) and the published source.`,
 	return cmd
 }
 
-// runFuncsList prints the functions grouped by family.
+// builtinFamily is the family name under which the language's own math
+// functions are listed; they live in the checker, not in the registry.
+const builtinFamily = "math"
+
+// runFuncsList prints the built-in math functions, then the plugin
+// functions grouped by family.
 func runFuncsList(a *app, o funcsOptions) error {
 	all := funcs.All()
-	var families []string
+	families := []string{builtinFamily}
 	for _, d := range all {
 		if !slices.Contains(families, d.Family) {
 			families = append(families, d.Family)
@@ -75,6 +82,12 @@ func runFuncsList(a *app, o funcsOptions) error {
 		}
 		first = false
 		fmt.Fprintf(w, "%s\n", fam)
+		if fam == builtinFamily {
+			for _, b := range check.Builtins {
+				fmt.Fprintf(w, "  %s\n      %s\n", b.Sig, b.Rule)
+			}
+			continue
+		}
 		for _, d := range all {
 			if d.Family != fam {
 				continue
@@ -88,9 +101,19 @@ func runFuncsList(a *app, o funcsOptions) error {
 
 // runFuncsDescribe prints the full description of one function.
 func runFuncsDescribe(a *app, name string) error {
+	for _, b := range check.Builtins {
+		if b.Name == name {
+			fmt.Fprintf(a.stdout, "%s (built into the language)\n  %s\n\nDimension rule:\n", b.Name, b.Sig)
+			wrap(a.stdout, b.Rule, "  ", 78)
+			return nil
+		}
+	}
 	d, ok := funcs.Lookup(name)
 	if !ok {
 		var names []string
+		for _, b := range check.Builtins {
+			names = append(names, b.Name)
+		}
 		for _, f := range funcs.All() {
 			names = append(names, f.Name)
 		}

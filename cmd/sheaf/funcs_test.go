@@ -29,6 +29,9 @@ func TestFuncsCommandGolden(t *testing.T) {
 		args []string
 		code int
 	}{
+		{"family-math", []string{"funcs", "--family", "math"}, exitOK},
+		{"builtin-interp", []string{"funcs", "interp"}, exitOK},
+		{"unknown-builtin", []string{"funcs", "sqr"}, exitInput},
 		{"family-section", []string{"funcs", "--family", "section"}, exitOK},
 		{"family-composite", []string{"funcs", "--family", "composite"}, exitOK},
 		{"family-plastic", []string{"funcs", "--family", "plastic"}, exitOK},
