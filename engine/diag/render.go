@@ -60,7 +60,7 @@ func writeSnippet(b *strings.Builder, text []byte, r Range) {
 	}
 	width = max(width, 1)
 	num := fmt.Sprintf("%4d | ", r.Start.Line)
-	b.WriteString(num + strings.ReplaceAll(line, "\t", " ") + "\n")
+	b.WriteString(num + printable(line) + "\n")
 	b.WriteString(strings.Repeat(" ", len(num)-2) + "| " + strings.Repeat(" ", max(r.Start.Col-1, 0)) + strings.Repeat("^", width) + "\n")
 }
 
@@ -79,4 +79,19 @@ func lineText(text []byte, n int) (string, bool) {
 		s = s[:j]
 	}
 	return strings.TrimSuffix(s, "\r"), true
+}
+
+// printable makes a source line safe to print on a terminal: a tab becomes
+// a space, and a control character or a byte that is not UTF-8 becomes
+// U+FFFD, one rune for one rune, so the caret columns still line up.
+func printable(line string) string {
+	return strings.Map(func(r rune) rune {
+		switch {
+		case r == '\t':
+			return ' '
+		case r < 0x20 || r == 0x7f || (r >= 0x80 && r < 0xa0):
+			return utf8.RuneError
+		}
+		return r
+	}, line)
 }
