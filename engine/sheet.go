@@ -3,6 +3,7 @@ package engine
 import (
 	"fmt"
 	"os"
+	"sync"
 
 	"github.com/sheafcalc/sheaf/engine/check"
 	"github.com/sheafcalc/sheaf/engine/diag"
@@ -37,7 +38,7 @@ type Meta = check.Meta
 type Sheet struct {
 	name    string
 	src     []byte
-	file    *sheet.File
+	file    func() *sheet.File // parses src again on first use (see File)
 	prog    *check.Program
 	mach    *eval.Machine
 	system  units.System
@@ -80,13 +81,19 @@ func Compile(name string, src []byte, opts ...Option) (*Sheet, error) {
 		errs.Sort()
 		return nil, errs
 	}
-	prog, cerrs := check.Sheet(f, cfg.checkOptions())
+	opt := cfg.checkOptions()
+	opt.DropItems = true // f is not kept: File parses the source again
+	prog, cerrs := check.Sheet(f, opt)
 	errs = append(errs, cerrs...)
 	errs.Sort()
 	if errs.HasErrors() {
 		return nil, errs
 	}
-	s := &Sheet{name: name, src: src, file: f, prog: prog, mach: eval.Compile(prog), sigFigs: cfg.sigFigs, cfg: cfg}
+	s := &Sheet{name: name, src: src, prog: prog, mach: eval.Compile(prog), sigFigs: cfg.sigFigs, cfg: cfg}
+	s.file = sync.OnceValue(func() *sheet.File {
+		f, _ := sheet.Parse(name, src, sheet.MaxBytes(cfg.maxBytes))
+		return f
+	})
 	s.system = prog.Meta.System
 	if cfg.hasSystem && cfg.system != units.Neutral {
 		s.system = cfg.system
@@ -100,8 +107,11 @@ func (s *Sheet) Name() string { return s.name }
 // Source returns the text of the sheet.
 func (s *Sheet) Source() []byte { return s.src }
 
-// File returns the syntax tree.
-func (s *Sheet) File() *sheet.File { return s.file }
+// File returns the syntax tree. The sheet does not keep the tree it was
+// checked from (on a large sheet it is a sizeable part of the memory a
+// load takes at its peak): File parses the source again the first time it
+// is called, which gives the same tree, and keeps it.
+func (s *Sheet) File() *sheet.File { return s.file() }
 
 // Program returns the checked program (for exporters that walk the typed
 // trees).

@@ -24,6 +24,13 @@ type Options struct {
 	MaxBytes  int          // size of a template file; 0 means sheet.DefaultMaxBytes
 	System    units.System // preferred units in messages; Neutral means the sheet's own
 	HasSystem bool
+	// DropItems lets Program.File and Program.Files keep only the name,
+	// source and syntax problems of each file once its items are read into
+	// cells: a sheet of 100,000 cells would otherwise hold its syntax tree
+	// (tens of megabytes) beside the program for nothing. f itself is not
+	// changed; a caller that lets go of it frees the items for the phases
+	// that follow. Whoever needs the items again parses Src.
+	DropItems bool
 }
 
 // DefaultMaxCells is the default limit on the number of cells of a sheet.
@@ -58,6 +65,9 @@ func Sheet(f *sheet.File, opt Options) (*Program, diag.List) {
 	}
 	c := &checker{prog: &Program{File: f, Files: []*sheet.File{f}, ByName: make(map[string]int, len(f.Items))}, opt: opt}
 	c.collect()
+	if opt.DropItems {
+		c.dropItems()
+	}
 	if len(c.prog.Cells) > opt.MaxCells {
 		c.errs.Errorf(c.prog.Cells[opt.MaxCells].Range, fmt.Sprintf("a sheet may hold at most %d cells; this one has %d", opt.MaxCells, len(c.prog.Cells)),
 			"split the calculation into sheets, or raise the limit", "too many cells")
@@ -71,6 +81,19 @@ func Sheet(f *sheet.File, opt Options) (*Program, diag.List) {
 	c.typeAll()
 	c.errs.Sort()
 	return c.prog, c.errs
+}
+
+// dropItems points Program.File and Files at copies of the files without
+// their items (see Options.DropItems).
+func (c *checker) dropItems() {
+	p := c.prog
+	for i, f := range p.Files {
+		bare := &sheet.File{Name: f.Name, Src: f.Src, Syntax: f.Syntax}
+		if f == p.File {
+			p.File = bare
+		}
+		p.Files[i] = bare
+	}
 }
 
 // collect reads the items into cells, the header into Meta, and reports
