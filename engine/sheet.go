@@ -83,6 +83,7 @@ func Compile(name string, src []byte, opts ...Option) (*Sheet, error) {
 	}
 	opt := cfg.checkOptions()
 	opt.DropItems = true // f is not kept: File parses the source again
+	opt.DropTrees = true // the typed nodes are all the sheet needs
 	prog, cerrs := check.Sheet(f, opt)
 	errs = append(errs, cerrs...)
 	errs.Sort()

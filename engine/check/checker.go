@@ -31,6 +31,11 @@ type Options struct {
 	// changed; a caller that lets go of it frees the items for the phases
 	// that follow. Whoever needs the items again parses Src.
 	DropItems bool
+	// DropTrees releases the syntax tree and references of each cell's
+	// formula once the cell is typed (formula.Formula.Release): the typed
+	// nodes keep their spans, and the memory of the trees is reused for
+	// the typed nodes of the cells that follow.
+	DropTrees bool
 }
 
 // DefaultMaxCells is the default limit on the number of cells of a sheet.
@@ -434,38 +439,46 @@ func (c *checker) typeAll() {
 		sys = c.opt.System
 	}
 	for _, i := range c.prog.Order {
-		cell := c.prog.Cells[i]
-		if cell.Kind == Table {
-			continue // typed when read
+		c.typeOne(i, sys)
+		if f := c.prog.Cells[i].Formula; f != nil && c.opt.DropTrees {
+			f.Release()
 		}
-		if cell.Formula == nil || cell.Formula.Tree == nil {
-			if c.looped == nil || !c.looped[i] {
-				c.standInFor(cell, nil, false) // its formula did not parse
+	}
+}
+
+// typeOne types cell i (see typeAll).
+func (c *checker) typeOne(i int, sys units.System) {
+	cell := c.prog.Cells[i]
+	if cell.Kind == Table {
+		return // typed when read
+	}
+	if cell.Formula == nil || cell.Formula.Tree == nil {
+		if c.looped == nil || !c.looped[i] {
+			c.standInFor(cell, nil, false) // its formula did not parse
+		}
+		return
+	}
+	blocked, tainted := false, false
+	for _, j := range cell.DepIdx {
+		if c.prog.Cells[j].Type == nil {
+			if c.typeOf(j) == nil {
+				blocked = true
+			} else {
+				tainted = true
 			}
-			continue
 		}
-		blocked, tainted := false, false
-		for _, j := range cell.DepIdx {
-			if c.prog.Cells[j].Type == nil {
-				if c.typeOf(j) == nil {
-					blocked = true
-				} else {
-					tainted = true
-				}
-			}
-		}
-		t := &typer{c: c, f: cell.Formula, cell: cell, params: cell.Params, system: sys, errs: &c.errs}
-		if blocked {
-			// A dependency failed unseen: type anyway to find this cell's
-			// own problems, but keep them to itself.
-			t.errs = new(diag.List)
-		}
-		c.typeCell(t, cell)
-		if blocked || tainted || cell.Type == nil {
-			found := cell.Type
-			cell.Type = nil
-			c.standInFor(cell, found, blocked)
-		}
+	}
+	t := &typer{c: c, f: cell.Formula, cell: cell, params: cell.Params, system: sys, errs: &c.errs}
+	if blocked {
+		// A dependency failed unseen: type anyway to find this cell's
+		// own problems, but keep them to itself.
+		t.errs = new(diag.List)
+	}
+	c.typeCell(t, cell)
+	if blocked || tainted || cell.Type == nil {
+		found := cell.Type
+		cell.Type = nil
+		c.standInFor(cell, found, blocked)
 	}
 }
 

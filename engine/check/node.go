@@ -1,8 +1,6 @@
 package check
 
 import (
-	"github.com/expr-lang/expr/ast"
-
 	"github.com/sheafcalc/sheaf/engine/diag"
 	"github.com/sheafcalc/sheaf/engine/formula"
 	"github.com/sheafcalc/sheaf/funcs"
@@ -55,11 +53,13 @@ type Node struct {
 	Type    *funcs.Type
 	Num     float64
 	Args    []*Node
-	// Src and F locate the node in the sheet; Range computes the span only
-	// when a message needs it, which keeps checking a large sheet cheap.
-	Src ast.Node
-	F   *formula.Formula
-	ext *nodeExt
+	// F is the formula the node was typed from, and From, To the byte
+	// span of the node in F.Source.Text: Range computes the sheet range
+	// only when a message needs it, which keeps checking a large sheet
+	// cheap, and the span does not hold on to the formula's syntax tree.
+	From, To int32
+	F        *formula.Formula
+	ext      *nodeExt
 }
 
 // nodeExt holds what only a few nodes carry.
@@ -101,8 +101,8 @@ func (n *Node) setDef(d *funcs.Def) {
 
 // Range returns the source range of the node (zero when it has none).
 func (n *Node) Range() diag.Range {
-	if n.Src == nil || n.F == nil {
+	if n.F == nil {
 		return diag.Range{}
 	}
-	return n.F.Range(n.Src)
+	return n.F.Source.RangeAt(int(n.From), int(n.To))
 }

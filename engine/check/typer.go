@@ -29,7 +29,8 @@ func (t *typer) fail(n ast.Node, summary, detail, hint string) *Node {
 
 func (t *typer) node(n ast.Node, op Op, ty *funcs.Type, args ...*Node) *Node {
 	r := t.c.arena.node()
-	*r = Node{Op: op, Type: ty, Args: t.c.arena.argList(args), Src: n, F: t.f}
+	from, to := t.f.Span(n)
+	*r = Node{Op: op, Type: ty, Args: t.c.arena.argList(args), From: int32(from), To: int32(to), F: t.f}
 	return r
 }
 

@@ -58,7 +58,7 @@ func (m *Machine) builtin(n *check.Node) numFn {
 		y, x := m.numOf(n.Args[0]), m.numOf(n.Args[1])
 		return func(f *Frame) float64 { return math.Atan2(y(f), x(f)) }
 	case check.BPow:
-		return m.pow(&check.Node{Op: check.OpPow, Type: n.Type, Args: n.Args, Src: n.Src, F: n.F})
+		return m.pow(&check.Node{Op: check.OpPow, Type: n.Type, Args: n.Args, From: n.From, To: n.To, F: n.F})
 	case check.BRound:
 		x := m.numOf(n.Args[0])
 		if len(n.Args) == 1 {

@@ -346,18 +346,46 @@ func (f *Formula) Range(n ast.Node) diag.Range {
 	return f.Source.RangeAt(from, to)
 }
 
-// span returns the byte span of n in Rewritten.
+// span returns the byte span of n in Rewritten. The checker asks for the
+// span of every typed node, so the common nodes are walked without the
+// slice children allocates.
 func (f *Formula) span(n ast.Node) (lo, hi int) {
 	loc := n.Location()
 	lo, hi = f.byteAt(loc.From), f.byteAt(loc.To)
-	for _, c := range children(n) {
+	add := func(c ast.Node) {
 		if c == nil {
-			continue
+			return
 		}
 		a, b := f.span(c)
 		lo, hi = min(lo, a), max(hi, b)
 	}
+	switch n := n.(type) {
+	case *ast.IdentifierNode, *ast.IntegerNode, *ast.FloatNode, *ast.BoolNode, *ast.StringNode:
+	case *ast.UnaryNode:
+		add(n.Node)
+	case *ast.BinaryNode:
+		add(n.Left)
+		add(n.Right)
+	case *ast.MemberNode:
+		add(n.Node)
+		add(n.Property)
+	default:
+		for _, c := range children(n) {
+			add(c)
+		}
+	}
 	return lo, hi
+}
+
+// Release drops the syntax tree and the references (which point into it)
+// once the checker has typed the formula: the typed nodes keep their spans
+// in the written text, and on a sheet of 100,000 cells the trees are tens
+// of megabytes that would otherwise stay in memory for the life of the
+// sheet. Source, Quantities and the map from Rewritten back to the written
+// text stay. Tree and Refs are nil afterwards.
+func (f *Formula) Release() {
+	f.Tree = nil
+	f.Refs = nil
 }
 
 // Quantity returns the quantity literal that identifier n stands for.
