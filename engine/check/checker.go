@@ -117,11 +117,12 @@ func (c *checker) collectFile(f *sheet.File, scope string, depth int) {
 	if scope != "" {
 		section = strings.TrimSuffix(scope, ".")
 	}
-	for _, it := range f.Items {
+	made := newCells(f.Items)
+	for k, it := range f.Items {
 		if len(p.Cells) > c.opt.MaxCells {
 			return // reported by Sheet
 		}
-		var cell *Cell
+		cell := made[k]
 		switch it := it.(type) {
 		case *sheet.Meta:
 			if scope == "" {
@@ -135,13 +136,8 @@ func (c *checker) collectFile(f *sheet.File, scope string, depth int) {
 			}
 			continue
 		case *sheet.Cell:
-			cell = &Cell{Name: it.Name.Name, Kind: Derived, NameRange: it.Name.Range, Range: it.Range,
-				Expr: it.Expr.Text, Description: it.Annot.Description, Reference: it.Annot.Reference}
 			c.displayUnit(cell, it.Unit)
-			cell.Formula = &formula.Formula{Source: it.Expr}
 		case *sheet.FuncDef:
-			cell = &Cell{Name: it.Name.Name, Kind: Function, NameRange: it.Name.Range, Range: it.Range,
-				Expr: it.Body.Text, Description: it.Annot.Description, Reference: it.Annot.Reference}
 			c.displayUnit(cell, it.Unit)
 			for _, prm := range it.Params {
 				q := Param{Name: prm.Name.Name, Type: numNone}
@@ -164,11 +160,7 @@ func (c *checker) collectFile(f *sheet.File, scope string, depth int) {
 				}
 				cell.Params = append(cell.Params, q)
 			}
-			cell.Formula = &formula.Formula{Source: it.Body}
-		case *sheet.Check:
-			cell = &Cell{Name: it.Name.Name, Kind: Check, NameRange: it.Name.Range, Range: it.Range,
-				Expr: it.Body.Text, Description: it.Annot.Description, Reference: it.Annot.Reference}
-			cell.Formula = &formula.Formula{Source: it.Body}
+		case *sheet.Check: // whole as newCell made it
 		case *sheet.Table:
 			cell = &Cell{Name: it.Name.Name, Kind: Table, NameRange: it.Name.Range, Range: it.Range,
 				Description: it.Annot.Description, Reference: it.Annot.Reference}
@@ -205,6 +197,40 @@ func (c *checker) collectFile(f *sheet.File, scope string, depth int) {
 		p.ByName[cell.Name] = cell.Index
 		p.Cells = append(p.Cells, cell)
 	}
+}
+
+// newCells makes the cell and the formula of each item that is a cell, a
+// user function or a check (nil for the other items), with what they copy
+// from the item; collectFile completes them. On a large sheet this is the
+// first touch of tens of megabytes, which costs far more than the copying
+// on a machine slow to hand out fresh memory, so it runs in chunks on every
+// core.
+func newCells(items []sheet.Item) []*Cell {
+	out := make([]*Cell, len(items))
+	parallel.Chunks(len(items), 2000, func(lo, hi int) {
+		for i := lo; i < hi; i++ {
+			out[i] = newCell(items[i])
+		}
+	})
+	return out
+}
+
+func newCell(it sheet.Item) *Cell {
+	switch it := it.(type) {
+	case *sheet.Cell:
+		return &Cell{Name: it.Name.Name, Kind: Derived, NameRange: it.Name.Range, Range: it.Range,
+			Expr: it.Expr.Text, Description: it.Annot.Description, Reference: it.Annot.Reference,
+			Formula: &formula.Formula{Source: it.Expr}}
+	case *sheet.FuncDef:
+		return &Cell{Name: it.Name.Name, Kind: Function, NameRange: it.Name.Range, Range: it.Range,
+			Expr: it.Body.Text, Description: it.Annot.Description, Reference: it.Annot.Reference,
+			Formula: &formula.Formula{Source: it.Body}}
+	case *sheet.Check:
+		return &Cell{Name: it.Name.Name, Kind: Check, NameRange: it.Name.Range, Range: it.Range,
+			Expr: it.Body.Text, Description: it.Annot.Description, Reference: it.Annot.Reference,
+			Formula: &formula.Formula{Source: it.Body}}
+	}
+	return nil
 }
 
 func (c *checker) meta(m *sheet.Meta) {
