@@ -464,6 +464,8 @@ func (c *checker) typeAll() {
 	if c.opt.HasSystem {
 		sys = c.opt.System
 	}
+	c.arena.startPrefetch(len(c.prog.Order))
+	defer c.arena.stopPrefetch()
 	for _, i := range c.prog.Order {
 		c.typeOne(i, sys)
 		if f := c.prog.Cells[i].Formula; f != nil && c.opt.DropTrees {
