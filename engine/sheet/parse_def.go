@@ -149,11 +149,8 @@ func (p *parser) parseDef(i, j, at int, funcs bool) Item {
 		}
 		return fd
 	}
-	// One allocation for the cell and its unit: a long sheet is mostly cells.
-	a := &struct {
-		c Cell
-		u UnitSpec
-	}{c: Cell{Name: id, Expr: body, Annot: annot, Range: r}}
+	a := p.newCell()
+	a.c = Cell{Name: id, Expr: body, Annot: annot, Range: r}
 	if hasUnit {
 		a.u = u
 		a.c.Unit = &a.u
