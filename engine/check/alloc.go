@@ -35,7 +35,7 @@ func (a *arena) grow() int {
 func (a *arena) node() *Node {
 	if len(a.nodes) == 0 {
 		if a.pre != nil {
-			a.nodes = <-a.pre.nodes
+			a.nodes = a.pre.nodeBlock()
 		} else {
 			a.nodes = make([]Node, a.grow())
 		}
@@ -57,7 +57,7 @@ func (a *arena) argList(args []*Node) []*Node {
 	}
 	if len(a.args) < k {
 		if a.pre != nil {
-			a.args = <-a.pre.args
+			a.args = a.pre.argBlock()
 		} else {
 			a.args = make([]*Node, max(a.grow(), k))
 		}
@@ -123,6 +123,28 @@ func (a *arena) startPrefetch(cells int) {
 		}
 	}()
 	a.pre = p
+}
+
+// nodeBlock returns a block the helper made, or makes one when the helper
+// is behind: the two goroutines then write fresh memory side by side
+// rather than one waiting for the other.
+func (p *prefetch) nodeBlock() []Node {
+	select {
+	case b := <-p.nodes:
+		return b
+	default:
+		return make([]Node, maxBlock)
+	}
+}
+
+// argBlock is nodeBlock for argument lists.
+func (p *prefetch) argBlock() []*Node {
+	select {
+	case b := <-p.args:
+		return b
+	default:
+		return make([]*Node, maxBlock)
+	}
 }
 
 // stopPrefetch stops the helper; the blocks it made ahead are dropped.

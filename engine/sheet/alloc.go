@@ -75,7 +75,14 @@ func (p *parser) newCell() *cellUnit {
 		return &cellUnit{}
 	}
 	if len(p.cells) == 0 {
-		p.cells = <-p.pre.blocks
+		// When the helper is behind, make a block here: the two
+		// goroutines then write fresh memory side by side rather than one
+		// waiting for the other.
+		select {
+		case p.cells = <-p.pre.blocks:
+		default:
+			p.cells = make([]cellUnit, cellBlock)
+		}
 	}
 	a := &p.cells[0]
 	p.cells = p.cells[1:]
