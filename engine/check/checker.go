@@ -365,39 +365,32 @@ func (c *checker) parseAll() {
 	}
 }
 
-// resolve finds the dependencies of every cell and decides inputs.
+// resolve finds the dependencies of every cell and decides inputs. A
+// sheet without templates resolves its cells in parallel chunks (the
+// lookups only read); with templates, resolving fills a cache of member
+// chains, so it runs on one goroutine.
 func (c *checker) resolve() {
 	p := c.prog
-	// seen[j] == i+1 when cell i already lists cell j: one slice for the
-	// whole sheet rather than a set per cell.
-	seen := make([]int32, len(p.Cells))
+	work := func(lo, hi int) {
+		// seen[j] == i+1 when cell i already lists cell j: one slice for
+		// the chunk rather than a set per cell.
+		seen := make([]int32, len(p.Cells))
+		for i := lo; i < hi; i++ {
+			c.resolveCell(i, seen)
+		}
+	}
+	if c.use == nil {
+		parallel.Chunks(len(p.Cells), 2000, work)
+	} else {
+		work(0, len(p.Cells))
+	}
 	users := make([]int32, len(p.Cells)) // number of users of each cell
 	edges := 0
-	for i, cell := range p.Cells {
-		if cell.Formula == nil {
-			continue
-		}
-		for _, r := range cell.Formula.Refs {
-			if isParam(cell, r.Name) {
-				continue
-			}
-			j, ok := c.ref(cell, r)
-			if !ok || seen[j] == int32(i+1) {
-				continue
-			}
-			seen[j] = int32(i + 1)
-			if cell.DepIdx == nil {
-				cell.DepIdx = make([]int, 0, len(cell.Formula.Refs))
-				cell.Deps = make([]string, 0, len(cell.Formula.Refs))
-			}
-			cell.DepIdx = append(cell.DepIdx, j)
-			cell.Deps = append(cell.Deps, p.Cells[j].Name)
+	for _, cell := range p.Cells {
+		for _, j := range cell.DepIdx {
 			users[j]++
-			edges++
 		}
-		if cell.Kind == Derived && len(cell.DepIdx) == 0 {
-			cell.Kind = Input
-		}
+		edges += len(cell.DepIdx)
 	}
 	// The reverse edges share one backing array.
 	p.Users = make([][]int, len(p.Cells))
@@ -412,6 +405,34 @@ func (c *checker) resolve() {
 		for _, j := range cell.DepIdx {
 			p.Users[j] = append(p.Users[j], i)
 		}
+	}
+}
+
+// resolveCell finds the dependencies of cell i (see resolve).
+func (c *checker) resolveCell(i int, seen []int32) {
+	p := c.prog
+	cell := p.Cells[i]
+	if cell.Formula == nil {
+		return
+	}
+	for _, r := range cell.Formula.Refs {
+		if isParam(cell, r.Name) {
+			continue
+		}
+		j, ok := c.ref(cell, r)
+		if !ok || seen[j] == int32(i+1) {
+			continue
+		}
+		seen[j] = int32(i + 1)
+		if cell.DepIdx == nil {
+			cell.DepIdx = make([]int, 0, len(cell.Formula.Refs))
+			cell.Deps = make([]string, 0, len(cell.Formula.Refs))
+		}
+		cell.DepIdx = append(cell.DepIdx, j)
+		cell.Deps = append(cell.Deps, p.Cells[j].Name)
+	}
+	if cell.Kind == Derived && len(cell.DepIdx) == 0 {
+		cell.Kind = Input
 	}
 }
 
