@@ -15,8 +15,8 @@ func expr(text string) sheet.Expr {
 func TestQuantities(t *testing.T) {
 	cases := []struct {
 		text  string
-		quant []string // texts of the quantity literals
-		si    []float64
+		quant []string  // texts of the quantity literals
+		si    []float64 // Source: SI prefixes and units, BIPM SI Brochure (9th ed.)
 		refs  []string
 	}{
 		{"38 kN", []string{"38 kN"}, []float64{38000}, nil},
