@@ -25,13 +25,7 @@ func (s *bracketScanner) scan(text string, from, to int) int {
 	for i := from; i < to; i++ {
 		switch c := text[i]; c {
 		case '"', '\'', '`':
-			j := i + 1
-			for j < to && text[j] != c {
-				if text[j] == '\\' && c != '`' {
-					j++
-				}
-				j++
-			}
+			j := stringEnd(text, i, to)
 			if j >= to && s.unclosed == 0 {
 				s.unclosed = i + 1
 			}
@@ -53,6 +47,21 @@ func (s *bracketScanner) scan(text string, from, to int) int {
 	return -1
 }
 
+// stringEnd returns the offset of the quote closing the string that opens at
+// text[i], or a value >= to when the string runs past to. A backslash escapes
+// the next byte except in backquoted strings.
+func stringEnd(text string, i, to int) int {
+	q := text[i]
+	j := i + 1
+	for j < to && text[j] != q {
+		if text[j] == '\\' && q != '`' {
+			j++
+		}
+		j++
+	}
+	return j
+}
+
 // headSplit returns the offset just past the first "=" or ":" of a line that
 // lies outside strings and brackets and before any annotation, or -1. It is
 // where an expression starts, and so where bracket tracking for continuation
@@ -63,14 +72,7 @@ func headSplit(text string, from, to int) int {
 	for i := from; i < to; i++ {
 		switch c := text[i]; c {
 		case '"', '\'', '`':
-			j := i + 1
-			for j < to && text[j] != c {
-				if text[j] == '\\' && c != '`' {
-					j++
-				}
-				j++
-			}
-			i = j
+			i = stringEnd(text, i, to)
 		case '(', '[', '{':
 			depth++
 		case ')', ']', '}':
