@@ -83,18 +83,6 @@ func (v *solver) modulus(i int, x float64) float64 {
 	return v.callUser(s.EFn, "modulus", x, true)
 }
 
-// load returns the distributed load b(x) [N/m] in segment i.
-func (v *solver) load(i int, x float64) float64 {
-	b := v.b0 + (v.b1-v.b0)*x/v.lt
-	if v.gamma != 0 {
-		b += v.gamma * v.area(i, x)
-	}
-	for k := range v.fns {
-		b += v.callUser(&v.fns[k], "distributed load", x, false)
-	}
-	return b
-}
-
 // quadErr turns a quadrature failure into a message for the user.
 func (v *solver) quadErr(err error, what string, a, c float64) error {
 	if v.fail != nil {

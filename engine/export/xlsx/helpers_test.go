@@ -1,11 +1,8 @@
 package xlsxout
 
 import (
-	"path/filepath"
 	"strings"
 	"testing"
-
-	"github.com/xuri/excelize/v2"
 
 	"github.com/sheafcalc/sheaf/engine"
 	"github.com/sheafcalc/sheaf/engine/diag"
@@ -36,21 +33,4 @@ func load(t testing.TB, path string) *engine.Sheet {
 		t.Fatalf("load %s: %v", path, err)
 	}
 	return s
-}
-
-// roundTrip exports s with its written inputs, saves and reopens the file.
-func roundTrip(t testing.TB, s *engine.Sheet) (*excelize.File, Stats) {
-	t.Helper()
-	r := s.NewState().Eval()
-	path := filepath.Join(t.TempDir(), "out.xlsx")
-	stats, err := WriteFile(path, s, r, Options{Generator: "Sheaf test"})
-	if err != nil {
-		t.Fatalf("export: %v", err)
-	}
-	f, err := excelize.OpenFile(path)
-	if err != nil {
-		t.Fatalf("reopen: %v", err)
-	}
-	t.Cleanup(func() { _ = f.Close() })
-	return f, stats
 }
