@@ -738,7 +738,7 @@ func (p *fastParser) postfix(n ast.Node) ast.Node {
 			if p.is(tBracket, "(") { // a method: left to expr-lang
 				return p.fail()
 			}
-			if !p.count() || !p.count() {
+			if !p.count() || !p.count() { // two nodes: the property and the member
 				return nil
 			}
 			s := &ast.StringNode{Value: prop.val}
