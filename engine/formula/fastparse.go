@@ -627,39 +627,20 @@ func (p *fastParser) call(name token) ast.Node {
 // allowed.
 func (p *fastParser) arguments() []ast.Node {
 	p.expect(tBracket, "(")
-	var args []ast.Node
-	for !p.failed && !p.is(tBracket, ")") {
-		if len(args) > 0 {
-			if !p.expect(tOp, ",") {
-				return nil
-			}
-			if p.is(tBracket, ")") {
-				break
-			}
-		}
-		x := p.expression(0)
-		if p.failed {
-			return nil
-		}
-		args = append(args, x)
-	}
-	if args == nil {
-		args = []ast.Node{}
-	}
-	p.expect(tBracket, ")")
-	return args
+	return p.items(")")
 }
 
-// array mirrors parser.parseArrayExpression.
-func (p *fastParser) array(open token) ast.Node {
-	p.next()
-	nodes := make([]ast.Node, 0)
-	for !p.failed && !p.is(tBracket, "]") {
+// items reads the expressions `a, b` up to and including the bracket
+// close, a trailing comma allowed, as parser.parseArguments and
+// parser.parseArrayExpression do. It returns nil when the input fails.
+func (p *fastParser) items(close string) []ast.Node {
+	nodes := []ast.Node{}
+	for !p.failed && !p.is(tBracket, close) {
 		if len(nodes) > 0 {
 			if !p.expect(tOp, ",") {
 				return nil
 			}
-			if p.is(tBracket, "]") {
+			if p.is(tBracket, close) {
 				break
 			}
 		}
@@ -669,7 +650,17 @@ func (p *fastParser) array(open token) ast.Node {
 		}
 		nodes = append(nodes, x)
 	}
-	if !p.expect(tBracket, "]") || !p.count() {
+	if !p.expect(tBracket, close) {
+		return nil
+	}
+	return nodes
+}
+
+// array mirrors parser.parseArrayExpression.
+func (p *fastParser) array(open token) ast.Node {
+	p.next()
+	nodes := p.items("]")
+	if nodes == nil || !p.count() {
 		return nil
 	}
 	a := &ast.ArrayNode{Nodes: nodes}
