@@ -83,6 +83,9 @@ func runWatch(ctx context.Context, a *app, o *watchOptions, path string, ready f
 	if o.interval <= 0 {
 		return userErrorf("--interval %s: give a positive duration, e.g. 100ms", o.interval)
 	}
+	if !(o.rtol >= 0) || o.rtol >= 1 {
+		return userErrorf("--rtol %g: give a relative tolerance from 0 to below 1, e.g. 1e-6", o.rtol)
+	}
 	w := &watcher{a: a, o: o, path: path, dirs: map[string]bool{}, names: map[string]bool{}}
 	if o.system != "" {
 		s, ok := units.ParseSystem(o.system)

@@ -115,6 +115,11 @@ func TestWatchErrors(t *testing.T) {
 	if _, errs, code := sheaf(t, "watch", "--interval", "0s", "x.sheaf"); code != exitInput || !strings.Contains(errs, "positive") {
 		t.Errorf("zero interval: exit %d, %s", code, errs)
 	}
+	for _, rtol := range []string{"-1", "1", "NaN"} {
+		if _, errs, code := sheaf(t, "watch", "--rtol", rtol, "x.sheaf"); code != exitInput || !strings.Contains(errs, "relative tolerance") {
+			t.Errorf("--rtol %s: exit %d, %s", rtol, code, errs)
+		}
+	}
 }
 
 // TestWatchTemplate: saving a template the sheet uses re-runs the sheet.
