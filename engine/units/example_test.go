@@ -30,6 +30,7 @@ func ExampleFormat() {
 	ksi, _ := units.Preferred(mpa.Dim, units.US)
 	fmt.Println(units.Format(sigma, ksi, 3))
 	// Source: REFERENCES C1 (σ = 353.677651 MPa) and A8 (1 ksi = 6.894757293168361 MPa).
+
 	// Output:
 	// 354 MPa
 	// 51.3 ksi

@@ -26,6 +26,7 @@ func ExampleSolve() {
 	fmt.Printf("sigma_max = %.1f MPa at x = %.2f m\n", r.SigmaMax/1e6, r.XSigmaMax)
 	// Source: closed form, statics R = -(30 + 12) kN, δ = Σ N_i L_i/(E A_i),
 	// σ = N/A (REFERENCES C1, C5).
+
 	// Output:
 	// R_start = -42.0 kN
 	// elongation = 0.789 mm
@@ -42,6 +43,7 @@ func ExampleSolve_gap() {
 	n, _ := r.N(3)
 	fmt.Printf("gap closed: %v, N = %.1f kN\n", r.GapClosedEnd, n/1e3)
 	// Source: closed form N = -(α ΔT L - gap) E A / L (REFERENCES C7 with a gap).
+
 	// Output: gap closed: true, N = -92.4 kN
 }
 
@@ -49,5 +51,6 @@ func ExampleTaperedElongation() {
 	// A turned steel pin tapering from 40 to 20 mm over 2 m, 50 kN.
 	fmt.Printf("%.4f mm\n", bar.TaperedElongation(50e3, 2, 210e9, 0.04, 0.02)*1e3)
 	// Source: REFERENCES C2, δ = 4PL/(π E d1 d2) = 0.757880681 mm.
+
 	// Output: 0.7579 mm
 }

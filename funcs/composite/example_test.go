@@ -23,5 +23,6 @@ func ExampleComposite_Response() {
 	fmt.Printf("eps = %.4g; N = %.2f kN, %.2f kN\n", r.Eps, r.N[0]/1e3, r.N[1]/1e3)
 	// Source: closed form ε = (N + ΣE_iA_iα_iΔT)/ΣE_iA_i, N_i = E_iA_i(ε - α_iΔT)
 	// (REFERENCES C8a, C8b).
+
 	// Output: eps = 0.0009734; N = 14.02 kN, 135.98 kN
 }

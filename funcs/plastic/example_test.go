@@ -25,5 +25,6 @@ func ExampleSection_StrainFor() {
 	fmt.Printf("N_pl = %.1f kN; eps(−1200 kN) = %.4f ‰\n", nPl/1e3, eps*1e3)
 	// Source: closed form N_pl = A_c f_cd + A_s f_y; the strain is the root of
 	// A_c f_cd (1 - (1 - ε/ε_c2)²) + A_s E_s ε = 1200 kN (EN 1992-1-1 §3.1.7 parabola).
+
 	// Output: N_pl = 2562.0 kN; eps(−1200 kN) = -0.5735 ‰
 }

@@ -16,6 +16,7 @@ func ExampleCHS() {
 	p := s.Props()
 	fmt.Printf("A = %.1f mm², I = %.4g mm⁴\n", p.A*1e6, p.Iy*1e12)
 	// Source: closed form A = π(D² - d²)/4, I = π(D⁴ - d⁴)/64.
+
 	// Output: A = 6569.1 mm², I = 3.598e+07 mm⁴
 }
 
@@ -30,5 +31,6 @@ func ExampleIntegrate() {
 	}
 	fmt.Printf("EA = %.4g N\n", r.Value)
 	// Source: REFERENCES C12, EA = 6.75e9 N.
+
 	// Output: EA = 6.75e+09 N
 }
