@@ -177,6 +177,7 @@ func TestParseInput(t *testing.T) {
 		name, text string
 		want       float64
 	}{
+		// Source: SI prefixes, BIPM SI Brochure (9th ed.); 1 % = 0.01.
 		{"P", "45 kN", 45000}, {"P", "45kN", 45000}, {"P", "0.045 MN", 45000}, {"r", "0.5", 0.5}, {"r", "50 %", 0.5},
 	}
 	for _, c := range ok {

@@ -96,6 +96,8 @@ func ExampleSheet_ParseInput() {
 	}
 	_, err = s.ParseInput("N_Ed", "2 kN")
 	fmt.Println(err)
+	// Source: 1 t = 1000 kg, BIPM SI Brochure (9th ed.) Table 8.
+
 	// Output:
 	// 120 kg -> 120 kg in SI
 	// 0.25 t -> 250 kg in SI

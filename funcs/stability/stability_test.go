@@ -165,6 +165,8 @@ func ExampleEulerLoad() {
 	I := math.Pi * (math.Pow(D, 4) - math.Pow(d, 4)) / 64
 	n, _ := EulerLoad(210e9, I, 6, 1)
 	fmt.Printf("N_cr = %.1f kN\n", n/1e3)
+	// Source: REFERENCES C9, P_cr = π²EI/L² = 746.873947 kN.
+
 	// Output: N_cr = 746.9 kN
 }
 
@@ -172,5 +174,7 @@ func ExampleCurve_At() {
 	c, _ := NewCurve([]float64{0.2, 0.6, 1.0}, []float64{1.0, 0.84, 0.60})
 	chi, _ := c.At(0.8)
 	fmt.Printf("chi = %.2f\n", chi)
+	// Source: closed form, linear interpolation 0.84 + (0.60 - 0.84)·(0.8 - 0.6)/(1.0 - 0.6).
+
 	// Output: chi = 0.72
 }
