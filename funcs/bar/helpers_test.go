@@ -1,10 +1,10 @@
 package bar
 
 import (
-	"math"
 	"testing"
 
 	"github.com/sheafcalc/sheaf/funcs"
+	"github.com/sheafcalc/sheaf/internal/functest"
 )
 
 // Unit factors for writing test data in engineering units (SI values).
@@ -17,12 +17,7 @@ const (
 )
 
 // relErr returns |got − want| / |want| (absolute error when want is 0).
-func relErr(got, want float64) float64 {
-	if want == 0 {
-		return math.Abs(got)
-	}
-	return math.Abs(got-want) / math.Abs(want)
-}
+var relErr = functest.RelErr
 
 func near(t *testing.T, what string, got, want, tol float64) {
 	t.Helper()
@@ -48,15 +43,10 @@ func table(cols []string, data ...[]float64) *funcs.TableValue {
 }
 
 // call invokes a registered function as the evaluator would.
-func call(t *testing.T, name string, args ...funcs.Value) funcs.Value {
-	t.Helper()
-	v, err := tryCall(name, args...)
-	if err != nil {
-		t.Fatalf("%s: %v", name, err)
-	}
-	return v
-}
+var call = functest.Call
 
+// tryCall is call for code without a test at hand (benchmarks' setup,
+// fuzz bodies that accept an error).
 func tryCall(name string, args ...funcs.Value) (funcs.Value, error) {
 	d, ok := funcs.Lookup(name)
 	if !ok {

@@ -6,27 +6,13 @@ import (
 
 	"github.com/sheafcalc/sheaf/funcs"
 	_ "github.com/sheafcalc/sheaf/funcs/section"
+	"github.com/sheafcalc/sheaf/internal/functest"
 )
 
-func relErr(got, want float64) float64 {
-	if want == 0 {
-		return math.Abs(got)
-	}
-	return math.Abs(got-want) / math.Abs(want)
-}
-
-func call(t *testing.T, name string, args ...funcs.Value) funcs.Value {
-	t.Helper()
-	d, ok := funcs.Lookup(name)
-	if !ok {
-		t.Fatalf("%s is not registered", name)
-	}
-	v, err := d.Call(args)
-	if err != nil {
-		t.Fatalf("%s: %v", name, err)
-	}
-	return v
-}
+var (
+	relErr = functest.RelErr
+	call   = functest.Call
+)
 
 // mat builds a material record as a sheet would write it.
 func mat(fields map[string]float64) *funcs.RecordValue {

@@ -8,6 +8,7 @@ import (
 	"github.com/sheafcalc/sheaf/funcs"
 	"github.com/sheafcalc/sheaf/funcs/composite"
 	_ "github.com/sheafcalc/sheaf/funcs/section"
+	"github.com/sheafcalc/sheaf/internal/functest"
 )
 
 const (
@@ -17,25 +18,10 @@ const (
 	GPa = 1e9
 )
 
-func relErr(got, want float64) float64 {
-	if want == 0 {
-		return math.Abs(got)
-	}
-	return math.Abs(got-want) / math.Abs(want)
-}
-
-func call(t testing.TB, name string, args ...funcs.Value) funcs.Value {
-	t.Helper()
-	d, ok := funcs.Lookup(name)
-	if !ok {
-		t.Fatalf("%s is not registered", name)
-	}
-	v, err := d.Call(args)
-	if err != nil {
-		t.Fatalf("%s: %v", name, err)
-	}
-	return v
-}
+var (
+	relErr = functest.RelErr
+	call   = functest.Call
+)
 
 func callErr(name string, args ...funcs.Value) error {
 	d, _ := funcs.Lookup(name)

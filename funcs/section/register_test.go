@@ -6,20 +6,10 @@ import (
 
 	"github.com/sheafcalc/sheaf/engine/units"
 	"github.com/sheafcalc/sheaf/funcs"
+	"github.com/sheafcalc/sheaf/internal/functest"
 )
 
-func call(t *testing.T, name string, args ...funcs.Value) funcs.Value {
-	t.Helper()
-	d, ok := funcs.Lookup(name)
-	if !ok {
-		t.Fatalf("%s is not registered", name)
-	}
-	v, err := d.Call(args)
-	if err != nil {
-		t.Fatalf("%s: %v", name, err)
-	}
-	return v
-}
+var call = functest.Call
 
 func TestRegisteredCalls(t *testing.T) {
 	// Source: REFERENCES.md C9, CHS 168.3×8: I = 1.29727118e7 mm⁴.

@@ -4,14 +4,11 @@ import (
 	"math"
 	"math/rand/v2"
 	"testing"
+
+	"github.com/sheafcalc/sheaf/internal/functest"
 )
 
-func relErr(got, want float64) float64 {
-	if want == 0 {
-		return math.Abs(got)
-	}
-	return math.Abs(got-want) / math.Abs(want)
-}
+var relErr = functest.RelErr
 
 // must unwraps a constructor in tests; a failure there is a broken test.
 func must(s *Shape, err error) *Shape {

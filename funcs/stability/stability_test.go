@@ -7,6 +7,7 @@ import (
 	"testing"
 
 	"github.com/sheafcalc/sheaf/funcs"
+	"github.com/sheafcalc/sheaf/internal/functest"
 )
 
 func near(t *testing.T, what string, got, want, tol float64) {
@@ -16,17 +17,7 @@ func near(t *testing.T, what string, got, want, tol float64) {
 	}
 }
 
-func call(t *testing.T, name string, args ...funcs.Value) (funcs.Value, error) {
-	t.Helper()
-	d, ok := funcs.Lookup(name)
-	if !ok {
-		t.Fatalf("%s is not registered", name)
-	}
-	for len(args) < len(d.Params) {
-		args = append(args, nil)
-	}
-	return d.Call(args)
-}
+var call = functest.TryCall
 
 // C9: Euler load of a CHS 168.3×8, L = 6 m, E = 210 GPa; I = π(D⁴−d⁴)/64.
 // Source: REFERENCES.md C9; Timoshenko & Gere, Theory of Elastic Stability §2.1.
