@@ -4,7 +4,7 @@ import (
 	"testing"
 
 	"github.com/sheafcalc/sheaf/funcs"
-	"github.com/sheafcalc/sheaf/internal/functest"
+	"github.com/sheafcalc/sheaf/funcs/internal/functest"
 )
 
 // Unit factors for writing test data in engineering units (SI values).

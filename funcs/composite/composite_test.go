@@ -5,8 +5,8 @@ import (
 	"testing"
 
 	"github.com/sheafcalc/sheaf/funcs"
+	"github.com/sheafcalc/sheaf/funcs/internal/functest"
 	_ "github.com/sheafcalc/sheaf/funcs/section"
-	"github.com/sheafcalc/sheaf/internal/functest"
 )
 
 var (

@@ -7,8 +7,8 @@ import (
 
 	"github.com/sheafcalc/sheaf/funcs"
 	"github.com/sheafcalc/sheaf/funcs/composite"
+	"github.com/sheafcalc/sheaf/funcs/internal/functest"
 	_ "github.com/sheafcalc/sheaf/funcs/section"
-	"github.com/sheafcalc/sheaf/internal/functest"
 )
 
 const (

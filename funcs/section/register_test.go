@@ -6,7 +6,7 @@ import (
 
 	"github.com/sheafcalc/sheaf/engine/units"
 	"github.com/sheafcalc/sheaf/funcs"
-	"github.com/sheafcalc/sheaf/internal/functest"
+	"github.com/sheafcalc/sheaf/funcs/internal/functest"
 )
 
 var call = functest.Call

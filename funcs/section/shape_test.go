@@ -5,7 +5,7 @@ import (
 	"math/rand/v2"
 	"testing"
 
-	"github.com/sheafcalc/sheaf/internal/functest"
+	"github.com/sheafcalc/sheaf/funcs/internal/functest"
 )
 
 var relErr = functest.RelErr

@@ -7,7 +7,7 @@ import (
 	"testing"
 
 	"github.com/sheafcalc/sheaf/funcs"
-	"github.com/sheafcalc/sheaf/internal/functest"
+	"github.com/sheafcalc/sheaf/funcs/internal/functest"
 )
 
 func near(t *testing.T, what string, got, want, tol float64) {
