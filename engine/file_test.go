@@ -24,4 +24,7 @@ func TestFileParsedAgain(t *testing.T) {
 	if s.File() != got {
 		t.Fatal("File parses again on every call")
 	}
+	if string(s.Source()) != src {
+		t.Errorf("Source() = %q, want the compiled text", s.Source())
+	}
 }

@@ -1,6 +1,9 @@
 package units
 
-import "testing"
+import (
+	"slices"
+	"testing"
+)
 
 // Preferred units are common practice in metric and US structural design
 // offices; the expected lists are the brief of the unit system.
@@ -78,6 +81,24 @@ func TestDimOf(t *testing.T) {
 		case tc.err == "" && got != tc.want:
 			t.Errorf("DimOf(%q) = %v, want %v", tc.in, got, tc.want)
 		}
+	}
+}
+
+// TestQuantities: the listed quantity names are sorted, and DimOf accepts
+// each one as QuantityDim gives it.
+func TestQuantities(t *testing.T) {
+	names := Quantities()
+	if len(names) == 0 || !slices.IsSorted(names) {
+		t.Fatalf("Quantities() = %q, want a sorted, non-empty list", names)
+	}
+	for _, n := range names {
+		want, ok := QuantityDim(n)
+		if got, err := DimOf(n); !ok || err != nil || got != want {
+			t.Errorf("DimOf(%q) = %v, %v; QuantityDim gives %v, %v", n, got, err, want, ok)
+		}
+	}
+	if !slices.Contains(names, "stress") {
+		t.Errorf("Quantities() lacks stress: %q", names)
 	}
 }
 
