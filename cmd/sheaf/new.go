@@ -270,7 +270,7 @@ func nearestLibrary() string {
 	for {
 		p := filepath.Join(dir, libraryDir)
 		if fi, err := os.Stat(p); err == nil && fi.IsDir() {
-			if rel, err := filepath.Rel(mustGetwd(), p); err == nil {
+			if rel, err := filepath.Rel(workingDir(), p); err == nil {
 				return rel
 			}
 			return p
@@ -283,7 +283,9 @@ func nearestLibrary() string {
 	}
 }
 
-func mustGetwd() string {
+// workingDir returns the working directory, or "" when it cannot be read
+// (the caller then keeps the path as it is).
+func workingDir() string {
 	wd, _ := os.Getwd()
 	return wd
 }
