@@ -14,7 +14,7 @@ import (
 	"github.com/sheafcalc/sheaf/engine"
 )
 
-// officeProfile makes LibreOffice recompute every formula of an Office Open
+// officeProfile makes the spreadsheet engine recompute every formula of an Office Open
 // XML workbook when it opens one (its default is to trust the cached
 // values, which would test nothing).
 const officeProfile = `<?xml version="1.0" encoding="UTF-8"?>
@@ -23,20 +23,20 @@ const officeProfile = `<?xml version="1.0" encoding="UTF-8"?>
 </oor:items>
 `
 
-// TestRecomputeInAnotherSpreadsheet opens the workbook in LibreOffice
-// Calc, an independent spreadsheet engine, after raising every numeric
+// TestRecomputeInAnotherSpreadsheet opens the workbook in an independent
+// open-source spreadsheet engine (the `soffice` command), after raising every numeric
 // input by 10 % in the workbook, and compares every live formula it
 // recomputes with Sheaf's own recompute of the same change, to 1e-9
 // relative. It needs `soffice` on the PATH (.ci/run installs it where it
 // can) and is skipped without it.
-// Source: LibreOffice Calc's formula engine is the reference.
+// Source: the independent spreadsheet engine's own recalculation is the reference.
 func TestRecomputeInAnotherSpreadsheet(t *testing.T) {
 	office, err := exec.LookPath("soffice")
 	if err != nil {
-		t.Skip("soffice (LibreOffice) is not installed; the excelize calculator test still runs")
+		t.Skip("soffice is not installed; the excelize calculator test still runs")
 	}
 	if testing.Short() {
-		t.Skip("starts LibreOffice; skipped with -short")
+		t.Skip("starts soffice; skipped with -short")
 	}
 	dir := t.TempDir()
 	profile := filepath.Join(dir, "profile")
@@ -102,7 +102,7 @@ func TestRecomputeInAnotherSpreadsheet(t *testing.T) {
 				}
 				got, err := strconv.ParseFloat(rows[row-1][4], 64)
 				if err != nil || !close(got, want) {
-					t.Errorf("%s: LibreOffice recomputes %q, Sheaf %.15g", c.Name, rows[row-1][4], want)
+					t.Errorf("%s: the other spreadsheet engine recomputes %q, Sheaf %.15g", c.Name, rows[row-1][4], want)
 				}
 				compared++
 			}
@@ -115,7 +115,7 @@ func TestRecomputeInAnotherSpreadsheet(t *testing.T) {
 }
 
 // officeCalcTab converts the Calculation tab of book to CSV with
-// LibreOffice and returns its rows. The filter options ask for UTF-8,
+// soffice and returns its rows. The filter options ask for UTF-8,
 // values at full precision rather than as shown, and the second tab.
 func officeCalcTab(t *testing.T, office, profile, book, dir string) [][]string {
 	t.Helper()
@@ -125,7 +125,7 @@ func officeCalcTab(t *testing.T, office, profile, book, dir string) [][]string {
 	cmd := exec.CommandContext(ctx, office, "-env:UserInstallation=file://"+profile, "--headless",
 		"--convert-to", "csv:Text - txt - csv (StarCalc):44,34,76,1,,0,false,true,false,false,false,2",
 		"--outdir", out, book)
-	// LibreOffice that cannot start or convert here says nothing about our
+	// A spreadsheet engine that cannot start or convert here says nothing about our
 	// formulas: skip, with its words, rather than fail.
 	if msg, err := cmd.CombinedOutput(); err != nil {
 		t.Skipf("soffice could not convert the workbook here: %v\n%s", err, msg)
