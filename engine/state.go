@@ -1,6 +1,7 @@
 package engine
 
 import (
+	"errors"
 	"fmt"
 	"slices"
 	"strings"
@@ -147,7 +148,7 @@ func (s *Sheet) settable(name string) (*Cell, error) {
 		if n := diag.Nearest(name, names); n != "" {
 			msg += fmt.Sprintf("; did you mean `%s`?", n)
 		}
-		return nil, fmt.Errorf("%s", msg)
+		return nil, errors.New(msg)
 	}
 	switch c.Kind {
 	case Input, Table:
