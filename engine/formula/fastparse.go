@@ -158,18 +158,8 @@ func (p *fastParser) next() {
 			return
 		}
 		emit(tString, p.src[p.pos+1:j], j+1-p.pos)
-	case c == '(':
-		emit(tBracket, "(", 1)
-	case c == ')':
-		emit(tBracket, ")", 1)
-	case c == '[':
-		emit(tBracket, "[", 1)
-	case c == ']':
-		emit(tBracket, "]", 1)
-	case c == '{':
-		emit(tBracket, "{", 1)
-	case c == '}':
-		emit(tBracket, "}", 1)
+	case strings.IndexByte("()[]{}", c) >= 0:
+		emit(tBracket, p.src[p.pos:p.pos+1], 1)
 	case c == ',':
 		emit(tOp, ",", 1)
 	case c == '|':
