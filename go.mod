@@ -3,7 +3,6 @@ module github.com/sheafcalc/sheaf
 go 1.26.8
 
 require (
-	github.com/expr-lang/expr v1.17.8
 	github.com/fsnotify/fsnotify v1.10.1
 	github.com/schollz/progressbar/v3 v3.19.1
 	github.com/spf13/cobra v1.10.2
