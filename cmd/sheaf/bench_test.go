@@ -36,4 +36,3 @@ func BenchmarkLoadLargestSheet(b *testing.B) {
 		b.Fatalf("%d cells", len(s.Cells()))
 	}
 }
-
