@@ -66,6 +66,7 @@ func Sheet(f *sheet.File, opt Options) (*Program, diag.List) {
 	c.resolve()
 	c.order()
 	c.typeAll()
+	c.budget()
 	c.errs.Sort()
 	return c.prog, c.errs
 }

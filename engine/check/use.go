@@ -1,7 +1,9 @@
 package check
 
 import (
+	"fmt"
 	"slices"
+	"strconv"
 	"strings"
 
 	"github.com/sheafcalc/sheaf/engine/diag"
@@ -31,6 +33,8 @@ type uses struct {
 	// targets caches, per formula, the cell each member chain `rod.x`
 	// refers to, keyed by the chain's root identifier.
 	targets map[*formula.Formula]map[int32]int
+	// cells caches expandedCells by file.
+	cells map[*sheet.File]int
 }
 
 // alias is a name given by `use NAME from ...`.
@@ -74,7 +78,7 @@ func (u *uses) aliasPos(name string) diag.Pos {
 func (c *checker) useTemplate(from *sheet.File, u *sheet.Use, scope string, depth int) {
 	if c.use == nil {
 		c.use = &uses{ld: newLoader(c.prog.File, c.opt.MaxBytes), aliases: map[string]*alias{},
-			replaced: map[int]*replaced{}, targets: map[*formula.Formula]map[int32]int{}}
+			replaced: map[int]*replaced{}, targets: map[*formula.Formula]map[int32]int{}, cells: map[*sheet.File]int{}}
 	}
 	name := scope + u.Name.Name
 	if IsReserved(u.Name.Name) {
@@ -99,6 +103,19 @@ func (c *checker) useTemplate(from *sheet.File, u *sheet.Use, scope string, dept
 		return
 	}
 	defer c.use.ld.done()
+	// Count the cells the use brings in, its own templates' included,
+	// before making any: a few small files that use each other twice at
+	// every level would otherwise make millions of cells first.
+	if n := c.expandedCells(f); len(c.prog.Cells)+n > c.opt.MaxCells {
+		a.failed = true
+		what := countText(n)
+		if n > c.opt.MaxCells {
+			what = "more than " + countText(c.opt.MaxCells) // the count stops there
+		}
+		c.errs.Errorf(u.Range, fmt.Sprintf("using %s here brings in %s cells (its own templates' included); a sheet may hold at most %s", f.Name, what, countText(c.opt.MaxCells)),
+			"use the inner templates once each, or split the calculation into sheets", "template use too large")
+		return
+	}
 	a.file = f.Name
 	if !slices.Contains(c.prog.Files, f) {
 		c.prog.Files = append(c.prog.Files, f)
@@ -443,4 +460,42 @@ func (c *checker) fitsOverride(t *typer, cell *Cell, body *Node) bool {
 	t.errs.Errorf(cell.Formula.Source.Range, "a use block replaces an input with a value of the same kind, so that the template's formulas keep their units",
 		hint, "`%s` of template `%s` is %s, but this value is %s", local, written, article(t.describeType(want.Type)), article(t.describeType(body.Type)))
 	return false
+}
+
+// expandedCells returns the number of cells template f brings in when it
+// is used, counting its own uses of templates (each file counted once and
+// remembered). A file that cannot be read counts for none: the expansion
+// itself reports it.
+func (c *checker) expandedCells(f *sheet.File) int {
+	if n, ok := c.use.cells[f]; ok {
+		return n
+	}
+	c.use.cells[f] = 0 // a loop: reported by the expansion
+	n := 0
+	var scratch diag.List
+	for _, it := range f.Items {
+		switch it := it.(type) {
+		case *sheet.Cell, *sheet.FuncDef, *sheet.Check, *sheet.Table:
+			n++
+		case *sheet.Use:
+			if g := c.use.ld.open(f, it, &scratch); g != nil {
+				n += c.expandedCells(g)
+				c.use.ld.done()
+			}
+		}
+		if n > c.opt.MaxCells {
+			break // enough to refuse; stops the count growing past int
+		}
+	}
+	c.use.cells[f] = n
+	return n
+}
+
+// countText writes a large count as a person reads it: 12,345,678.
+func countText(n int) string {
+	s := strconv.Itoa(n)
+	for i := len(s) - 3; i > 0; i -= 3 {
+		s = s[:i] + "," + s[i:]
+	}
+	return s
 }
