@@ -376,6 +376,11 @@ func isParam(cell *Cell, name string) bool {
 // come in a fixed order (cells in reading order, then built-ins, constants
 // and plugin functions), since diag.Nearest breaks ties by order.
 func (c *checker) suggest(name string) string {
+	if len(c.errs) >= diag.MaxShown {
+		// Past the problems a user is shown, a suggestion is never read:
+		// skipping it keeps a sheet of thousands of mistakes linear.
+		return ""
+	}
 	if c.names == nil {
 		for _, cell := range c.prog.Cells {
 			c.names = append(c.names, cell.Name)

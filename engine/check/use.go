@@ -303,7 +303,7 @@ func (c *checker) firstCell(prefix string) string {
 
 // suggestIn returns the known name nearest to name in scope, or "".
 func (c *checker) suggestIn(scope, name string) string {
-	if scope == "" {
+	if scope == "" || len(c.errs) >= diag.MaxShown {
 		return c.suggest(name)
 	}
 	names := c.localNames(scope)

@@ -21,14 +21,24 @@ type Sources map[string][]byte
 // followed by a blank line. Files missing from src get no snippet.
 func Render(w io.Writer, l List, src Sources) error {
 	var b strings.Builder
-	for _, d := range l {
+	lines := map[string][]int{} // line starts of each file, made on first use
+	for k, d := range l {
+		if k == MaxShown {
+			fmt.Fprintf(&b, "... and %d more problems not shown; correct the ones above and check again\n\n", len(l)-k)
+			break
+		}
 		b.WriteString(d.Error())
 		b.WriteByte('\n')
 		if d.Detail != "" {
 			b.WriteString("    " + d.Detail + "\n")
 		}
 		if text, ok := src[d.Range.Start.File]; ok && d.Range.Start.IsValid() {
-			writeSnippet(&b, text, d.Range)
+			starts, made := lines[d.Range.Start.File]
+			if !made {
+				starts = lineStarts(text)
+				lines[d.Range.Start.File] = starts
+			}
+			writeSnippet(&b, text, starts, d.Range)
 		}
 		if d.Hint != "" {
 			b.WriteString("    hint: " + d.Hint + "\n")
@@ -39,12 +49,29 @@ func Render(w io.Writer, l List, src Sources) error {
 	return err
 }
 
+// MaxShown is the number of problems Render shows; it says how many more
+// there are. A file with thousands of mistakes is rarely read past the
+// first screens, and rendering stays linear in the size of the file.
+const MaxShown = 100
+
+// lineStarts returns the byte offset at which each line of text starts.
+func lineStarts(text []byte) []int {
+	starts := []int{0}
+	for i, c := range text {
+		if c == '\n' {
+			starts = append(starts, i+1)
+		}
+	}
+	return starts
+}
+
 // writeSnippet writes the line holding r.Start with carets under the span
 // (clipped to that line; at least one caret). A line that is empty or
 // missing (a position at the end of the file) gets no snippet: there is
-// nothing to point at.
-func writeSnippet(b *strings.Builder, text []byte, r Range) {
-	line, ok := lineText(text, r.Start.Line)
+// nothing to point at. A long line is cut to a window around the span,
+// with "…" where text was left out.
+func writeSnippet(b *strings.Builder, text []byte, starts []int, r Range) {
+	line, ok := lineText(text, starts, r.Start.Line)
 	if !ok || line == "" {
 		return
 	}
@@ -59,26 +86,43 @@ func writeSnippet(b *strings.Builder, text []byte, r Range) {
 		width = n - r.Start.Col + 1
 	}
 	width = max(width, 1)
+	col := max(r.Start.Col-1, 0) // runes before the caret
+	if n > maxSnippet {
+		rs := []rune(line)
+		width = min(width, maxSnippet/2)
+		from := max(0, min(col-maxSnippet/4, n-maxSnippet))
+		to := min(n, from+maxSnippet)
+		cut := string(rs[from:to])
+		col -= from
+		if from > 0 {
+			cut = "…" + cut
+			col++
+		}
+		if to < n {
+			cut += "…"
+		}
+		line = cut
+		width = max(1, min(width, utf8.RuneCountInString(cut)-col))
+	}
 	num := fmt.Sprintf("%4d | ", r.Start.Line)
 	b.WriteString(num + printable(line) + "\n")
-	b.WriteString(strings.Repeat(" ", len(num)-2) + "| " + strings.Repeat(" ", max(r.Start.Col-1, 0)) + strings.Repeat("^", width) + "\n")
+	b.WriteString(strings.Repeat(" ", len(num)-2) + "| " + strings.Repeat(" ", col) + strings.Repeat("^", width) + "\n")
 }
+
+// maxSnippet is the most runes of a source line a snippet shows.
+const maxSnippet = 120
 
 // lineText returns line n (1-based) of text without its line break, and
 // false when text has no such line.
-func lineText(text []byte, n int) (string, bool) {
-	s := string(text)
-	for i := 1; i < n; i++ {
-		j := strings.IndexByte(s, '\n')
-		if j < 0 {
-			return "", false
-		}
-		s = s[j+1:]
+func lineText(text []byte, starts []int, n int) (string, bool) {
+	if n < 1 || n > len(starts) {
+		return "", false
 	}
-	if j := strings.IndexByte(s, '\n'); j >= 0 {
-		s = s[:j]
+	end := len(text)
+	if n < len(starts) {
+		end = starts[n] - 1 // before the line break
 	}
-	return strings.TrimSuffix(s, "\r"), true
+	return strings.TrimSuffix(string(text[starts[n-1]:end]), "\r"), true
 }
 
 // printable makes a source line safe to print on a terminal: a tab becomes
