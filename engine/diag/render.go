@@ -27,10 +27,12 @@ func Render(w io.Writer, l List, src Sources) error {
 			fmt.Fprintf(&b, "... and %d more problems not shown; correct the ones above and check again\n\n", len(l)-k)
 			break
 		}
-		b.WriteString(d.Error())
+		// Messages quote what the user wrote; a control character or a
+		// direction control in it is shown as U+FFFD, never sent raw.
+		b.WriteString(printable(d.Error()))
 		b.WriteByte('\n')
 		if d.Detail != "" {
-			b.WriteString("    " + d.Detail + "\n")
+			b.WriteString("    " + printable(d.Detail) + "\n")
 		}
 		if text, ok := src[d.Range.Start.File]; ok && d.Range.Start.IsValid() {
 			starts, made := lines[d.Range.Start.File]
@@ -41,7 +43,7 @@ func Render(w io.Writer, l List, src Sources) error {
 			writeSnippet(&b, text, starts, d.Range)
 		}
 		if d.Hint != "" {
-			b.WriteString("    hint: " + d.Hint + "\n")
+			b.WriteString("    hint: " + printable(d.Hint) + "\n")
 		}
 		b.WriteByte('\n')
 	}
@@ -133,9 +135,34 @@ func printable(line string) string {
 		switch {
 		case r == '\t':
 			return ' '
-		case r < 0x20 || r == 0x7f || (r >= 0x80 && r < 0xa0):
+		case r < 0x20 || r == 0x7f || (r >= 0x80 && r < 0xa0) || bidiControls[r] != "":
 			return utf8.RuneError
 		}
 		return r
 	}, line)
+}
+
+// bidiControls are the Unicode characters that reorder displayed text
+// (Unicode Standard Annex #9; the "Trojan Source" class of attacks, CVE-2021-42574).
+// A sheet refuses them anywhere: a description, a reference or a comment
+// that shows one thing and holds another misleads a checker.
+var bidiControls = map[rune]string{
+	'\u061C': "ARABIC LETTER MARK",
+	'\u200E': "LEFT-TO-RIGHT MARK",
+	'\u200F': "RIGHT-TO-LEFT MARK",
+	'\u202A': "LEFT-TO-RIGHT EMBEDDING",
+	'\u202B': "RIGHT-TO-LEFT EMBEDDING",
+	'\u202C': "POP DIRECTIONAL FORMATTING",
+	'\u202D': "LEFT-TO-RIGHT OVERRIDE",
+	'\u202E': "RIGHT-TO-LEFT OVERRIDE",
+	'\u2066': "LEFT-TO-RIGHT ISOLATE",
+	'\u2067': "RIGHT-TO-LEFT ISOLATE",
+	'\u2068': "FIRST STRONG ISOLATE",
+	'\u2069': "POP DIRECTIONAL ISOLATE",
+}
+
+// BidiControl reports whether r reorders displayed text, and its name.
+func BidiControl(r rune) (name string, ok bool) {
+	name, ok = bidiControls[r]
+	return name, ok
 }
