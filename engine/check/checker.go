@@ -61,6 +61,7 @@ func Sheet(f *sheet.File, opt Options) (*Program, diag.List) {
 		c.errs.Sort()
 		return c.prog, c.errs
 	}
+	c.confusableNames()
 	c.parseAll()
 	c.applyOverrides()
 	c.resolve()
