@@ -8,6 +8,7 @@ import (
 
 	"github.com/sheafcalc/sheaf/engine"
 	"github.com/sheafcalc/sheaf/engine/diag"
+	"github.com/sheafcalc/sheaf/engine/units"
 	"github.com/sheafcalc/sheaf/funcs"
 )
 
@@ -216,10 +217,10 @@ func init() {
 	funcs.Register(&funcs.Def{
 		Name: "test_integrate", Family: "test",
 		Params: []funcs.Param{
-			{Name: "f", Type: funcs.FuncOf(funcs.Num([7]int8{}), funcs.Num([7]int8{}))},
-			{Name: "a", Type: funcs.Num([7]int8{})}, {Name: "b", Type: funcs.Num([7]int8{})},
+			{Name: "f", Type: funcs.FuncOf(funcs.Num(units.None), funcs.Num(units.None))},
+			{Name: "a", Type: funcs.Num(units.None)}, {Name: "b", Type: funcs.Num(units.None)},
 		},
-		Result: funcs.Num([7]int8{}),
+		Result: funcs.Num(units.None),
 		Call: func(args []funcs.Value) (funcs.Value, error) {
 			f := args[0].(*funcs.FuncValue)
 			a, b := args[1].(float64), args[2].(float64)

@@ -135,7 +135,7 @@ func (t *typer) pluginCall(n ast.Node, def *funcs.Def, argNodes []ast.Node) *Nod
 		}
 		args[i], types[i] = x, x.Type
 		if p != nil && !p.Type.Accepts(x.Type) {
-			t.fail(a, fmt.Sprintf("%s of %s must be %s, got %s", p.Name, def.Name, t.describeType(p.Type), t.describeType(x.Type)), p.Doc, "see `sheaf funcs "+def.Name+"`")
+			t.fail(a, fmt.Sprintf("%s of %s must be %s, got %s", p.Name, def.Name, t.describeType(p.Type), t.describeType(x.Type)), p.Doc, angleArgHint(p.Type, x.Type)+"see `sheaf funcs "+def.Name+"`")
 			ok = false
 		}
 	}
