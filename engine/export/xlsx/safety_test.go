@@ -216,7 +216,8 @@ func TestStyles(t *testing.T) {
 // spreadsheet number in its display unit (2.36e304 m² is 2.36e310 mm²) is
 // written as its text, never as +Inf (issue 15); values in range stay numbers.
 func TestNoInfForFiniteValues(t *testing.T) {
-	s := compile(t, "big.sheaf", "title: big\nA [mm^2] = 2.36e304 m^2\nB [m^2] = 2.36e304 m^2\nC [mm] = -1.5e306 m\n")
+	s := compile(t, "big.sheaf", "title: big\nA [mm^2] = 2.36e304 m^2\nB [m^2] = 2.36e304 m^2\nC [mm] = -1.5e306 m\n"+
+		"table T\n  L [m]  F [kN]\n  1e306  1\n\ncheck c: 1e306 m <= 2e306 m\n")
 	f := build(t, s, s.NewState().Eval())
 	tests := []struct {
 		cell, value, note string
@@ -237,6 +238,18 @@ func TestNoInfForFiniteValues(t *testing.T) {
 		}
 		if !tc.number && got != tc.value {
 			t.Errorf("%s = %q, want %q", tc.cell, got, tc.value)
+		}
+	}
+	// The Data tab and the Summary tab: no cell reads Inf.
+	for _, tab := range f.GetSheetList() {
+		rows, _ := f.GetRows(tab)
+		for i, row := range rows {
+			for j, v := range row {
+				if strings.Contains(v, "Inf") {
+					ref, _ := excelize.CoordinatesToCellName(j+1, i+1)
+					t.Errorf("%s!%s = %q", tab, ref, v)
+				}
+			}
 		}
 	}
 }
