@@ -366,7 +366,17 @@ const overflowDetail = "Sheaf keeps every dimension exponent between -63 and 63;
 
 // overflowHint is the hint of an exponent overflow of a quantity of dimension d.
 func (t *typer) overflowHint(d units.Dim) string {
-	return "normalise first, e.g. (x / (1 " + t.unitOf(d) + "))^n"
+	if u := t.unitOf(d); parses(u) {
+		return "normalise first, e.g. (x / (1 " + u + "))^n"
+	}
+	return "normalise the base to a plain number before raising it to a power"
+}
+
+// parses reports whether a unit symbol can be written in a sheet (a
+// coherent symbol such as m^-32 is beyond the exponents a unit may carry).
+func parses(sym string) bool {
+	_, err := units.Parse(sym)
+	return err == nil
 }
 
 // angleArgHint is the start of the hint for a plain number passed where an
@@ -391,8 +401,11 @@ func (t *typer) dimOverflow(d units.Dim, op string, a, b units.Dim) *argProblem 
 	if op == "/" {
 		verb = "dividing"
 	}
-	return &argProblem{-1, fmt.Sprintf("%s %s by %s gives a dimension exponent out of range", verb, t.describeDim(a), t.describeDim(b)),
-		"normalise a factor to a plain number first, e.g. x / (1 " + t.unitOf(a) + ")"}
+	hint := "normalise a factor to a plain number first, dividing it by its unit"
+	if u := t.unitOf(a); parses(u) {
+		hint = "normalise a factor to a plain number first, e.g. x / (1 " + u + ")"
+	}
+	return &argProblem{-1, fmt.Sprintf("%s %s by %s gives a dimension exponent out of range", verb, t.describeDim(a), t.describeDim(b)), hint}
 }
 
 // fold evaluates a constant plain-number expression.
