@@ -37,14 +37,22 @@ func title(name string, u units.Unit) string {
 
 // cell is one output field: a number (in its display unit) or a text.
 type cell struct {
-	num   float64
-	text  string
-	isNum bool
+	num    float64 // si/factor
+	si     float64
+	factor float64 // of the unit num is in; 1 for plain numbers
+	text   string
+	isNum  bool
+}
+
+// formatted writes a number cell as the CSV and a too-large workbook entry
+// carry it: never +Inf for a finite value (2.36e304 m² in mm² is 2.36e310).
+func (c cell) formatted(sig int) string {
+	return units.Format(c.si, units.Unit{Factor: c.factor}, sig)
 }
 
 // fields lays out row r like Header. Unknown numbers are empty.
 func (o *Outcome) fields(r *Row, dst []cell) []cell {
-	dst = append(dst[:0], cell{num: float64(r.Case.N), isNum: true})
+	dst = append(dst[:0], number(float64(r.Case.N), 1))
 	for j, c := range o.Cases.Columns {
 		switch {
 		case r.Case.Values == nil:
@@ -55,17 +63,17 @@ func (o *Outcome) fields(r *Row, dst []cell) []cell {
 			}
 		default:
 			if x, ok := r.Case.Values[j].(float64); ok {
-				dst = append(dst, number(x/c.Unit.Factor))
+				dst = append(dst, number(x, c.Unit.Factor))
 			} else {
 				dst = append(dst, cell{text: r.Case.Raw[j]})
 			}
 		}
 	}
 	for k, x := range r.Picks {
-		dst = append(dst, number(x/o.PickUnit(k).Factor))
+		dst = append(dst, number(x, o.PickUnit(k).Factor))
 	}
 	for k, u := range r.Utils {
-		dst = append(dst, number(u), cell{text: r.Verdict(k)})
+		dst = append(dst, number(u, 1), cell{text: r.Verdict(k)})
 	}
 	problem := r.Problem
 	if r.Case.Err != nil {
@@ -74,11 +82,12 @@ func (o *Outcome) fields(r *Row, dst []cell) []cell {
 	return append(dst, cell{text: problem})
 }
 
-func number(x float64) cell {
-	if math.IsNaN(x) {
+// number is the cell of the SI value si shown in a unit of the given factor.
+func number(si, factor float64) cell {
+	if math.IsNaN(si) {
 		return cell{}
 	}
-	return cell{num: x, isNum: true}
+	return cell{num: si / factor, si: si, factor: factor, isNum: true}
 }
 
 // WriteCSV writes the outcome as CSV, numbers with sig significant figures
@@ -95,7 +104,7 @@ func (o *Outcome) WriteCSV(w io.Writer, sig int) error {
 		rec = rec[:0]
 		for _, f := range fs {
 			if f.isNum {
-				rec = append(rec, units.FormatNumber(f.num, sig))
+				rec = append(rec, f.formatted(sig))
 			} else {
 				rec = append(rec, f.text)
 			}
@@ -144,6 +153,8 @@ func (o *Outcome) WriteXLSX(w io.Writer) error {
 		row = row[:0]
 		for _, c := range fs {
 			switch {
+			case c.isNum && math.IsInf(c.num, 0) && !math.IsInf(c.si, 0):
+				row = append(row, c.formatted(15)) // beyond a spreadsheet number: text (15 figures, as a spreadsheet keeps), not +Inf
 			case c.isNum:
 				row = append(row, c.num)
 			case c.text == "":

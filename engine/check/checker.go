@@ -545,10 +545,13 @@ func (c *checker) fitsUnit(t *typer, cell *Cell, body *Node) bool {
 		if cell.Unit.Quantity != "" {
 			what = cell.Unit.Quantity
 		}
+		hint := "write the unit of the result, e.g. [" + t.unitOf(body.Type.Dim) + "], or correct the formula"
+		if body.Type.Dim.IsNone() {
+			hint = plainNumberHint(cell.Unit, body)
+		}
 		t.errs.Errorf(cell.Formula.Source.Range,
 			"the unit in brackets sets how the value is shown and must have the dimension of the expression",
-			"write the unit of the result, e.g. ["+t.unitOf(body.Type.Dim)+"], or correct the formula",
-			"display unit %s is %s but the expression is %s", cell.Unit.Symbol, article(what), t.describeDim(body.Type.Dim))
+			hint, "display unit %s is %s but the expression is %s", cell.Unit.Symbol, article(what), t.describeDim(body.Type.Dim))
 		return false
 	}
 	return true

@@ -5,6 +5,12 @@
 // Problems of the whole file are collected at once, each with a range, a
 // detail sentence and a hint.
 //
+// A plane angle is a dimension of its own (units.Angle), not a plain number:
+// sin, cos and tan take one, asin, acos, atan and atan2 give one, and a
+// plain number in a cell shown in degrees is refused (builtins.go). A product
+// or quotient whose dimension exponent overflows (units.Overflow) is an error
+// at that expression, never a wrapped dimension.
+//
 // One mistake gives one message, yet a second, independent mistake is not
 // hidden by the first: a cell that fails but declares its dimension (a
 // display unit `P [kN] = ...`, or a user function's result unit) stands in
