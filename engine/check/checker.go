@@ -24,6 +24,9 @@ type Options struct {
 	MaxBytes  int          // size of a template file; 0 means sheet.DefaultMaxBytes
 	System    units.System // preferred units in messages; Neutral means the sheet's own
 	HasSystem bool
+	// Loader reads the templates the sheet uses; nil means the files on
+	// disk beside the sheet (NewFileLoader of the sheet's name).
+	Loader Loader
 	// DropItems lets Program.File and Program.Files keep only the name,
 	// source and syntax problems of each file once its items are read into
 	// cells: a sheet of 100,000 cells would otherwise hold its syntax tree
