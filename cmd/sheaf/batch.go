@@ -155,7 +155,7 @@ func runBatch(ctx context.Context, a *app, o *batchOptions, sheetPath, casesPath
 	case "csv":
 		err = atomicfile.Write(o.out, 0o644, func(w io.Writer) error { return out.WriteCSV(w, o.sig) })
 	case "xlsx":
-		err = atomicfile.Write(o.out, 0o644, out.WriteXLSX)
+		err = atomicfile.Write(o.out, 0o644, func(w io.Writer) error { return out.WriteXLSXContext(ctx, w) })
 	}
 	if err != nil {
 		return fmt.Errorf("writing the results: %w", err)

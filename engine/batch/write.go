@@ -1,6 +1,7 @@
 package batch
 
 import (
+	"context"
 	"encoding/csv"
 	"fmt"
 	"io"
@@ -177,6 +178,13 @@ func (o *Outcome) WriteCSV(w io.Writer, sig int) error {
 // chart them. The file's properties carry no timestamp that changes from
 // run to run beyond what the library writes.
 func (o *Outcome) WriteXLSX(w io.Writer) error {
+	return o.WriteXLSXContext(context.Background(), w)
+}
+
+// WriteXLSXContext is WriteXLSX that stops with ctx's error when ctx ends
+// (an interrupted command), checked every few hundred rows: a workbook of
+// many cases takes seconds to build.
+func (o *Outcome) WriteXLSXContext(ctx context.Context, w io.Writer) error {
 	f := excelize.NewFile()
 	defer f.Close()
 	const name = "cases"
@@ -204,6 +212,9 @@ func (o *Outcome) WriteXLSX(w io.Writer) error {
 	}
 	var fs []cell
 	for i := range o.Rows {
+		if i%256 == 0 && ctx.Err() != nil {
+			return ctx.Err()
+		}
 		fs = o.fields(&o.Rows[i], fs)
 		row = row[:0]
 		for _, c := range fs {

@@ -7,6 +7,7 @@ import (
 	"os"
 	"path/filepath"
 	"sync"
+	"sync/atomic"
 )
 
 // ErrAborted is the error of a Write that Abort stopped.
@@ -18,6 +19,7 @@ var (
 	mu      sync.Mutex
 	live    = map[string]bool{}
 	aborted bool
+	stopped atomic.Bool // aborted, read without the lock by abortWriter
 )
 
 // Write writes the file at path through write and gives it mode perm. On
@@ -68,7 +70,7 @@ func WriteChecked(path string, perm os.FileMode, write func(io.Writer) error, re
 			_ = os.Remove(name)
 		}
 	}()
-	if err = write(tmp); err != nil {
+	if err = write(abortWriter{tmp}); err != nil {
 		return err
 	}
 	if err = tmp.Sync(); err != nil {
@@ -94,6 +96,17 @@ func WriteChecked(path string, perm os.FileMode, write func(io.Writer) error, re
 	return os.Rename(name, path)
 }
 
+// abortWriter fails every write once Abort was called, so that a long
+// write stops soon after an interrupt.
+type abortWriter struct{ f *os.File }
+
+func (w abortWriter) Write(p []byte) (int, error) {
+	if stopped.Load() {
+		return 0, ErrAborted
+	}
+	return w.f.Write(p)
+}
+
 // WriteFile is Write for bytes in hand, in the manner of os.WriteFile.
 func WriteFile(path string, data []byte, perm os.FileMode) error {
 	return Write(path, perm, func(w io.Writer) error {
@@ -111,6 +124,7 @@ func Abort() int {
 	mu.Lock()
 	defer mu.Unlock()
 	aborted = true
+	stopped.Store(true)
 	n := 0
 	for name := range live {
 		if os.Remove(name) == nil {

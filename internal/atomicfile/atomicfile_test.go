@@ -132,7 +132,7 @@ func TestWriteChecked(t *testing.T) {
 // write fails with ErrAborted, the target is untouched, and later writes
 // are refused.
 func TestAbort(t *testing.T) {
-	defer func() { mu.Lock(); aborted = false; mu.Unlock() }()
+	defer func() { mu.Lock(); aborted = false; stopped.Store(false); mu.Unlock() }()
 	dir := t.TempDir()
 	path := filepath.Join(dir, "cases.csv")
 	if err := os.WriteFile(path, []byte("old"), 0o644); err != nil {
