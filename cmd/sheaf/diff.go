@@ -242,7 +242,7 @@ func revSide(rev, file string) (*diffSide, error) {
 	if err != nil {
 		return nil, userErrorf("git cannot show %s at revision %q: %v; list the revisions of the file with `git log -- %s`", rel, rev, err, file)
 	}
-	key, e, found, out, err := tree.resolve(rel)
+	key, e, found, out, _, err := tree.resolve(rel)
 	switch {
 	case err != nil:
 		return nil, userErrorf("git cannot show %s at revision %q: %v", rel, rev, err)

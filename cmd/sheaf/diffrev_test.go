@@ -59,12 +59,13 @@ func writeFiles(t *testing.T, dir string, files map[string]string) {
 // that revision. Commits: a sheet and its template (A); a change of the
 // template only (B); a template made invalid (C); a template path that
 // leaves the project (D); a template reached through a link inside the
-// project (E); a link out of it (F); a misspelt template path (G). The
-// work tree is then checked out at E (so HEAD~4 is A) and holds yet
-// another template, which no comparison of two revisions may read. Hand check of the numbers: σ = P/A
-// with P = 20 kN: A = 100 mm² gives 200 MPa, A = 80 mm² gives 250 MPa;
-// against f_y = 235 MPa that is 85.1 % and 106 % (common practice: the
-// utilisation is demand over capacity).
+// project (E); a link out of it (F); a misspelt template path (G); a
+// misspelt folder (H). The work tree is then checked out at E (so HEAD~4
+// is A) and holds yet another template, which no comparison of two
+// revisions may read. Hand check of the numbers: σ = P/A with P = 20 kN:
+// A = 100 mm² gives 200 MPa, A = 80 mm² gives 250 MPa; against
+// f_y = 235 MPa that is 85.1 % and 106 % (common practice: the utilisation
+// is demand over capacity).
 func TestDiffRevTemplates(t *testing.T) {
 	goldDir, err := filepath.Abs(filepath.Join("testdata", "diffrev"))
 	if err != nil {
@@ -115,6 +116,9 @@ func TestDiffRevTemplates(t *testing.T) {
 	writeFiles(t, repo, map[string]string{"calcs/user.sheaf": strings.Replace(user, "templates/rod.sheaf", "templates/rodd.sheaf", 1)})
 	git("commit", "-q", "-a", "-m", "G: a misspelt template")
 	git("tag", "G")
+	writeFiles(t, repo, map[string]string{"calcs/user.sheaf": strings.Replace(user, "templates/rod.sheaf", "templatez/rod.sheaf", 1)})
+	git("commit", "-q", "-a", "-m", "H: a misspelt folder")
+	git("tag", "H")
 	git("checkout", "-q", "E")
 	// The working copy differs from every commit: a comparison of two
 	// revisions must not see it.
@@ -136,6 +140,7 @@ func TestDiffRevTemplates(t *testing.T) {
 		{"through-link", []string{"--rev", "B..E"}, exitOK},
 		{"link-leaves-root", []string{"--rev", "E..F"}, exitInput},
 		{"misspelt-template", []string{"--rev", "E..G"}, exitInput},
+		{"misspelt-folder", []string{"--rev", "E..H"}, exitInput},
 		{"rev-and-working-copy", []string{"--rev", "E"}, exitOK},
 		{"three-revs", []string{"--rev", "A", "--rev", "B..C"}, exitInput},
 		{"merge-base", []string{"--rev", "A...B"}, exitInput},

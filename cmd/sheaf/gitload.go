@@ -79,9 +79,10 @@ const maxLinks = 40
 // resolve follows the symbolic links on the slash path p (from the
 // repository root, cleaned) and returns the path it leads to. out is true
 // when a link leads outside the repository; e is the entry reached, and
-// found false when a step is missing (then dir is the resolved folder that
-// lacks it, and dirFound whether that folder exists).
-func (t *gitTree) resolve(p string) (res string, e gitEntry, found, out bool, err error) {
+// found false when a step is missing (then res is the path of the missing
+// step, and noDir tells that a folder on the way is missing, not the last
+// step).
+func (t *gitTree) resolve(p string) (res string, e gitEntry, found, out, noDir bool, err error) {
 	hops := 0
 	parts := strings.Split(p, "/")
 	cur := ""
@@ -92,35 +93,35 @@ func (t *gitTree) resolve(p string) (res string, e gitEntry, found, out bool, er
 		next := path.Join(cur, parts[i])
 		ent, ok := t.entries[next]
 		if !ok {
-			return next, gitEntry{}, false, false, nil
+			return next, gitEntry{}, false, false, i < len(parts)-1, nil
 		}
 		if ent.isLink() {
 			hops++
 			if hops > maxLinks {
-				return next, ent, true, false, fmt.Errorf("more than %d symbolic links", maxLinks)
+				return next, ent, true, false, false, fmt.Errorf("more than %d symbolic links", maxLinks)
 			}
 			target, err := t.blob(ent.oid)
 			if err != nil {
-				return next, ent, true, false, err
+				return next, ent, true, false, false, err
 			}
 			tg := string(target)
 			if strings.HasPrefix(tg, "/") {
-				return next, ent, true, true, nil
+				return next, ent, true, true, false, nil
 			}
 			joined := path.Join(cur, tg)
 			if joined == ".." || strings.HasPrefix(joined, "../") {
-				return next, ent, true, true, nil
+				return next, ent, true, true, false, nil
 			}
 			rest := append(strings.Split(joined, "/"), parts[i+1:]...)
 			parts, i, cur = rest, -1, ""
 			continue
 		}
 		if i < len(parts)-1 && !ent.isDir() {
-			return next, gitEntry{}, false, false, nil
+			return next, gitEntry{}, false, false, true, nil // a file where a folder should be
 		}
 		cur = next
 	}
-	return cur, t.entries[cur], true, false, nil
+	return cur, t.entries[cur], true, false, false, nil
 }
 
 // inside reports whether the slash path p lies in or below dir ("" is the
@@ -176,7 +177,7 @@ func (l *gitLoader) Resolve(from, written string) (string, string, error) {
 	if !inside(l.root, joined) {
 		return "", "", fail(check.LeavesRoot)
 	}
-	res, e, found, out, err := l.t.resolve(joined)
+	res, e, found, out, noDir, err := l.t.resolve(joined)
 	switch {
 	case err != nil:
 		le := fail(check.Unreadable)
@@ -190,7 +191,7 @@ func (l *gitLoader) Resolve(from, written string) (string, string, error) {
 		if dir == "." {
 			dir = ""
 		}
-		if d, ok := l.t.entries[dir]; !ok || !d.isDir() {
+		if d, ok := l.t.entries[dir]; noDir || !ok || !d.isDir() {
 			le.NoFolder = true
 			return "", "", le
 		}
