@@ -19,6 +19,7 @@ import (
 	"github.com/sheafcalc/sheaf/engine/diff"
 	"github.com/sheafcalc/sheaf/engine/export/text"
 	"github.com/sheafcalc/sheaf/engine/units"
+	"github.com/sheafcalc/sheaf/internal/userfile"
 )
 
 // watchOptions are the flags of `sheaf watch`.
@@ -94,7 +95,7 @@ func runWatch(ctx context.Context, a *app, o *watchOptions, path string, ready f
 		}
 		w.opts = append(w.opts, engine.WithSystem(s))
 	}
-	if _, err := os.Stat(path); err != nil {
+	if _, err := userfile.Check(path, engine.DefaultMaxBytes); err != nil {
 		return &inputError{err}
 	}
 	fw, err := fsnotify.NewWatcher()
@@ -169,7 +170,7 @@ func clean(p string) string {
 // returns the files to watch.
 func (w *watcher) run() []string {
 	files := []string{w.path}
-	src, err := os.ReadFile(w.path)
+	src, err := userfile.ReadFile(w.path, engine.DefaultMaxBytes)
 	if err != nil {
 		fmt.Fprintf(w.a.stderr, "sheaf: %v; waiting for the file to come back\n", err)
 		w.src = nil
@@ -205,7 +206,7 @@ func (w *watcher) run() []string {
 	w.last = res
 	w.used = map[string][]byte{}
 	for _, f := range s.Files()[1:] {
-		w.used[f], _ = os.ReadFile(f)
+		w.used[f], _ = userfile.ReadFile(f, engine.DefaultMaxBytes)
 	}
 	return s.Files()
 }
@@ -215,7 +216,7 @@ func (w *watcher) run() []string {
 // sheet's own text is the same.
 func (w *watcher) usedUnchanged() bool {
 	for f, src := range w.used {
-		now, err := os.ReadFile(f)
+		now, err := userfile.ReadFile(f, engine.DefaultMaxBytes)
 		if err != nil || !bytes.Equal(now, src) {
 			return false
 		}
