@@ -108,6 +108,6 @@ func (d *doc) signOff() {
 
 // cssString quotes s for a CSS content property.
 func cssString(s string) string {
-	s = strings.NewReplacer("\\", "\\\\", "\"", "\\\"", "\n", " ", "<", "\\3c ").Replace(s)
+	s = strings.NewReplacer("\\", "\\\\", "\"", "\\\"", "\n", "\\a ", "<", "\\3c ").Replace(s)
 	return "\"" + s + "\""
 }

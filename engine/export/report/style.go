@@ -11,18 +11,19 @@ func (d *doc) style(title string) {
 	if d.opt.Paper == Letter {
 		size = "letter"
 	}
-	head := []string{}
-	if m.Project != "" {
-		head = append(head, m.Project)
-	}
+	rev := ""
 	if m.Revision != "" {
-		head = append(head, "revision "+m.Revision)
+		rev = "Revision " + m.Revision
+	}
+	left := title
+	if m.Project != "" {
+		left += "\n" + m.Project
 	}
 	d.w("@page { size: ", size, "; margin: 20mm 16mm 18mm 20mm;\n",
-		"  @top-left { content: ", cssString(title), "; font: 600 8pt/1.2 ", fontStack, "; color: #333; vertical-align: bottom; padding-bottom: 3mm; }\n",
-		"  @top-right { content: ", cssString(strings.Join(head, " · ")), "; font: 8pt/1.2 ", fontStack, "; color: #333; vertical-align: bottom; padding-bottom: 3mm; text-align: right; }\n",
-		"  @bottom-left { content: ", cssString("Sheaf calculation · "+baseName(d.s.Name())+" · SHA-256 "+d.hash[:12]), "; font: 7.5pt/1.2 ", fontStack, "; color: #555; vertical-align: top; padding-top: 3mm; }\n",
-		"  @bottom-right { content: \"Page \" counter(page) \" of \" counter(pages); font: 7.5pt/1.2 ", fontStack, "; color: #555; vertical-align: top; padding-top: 3mm; }\n",
+		"  @top-left { content: ", cssString(left), "; white-space: pre-wrap; width: 80%; font: 8pt/1.3 ", fontStack, "; color: #333; vertical-align: bottom; padding-bottom: 3mm; }\n",
+		"  @top-right { content: ", cssString(rev), "; width: 20%; font: 600 8pt/1.3 ", fontStack, "; color: #333; vertical-align: bottom; padding-bottom: 3mm; text-align: right; }\n",
+		"  @bottom-left { content: ", cssString("Sheaf calculation · "+baseName(d.s.Name())+" · SHA-256 "+d.hash[:12]), "; width: 75%; font: 7.5pt/1.2 ", fontStack, "; color: #555; vertical-align: top; padding-top: 3mm; }\n",
+		"  @bottom-right { content: \"Page \" counter(page) \" of \" counter(pages); width: 25%; font: 7.5pt/1.2 ", fontStack, "; color: #555; vertical-align: top; padding-top: 3mm; text-align: right; }\n",
 		"}\n")
 	d.w(css)
 }
@@ -80,6 +81,7 @@ svg.bar.pass .fill { fill: var(--pass); } svg.bar.fail .fill { fill: var(--fail)
 p.comment { margin: 1.5mm 0 2.5mm; max-width: 150mm; }
 pre.comment { font: 8.5pt/1.4 "DejaVu Sans Mono", "Liberation Mono", monospace; background: var(--band); padding: 2mm 3mm; margin: 2mm 0 3mm; white-space: pre-wrap; break-inside: avoid; }
 .cell { display: grid; grid-template-columns: minmax(0, 1fr) 36mm; column-gap: 4mm; padding: 1.6mm 0 1.4mm; border-bottom: .4pt solid var(--rule); break-inside: avoid; }
+.cell:has(figure), .cell:has(table.data) { break-inside: auto; }
 .cell > .eq { grid-column: 1; display: flex; flex-wrap: wrap; align-items: baseline; column-gap: .25em; row-gap: 1mm; }
 .cell > .ref { grid-column: 2; grid-row: 1 / span 3; font-size: 7.5pt; line-height: 1.3; color: var(--mute); border-left: 1.5pt solid var(--teal); padding-left: 2mm; align-self: start; overflow-wrap: anywhere; }
 .cell > .desc { grid-column: 1; font-size: 8.5pt; color: var(--mute); }
