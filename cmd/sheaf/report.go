@@ -4,14 +4,21 @@ import (
 	"context"
 	"errors"
 	"fmt"
-
+	"html"
+	"io"
+	"net"
+	"net/http"
 	"os"
 	"path/filepath"
+	"strconv"
 	"strings"
+	"sync"
 	"time"
 
 	"github.com/spf13/cobra"
 
+	"github.com/sheafcalc/sheaf/engine"
+	"github.com/sheafcalc/sheaf/engine/diag"
 	"github.com/sheafcalc/sheaf/engine/export/report"
 	"github.com/sheafcalc/sheaf/internal/atomicfile"
 )
@@ -132,9 +139,6 @@ func runReport(ctx context.Context, a *app, o *reportOptions, path string) error
 func printPDF(ctx context.Context, html, htmlPath, pdfPath string) error {
 	browser, err := report.FindBrowser()
 	if err != nil {
-		if errors.Is(err, report.ErrNoBrowser) {
-			return userErrorf("--pdf %s: %v", pdfPath, err)
-		}
 		return userErrorf("--pdf %s: %v", pdfPath, err)
 	}
 	if htmlPath == "" {
@@ -158,4 +162,159 @@ func same(a, b string) bool {
 	x, err1 := filepath.Abs(a)
 	y, err2 := filepath.Abs(b)
 	return err1 == nil && err2 == nil && x == y
+}
+
+// DefaultServe is the address of the live preview when --serve names none:
+// the loopback interface only, so the calculation is not shown to the
+// network unless an address says so.
+const DefaultServe = "127.0.0.1:8470"
+
+// preview serves the report of the sheet being watched and pushes each new
+// version to the open pages as a server-sent event.
+type preview struct {
+	mu   sync.Mutex
+	page string // the last page served at /
+	good string // the body of the last good report
+	body string // the body the pages show now
+	subs map[chan string]bool
+	url  string
+	opt  report.Options
+}
+
+// serveAddr reads the --serve value: "" or a port alone binds the
+// loopback address.
+func serveAddr(s string) string {
+	if s == "" {
+		return DefaultServe
+	}
+	if _, err := strconv.Atoi(s); err == nil {
+		return "127.0.0.1:" + s
+	}
+	return s
+}
+
+// startPreview listens on addr and serves until ctx ends.
+func startPreview(ctx context.Context, addr string, paper string) (*preview, error) {
+	ln, err := net.Listen("tcp", serveAddr(addr))
+	if err != nil {
+		return nil, userErrorf("--serve %s: %v", addr, err)
+	}
+	p := &preview{subs: map[chan string]bool{}, opt: report.Options{Paper: paper, Version: reportVersion(), Live: "/events"}}
+	p.url = "http://" + ln.Addr().String() + "/"
+	p.page = placeholder("waiting for the first run")
+	mux := http.NewServeMux()
+	mux.HandleFunc("GET /{$}", p.serveIndex)
+	mux.HandleFunc("GET /events", p.serveEvents)
+	srv := &http.Server{Handler: mux, ReadHeaderTimeout: 5 * time.Second}
+	go func() { _ = srv.Serve(ln) }()
+	go func() {
+		<-ctx.Done()
+		p.mu.Lock()
+		for c := range p.subs {
+			close(c)
+			delete(p.subs, c)
+		}
+		p.mu.Unlock()
+		_ = srv.Close()
+	}()
+	return p, nil
+}
+
+func placeholder(msg string) string {
+	return "<!DOCTYPE html><html lang=\"en\"><head><meta charset=\"utf-8\"><title>Sheaf preview</title></head><body><main id=\"report\"><p>" + msg + "</p></main>" +
+		"<script>new EventSource(\"/events\").addEventListener(\"report\",function(e){document.getElementById(\"report\").innerHTML=e.data;});</script></body></html>"
+}
+
+func (p *preview) serveIndex(w http.ResponseWriter, _ *http.Request) {
+	p.mu.Lock()
+	page := p.page
+	p.mu.Unlock()
+	w.Header().Set("Content-Type", "text/html; charset=utf-8")
+	w.Header().Set("Cache-Control", "no-store")
+	_, _ = io.WriteString(w, page)
+}
+
+func (p *preview) serveEvents(w http.ResponseWriter, r *http.Request) {
+	fl, ok := w.(http.Flusher)
+	if !ok {
+		http.Error(w, "streaming is not supported", http.StatusInternalServerError)
+		return
+	}
+	w.Header().Set("Content-Type", "text/event-stream")
+	w.Header().Set("Cache-Control", "no-store")
+	c := make(chan string, 4)
+	p.mu.Lock()
+	p.subs[c] = true
+	p.mu.Unlock()
+	defer func() {
+		p.mu.Lock()
+		if p.subs[c] {
+			delete(p.subs, c)
+			close(c)
+		}
+		p.mu.Unlock()
+	}()
+	_, _ = io.WriteString(w, ": connected\n\n")
+	fl.Flush()
+	for {
+		select {
+		case <-r.Context().Done():
+			return
+		case body, ok := <-c:
+			if !ok {
+				return
+			}
+			var b strings.Builder
+			b.WriteString("event: report\n")
+			for _, line := range strings.Split(body, "\n") {
+				b.WriteString("data: " + line + "\n")
+			}
+			b.WriteString("\n")
+			if _, err := io.WriteString(w, b.String()); err != nil {
+				return
+			}
+			fl.Flush()
+		}
+	}
+}
+
+// update publishes the outcome of one run of the watcher: the new report,
+// or the sheet's errors at their lines above the last good report.
+func (p *preview) update(s *engine.Sheet, res *engine.Results, err error, src diag.Sources) {
+	var page, body string
+	if err == nil {
+		page = report.Render(s, res, p.opt)
+		body = report.Body(page)
+	} else {
+		var msg strings.Builder
+		var list diag.List
+		if errors.As(err, &list) {
+			_ = diag.Render(&msg, list, src)
+		} else {
+			msg.WriteString(err.Error())
+		}
+		p.mu.Lock()
+		good := p.good
+		p.mu.Unlock()
+		body = "<div class=\"liveerr\"><strong>The sheet has errors; the report below is from the last good run. Fix and save to update.</strong><pre>" +
+			html.EscapeString(msg.String()) + "</pre></div>\n" + good
+	}
+	p.mu.Lock()
+	defer p.mu.Unlock()
+	if err == nil {
+		p.good = body
+		p.page = page
+	} else if p.good == "" {
+		p.page = placeholder("")
+		p.page = strings.Replace(p.page, "<p></p>", body, 1)
+	} else {
+		p.page = strings.Replace(p.page, report.Body(p.page), body, 1)
+	}
+	p.body = body
+	for c := range p.subs {
+		select {
+		case c <- body:
+		default: // a slow page misses this version; the next save brings it up to date
+		}
+	}
 }
