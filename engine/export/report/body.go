@@ -134,6 +134,8 @@ func (d *doc) prose(lines []string) {
 // headings.
 func (d *doc) use(u *sheet.Use, no string) {
 	prefix := u.Name.Name + "."
+	d.usePrefix = prefix
+	defer func() { d.usePrefix = "" }()
 	path := u.Path
 	d.w("<section class=\"use\">\n<h3><span class=\"no\">", no, "</span>Template use <b>", esc(u.Name.Name), "</b> of <span class=\"file\">", esc(path), "</span></h3>\n")
 	if u.Annot.Description != "" || u.Annot.Reference != "" {

@@ -46,7 +46,7 @@ func (d *doc) part(f func(b *strings.Builder)) {
 
 func (d *doc) valueLine(c *engine.Cell, cr *engine.CellResult) {
 	scope := c.Scope
-	sym := func(b *strings.Builder) { symbol(b, strings.TrimPrefix(c.Name, scope)) }
+	sym := func(b *strings.Builder) { symbol(b, d.local(c)) }
 	body := c.Body
 	lone := body == nil || body.Op == check.OpConst || body.Op == check.OpString || body.Op == check.OpBool
 	if body != nil && body.Op == check.OpRecord {
@@ -84,6 +84,15 @@ func (d *doc) valueLine(c *engine.Cell, cr *engine.CellResult) {
 		quantity(b, x, cr.Unit, d.sig)
 		b.WriteString("</mrow>")
 	})
+}
+
+// local is the name a cell shows under: without the prefix of its
+// template use, inside the use's sub-section.
+func (d *doc) local(c *engine.Cell) string {
+	if d.usePrefix != "" && strings.HasPrefix(c.Name, d.usePrefix) {
+		return c.Name[len(d.usePrefix):]
+	}
+	return strings.TrimPrefix(c.Name, c.Scope)
 }
 
 // pathOnly reports whether n only reads a value (a cell, a field of a
@@ -149,7 +158,7 @@ func (d *doc) checkLine(c *engine.Cell) {
 	if c.Op == ">=" {
 		left, right, op = c.Capacity, c.Demand, "≥"
 	}
-	d.w("<span class=\"checkname\">check ", esc(strings.TrimPrefix(c.Name, c.Scope)), "</span>")
+	d.w("<span class=\"checkname\">check ", esc(d.local(c)), "</span>")
 	t := &typesetter{d: d, scope: c.Scope}
 	d.part(func(b *strings.Builder) {
 		t.expr(b, left, 0)

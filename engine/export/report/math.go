@@ -67,7 +67,11 @@ func (t *typesetter) expr(b *strings.Builder, n *check.Node, min int) {
 		b.WriteString("<mi>?</mi>")
 		return
 	}
-	if t.prec(n) < min || (min > precAtom && !t.atomic(n)) {
+	wrap := t.prec(n) < min
+	if min > precAtom {
+		wrap = !t.atomic(n) // the base of a power: only what reads as one symbol goes bare
+	}
+	if wrap {
 		b.WriteString("<mrow><mo>(</mo>")
 		t.node(b, n)
 		b.WriteString("<mo>)</mo></mrow>")

@@ -50,7 +50,9 @@ type doc struct {
 	hash  string // SHA-256 of the sheet, hex
 	fig   int    // figures numbered so far
 	b     strings.Builder
-	fonts map[string]bool
+	// use is the prefix of the template use being written ("access."):
+	// its cells, overrides included, show their names without it.
+	usePrefix string
 }
 
 // Write writes the report of sheet s with results r to w.

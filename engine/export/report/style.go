@@ -85,7 +85,7 @@ pre.comment { font: 8.5pt/1.4 "DejaVu Sans Mono", "Liberation Mono", monospace; 
 .cell > .eq { grid-column: 1; display: flex; flex-wrap: wrap; align-items: baseline; column-gap: .25em; row-gap: 1mm; }
 .cell > .ref { grid-column: 2; grid-row: 1 / span 3; font-size: 7.5pt; line-height: 1.3; color: var(--mute); border-left: 1.5pt solid var(--teal); padding-left: 2mm; align-self: start; overflow-wrap: anywhere; }
 .cell > .desc { grid-column: 1; font-size: 8.5pt; color: var(--mute); }
-.cell > table, .cell > figure, .cell > .list { grid-column: 1 / span 2; }
+.cell > table, .cell > figure, .cell > .list { grid-column: 1 / span 2; justify-self: start; }
 .part { white-space: nowrap; }
 .result { font-weight: 700; }
 .u { font-style: normal; }

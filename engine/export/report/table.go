@@ -66,6 +66,11 @@ func (d *doc) tableValue(c *engine.Cell, tv *funcs.TableValue) {
 	d.w("<table class=\"data\"><thead><tr>")
 	for i, f := range tv.Type.Fields {
 		us[i] = d.unitFor(f.Type.Dim)
+		if f.Name == "eps" && tv.Type.Name == "n_eps_curve" {
+			if u, err := units.Parse("‰"); err == nil {
+				us[i] = u // strains of a section read in per mille, as the sheet writes them
+			}
+		}
 		d.w("<th>")
 		d.math(func(b *strings.Builder) {
 			symbol(b, f.Name)
