@@ -41,15 +41,15 @@ type Options struct {
 
 // doc is one report being written.
 type doc struct {
-	s     *engine.Sheet
-	res   *engine.Results
-	prog  *check.Program
-	src   diag.Sources
-	opt   Options
-	sig   int
-	hash  string // SHA-256 of the sheet, hex
-	fig   int    // figures numbered so far
-	b     strings.Builder
+	s    *engine.Sheet
+	res  *engine.Results
+	prog *check.Program
+	src  diag.Sources
+	opt  Options
+	sig  int
+	hash string // SHA-256 of the sheet, hex
+	fig  int    // figures numbered so far
+	b    strings.Builder
 	// use is the prefix of the template use being written ("access."):
 	// its cells, overrides included, show their names without it.
 	usePrefix string
