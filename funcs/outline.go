@@ -19,3 +19,24 @@ type OutlineRegion struct {
 	Zc   float64
 	R    float64
 }
+
+// BarLayouter is implemented by the payload of a solved bar: what a
+// drawing of its diagrams shows besides the values along it.
+type BarLayouter interface {
+	Layout() BarLayout
+}
+
+// BarLayout is how a solved bar sits and what holds and loads it.
+type BarLayout struct {
+	// Gravity is the weight density of the bar's own weight along +x
+	// (N/m³): a bar that carries its own weight is vertical, with x
+	// downward when it is positive and upward when it is negative; zero
+	// for a bar drawn lying along x.
+	Gravity     float64
+	Start, End  string      // supports: "fixed", "free", "spring" or "stop"
+	Points      []PointLoad // point loads, +x positive
+	Distributed bool        // a load along the length (own weight, line load, b(x))
+}
+
+// PointLoad is a force P (N, +x positive) at x (m) from the start.
+type PointLoad struct{ X, P float64 }

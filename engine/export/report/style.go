@@ -118,6 +118,10 @@ svg.plot .zero { stroke: var(--ink); stroke-width: 1; }
 svg.plot .area { fill: #cfe3e3; } svg.plot.u .area { fill: #e4dfcf; } svg.plot.sigma .area { fill: #dcd6e8; } svg.plot.neps .area { fill: #e6e6e6; }
 svg.plot .curve { fill: none; stroke: var(--teal); stroke-width: 1.6; }
 svg.plot .extreme { fill: var(--fail); }
+svg.plot .support { fill: none; stroke: var(--ink); stroke-width: 1.4; }
+svg.plot .load { fill: none; stroke: var(--fail); stroke-width: 1.6; }
+figure.bar.vertical .plots { display: flex; gap: 2mm; }
+figure.bar.vertical svg.plot { width: 33%; max-width: 58mm; }
 svg.plot text { font-family: ` + fontStack + `; }
 svg.plot .tick { font-size: 10px; fill: var(--mute); } svg.plot .axis { font-size: 11px; fill: var(--ink); } svg.plot .label { font-size: 11px; font-weight: 600; fill: var(--ink); }
 figure.sectionfig { display: flex; align-items: flex-end; gap: 4mm; }

@@ -10,11 +10,12 @@ import (
 	"github.com/sheafcalc/sheaf/funcs"
 )
 
-var extremeRE = regexp.MustCompile(`<svg[^>]*class="plot (\w+)"[\s\S]*?<circle class="extreme" cx="([^"]+)" cy="[^"]+" r="4" data-x="([^"]+)" data-v="([^"]+)"/>`)
+var extremeRE = regexp.MustCompile(`<svg[^>]*class="plot (\w+)"[\s\S]*?<circle class="extreme" cx="[^"]+" cy="([^"]+)" r="4" data-x="([^"]+)" data-v="([^"]+)"/>`)
 
-// TestHangingBarExtremes draws a bar hanging under its own weight: the
-// axial force and the stress are largest at the fixed top end, the
-// displacement at the free lower end.
+// TestHangingBarExtremes draws a bar hanging under its own weight: it is
+// drawn vertical, x downward from the support; the axial force and the
+// stress are largest at the fixed top end, the displacement at the free
+// lower end.
 // Source: REFERENCES C3 (bar hanging under own weight, σ_max = γL at the
 // support, δ = γL²/(2E)); γ = 78.5 kN/m³, L = 100 m, E = 210 GPa.
 func TestHangingBarExtremes(t *testing.T) {
@@ -28,6 +29,9 @@ rod            = with_self_weight(bar_uniform(L, A, E), gamma)
 res            = solve_bar(rod, "fixed", "free")
 `)
 	html := Render(s, r, testOptions)
+	if !strings.Contains(html, `<figure class="bar vertical">`) {
+		t.Error("a bar under its own weight is not drawn vertical")
+	}
 	got := map[string][3]float64{}
 	for _, m := range extremeRE.FindAllStringSubmatch(html, -1) {
 		var v [3]float64
@@ -61,9 +65,9 @@ res            = solve_bar(rod, "fixed", "free")
 		if math.Abs(m[2]-tt.v) > 1e-6*math.Abs(tt.v) {
 			t.Errorf("%s: extreme value %g, want %g (relative 1e-6)", tt.plot, m[2], tt.v)
 		}
-		wantPx := padL
+		wantPx := vpadT // x downward: the start at the top
 		if !tt.atStart {
-			wantPx = plotW - padR
+			wantPx = vplotH - vpadB
 		}
 		if math.Abs(m[0]-wantPx) > 0.01 {
 			t.Errorf("%s: marker drawn at %g px, want the %s end of the axis at %g px", tt.plot, m[0], map[bool]string{true: "fixed", false: "free"}[tt.atStart], wantPx)
@@ -136,5 +140,43 @@ tee  = polygon([-100 mm, 100 mm, 100 mm, 10 mm, 10 mm, -10 mm, -10 mm, -100 mm],
 				t.Errorf("drawn area %.12g mm², section area %.12g mm² (relative 1e-9)", got, want)
 			}
 		})
+	}
+}
+
+// TestSteppedBarLies draws a stepped bar with two point loads, which
+// carries no weight along its axis: it lies along x, the point loads are
+// drawn, and N is largest on the first step.
+// Source: REFERENCES C5 (stepped bar fixed at A: N1 = 70 kN on AB,
+// N2 = 30 kN on BC; δ_C = 0.6875 mm at the free end).
+func TestSteppedBarLies(t *testing.T) {
+	s, r := compile(t, "step.sheaf", `
+table steps
+    L [m]  E [GPa]  A [mm^2]
+      1.5      200      1200
+      1.0      200       600
+rod = with_point_load(with_point_load(bar(steps), 1.5 m, 40 kN), 2.5 m, 30 kN)
+res = solve_bar(rod, "fixed", "free")
+`)
+	html := Render(s, r, testOptions)
+	if !strings.Contains(html, `<figure class="bar">`) || strings.Contains(html, "bar vertical") {
+		t.Error("a bar without its own weight is not drawn lying along x")
+	}
+	if n := strings.Count(html, `class="load"`); n != 2 {
+		t.Errorf("%d point loads drawn, want 2", n)
+	}
+	re := regexp.MustCompile(`class="plot (\w+)"[\s\S]*?<circle class="extreme" cx="([^"]+)" cy="[^"]+" r="4" data-x="([^"]+)" data-v="([^"]+)"/>`)
+	for _, m := range re.FindAllStringSubmatch(html, -1) {
+		x, _ := strconv.ParseFloat(m[3], 64)
+		v, _ := strconv.ParseFloat(m[4], 64)
+		switch m[1] {
+		case "n":
+			if x > 1.5 || math.Abs(v-70e3) > 1e-6*70e3 {
+				t.Errorf("N extreme %g N at x = %g m, want 70 kN on the first step", v, x)
+			}
+		case "u":
+			if math.Abs(x-2.5) > 1e-9 || math.Abs(v-0.6875e-3) > 1e-6*0.6875e-3 {
+				t.Errorf("u extreme %g m at x = %g m, want 0.6875 mm at the free end", v, x)
+			}
+		}
 	}
 }
