@@ -7,6 +7,8 @@ func (d *doc) live() {
 	d.w(`<script>
 (function () {
   var es = new EventSource(`, jsString(d.opt.Live), `);
+  es.onopen = function () { document.documentElement.setAttribute("data-live", "open"); };
+  es.onerror = function () { document.documentElement.setAttribute("data-live", "lost"); };
   es.addEventListener("report", function (e) {
     var y = window.scrollY;
     document.getElementById("report").innerHTML = e.data;
