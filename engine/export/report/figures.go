@@ -5,6 +5,7 @@ import (
 	"strings"
 
 	"github.com/sheafcalc/sheaf/engine"
+	"github.com/sheafcalc/sheaf/engine/check"
 	"github.com/sheafcalc/sheaf/engine/units"
 	"github.com/sheafcalc/sheaf/funcs"
 )
@@ -51,6 +52,16 @@ type plot struct {
 	points     []funcs.PointLoad // drawn as arrows at their x (SI)
 	pu         units.Unit        // unit of the point loads' labels
 	xfactor    float64           // SI metres per unit of xs
+	marks      []mark            // reference lines and points (N–ε: squash load, design point)
+}
+
+// mark is a reference drawn on a diagram: a horizontal line at y, or a
+// point at (x, y), in the units shown.
+type mark struct {
+	x, y  float64
+	line  bool
+	label string // on the drawing
+	long  string // in the caption
 }
 
 // Geometry of a diagram, in the SVG's own units (1 unit ≈ 0.26 mm on A4).
@@ -165,6 +176,22 @@ func (p *plot) draw(class string) string {
 	zx1, zy1 := f.pt(f.x1, 0)
 	s.line(zx0, zy0, zx1, zy1, "zero")
 	s.path(curve.String(), "curve")
+	for _, m := range p.marks {
+		if m.line {
+			lx0, ly0 := f.pt(f.x0, m.y)
+			lx1, ly1 := f.pt(f.x1, m.y)
+			s.line(lx0, ly0, lx1, ly1, "ref")
+			s.text(lx1-4, ly1-4, "end", "tick", m.label)
+			continue
+		}
+		mx, my := f.pt(m.x, m.y)
+		s.raw("<circle class=\"design\" cx=\"" + f1(mx) + "\" cy=\"" + f1(my) + "\" r=\"4.5\"/>")
+		anchor, lx := "start", mx+8
+		if mx > f.w/2 {
+			anchor, lx = "end", mx-8
+		}
+		s.text(lx, my-7, anchor, "label", m.label)
+	}
 	p.axis(s, f)
 	p.supports(s, f)
 	p.loads(s, f)
@@ -181,7 +208,7 @@ func (p *plot) draw(class string) string {
 	at := p.xname + " = " + units.FormatNumber(p.xs[k], 4) + " " + p.xu
 	if f.vertical {
 		// two short lines above the diagram: a tall narrow drawing has no room beside the curve
-		s.text(f.w/2, 13, "middle", "label", "max |"+p.yname+"| = "+val)
+		s.text(f.w/2, 13, "middle", "label", "largest |"+p.yname+"|: "+val)
 		s.text(f.w/2, 26, "middle", "tick", "at "+at)
 	} else {
 		anchor, lx := "start", cx+8
@@ -192,7 +219,7 @@ func (p *plot) draw(class string) string {
 		if ly < padT+10 {
 			ly = cy + 15
 		}
-		s.text(lx, ly, anchor, "label", "max |"+p.yname+"| = "+val+" at "+at)
+		s.text(lx, ly, anchor, "label", "largest |"+p.yname+"|: "+val+" at "+at)
 	}
 	if p.ends {
 		for _, i := range []int{0, n - 1} {
@@ -411,7 +438,82 @@ func (d *doc) curveFigure(c *engine.Cell, t *funcs.TableValue) {
 		p.xs[i] = eps[i] * 1000
 		p.ys[i] = n[i] / fu.Factor
 	}
+	what := "Axial force N against the uniform strain ε (tension positive) by strain compatibility; the largest |N| of the curve's range is marked"
+	for _, m := range d.curveMarks(c, n, fu) {
+		p.marks = append(p.marks, m)
+		if m.line {
+			what += "; dashed: " + esc(m.long)
+		} else {
+			what += "; ringed: " + esc(m.long)
+		}
+	}
 	d.w("<figure class=\"curve\">", p.draw("neps"))
-	d.caption(c, "Axial force N against the uniform strain ε (tension positive) by strain compatibility; the largest |N| is the squash load of the curve's range")
+	d.caption(c, what)
 	d.w("</figure>\n")
+}
+
+// curveMarks finds, among the sheet's cells, the squash load and the
+// strain at a design force of the composite the curve c is drawn for
+// (cells written as squash_load(col, ...) and strain_for_force(col, N),
+// possibly negated), to mark them on the curve.
+func (d *doc) curveMarks(c *engine.Cell, n []float64, fu units.Unit) []mark {
+	if c.Body == nil || c.Body.Op != check.OpPlugin || len(c.Body.Args) == 0 || c.Body.Args[0].Op != check.OpCell {
+		return nil
+	}
+	col := c.Body.Args[0].Index
+	lo, hi := 0.0, 0.0
+	for _, x := range n {
+		lo, hi = math.Min(lo, x), math.Max(hi, x)
+	}
+	compression := -lo > hi
+	var out []mark
+	for _, o := range d.prog.Cells {
+		body, sign := o.Body, 1.0
+		if body != nil && body.Op == check.OpNeg {
+			body, sign = body.Args[0], -1
+		}
+		if body == nil || body.Op != check.OpPlugin || len(body.Args) < 2 || body.Args[0].Op != check.OpCell || body.Args[0].Index != col {
+			continue
+		}
+		cr := &d.res.Cells[o.Index]
+		v, ok := cr.Value.(float64)
+		if !cr.Known || !ok {
+			continue
+		}
+		switch body.Str() {
+		case "squash_load":
+			q := math.Abs(v)
+			if compression {
+				q = -q
+			}
+			l := "squash load " + o.Name + " = " + d.formatSI(q, fu)
+			out = append(out, mark{y: q / fu.Factor, line: true, label: l, long: l})
+		case "strain_for_force":
+			force, ok := d.number(body.Args[1])
+			if !ok {
+				continue
+			}
+			eps := sign * v
+			out = append(out, mark{x: eps * 1000, y: force / fu.Factor, label: "design point " + o.Name,
+				long: "design point " + o.Name + ": N = " + d.formatSI(force, fu) + ", ε = " + minus(units.FormatNumber(eps*1000, 4)) + " ‰"})
+		}
+	}
+	return out
+}
+
+// number evaluates a node that is a number cell, a constant, or either
+// negated (the force argument of strain_for_force).
+func (d *doc) number(n *check.Node) (float64, bool) {
+	switch n.Op {
+	case check.OpConst:
+		return n.Num, true
+	case check.OpNeg:
+		x, ok := d.number(n.Args[0])
+		return -x, ok
+	case check.OpCell, check.OpField, check.OpIndex:
+		v, ok := d.eval(n)
+		x, isNum := v.(float64)
+		return x, ok && isNum
+	}
+	return 0, false
 }

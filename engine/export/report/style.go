@@ -118,6 +118,8 @@ svg.plot .zero { stroke: var(--ink); stroke-width: 1; }
 svg.plot .area { fill: #cfe3e3; } svg.plot.u .area { fill: #e4dfcf; } svg.plot.sigma .area { fill: #dcd6e8; } svg.plot.neps .area { fill: #e6e6e6; }
 svg.plot .curve { fill: none; stroke: var(--teal); stroke-width: 1.6; }
 svg.plot .extreme { fill: var(--fail); }
+svg.plot .ref { stroke: var(--fail); stroke-width: 1; stroke-dasharray: 5 3; }
+svg.plot .design { fill: none; stroke: var(--ink); stroke-width: 1.8; }
 svg.plot .support { fill: none; stroke: var(--ink); stroke-width: 1.4; }
 svg.plot .load { fill: none; stroke: var(--fail); stroke-width: 1.6; }
 figure.bar.vertical .plots { display: flex; gap: 2mm; }
