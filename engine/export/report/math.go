@@ -238,6 +238,21 @@ func (t *typesetter) power(b *strings.Builder, base, exp *check.Node) {
 		return
 	}
 	b.WriteString("<msup>")
+	if t.subst && base.Type != nil && base.Type.Kind == funcs.Number && (base.Op == check.OpCell || base.Op == check.OpField || base.Op == check.OpIndex) {
+		// a value with its unit: (16 mm)², never 16 mm², which reads as an area
+		var vb strings.Builder
+		if t.value(&vb, base) {
+			if v := vb.String(); strings.HasPrefix(v, "<mrow><mo>(</mo>") {
+				b.WriteString(v) // a negative value is bracketed already
+			} else {
+				b.WriteString("<mrow><mo>(</mo>" + v + "<mo>)</mo></mrow>")
+			}
+			b.WriteString("<mrow>")
+			t.expr(b, exp, 0)
+			b.WriteString("</mrow></msup>")
+			return
+		}
+	}
 	t.expr(b, base, precAtom+1)
 	b.WriteString("<mrow>")
 	t.expr(b, exp, 0)

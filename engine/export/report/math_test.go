@@ -52,6 +52,8 @@ check yield: sigma <= 240 MPa
 		`<mn>17.2</mn><mspace width="0.2em"/><mi mathvariant="normal" class="u">kN</mi>`, // N_Ed substituted in σ
 		`<mn>201.1</mn><mspace width="0.2em"/><mi mathvariant="normal" class="u">mm²</mi>`,
 		`<mo>≤</mo>`,
+		// a substituted value raised to a power keeps its brackets: (16 mm)², not 16 mm²
+		`<msup><mrow><mo>(</mo><mrow><mn>16</mn><mspace width="0.2em"/><mi mathvariant="normal" class="u">mm</mi></mrow><mo>)</mo></mrow>`,
 	} {
 		if !strings.Contains(html, want) {
 			t.Errorf("report lacks\n%s", want)
