@@ -6,6 +6,7 @@ import (
 	"time"
 
 	"github.com/sheafcalc/sheaf/engine"
+	unitsys "github.com/sheafcalc/sheaf/engine/units"
 )
 
 // page writes the whole document.
@@ -61,6 +62,10 @@ func (d *doc) titleBlock(title string) {
 	units := m.Units
 	if units == "" {
 		units = "metric (not written)"
+	}
+	if d.s.System() != m.System {
+		// a display system chosen at the command line (--system) wins over the header's
+		units += "; shown in " + map[bool]string{true: "US customary", false: "metric"}[d.s.System() == unitsys.US] + " units for this report"
 	}
 	d.w("<tr><th>Units</th><td>", esc(units), "</td></tr>\n")
 	d.w("</table>\n<table class=\"files\">\n<tr><th>Computed by</th><td>Sheaf ", esc(d.opt.Version), "</td></tr>\n")
