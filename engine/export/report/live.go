@@ -1,5 +1,7 @@
 package report
 
+import "strings"
+
 // live writes the script of the live preview: it listens to the server's
 // events and puts each new version of the report in place of the old one,
 // keeping the reader's scroll position (no reload, so no flicker).
@@ -42,8 +44,8 @@ func jsString(s string) string {
 // live preview sends to the open page after each save.
 func Body(html string) string {
 	const open, end = "<main id=\"report\">\n", "</main>\n"
-	i := indexOf(html, open)
-	j := lastIndexOf(html, end)
+	i := strings.Index(html, open)
+	j := strings.LastIndex(html, end)
 	if i < 0 || j < i {
 		return html
 	}

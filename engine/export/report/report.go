@@ -180,6 +180,3 @@ func (d *doc) formatSI(si float64, u units.Unit) string {
 	}
 	return strings.Replace(s, "-", "−", 1)
 }
-
-func indexOf(s, sub string) int     { return strings.Index(s, sub) }
-func lastIndexOf(s, sub string) int { return strings.LastIndex(s, sub) }

@@ -69,10 +69,7 @@ func (d *doc) summary() {
 		if c.Known {
 			dem, capa = d.formatSI(c.Demand, c.Unit), d.formatSI(c.Capacity, c.Unit)
 		}
-		op := "≤"
-		if c.Cell.Op == ">=" {
-			op = "≤" // written capacity >= demand: still demand ≤ capacity
-		}
+		op := "≤" // the table reads demand ≤ capacity, however the check is written
 		d.w("<tr class=\"", row, "\"><td><a href=\"#", anchor(c.Cell.Name), "\">", esc(c.Cell.Name), "</a>")
 		if i == g {
 			d.w(" <span class=\"gov\">governing</span>")
