@@ -135,7 +135,11 @@ func (d *doc) prose(lines []string) {
 func (d *doc) use(u *sheet.Use, no string) {
 	prefix := u.Name.Name + "."
 	d.usePrefix = prefix
-	defer func() { d.usePrefix = "" }()
+	d.replaced = map[string]bool{}
+	for _, o := range u.Overrides {
+		d.replaced[prefix+o.Name.Name] = true
+	}
+	defer func() { d.usePrefix, d.replaced = "", nil }()
 	path := u.Path
 	d.w("<section class=\"use\">\n<h3><span class=\"no\">", no, "</span>Template use <b>", esc(u.Name.Name), "</b> of <span class=\"file\">", esc(path), "</span></h3>\n")
 	if u.Annot.Description != "" || u.Annot.Reference != "" {

@@ -23,6 +23,9 @@ func (d *doc) cell(c *engine.Cell) {
 	default:
 		d.valueLine(c, cr)
 	}
+	if d.replaced[c.Name] {
+		d.w("<span class=\"kindnote\">replaced in this use</span>")
+	}
 	d.w("</div>\n")
 	if c.Reference != "" {
 		d.w("<div class=\"ref\">", esc(c.Reference), "</div>\n")

@@ -53,6 +53,7 @@ type doc struct {
 	// use is the prefix of the template use being written ("access."):
 	// its cells, overrides included, show their names without it.
 	usePrefix string
+	replaced  map[string]bool // the inputs the use being written replaces, by full name
 }
 
 // Write writes the report of sheet s with results r to w.
