@@ -165,6 +165,7 @@ func TestNothingOverwritten(t *testing.T) {
 		{"batch-out-template", []string{"batch", "uses.sheaf", "cases.csv", "--out", "lib/../lib/rod.xlsx"}},
 		{"export-over-template", []string{"export", "uses.sheaf", "-o", "lib/rod.xlsx"}},
 		{"new-over-template", []string{"new", "ok.sheaf", "./ok.sheaf", "--force"}},
+		{"new-over-used-template", []string{"new", "uses.sheaf", "lib/rod.xlsx", "--force"}},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
 			out, errs, code := sheafWithin(t, tc.args...)

@@ -104,6 +104,11 @@ func fromTemplate(path string, src []byte, out string) ([]byte, int, error) {
 	if err != nil {
 		return nil, 0, err
 	}
+	for _, in := range s.Files()[1:] {
+		if userfile.Same(out, in) {
+			return nil, 0, userErrorf("%s is a template that %s uses; choose another name for the new sheet", out, path)
+		}
+	}
 	inputs := map[string]bool{}
 	for _, c := range s.Cells() {
 		if c.Kind == engine.Input {

@@ -4,7 +4,9 @@ import (
 	"bytes"
 	"context"
 	"encoding/csv"
+	"errors"
 	"path/filepath"
+	"strconv"
 	"strings"
 	"testing"
 
@@ -75,4 +77,27 @@ func TestCSVInjection(t *testing.T) {
 	if got := recs[3][1]; got != "-30" {
 		t.Errorf("case 3 P = %q, want the number -30", got)
 	}
+}
+
+// FuzzInert: whatever the text, the output does not start with a formula
+// trigger unless it is a plain number that strconv reads as one, it ends
+// with the input, and making it inert twice changes nothing.
+func FuzzInert(f *testing.F) {
+	for _, s := range []string{`=cmd|' /C calc'!A0`, `=HYPERLINK("x")`, "-12.5", "+3e4", "@a", "\tx", "\rx", "-", "", "fails"} {
+		f.Add(s)
+	}
+	f.Fuzz(func(t *testing.T, s string) {
+		got := batch.Inert(s)
+		if !strings.HasSuffix(got, s) || len(got) > len(s)+1 {
+			t.Fatalf("Inert(%q) = %q", s, got)
+		}
+		if batch.Inert(got) != got {
+			t.Fatalf("Inert is not idempotent on %q", s)
+		}
+		if got != "" && strings.ContainsRune("=+-@\t\r", rune(got[0])) {
+			if _, err := strconv.ParseFloat(got, 64); err != nil && !errors.Is(err, strconv.ErrRange) {
+				t.Fatalf("Inert(%q) = %q starts with a trigger and is not a number", s, got)
+			}
+		}
+	})
 }
