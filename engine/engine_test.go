@@ -303,3 +303,30 @@ func TestAngleDimensions(t *testing.T) {
 		})
 	}
 }
+
+// TestTableEntriesFromCells: table entries written as expressions of the
+// sheet's cells follow those cells, in a fresh run and in an incremental
+// recompute after an input changes.
+func TestTableEntriesFromCells(t *testing.T) {
+	src := "b_p [mm] = 400 mm\nA_p [mm^2] = b_p^2\nE_c [GPa] = 30 GPa\n" +
+		"table layers\n    L [m]  A [mm^2]     EA [MN]\n    3      (A_p)        (E_c * A_p)\n    8      (A_p * 0.9)  (E_c * A_p * 0.9)\n" +
+		"EA_sum [MN] = sum(layers.EA)\nL_sum [m] = sum(layers.L)\n"
+	s := compile(t, src)
+	st := s.NewState()
+	// Source: EA of a square section, E·b² (common practice), summed over the rows.
+	for _, b := range []float64{0.4, 0.5} {
+		if b != 0.4 {
+			if err := st.Set("b_p", b); err != nil {
+				t.Fatal(err)
+			}
+		}
+		r := st.Eval()
+		want := 30e9 * b * b * (1 + 0.9)
+		if got := num(t, r, "EA_sum"); !near(got, want, 1e-12) {
+			t.Errorf("b_p = %g m: EA_sum = %g, want %g", b, got, want)
+		}
+		if got := num(t, r, "L_sum"); !near(got, 11, 1e-12) {
+			t.Errorf("L_sum = %g, want 11", got)
+		}
+	}
+}

@@ -37,6 +37,9 @@ func (c *checker) budget() {
 			continue
 		}
 		s := size(cell.Body) + size(cell.Demand) + size(cell.Capacity)
+		for _, e := range cell.Entries {
+			s += size(e.Node)
+		}
 		if math.IsInf(s, 1) {
 			cost[i] = s // a callee was reported
 			continue

@@ -146,28 +146,27 @@ func (t *typer) scope() string {
 // ref returns the cell a formula's name refers to: a cell of its scope, or
 // for the root of a chain `rod.x`, the template's cell `rod.x`. n is the
 // KName node of the reference in cell's formula.
-func (c *checker) ref(cell *Cell, n int32) (int, bool) {
-	name := cell.Formula.Text(n)
+func (c *checker) ref(cell *Cell, f *formula.Formula, n int32) (int, bool) {
+	name := f.Text(n)
 	if i, ok := c.local(cell, name); ok {
 		return i, true
 	}
 	if c.use == nil || !c.use.isAlias(cell.Scope+name) {
 		return 0, false
 	}
-	m, ok := c.use.targets[cell.Formula]
+	m, ok := c.use.targets[f]
 	if !ok {
-		m = c.memberTargets(cell)
-		c.use.targets[cell.Formula] = m
+		m = c.memberTargets(cell, f)
+		c.use.targets[f] = m
 	}
 	i, ok := m[n]
 	return i, ok
 }
 
-// memberTargets finds the member chains of cell's formula that name a
+// memberTargets finds the member chains of formula f of cell that name a
 // template's cell, keyed by the chain's root name node.
-func (c *checker) memberTargets(cell *Cell) map[int32]int {
+func (c *checker) memberTargets(cell *Cell, f *formula.Formula) map[int32]int {
 	m := map[int32]int{}
-	f := cell.Formula
 	for k := range f.Nodes {
 		nd := &f.Nodes[k]
 		if nd.Kind != formula.KField {
@@ -416,7 +415,7 @@ func (c *checker) templateDeps(cell *Cell) []string {
 		if isParam(cell, cell.Formula.Text(r)) {
 			continue
 		}
-		if j, ok := c.ref(cell, r); ok {
+		if j, ok := c.ref(cell, cell.Formula, r); ok {
 			n := strings.TrimPrefix(c.prog.Cells[j].Name, cell.Scope)
 			if !slices.Contains(out, n) {
 				out = append(out, n)

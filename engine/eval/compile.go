@@ -2,6 +2,7 @@ package eval
 
 import (
 	"math"
+	"slices"
 
 	"github.com/sheafcalc/sheaf/engine/check"
 	"github.com/sheafcalc/sheaf/engine/diag"
@@ -90,6 +91,9 @@ func (m *Machine) compileCell(c *check.Cell) {
 		m.demand[c.Index] = m.numOf(c.Demand)
 		m.capacity[c.Index] = m.numOf(c.Capacity)
 	case check.Table:
+		if len(c.Entries) > 0 {
+			m.val[c.Index] = m.tableOf(c)
+		}
 	default:
 		if c.Body == nil {
 			return
@@ -462,4 +466,32 @@ func Value(n *check.Node) (funcs.Value, *Failure) {
 		v = m.valOf(n)(f)
 	}
 	return v, f.Fail
+}
+
+// tableOf compiles a table with entries written as expressions: each run
+// copies the written table and fills in the entries' values.
+func (m *Machine) tableOf(c *check.Cell) valFn {
+	fns := make([]numFn, len(c.Entries))
+	for k, e := range c.Entries {
+		fns[k] = m.numOf(e.Node)
+	}
+	written := c.Table
+	return func(f *Frame) funcs.Value {
+		t := &funcs.TableValue{Type: written.Type, Cols: make([][]float64, len(written.Cols))}
+		for i, col := range written.Cols {
+			t.Cols[i] = slices.Clone(col)
+		}
+		for k, e := range c.Entries {
+			v := fns[k](f)
+			if f.Fail != nil {
+				return nil
+			}
+			if !isFinite(v) {
+				f.Fail = &Failure{Node: e.Node, Msg: "a table entry is not a finite number with these inputs", Hint: "check the inputs of the entry"}
+				return nil
+			}
+			t.Cols[e.Col][e.Row] = v
+		}
+		return t
+	}
 }

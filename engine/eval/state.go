@@ -263,7 +263,18 @@ func (s *State) run(i int) {
 		s.Known[i] = true
 		return
 	case check.Table:
-		if !s.over[i] {
+		if s.over[i] {
+			s.Known[i] = true
+			return
+		}
+		if fn := s.M.val[i]; fn != nil {
+			v := fn(f)
+			if f.Fail != nil {
+				s.failed(c, f.Fail)
+				return
+			}
+			f.Val[i] = v
+		} else {
 			f.Val[i] = c.Table
 		}
 		s.Known[i] = true
