@@ -44,6 +44,14 @@ type CheckResult struct {
 	Unit     units.Unit // display unit of demand and capacity
 	Util     float64    // demand / capacity
 	Pass     bool       // Util <= 1
+	// Problem says why a check whose two sides were computed is not
+	// assessed (a demand of the other sense than the capacity, a capacity
+	// that is not positive); nil otherwise. It is in Results.Problems too.
+	Problem *diag.Diagnostic
+	// Governing is the term of a min(...) or max(...) capacity that gives
+	// the capacity, as written (e.g. `N_bRd`); "" when the capacity is not
+	// such a choice.
+	Governing string
 }
 
 // Failed returns the number of checks that fail or could not be assessed.
@@ -52,6 +60,19 @@ func (r *Results) Failed() int {
 	for _, c := range r.Checks {
 		if !c.Pass {
 			n++
+		}
+	}
+	return n
+}
+
+// Uncomputed returns the number of cells that could not be computed (run-time
+// problems other than a check that is not assessed): a sheet with any is
+// not a finished calculation, whatever its checks say.
+func (r *Results) Uncomputed() int {
+	n := len(r.Problems)
+	for _, c := range r.Checks {
+		if c.Problem != nil {
+			n--
 		}
 	}
 	return n
@@ -110,6 +131,11 @@ func (st *State) Results() *Results {
 			if cr.Known {
 				ch.Util = cr.SI
 				ch.Pass = ch.Util <= 1
+				if g := e.Governing(i); g != nil {
+					ch.Governing = g.Text()
+				}
+			} else if e.Unassessed(i) {
+				ch.Problem = e.Problem[i]
 			}
 			r.Checks = append(r.Checks, ch)
 		}

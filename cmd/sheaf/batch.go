@@ -27,7 +27,7 @@ type batchOptions struct {
 	noPick  bool
 	workers int
 	sig     int
-	system  string
+	sheet   sheetFlags
 }
 
 func newBatchCmd(a *app) *cobra.Command {
@@ -59,7 +59,7 @@ rows still run. Rows are shared among --workers goroutines (default: all
 cores); each recomputes only what its row changed, and the output does not
 depend on the number of workers.
 
-Exit status: 0 when every check passes in every case, 1 when a check fails
+Exit status here: 0 when every check passes in every case, 1 when a check fails
 or cannot be assessed in some case, 2 when a row is bad or the sheet or the
 table has errors (2 wins over 1).`,
 		Args: cobra.ExactArgs(2),
@@ -73,7 +73,7 @@ table has errors (2 wins over 1).`,
 	f.StringVar(&o.pick, "pick", "", "cells to output, comma-separated (default: the cells the checks compare)")
 	f.IntVar(&o.workers, "workers", 0, "goroutines evaluating cases (default: the number of cores)")
 	f.IntVar(&o.sig, "sig", 6, "significant figures of numbers in CSV output")
-	f.StringVar(&o.system, "system", "", "display units for cells without a written unit: metric or us")
+	o.sheet.add(cmd, true)
 	return cmd
 }
 
@@ -98,7 +98,7 @@ func runBatch(ctx context.Context, a *app, o *batchOptions, sheetPath, casesPath
 			return userErrorf("--out %s: the file must end in .csv or .xlsx", o.out)
 		}
 	}
-	s, err := loadSheet(a, sheetPath, o.system)
+	s, err := loadSheet(a, sheetPath, &o.sheet)
 	if err != nil {
 		return err
 	}

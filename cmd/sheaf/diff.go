@@ -15,7 +15,7 @@ import (
 	"github.com/sheafcalc/sheaf/engine/diag"
 	"github.com/sheafcalc/sheaf/engine/diff"
 	"github.com/sheafcalc/sheaf/engine/sheet"
-	"github.com/sheafcalc/sheaf/engine/units"
+	"github.com/sheafcalc/sheaf/internal/plural"
 )
 
 // diffOptions are the flags of `sheaf diff`.
@@ -23,7 +23,8 @@ type diffOptions struct {
 	rev    string
 	rtol   float64
 	json   bool
-	system string
+	draft  bool
+	sheet  sheetFlags
 }
 
 func newDiffCmd(a *app) *cobra.Command {
@@ -43,8 +44,9 @@ installed and the file must be inside a git repository.
 Cells are matched by name; formulas are compared with their spacing
 normalised, so a reformatted sheet shows no changes.
 
-Exit status: 0 when no check flipped to fail, 1 when a check that passed (or
-is new) now fails or cannot be assessed, 2 when either sheet has errors.`,
+Exit status here: 0 when no check flipped to fail, 1 when a check that passed (or
+is new) now fails or cannot be assessed, 2 when either sheet has errors or
+a cell of the new version could not be computed (not with --draft).`,
 		Args: func(cmd *cobra.Command, args []string) error {
 			if o.rev != "" {
 				if len(args) != 1 {
@@ -65,7 +67,8 @@ is new) now fails or cannot be assessed, 2 when either sheet has errors.`,
 	f.StringVar(&o.rev, "rev", "", "compare FILE at this git revision with the working copy")
 	f.Float64Var(&o.rtol, "rtol", diff.DefaultRelTol, "relative tolerance below which a result counts as unchanged")
 	f.BoolVar(&o.json, "json", false, "print the differences as JSON")
-	f.StringVar(&o.system, "system", "", "display units for cells without a written unit: metric or us")
+	f.BoolVar(&o.draft, "draft", false, "accept a new version with cells that cannot be computed (exit 0 or 1 instead of 2)")
+	o.sheet.add(cmd, true)
 	return cmd
 }
 
@@ -73,17 +76,12 @@ func runDiff(a *app, o *diffOptions, args []string) error {
 	if !(o.rtol >= 0) || o.rtol >= 1 {
 		return userErrorf("--rtol %g: give a relative tolerance from 0 to below 1, e.g. 1e-6", o.rtol)
 	}
-	var opts []engine.Option
-	if o.system != "" {
-		s, ok := units.ParseSystem(o.system)
-		if !ok || s == units.Neutral {
-			return userErrorf("unknown unit system %q: use metric or us", o.system)
-		}
-		opts = append(opts, engine.WithSystem(s))
+	opts, err := o.sheet.options()
+	if err != nil {
+		return err
 	}
 	var oldName, newName string
 	var oldSrc, newSrc []byte
-	var err error
 	if o.rev != "" {
 		newName = args[0]
 		if newSrc, err = os.ReadFile(newName); err != nil {
@@ -116,7 +114,8 @@ func runDiff(a *app, o *diffOptions, args []string) error {
 	if err2 != nil {
 		return err2
 	}
-	r := diff.Compare(oldName, olds.Run(nil), newName, news.Run(nil), diff.Options{RelTol: o.rtol})
+	newRes := news.Run(nil)
+	r := diff.Compare(oldName, olds.Run(nil), newName, newRes, diff.Options{RelTol: o.rtol})
 	if o.json {
 		err = r.WriteJSON(a.stdout)
 	} else {
@@ -124,6 +123,11 @@ func runDiff(a *app, o *diffOptions, args []string) error {
 	}
 	if err != nil {
 		return err
+	}
+	if n := newRes.Uncomputed(); n > 0 && !o.draft {
+		err := fmt.Errorf("%s of %s could not be computed (--draft accepts it)", plural.Count(n, "cell"), newName)
+		fmt.Fprintf(a.stderr, "sheaf: %v\n", err)
+		return &reportedError{err, exitInput}
 	}
 	if r.Flipped > 0 {
 		return &reportedError{fmt.Errorf("%d design checks flipped to fail", r.Flipped), exitChecks}

@@ -50,7 +50,7 @@ evaluates exactly as the template does until you edit it.
 OUT must not exist unless --force is given; it is written whole or not at
 all.
 
-Exit status: 0 when written, 2 when the template is not found or has
+Exit status here: 0 when written, 2 when the template is not found or has
 errors, or OUT exists.`,
 		Args: cobra.ExactArgs(2),
 		RunE: func(cmd *cobra.Command, args []string) error {

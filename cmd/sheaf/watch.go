@@ -18,14 +18,13 @@ import (
 	"github.com/sheafcalc/sheaf/engine/diag"
 	"github.com/sheafcalc/sheaf/engine/diff"
 	"github.com/sheafcalc/sheaf/engine/export/text"
-	"github.com/sheafcalc/sheaf/engine/units"
 )
 
 // watchOptions are the flags of `sheaf watch`.
 type watchOptions struct {
 	interval time.Duration
 	rtol     float64
-	system   string
+	sheet    sheetFlags
 }
 
 func newWatchCmd(a *app) *cobra.Command {
@@ -42,7 +41,7 @@ diagnostics; watching goes on until the next save fixes them.
 Saves that come close together (an editor writing a file in several steps)
 are taken as one after --interval of quiet. Ctrl-C stops watching.
 
-Exit status: 0 when stopped with Ctrl-C, 2 when the file cannot be watched.`,
+Exit status here: 0 when stopped with Ctrl-C, 2 when the file cannot be watched.`,
 		Args: cobra.ExactArgs(1),
 		RunE: func(cmd *cobra.Command, args []string) error {
 			ctx := cmd.Context()
@@ -57,7 +56,7 @@ Exit status: 0 when stopped with Ctrl-C, 2 when the file cannot be watched.`,
 	f := cmd.Flags()
 	f.DurationVar(&o.interval, "interval", 100*time.Millisecond, "quiet time after a save before re-evaluating")
 	f.Float64Var(&o.rtol, "rtol", diff.DefaultRelTol, "relative tolerance below which a result counts as unchanged")
-	f.StringVar(&o.system, "system", "", "display units for cells without a written unit: metric or us")
+	o.sheet.add(cmd, true)
 	return cmd
 }
 
@@ -87,13 +86,11 @@ func runWatch(ctx context.Context, a *app, o *watchOptions, path string, ready f
 		return userErrorf("--rtol %g: give a relative tolerance from 0 to below 1, e.g. 1e-6", o.rtol)
 	}
 	w := &watcher{a: a, o: o, path: path, dirs: map[string]bool{}, names: map[string]bool{}}
-	if o.system != "" {
-		s, ok := units.ParseSystem(o.system)
-		if !ok || s == units.Neutral {
-			return userErrorf("unknown unit system %q: use metric or us", o.system)
-		}
-		w.opts = append(w.opts, engine.WithSystem(s))
+	opts, err := o.sheet.options()
+	if err != nil {
+		return err
 	}
+	w.opts = opts
 	if _, err := os.Stat(path); err != nil {
 		return &inputError{err}
 	}

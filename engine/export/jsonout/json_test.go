@@ -122,8 +122,13 @@ func TestJSONRoundTrip(t *testing.T) {
 			continue
 		}
 		if !c.Known {
-			if j.DemandSI != nil || j.CapacitySI != nil || j.Utilisation != nil {
+			// A check not assessed with both sides computed shows them
+			// (and why it is not assessed); one whose sides failed has none.
+			if j.Utilisation != nil || (c.Problem == nil && (j.DemandSI != nil || j.CapacitySI != nil)) {
 				t.Errorf("%s is not assessed but has numbers: %+v", j.Name, j)
+			}
+			if c.Problem != nil && (!same(j.DemandSI, c.Demand) || !same(j.CapacitySI, c.Capacity) || j.NotAssessed != c.Problem.Summary || j.Verdict != "not assessed") {
+				t.Errorf("%s: %+v, want demand %g capacity %g and the reason", j.Name, j, c.Demand, c.Capacity)
 			}
 			continue
 		}
@@ -136,7 +141,7 @@ func TestJSONRoundTrip(t *testing.T) {
 		t.Errorf("%d problems, want %d", len(d.Problems), len(r.Problems))
 	}
 	for i, p := range d.Problems {
-		if want := r.Problems[i]; p.Pos != want.Range.Start.String() || p.Summary != want.Summary {
+		if want := r.Problems[i]; p.Pos != want.Range.Start.String() || p.Message != want.Summary {
 			t.Errorf("problem %d: %+v, want %v", i, p, want)
 		}
 	}
