@@ -20,11 +20,11 @@ import (
 
 // diffOptions are the flags of `sheaf diff`.
 type diffOptions struct {
-	rev    string
-	rtol   float64
-	json   bool
-	draft  bool
-	sheet  sheetFlags
+	rev   string
+	rtol  float64
+	json  bool
+	draft bool
+	sheet sheetFlags
 }
 
 func newDiffCmd(a *app) *cobra.Command {
