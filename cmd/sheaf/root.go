@@ -209,8 +209,12 @@ combinations come from the local code and licensed practice.`,
 			return nil
 		}
 		msg := fmt.Sprintf("unknown command %q", args[0])
-		if sug := c.SuggestionsFor(args[0]); len(sug) > 0 {
-			msg += fmt.Sprintf("; did you mean %q?", sug[0])
+		var names []string
+		for _, sub := range c.Commands() {
+			names = append(names, sub.Name())
+		}
+		if sug := diag.Nearest(args[0], names); sug != "" {
+			msg += fmt.Sprintf("; did you mean %q?", sug)
 		}
 		return userErrorf("%s; see sheaf --help for the commands", msg)
 	}
@@ -246,7 +250,19 @@ func Main(args []string, stdin io.Reader, stdout, stderr io.Writer) (code int) {
 		}
 	}()
 	a := &app{stdin: stdin, stdout: stdout, stderr: stderr}
-	root := newRootCmd(a)
+	return execute(newRootCmd(a), args, stderr)
+}
+
+// execute runs root with args and returns the exit code: the errors of
+// the commands map to codes in exitCode, and a panic (a fault of Sheaf) is
+// exit 3 with the stack on stderr.
+func execute(root *cobra.Command, args []string, stderr io.Writer) (code int) {
+	defer func() {
+		if r := recover(); r != nil {
+			fmt.Fprintf(stderr, "sheaf: internal error: %v\n%s\nplease report this with the sheet that caused it\n", r, debug.Stack())
+			code = exitInternal
+		}
+	}()
 	root.SetArgs(args)
 	err := root.Execute()
 	if err != nil {
