@@ -60,7 +60,11 @@ a cell of the new version could not be computed (not with --draft).`,
 			return nil
 		},
 		RunE: func(cmd *cobra.Command, args []string) error {
-			return runDiff(a, o, args)
+			err := runDiff(a, o, args)
+			if o.json {
+				return jsonFailure(a, diff.Schema, strings.Join(args, " "), err)
+			}
+			return err
 		},
 	}
 	f := cmd.Flags()
@@ -116,6 +120,13 @@ func runDiff(a *app, o *diffOptions, args []string) error {
 	}
 	newRes := news.Run(nil)
 	r := diff.Compare(oldName, olds.Run(nil), newName, newRes, diff.Options{RelTol: o.rtol})
+	var status error
+	if n := newRes.Uncomputed(); n > 0 && !o.draft {
+		status = &reportedError{fmt.Errorf("%s of %s could not be computed (--draft accepts it)", plural.Count(n, "cell"), newName), exitInput}
+	} else if r.Flipped > 0 {
+		status = &reportedError{fmt.Errorf("%d design checks flipped to fail", r.Flipped), exitChecks}
+	}
+	r.ExitCode = exitCode(status)
 	if o.json {
 		err = r.WriteJSON(a.stdout)
 	} else {
@@ -124,15 +135,10 @@ func runDiff(a *app, o *diffOptions, args []string) error {
 	if err != nil {
 		return err
 	}
-	if n := newRes.Uncomputed(); n > 0 && !o.draft {
-		err := fmt.Errorf("%s of %s could not be computed (--draft accepts it)", plural.Count(n, "cell"), newName)
-		fmt.Fprintf(a.stderr, "sheaf: %v\n", err)
-		return &reportedError{err, exitInput}
+	if r.ExitCode == exitInput {
+		fmt.Fprintf(a.stderr, "sheaf: %v\n", status)
 	}
-	if r.Flipped > 0 {
-		return &reportedError{fmt.Errorf("%d design checks flipped to fail", r.Flipped), exitChecks}
-	}
-	return nil
+	return status
 }
 
 // usesTemplates reports whether the sheet src uses other sheets.

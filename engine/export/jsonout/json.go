@@ -140,30 +140,8 @@ func num(x float64) *float64 {
 	return &x
 }
 
-// siUnit is the coherent SI unit of a dimension: a named one where the
-// trade uses it (N, Pa, N/m, N*m), else the product of base units, "1" for
-// a plain number. The SI values of the document are in this unit.
-func siUnit(d units.Dim) string {
-	if s, ok := siNamed[d]; ok {
-		return s
-	}
-	return units.Coherent(d).Symbol
-}
-
-// siNamed maps dimensions to the coherent SI units (factor 1) named in the
-// SI brochure or used across the trade.
-var siNamed = func() map[units.Dim]string {
-	m := map[units.Dim]string{}
-	for _, sym := range []string{"m", "m^2", "m^3", "m^4", "kg", "s", "K", "N", "Pa", "N/m", "N*m", "N/m^3", "kg/m^3", "1/K", "J", "W"} {
-		if u, err := units.Parse(sym); err == nil && u.Factor == 1 {
-			if _, dup := m[u.Dim]; !dup {
-				m[u.Dim] = sym
-			}
-		}
-	}
-	m[units.None] = "1"
-	return m
-}()
+// siUnit is the unit of the SI values of the document.
+func siUnit(d units.Dim) string { return units.SISymbol(d) }
 
 // NewProblem converts a diagnostic.
 func NewProblem(kind string, d *diag.Diagnostic) Problem {
