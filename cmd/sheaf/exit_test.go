@@ -133,6 +133,13 @@ func TestExitCodes(t *testing.T) {
 		{"batch bad rows", []string{"batch", fx + "ok.sheaf", fx + "badcases.csv"}, "", 2, "", "is a length", false},
 		{"batch missing table", []string{"batch", fx + "ok.sheaf", fx + "nosuch.csv"}, "", 2, "", "cannot read the case table", false},
 		{"batch sheet error", []string{"batch", fx + "broken.sheaf", fx + "cases.csv"}, "", 2, "", "broken.sheaf:4:", false},
+		{"batch without checks gives the derived cells", []string{"batch", fx + "nochecks.sheaf", fx + "cases.csv"}, "", 0, "sigma [MPa]", "", false},
+		{"batch semicolons and decimal commas", []string{"batch", fx + "ok.sheaf", fx + "cases-semicolon.csv"}, "", 1, "1,12.5,28,0.446429,pass", "with a decimal comma", false},
+		{"batch a point and a comma is refused", []string{"batch", fx + "ok.sheaf", fx + "cases-ambiguous.csv"}, "", 2, "", "both a comma and a point", false},
+		{"batch every row bad", []string{"batch", fx + "ok.sheaf", fx + "allbad.csv"}, "", 2, "", "no case evaluated: all 2 rows", false},
+		{"batch json", []string{"batch", "--json", fx + "ok.sheaf", fx + "cases-fail.csv"}, "", 1, `"verdict": "fail"`, "", true},
+		{"batch json bad table", []string{"batch", "--json", fx + "ok.sheaf", fx + "allbad.csv"}, "", 2, `"bad": true`, "", true},
+		{"batch json sheet error", []string{"batch", "--json", fx + "broken.sheaf", fx + "cases.csv"}, "", 2, `"kind": "sheet"`, "", true},
 		{"batch one argument", []string{"batch", fx + "ok.sheaf"}, "", 2, "", "accepts 2 arg", false},
 
 		{"diff same", []string{"diff", fx + "ok.sheaf", fx + "ok.sheaf"}, "", 0, "no changes", "", false},

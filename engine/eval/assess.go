@@ -100,3 +100,19 @@ func (s *State) Governing(i int) *check.Node {
 	}
 	return n.Args[best]
 }
+
+// Uncomputed returns the number of cells with a problem that are not
+// checks refused by Assess: the cells that could not be computed. It costs
+// nothing while no cell has had a problem.
+func (s *State) Uncomputed() int {
+	if !s.ownProblem {
+		return 0
+	}
+	n := 0
+	for i, p := range s.Problem {
+		if p != nil && !s.Unassessed(i) {
+			n++
+		}
+	}
+	return n
+}
