@@ -112,6 +112,10 @@ func runDiff(a *app, o *diffOptions, args []string) error {
 	}
 	olds, err1 := compileReported(a, oldCompileName, oldSrc, opts)
 	news, err2 := compileReported(a, newName, newSrc, opts)
+	var se1, se2 *sheetError
+	if errors.As(err1, &se1) && errors.As(err2, &se2) {
+		return se1.join(se2) // both versions' problems, in one report
+	}
 	if err1 != nil {
 		return err1
 	}
@@ -155,16 +159,16 @@ func usesTemplates(name string, src []byte) bool {
 	return false
 }
 
-// compileReported compiles src, rendering its diagnostics to stderr.
-func compileReported(a *app, name string, src []byte, opts []engine.Option) (*engine.Sheet, error) {
+// compileReported compiles src; its diagnostics come back as a
+// *sheetError.
+func compileReported(_ *app, name string, src []byte, opts []engine.Option) (*engine.Sheet, error) {
 	s, err := engine.Compile(name, src, opts...)
 	if err == nil {
 		return s, nil
 	}
 	var list diag.List
 	if errors.As(err, &list) {
-		reportProblems(a.stderr, list, sourcesFor(list, name, src), name, "")
-		return nil, &reportedError{err, exitInput}
+		return nil, &sheetError{list: list, name: name, src: src} // rendered on stderr, or as JSON with --json
 	}
 	return nil, &inputError{err}
 }

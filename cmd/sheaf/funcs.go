@@ -17,6 +17,7 @@ import (
 // funcsOptions are the flags of `sheaf funcs`.
 type funcsOptions struct {
 	family string // keep one family; empty lists all
+	json   bool
 }
 
 // newFuncsCmd builds `sheaf funcs`, the listing of the plugin functions.
@@ -33,7 +34,14 @@ display units; a sheet may pass any unit of the same dimension.
 
 With a name, print what the function computes, its formula, each parameter
 with its meaning and valid range, the result (with the fields of a record
-result, which a sheet reads as r.field) and the published source.`,
+result, which a sheet reads as r.field) and the published source.
+
+With --json, the same as one JSON document on stdout (schema in
+schema/sheaf.schema.json): each function with its family, summary, formula,
+source, and each parameter and result with its kind, its unit (the
+preferred metric unit) and its dimension.
+
+Exit status here: 0 when listed, 2 for an unknown function or family.`,
 		Example: `  sheaf funcs
   sheaf funcs --family section
   sheaf funcs chs`,
@@ -43,15 +51,54 @@ result, which a sheet reads as r.field) and the published source.`,
 			}
 			return nil
 		},
+		ValidArgsFunction: completeFuncs,
 		RunE: func(_ *cobra.Command, args []string) error {
+			name := ""
 			if len(args) == 1 {
-				return runFuncsDescribe(a, args[0])
+				name = args[0]
+			}
+			if o.json {
+				return jsonFailure(a, funcsSchema, name, runFuncsJSON(a, o, name))
+			}
+			if name != "" {
+				return runFuncsDescribe(a, name)
 			}
 			return runFuncsList(a, o)
 		},
 	}
 	cmd.Flags().StringVar(&o.family, "family", "", "list only the functions of this family")
+	cmd.Flags().BoolVar(&o.json, "json", false, "print the functions as JSON")
+	_ = cmd.RegisterFlagCompletionFunc("family", func(*cobra.Command, []string, string) ([]string, cobra.ShellCompDirective) {
+		return familyNames(), cobra.ShellCompDirectiveNoFileComp
+	})
 	return cmd
+}
+
+// completeFuncs completes the name of a function (built-in or plugin),
+// each with its summary.
+func completeFuncs(_ *cobra.Command, args []string, _ string) ([]string, cobra.ShellCompDirective) {
+	if len(args) > 0 {
+		return nil, cobra.ShellCompDirectiveNoFileComp
+	}
+	var out []string
+	for _, b := range check.Builtins {
+		out = append(out, b.Name+"\t"+b.Sig)
+	}
+	for _, d := range funcs.All() {
+		out = append(out, d.Name+"\t"+d.Summary)
+	}
+	return out, cobra.ShellCompDirectiveNoFileComp
+}
+
+// familyNames lists the families, the built-in math first.
+func familyNames() []string {
+	families := []string{builtinFamily}
+	for _, d := range funcs.All() {
+		if !slices.Contains(families, d.Family) {
+			families = append(families, d.Family)
+		}
+	}
+	return families
 }
 
 // builtinFamily is the family name under which the language's own math

@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"io"
+	"slices"
 	"strings"
 
 	"github.com/spf13/cobra"
@@ -110,6 +111,7 @@ type sheetError struct {
 	list diag.List
 	name string
 	src  []byte // the source when it did not come from a file
+	more []*sheetError
 }
 
 func (e *sheetError) Error() string {
@@ -117,8 +119,19 @@ func (e *sheetError) Error() string {
 }
 func (e *sheetError) Unwrap() error { return e.list }
 
+// join adds the problems of another sheet (diff of two broken versions).
+func (e *sheetError) join(f *sheetError) *sheetError {
+	return &sheetError{list: append(slices.Clone(e.list), f.list...), name: e.name + " and " + f.name, more: []*sheetError{e, f}}
+}
+
 // render writes the diagnostics with their snippets and the count.
 func (e *sheetError) render(w io.Writer) {
+	if len(e.more) > 0 {
+		for _, m := range e.more {
+			m.render(w)
+		}
+		return
+	}
 	srcs := engine.ReadSources(e.list)
 	if e.src != nil {
 		srcs[e.name] = e.src

@@ -277,12 +277,23 @@ func Write(w io.Writer, r *engine.Results) error { return WriteExit(w, r, ExitCo
 // exits 0 where ExitCode says 2).
 func WriteExit(w io.Writer, r *engine.Results, exit int) error { return Encode(w, Build(r, exit)) }
 
-// Failure is the document of a command that could not produce results:
-// the sheet did not load or an argument was wrong. It has the keys of a
-// Document, with no cells, and the schema of the command (every schema has
-// schema, exit_code and problems).
-func Failure(schema string, exit int, problems []Problem) *Document {
-	return &Document{Schema: schema, ExitCode: exit, Cells: []Cell{}, Checks: []Check{}, Problems: problems, Caution: Caution}
+// FailureDoc is the document of a command that could not produce results:
+// the sheet did not load, or a flag, argument, file or --set was wrong.
+// It has the schema of the command, and the problems say why.
+type FailureDoc struct {
+	Schema        string    `json:"schema"`
+	ExitCode      int       `json:"exit_code"`
+	BeforeResults bool      `json:"failed_before_results"` // always true: tells it from a document with results
+	Problems      []Problem `json:"problems"`
+	Caution       string    `json:"caution"`
+}
+
+// Failure builds the document of a command that could not produce results.
+func Failure(schema string, exit int, problems []Problem) *FailureDoc {
+	if problems == nil {
+		problems = []Problem{}
+	}
+	return &FailureDoc{Schema: schema, ExitCode: exit, BeforeResults: true, Problems: problems, Caution: Caution}
 }
 
 // Encode writes v as indented JSON, HTML characters unescaped.
