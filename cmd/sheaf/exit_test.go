@@ -230,3 +230,41 @@ func TestHelpHasExitTable(t *testing.T) {
 		}
 	}
 }
+
+// TestCompletion asks the built binary for shell completions (cobra's
+// __complete, which the scripts of `sheaf completion` call): input names
+// (and record fields) after --set, function names after funcs, the
+// --system values, .sheaf files for a sheet argument.
+func TestCompletion(t *testing.T) {
+	const fx = "testdata/exit/"
+	cases := []struct {
+		name string
+		args []string
+		want []string
+		not  []string
+	}{
+		{"inputs after --set", []string{"run", fx + "nochecks.sheaf", "--set", ""}, []string{"P=\t", "A="}, []string{"sigma="}},
+		{"inputs after --set, prefix", []string{"export", fx + "ok.sheaf", "--set", "N"}, []string{"N_Rd="}, []string{"P="}},
+		{"functions", []string{"funcs", "ch"}, []string{"chs\t"}, []string{"sqrt", "circle"}},
+		{"systems", []string{"run", "--system", ""}, []string{"metric\t", "us\t"}, nil},
+		{"sheet files", []string{"check", ""}, []string{"sheaf", ":8"}, nil}, // 8: filter by extension
+	}
+	for _, c := range cases {
+		t.Run(c.name, func(t *testing.T) {
+			out, errs, code := runBinary(t, ".", "", append([]string{"__complete"}, c.args...)...)
+			if code != 0 {
+				t.Fatalf("exit %d: %s", code, errs)
+			}
+			for _, w := range c.want {
+				if !strings.Contains(out, w) {
+					t.Errorf("completions lack %q:\n%s", w, out)
+				}
+			}
+			for _, n := range c.not {
+				if strings.Contains(out, n) {
+					t.Errorf("completions offer %q:\n%s", n, out)
+				}
+			}
+		})
+	}
+}

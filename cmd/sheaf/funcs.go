@@ -76,16 +76,20 @@ Exit status here: 0 when listed, 2 for an unknown function or family.`,
 
 // completeFuncs completes the name of a function (built-in or plugin),
 // each with its summary.
-func completeFuncs(_ *cobra.Command, args []string, _ string) ([]string, cobra.ShellCompDirective) {
+func completeFuncs(_ *cobra.Command, args []string, prefix string) ([]string, cobra.ShellCompDirective) {
 	if len(args) > 0 {
 		return nil, cobra.ShellCompDirectiveNoFileComp
 	}
 	var out []string
 	for _, b := range check.Builtins {
-		out = append(out, b.Name+"\t"+b.Sig)
+		if strings.HasPrefix(b.Name, prefix) {
+			out = append(out, b.Name+"\t"+b.Sig)
+		}
 	}
 	for _, d := range funcs.All() {
-		out = append(out, d.Name+"\t"+d.Summary)
+		if strings.HasPrefix(d.Name, prefix) {
+			out = append(out, d.Name+"\t"+d.Summary)
+		}
 	}
 	return out, cobra.ShellCompDirectiveNoFileComp
 }

@@ -183,7 +183,7 @@ func loadState(a *app, path string, f *sheetFlags, sets []string) (*engine.Sheet
 
 // completeInputs completes --set with the input names of the sheet named
 // in the arguments (and the fields of its record inputs), followed by =.
-func completeInputs(cmd *cobra.Command, args []string, _ string) ([]string, cobra.ShellCompDirective) {
+func completeInputs(cmd *cobra.Command, args []string, prefix string) ([]string, cobra.ShellCompDirective) {
 	if len(args) == 0 || args[0] == "-" {
 		return nil, cobra.ShellCompDirectiveNoFileComp
 	}
@@ -203,5 +203,11 @@ func completeInputs(cmd *cobra.Command, args []string, _ string) ([]string, cobr
 			}
 		}
 	}
-	return out, cobra.ShellCompDirectiveNoSpace | cobra.ShellCompDirectiveNoFileComp
+	kept := out[:0]
+	for _, o := range out {
+		if strings.HasPrefix(o, prefix) {
+			kept = append(kept, o)
+		}
+	}
+	return kept, cobra.ShellCompDirectiveNoSpace | cobra.ShellCompDirectiveNoFileComp
 }

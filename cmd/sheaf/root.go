@@ -233,6 +233,9 @@ combinations come from the local code and licensed practice.`,
 	)
 	for _, c := range root.Commands() {
 		inputArgs(c)
+		if c.ValidArgsFunction == nil && c.Name() != "units" && c.Name() != "funcs" {
+			c.ValidArgsFunction = completeSheets
+		}
 		if c.Long != "" && !strings.Contains(c.Long, exitTable) {
 			c.Long += "\n" + exitTable
 		}
