@@ -125,6 +125,7 @@ func TestExitCodes(t *testing.T) {
 		{"export uncomputed draft", []string{"export", "--draft", fx + "uncomputed.sheaf", "-o", "{tmp}/unc2.xlsx"}, "", 0, "wrote", "", false},
 		{"export sheet error", []string{"export", fx + "broken.sheaf", "-o", "{tmp}/b.xlsx"}, "", 2, "", "broken.sheaf:4:", false},
 		{"export bad extension", []string{"export", fx + "ok.sheaf", "-o", "{tmp}/ok.pdf"}, "", 2, "", "extension .xlsx", false},
+		{"export warns of placeholders", []string{"export", fx + "placeholder.sheaf", "-o", "{tmp}/ph.xlsx"}, "", 0, "wrote", `the header date is still the placeholder "YYYY-MM-DD"`, false},
 		{"export stdin needs -o", []string{"export", "-"}, string(okSrc), 2, "", "name the workbook with -o", false},
 		{"export stdin", []string{"export", "-", "-o", "{tmp}/stdin.xlsx"}, string(okSrc), 0, "wrote", "", false},
 
@@ -159,6 +160,7 @@ func TestExitCodes(t *testing.T) {
 		{"units bad system", []string{"units", "--system", "mars"}, "", 2, "", "unknown unit system", false},
 
 		{"new", []string{"new", fx + "ok.sheaf", "{tmp}/new.sheaf"}, "", 0, "", "", false},
+		{"new bad date", []string{"new", "--date", "2026-02-30", fx + "ok.sheaf", "{tmp}/new2.sheaf"}, "", 2, "", "YYYY-MM-DD", false},
 		{"new exists", []string{"new", fx + "ok.sheaf", fx + "fails.sheaf"}, "", 2, "", "exists", false},
 		{"new missing template", []string{"new", fx + "nosuch.sheaf", "{tmp}/x.sheaf"}, "", 2, "", "", false},
 
