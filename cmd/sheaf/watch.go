@@ -39,7 +39,13 @@ formulas, results and checks. A sheet saved with errors shows its
 diagnostics; watching goes on until the next save fixes them.
 
 Saves that come close together (an editor writing a file in several steps)
-are taken as one after --interval of quiet. Ctrl-C stops watching.
+are taken as one after --interval of quiet (100 ms by default); the file is
+then read until two reads 10 ms apart agree, an empty file is taken for a
+save still under way, and a file that does not load is read once more after
+another interval before its problems are shown, so a half-written file is
+never reported as a change. A save that changes only the values of inputs
+is recomputed through the engine's incremental evaluation, without
+compiling the sheet again. Ctrl-C stops watching.
 
 Exit status here: 0 when stopped with Ctrl-C, 2 when the file cannot be watched.`,
 		Args: cobra.ExactArgs(1),
@@ -74,6 +80,27 @@ type watcher struct {
 	dirs   map[string]bool
 	names  map[string]bool // absolute paths of the files that trigger a run
 	loaded bool            // the last attempt loaded the sheet
+	// The compiled sheet of the last good full run, the source it was
+	// compiled from and the State that follows the saves that changed
+	// only input values since (see incremental); over names the inputs
+	// the State has set.
+	sheet  *engine.Sheet
+	base   []byte
+	st     *engine.State
+	over   map[string]bool
+	byLine map[int]*engine.Cell // one-line inputs of sheet by line, built on first need
+	// settle is the gap between the two reads that must agree before a
+	// save is taken (readStable); retried counts the re-reads of a
+	// source that did not compile, which may be a save still under way.
+	settle   time.Duration
+	retried  bool
+	compiles int // full compiles, for tests and benchmarks
+}
+
+// settleTime is the gap between the two reads of a saved file that must
+// agree (at most 10 ms, a quarter of the quiet time for a short one).
+func settleTime(interval time.Duration) time.Duration {
+	return min(interval/4, 10*time.Millisecond)
 }
 
 // runWatch watches path until ctx ends. ready, when not nil, is called
@@ -85,7 +112,7 @@ func runWatch(ctx context.Context, a *app, o *watchOptions, path string, ready f
 	if !(o.rtol >= 0) || o.rtol >= 1 {
 		return userErrorf("--rtol %g: give a relative tolerance from 0 to below 1, e.g. 1e-6", o.rtol)
 	}
-	w := &watcher{a: a, o: o, path: path, dirs: map[string]bool{}, names: map[string]bool{}}
+	w := &watcher{a: a, o: o, path: path, dirs: map[string]bool{}, names: map[string]bool{}, settle: settleTime(o.interval)}
 	opts, err := o.sheet.options()
 	if err != nil {
 		return err
@@ -166,18 +193,47 @@ func clean(p string) string {
 // returns the files to watch.
 func (w *watcher) run() []string {
 	files := []string{w.path}
-	src, err := os.ReadFile(w.path)
+	src, err := w.readStable()
 	if err != nil {
 		fmt.Fprintf(w.a.stderr, "sheaf: %v; waiting for the file to come back\n", err)
 		w.src = nil
 		return files
 	}
+	if w.last != nil && len(bytes.TrimSpace(src)) == 0 {
+		// Truncated by an editor that writes in place, not yet written:
+		// diffing it would list every cell as removed.
+		fmt.Fprintf(w.a.stderr, "sheaf: %s is empty; waiting for the save to finish\n", w.path)
+		return append(files, w.usedFiles()...)
+	}
 	if w.src != nil && bytes.Equal(src, w.src) && w.loaded && w.usedUnchanged() {
 		return append(files, w.usedFiles()...) // saved without a change
 	}
+	if before, after, ok := w.incremental(src); ok {
+		w.src = src
+		w.runs++
+		w.loaded = true
+		fmt.Fprintf(w.a.stdout, "\n== run %d of %s ==\n", w.runs, w.path)
+		r := diff.Compare("last good run", before, fmt.Sprintf("run %d", w.runs), after, diff.Options{RelTol: w.o.rtol})
+		_ = r.WriteText(w.a.stdout)
+		if len(w.last.Problems) > 0 {
+			_ = diag.Render(w.a.stderr, w.last.Problems, diag.Sources{w.path: src})
+		}
+		return append(files, w.usedFiles()...)
+	}
+	w.compiles++
+	s, err := engine.Compile(w.path, src, w.opts...)
+	if err != nil && !w.retried {
+		// Maybe a save still under way: look again after another quiet
+		// interval before reporting the file as broken.
+		w.retried = true
+		time.Sleep(w.o.interval)
+		if again, rerr := w.readStable(); rerr == nil && !bytes.Equal(again, src) {
+			return w.run()
+		}
+	}
+	w.retried = false
 	w.src = src
 	w.runs++
-	s, err := engine.Compile(w.path, src, w.opts...)
 	w.loaded = err == nil
 	if err != nil {
 		var list diag.List
@@ -188,14 +244,9 @@ func (w *watcher) run() []string {
 		}
 		return files
 	}
-	res := s.Run(nil)
-	if w.last == nil {
-		_ = text.Write(w.a.stdout, res, engine.DefaultSigFigs)
-	} else {
-		fmt.Fprintf(w.a.stdout, "\n== run %d of %s ==\n", w.runs, w.path)
-		r := diff.Compare("last good run", w.last, fmt.Sprintf("run %d", w.runs), res, diff.Options{RelTol: w.o.rtol})
-		_ = r.WriteText(w.a.stdout)
-	}
+	w.sheet, w.base, w.st, w.over, w.byLine = s, src, s.NewState(), map[string]bool{}, nil
+	res := w.st.Eval()
+	w.print(res)
 	if len(res.Problems) > 0 {
 		_ = diag.Render(w.a.stderr, res.Problems, s.Sources())
 	}
@@ -205,6 +256,18 @@ func (w *watcher) run() []string {
 		w.used[f], _ = os.ReadFile(f)
 	}
 	return s.Files()
+}
+
+// print writes the outcome of a run: the whole listing the first time,
+// then the changes since the last good run.
+func (w *watcher) print(res *engine.Results) {
+	if w.last == nil {
+		_ = text.Write(w.a.stdout, res, engine.DefaultSigFigs)
+		return
+	}
+	fmt.Fprintf(w.a.stdout, "\n== run %d of %s ==\n", w.runs, w.path)
+	r := diff.Compare("last good run", w.last, fmt.Sprintf("run %d", w.runs), res, diff.Options{RelTol: w.o.rtol})
+	_ = r.WriteText(w.a.stdout)
 }
 
 // usedUnchanged reports whether every template of the last good run still

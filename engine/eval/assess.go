@@ -85,13 +85,17 @@ func (s *State) Governing(i int) *check.Node {
 	}
 	best, bestV := -1, 0.0
 	f := &s.F
+	// The frame may still hold the failure of another cell: keep it
+	// apart while the terms are evaluated.
+	saved := f.Fail
+	f.Fail = nil
+	defer func() { f.Fail = saved }()
 	for k, a := range n.Args {
 		if a.Type == nil || a.Type.Kind != funcs.Number {
 			return nil
 		}
 		v := s.M.numOf(a)(f)
 		if f.Fail != nil || math.IsNaN(v) {
-			f.Fail = nil
 			return nil
 		}
 		if best < 0 || (n.Builtin == check.BMin && v < bestV) || (n.Builtin == check.BMax && v > bestV) {
