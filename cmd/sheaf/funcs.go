@@ -174,7 +174,7 @@ func runFuncsDescribe(a *app, name string) error {
 	fmt.Fprintf(w, "%s (family %s)\n", d.Name, d.Family)
 	fmt.Fprintf(w, "  %s\n\n", signature(d))
 	fmt.Fprintf(w, "%s\n\n", d.Summary)
-	wrap(w, d.Doc, "", 78)
+	wrap(w, docText(d.Doc, nil), "", 78)
 	if d.Formula != "" {
 		fmt.Fprintf(w, "\nFormula:\n  %s\n", d.Formula)
 	}
@@ -187,7 +187,7 @@ func runFuncsDescribe(a *app, name string) error {
 			}
 			fmt.Fprintf(w, "  %s %s%s\n", p.Name, typeText(p.Type), opt)
 			if p.Doc != "" {
-				wrap(w, p.Doc, "      ", 78)
+				wrap(w, docText(p.Doc, p.Type), "      ", 78)
 			}
 		}
 	}
@@ -201,7 +201,7 @@ func runFuncsDescribe(a *app, name string) error {
 		for _, f := range r.Fields {
 			fmt.Fprintf(w, "    %s %s\n", f.Name, typeText(f.Type))
 			if f.Doc != "" {
-				wrap(w, f.Doc, "        ", 78)
+				wrap(w, docText(f.Doc, f.Type), "        ", 78)
 			}
 		}
 	}

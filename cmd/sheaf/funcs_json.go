@@ -69,7 +69,7 @@ func typeOf(t *funcs.Type) *typeJSON {
 		j.Elem = typeOf(t.Elem)
 	case funcs.Record, funcs.Table:
 		for _, f := range t.Fields {
-			j.Fields = append(j.Fields, paramJSON{Name: f.Name, Optional: f.Optional, Doc: f.Doc, Type: *typeOf(f.Type)})
+			j.Fields = append(j.Fields, paramJSON{Name: f.Name, Optional: f.Optional, Doc: docText(f.Doc, f.Type), Type: *typeOf(f.Type)})
 		}
 	}
 	return j
@@ -98,7 +98,7 @@ func runFuncsJSON(a *app, o funcsOptions, name string) error {
 		f := funcJSON{Name: d.Name, Family: d.Family, Signature: signature(d), Summary: d.Summary, Formula: d.Formula, Source: d.Source,
 			Params: []paramJSON{}, Result: typeOf(d.Result)}
 		for _, p := range d.Params {
-			f.Params = append(f.Params, paramJSON{Name: p.Name, Optional: p.Optional, Doc: p.Doc, Type: *typeOf(p.Type)})
+			f.Params = append(f.Params, paramJSON{Name: p.Name, Optional: p.Optional, Doc: docText(p.Doc, p.Type), Type: *typeOf(p.Type)})
 		}
 		doc.Functions = append(doc.Functions, f)
 	}

@@ -12,6 +12,7 @@ import (
 	"github.com/sheafcalc/sheaf/engine/diag"
 	"github.com/sheafcalc/sheaf/engine/units"
 	"github.com/sheafcalc/sheaf/funcs"
+	"github.com/sheafcalc/sheaf/internal/plural"
 )
 
 // Column is one column of a case table: the input it sets and the unit its
@@ -168,7 +169,7 @@ func (c *Cases) readRow(s *engine.Sheet, r *csv.Reader, cs *Case) {
 	if len(cs.Raw) != len(c.Columns) {
 		line, col := r.FieldPos(0)
 		cs.Err = &diag.Diagnostic{Range: diag.Range{Start: diag.Pos{File: c.File, Line: line, Col: col}},
-			Summary: fmt.Sprintf("case %d has %d values, the header has %d columns", cs.N, len(cs.Raw), len(c.Columns)),
+			Summary: fmt.Sprintf("case %d has %s, the header has %s", cs.N, plural.Count(len(cs.Raw), "value"), plural.Count(len(c.Columns), "column")),
 			Detail:  "this row was skipped; the other rows were evaluated",
 			Hint:    "give one value per column, separated by " + c.sepName()}
 		return
