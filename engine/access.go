@@ -28,3 +28,7 @@ func (st *State) Number(c *Cell) (float64, bool) {
 	}
 	return 0, false
 }
+
+// Uncomputed returns the number of cells the last evaluation could not
+// compute (as Results.Uncomputed, without building the results).
+func (st *State) Uncomputed() int { return st.st.Uncomputed() }

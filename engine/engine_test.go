@@ -101,7 +101,7 @@ func TestRuntimeFailures(t *testing.T) {
 		{"sqrt", "a = -4 m^2\nb = sqrt(a)\nc = b * 2\n", "b", "square root of a negative number"},
 		{"interp", "a = 5 m\nb = interp([0 m, 1 m], [0 kN, 1 kN], a)\nc = b * 2\n", "b", "outside the table"},
 		{"ln", "a = 0\nb = ln(a)\nc = b * 2\n", "b", "logarithm"},
-		{"index", "xs = [1 m]\ni = 3\nb = xs[i]\nc = b * 2\n", "b", "index out of range"},
+		{"index", "xs = [1 m]\ni = 3\nb = xs[i]\nc = b * 2\n", "b", "index 3 is out of range: the list has 1 element, numbered from 0 to 0"},
 		{"capacity", "a = 0 kN\nd = 1 kN\ncheck b: d <= a\n", "b", "capacity must be a positive"},
 	}
 	for _, c := range cases {

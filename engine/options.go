@@ -11,6 +11,7 @@ import (
 // a mistake or an attack, refused with a diagnostic.
 const (
 	DefaultMaxBytes = sheet.DefaultMaxBytes
+	DefaultMaxLines = sheet.DefaultMaxLines
 	DefaultMaxCells = 200_000
 	DefaultMaxDepth = formula.DefaultMaxDepth
 	DefaultSigFigs  = 4
@@ -21,6 +22,7 @@ type Option func(*config)
 
 type config struct {
 	maxBytes  int
+	maxLines  int
 	maxCells  int
 	maxDepth  int
 	system    units.System
@@ -30,7 +32,7 @@ type config struct {
 }
 
 func newConfig(opts []Option) config {
-	c := config{maxBytes: DefaultMaxBytes, maxCells: DefaultMaxCells, maxDepth: DefaultMaxDepth, sigFigs: DefaultSigFigs}
+	c := config{maxBytes: DefaultMaxBytes, maxLines: DefaultMaxLines, maxCells: DefaultMaxCells, maxDepth: DefaultMaxDepth, sigFigs: DefaultSigFigs}
 	for _, o := range opts {
 		if o != nil {
 			o(&c)
@@ -44,6 +46,16 @@ func WithMaxBytes(n int) Option {
 	return func(c *config) {
 		if n > 0 {
 			c.maxBytes = n
+		}
+	}
+}
+
+// WithMaxLines limits the number of physical lines of the source (default
+// 1,000,000). A source over the limit is refused before it is parsed.
+func WithMaxLines(n int) Option {
+	return func(c *config) {
+		if n > 0 {
+			c.maxLines = n
 		}
 	}
 }

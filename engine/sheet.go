@@ -1,6 +1,7 @@
 package engine
 
 import (
+	"bytes"
 	"errors"
 	"fmt"
 
@@ -69,7 +70,19 @@ func Load(path string, opts ...Option) (*Sheet, error) {
 // one per line.
 func Compile(name string, src []byte, opts ...Option) (*Sheet, error) {
 	cfg := newConfig(opts)
-	f, errs := sheet.Parse(name, src, sheet.MaxBytes(cfg.maxBytes))
+	// The limits are checked before anything is parsed: a source over
+	// them is refused at once, not checked first (loading stops at a
+	// limit error).
+	if len(src) > cfg.maxBytes {
+		return nil, tooLarge(name, int64(len(src)), cfg.maxBytes)
+	}
+	if n := bytes.Count(src, []byte{'\n'}); n > cfg.maxLines || (n == cfg.maxLines && len(src) > 0 && src[len(src)-1] != '\n') {
+		return nil, diag.List{{Range: diag.Range{Start: diag.Pos{File: name}},
+			Summary: fmt.Sprintf("sheet has too many lines: more than %d", cfg.maxLines),
+			Detail:  "a sheet is written by a person; nothing of it was read",
+			Hint:    "split it into sheets that use one another, or raise the limit (sheaf: --max-lines N; Go: engine.WithMaxLines)"}}
+	}
+	f, errs := sheet.Parse(name, src, sheet.MaxBytes(cfg.maxBytes), sheet.MaxLines(cfg.maxLines))
 	if f == nil {
 		errs.Sort()
 		return nil, errs
@@ -87,6 +100,14 @@ func Compile(name string, src []byte, opts ...Option) (*Sheet, error) {
 		s.system = cfg.system
 	}
 	return s, nil
+}
+
+// tooLarge is the diagnostic of a source over the size limit.
+func tooLarge(name string, size int64, limit int) diag.List {
+	return diag.List{{Range: diag.Range{Start: diag.Pos{File: name}},
+		Summary: fmt.Sprintf("sheet is too large: %d bytes, the limit is %d", size, limit),
+		Detail:  "a sheet is written by a person; nothing of it was read",
+		Hint:    "split it into sheets that use one another, or raise the limit (sheaf: --max-bytes N; Go: engine.WithMaxBytes)"}}
 }
 
 // Name returns the name the sheet was loaded under.

@@ -4,7 +4,6 @@ import (
 	"bytes"
 	"errors"
 	"fmt"
-	"maps"
 	"os"
 	"os/exec"
 	"path/filepath"
@@ -15,15 +14,16 @@ import (
 	"github.com/sheafcalc/sheaf/engine"
 	"github.com/sheafcalc/sheaf/engine/diag"
 	"github.com/sheafcalc/sheaf/engine/diff"
-	"github.com/sheafcalc/sheaf/engine/units"
+	"github.com/sheafcalc/sheaf/internal/plural"
 )
 
 // diffOptions are the flags of `sheaf diff`.
 type diffOptions struct {
-	revs   []string
-	rtol   float64
-	json   bool
-	system string
+	revs  []string
+	rtol  float64
+	json  bool
+	draft bool
+	sheet sheetFlags
 }
 
 func newDiffCmd(a *app) *cobra.Command {
@@ -47,8 +47,9 @@ diff. Git must be installed and the file must be inside a git repository.
 Cells are matched by name; formulas are compared with their spacing
 normalised, so a reformatted sheet shows no changes.
 
-Exit status: 0 when no check flipped to fail, 1 when a check that passed (or
-is new) now fails or cannot be assessed, 2 when either sheet has errors.`,
+Exit status here: 0 when no check flipped to fail, 1 when a check that passed (or
+is new) now fails or cannot be assessed, 2 when either sheet has errors or
+a cell of the new version could not be computed (not with --draft).`,
 		Example: `  sheaf diff old/hanger.sheaf hanger.sheaf
   sheaf diff --rev HEAD~1 calcs/hanger.sheaf
   sheaf diff --rev v1.0 --rev v1.1 calcs/hanger.sheaf
@@ -68,14 +69,19 @@ is new) now fails or cannot be assessed, 2 when either sheet has errors.`,
 			return nil
 		},
 		RunE: func(cmd *cobra.Command, args []string) error {
-			return runDiff(a, o, args)
+			err := runDiff(a, o, args)
+			if o.json {
+				return jsonFailure(a, diff.Schema, strings.Join(args, " "), err)
+			}
+			return err
 		},
 	}
 	f := cmd.Flags()
 	f.StringArrayVar(&o.revs, "rev", nil, "compare FILE at this git revision with the working copy; given twice (or as A..B), two revisions")
 	f.Float64Var(&o.rtol, "rtol", diff.DefaultRelTol, "relative tolerance below which a result counts as unchanged")
 	f.BoolVar(&o.json, "json", false, "print the differences as JSON")
-	f.StringVar(&o.system, "system", "", "display units for cells without a written unit: metric or us")
+	f.BoolVar(&o.draft, "draft", false, "accept a new version with cells that cannot be computed (exit 0 or 1 instead of 2)")
+	o.sheet.add(cmd, true)
 	return cmd
 }
 
@@ -124,16 +130,11 @@ func runDiff(a *app, o *diffOptions, args []string) error {
 	if !(o.rtol >= 0) || o.rtol >= 1 {
 		return userErrorf("--rtol %g: give a relative tolerance from 0 to below 1, e.g. 1e-6", o.rtol)
 	}
-	var opts []engine.Option
-	if o.system != "" {
-		s, ok := units.ParseSystem(o.system)
-		if !ok || s == units.Neutral {
-			return userErrorf("unknown unit system %q: use metric or us", o.system)
-		}
-		opts = append(opts, engine.WithSystem(s))
+	opts, err := o.sheet.options()
+	if err != nil {
+		return err
 	}
 	var old, cur *diffSide
-	var err error
 	switch len(o.revs) {
 	case 0:
 		if old, err = fileSide(args[0]); err != nil {
@@ -159,13 +160,25 @@ func runDiff(a *app, o *diffOptions, args []string) error {
 	}
 	olds, err1 := compileReported(a, old.name, old.src, append(opts[:len(opts):len(opts)], old.opts...), old.srcs)
 	news, err2 := compileReported(a, cur.name, cur.src, append(opts[:len(opts):len(opts)], cur.opts...), cur.srcs)
+	var se1, se2 *sheetError
+	if errors.As(err1, &se1) && errors.As(err2, &se2) {
+		return se1.join(se2) // both versions' problems, in one report
+	}
 	if err1 != nil {
 		return err1
 	}
 	if err2 != nil {
 		return err2
 	}
-	r := diff.Compare(old.name, olds.Run(nil), cur.name, news.Run(nil), diff.Options{RelTol: o.rtol})
+	newRes := news.Run(nil)
+	r := diff.Compare(old.name, olds.Run(nil), cur.name, newRes, diff.Options{RelTol: o.rtol})
+	var status error
+	if n := newRes.Uncomputed(); n > 0 && !o.draft {
+		status = &reportedError{fmt.Errorf("%s of %s could not be computed (--draft accepts it)", plural.Count(n, "cell"), cur.name), exitInput}
+	} else if r.Flipped > 0 {
+		status = &reportedError{fmt.Errorf("%d design checks flipped to fail", r.Flipped), exitChecks}
+	}
+	r.ExitCode = exitCode(status)
 	if o.json {
 		err = r.WriteJSON(a.stdout)
 	} else {
@@ -174,10 +187,10 @@ func runDiff(a *app, o *diffOptions, args []string) error {
 	if err != nil {
 		return err
 	}
-	if r.Flipped > 0 {
-		return &reportedError{fmt.Errorf("%d design checks flipped to fail", r.Flipped), exitChecks}
+	if r.ExitCode == exitInput {
+		fmt.Fprintf(a.stderr, "sheaf: %v\n", status)
 	}
-	return nil
+	return status
 }
 
 // fileSide reads the sheet at path from disk; its templates come from the
@@ -190,19 +203,17 @@ func fileSide(path string) (*diffSide, error) {
 	return &diffSide{name: path, src: src}, nil
 }
 
-// compileReported compiles src, rendering its diagnostics to stderr with
-// the sources in srcs (the files a git revision gave) or on disk.
-func compileReported(a *app, name string, src []byte, opts []engine.Option, srcs diag.Sources) (*engine.Sheet, error) {
+// compileReported compiles src; its diagnostics come back as a
+// *sheetError, with the sources in srcs (the files a git revision gave)
+// for their snippets.
+func compileReported(_ *app, name string, src []byte, opts []engine.Option, srcs diag.Sources) (*engine.Sheet, error) {
 	s, err := engine.Compile(name, src, opts...)
 	if err == nil {
 		return s, nil
 	}
 	var list diag.List
 	if errors.As(err, &list) {
-		all := sourcesFor(list, name, src)
-		maps.Copy(all, srcs)
-		reportProblems(a.stderr, list, all, name, "")
-		return nil, &reportedError{err, exitInput}
+		return nil, &sheetError{list: list, name: name, src: src, srcs: srcs} // rendered on stderr, or as JSON with --json
 	}
 	return nil, &inputError{err}
 }

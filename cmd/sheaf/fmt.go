@@ -40,7 +40,7 @@ the file it leads to is formatted. Only regular files are read. A file with synt
 errors are shown. With --check nothing is written: the files that are not
 in canonical layout are listed. FILE - reads stdin and writes stdout.
 
-Exit status: 0 when done (with --check: every file is canonical), 1 with
+Exit status here: 0 when done (with --check: every file is canonical), 1 with
 --check when a file would change, 2 when a file cannot be read or has
 syntax errors.`,
 		Args: cobra.MinimumNArgs(1),

@@ -7,6 +7,7 @@ import (
 	"path/filepath"
 	"sort"
 	"strings"
+	"time"
 
 	"github.com/spf13/cobra"
 
@@ -22,16 +23,16 @@ import (
 type newOptions struct {
 	force   bool
 	library string
+	date    string
+	now     func() time.Time // the clock (tests fix it); nil is time.Now
 }
 
 // libraryDir is the folder of templates looked for in the current
 // directory and its parents.
 const libraryDir = "sheets"
 
-// datePlaceholder replaces the template's date: the new sheet is not dated
-// by the tool (the same template gives the same file on every day), and the
-// placeholder is plain to see in review.
-const datePlaceholder = "YYYY-MM-DD"
+// dateLayout is the form of the date a new sheet gets (ISO 8601).
+const dateLayout = "2006-01-02"
 
 func newNewCmd(a *app) *cobra.Command {
 	o := &newOptions{}
@@ -43,7 +44,8 @@ func newNewCmd(a *app) *cobra.Command {
 --library DIR) named with or without .sheaf, or any sheet given by path.
 
 The new sheet is a standalone copy: the header is kept with the date set to
-the placeholder ` + datePlaceholder + `, a comment names the template, and every
+today's date (or --date YYYY-MM-DD: the output is then the same on every
+day, for scripts and tests), a comment names the template, and every
 input cell is gathered at the top under "## Inputs", so the values to edit
 are in one place; the rest follows unchanged, in canonical layout. The copy
 evaluates exactly as the template does until you edit it.
@@ -51,7 +53,7 @@ evaluates exactly as the template does until you edit it.
 OUT must not exist unless --force is given; it is written whole or not at
 all.
 
-Exit status: 0 when written, 2 when the template is not found or has
+Exit status here: 0 when written, 2 when the template is not found or has
 errors, or OUT exists.`,
 		Args: cobra.ExactArgs(2),
 		RunE: func(cmd *cobra.Command, args []string) error {
@@ -60,10 +62,21 @@ errors, or OUT exists.`,
 	}
 	cmd.Flags().BoolVarP(&o.force, "force", "f", false, "overwrite OUT if it exists")
 	cmd.Flags().StringVar(&o.library, "library", "", "folder of templates (default: the nearest sheets/ folder)")
+	cmd.Flags().StringVar(&o.date, "date", "", "the date of the new sheet, YYYY-MM-DD (default: today)")
 	return cmd
 }
 
 func runNew(a *app, o *newOptions, template, out string) error {
+	date := o.date
+	if date == "" {
+		now := o.now
+		if now == nil {
+			now = time.Now
+		}
+		date = now().Format(dateLayout)
+	} else if _, err := time.Parse(dateLayout, date); err != nil {
+		return userErrorf("--date %s: write the date as YYYY-MM-DD, e.g. --date 2026-03-14", date)
+	}
 	path, err := findTemplate(template, o.library)
 	if err != nil {
 		return err
@@ -80,7 +93,7 @@ func runNew(a *app, o *newOptions, template, out string) error {
 	if err != nil {
 		return err
 	}
-	text, n, err := fromTemplate(path, src, out)
+	text, n, err := fromTemplate(path, src, out, date)
 	if err != nil {
 		var list diag.List
 		if errors.As(err, &list) {
@@ -98,8 +111,8 @@ func runNew(a *app, o *newOptions, template, out string) error {
 }
 
 // fromTemplate builds the text of the new sheet out from the template at
-// path and returns it with the number of inputs gathered.
-func fromTemplate(path string, src []byte, out string) ([]byte, int, error) {
+// path, dated date, and returns it with the number of inputs gathered.
+func fromTemplate(path string, src []byte, out, date string) ([]byte, int, error) {
 	s, err := engine.Compile(path, src)
 	if err != nil {
 		return nil, 0, err
@@ -126,7 +139,7 @@ func fromTemplate(path string, src []byte, out string) ([]byte, int, error) {
 			if inHeader {
 				if it.Key.Name == "date" {
 					m := *it
-					m.Value = datePlaceholder
+					m.Value = date
 					head = append(head, &m)
 				} else {
 					head = append(head, it)

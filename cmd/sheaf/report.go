@@ -25,12 +25,12 @@ import (
 
 // reportOptions are the flags of `sheaf report`.
 type reportOptions struct {
-	out    string
-	pdf    string
-	paper  string
-	stamp  bool
-	sets   []string
-	system string
+	out   string
+	pdf   string
+	paper string
+	stamp bool
+	sets  []string
+	sheet sheetFlags
 }
 
 func newReportCmd(a *app) *cobra.Command {
@@ -73,7 +73,7 @@ sheet, a flag or an output path is wrong, 3 when the browser fails.`,
 	f.StringVar(&o.paper, "paper", report.A4, "paper size: a4 or letter")
 	f.BoolVar(&o.stamp, "stamp", false, "print the time of the run in the title block (the bytes then differ per run)")
 	f.StringArrayVar(&o.sets, "set", nil, setUsage)
-	f.StringVar(&o.system, "system", "", "display units for cells without a written unit: metric or us")
+	o.sheet.add(cmd, true)
 	return cmd
 }
 
@@ -105,7 +105,7 @@ func runReport(ctx context.Context, a *app, o *reportOptions, path string) error
 			return userErrorf("%s %s would overwrite the sheet itself; choose another name", p.flag, p.path)
 		}
 	}
-	s, st, err := loadState(a, path, o.system, o.sets)
+	s, st, err := loadState(a, path, &o.sheet, o.sets)
 	if err != nil {
 		return err
 	}

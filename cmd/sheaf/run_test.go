@@ -85,7 +85,10 @@ func TestRunSetOverrides(t *testing.T) {
 		{"wrong dimension", []string{"--set", "d=3 kN"}, exitInput, "must be a length"},
 		{"unknown cell", []string{"--set", "dd=3 mm"}, exitInput, "did you mean `d`?"},
 		{"bad syntax", []string{"--set", "d"}, exitInput, "expected name=value"},
-		{"outside the table", []string{"--set", "d=30 mm"}, exitChecks, "outside the table"},
+		// A cell that cannot be computed is wrong input (exit 2), unless
+		// the run is a --draft, which then exits as its checks say.
+		{"outside the table", []string{"--set", "d=30 mm"}, exitInput, "outside the table"},
+		{"outside the table, draft", []string{"--set", "d=30 mm", "--draft"}, exitChecks, "outside the table"},
 	}
 	runCases(t, "sheets/mezzanine-hanger.sheaf", cases)
 }

@@ -17,11 +17,12 @@ import (
 
 // TestMain lets a test run this test binary as the sheaf command (with
 // SHEAF_TEST_AS_MAIN=1), to send it real signals.
-func TestMain(m *testing.M) {
+// asMain runs the test binary as sheaf when SHEAF_TEST_AS_MAIN is set (see
+// TestMain in exit_test.go), so that a signal reaches Main itself.
+func asMain() {
 	if os.Getenv("SHEAF_TEST_AS_MAIN") == "1" {
 		os.Exit(Main(os.Args[1:], os.Stdin, os.Stdout, os.Stderr))
 	}
-	os.Exit(m.Run())
 }
 
 // TestInterrupt: SIGINT or SIGTERM during `batch --out` (while the cases

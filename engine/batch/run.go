@@ -32,6 +32,9 @@ type Row struct {
 	Picks   []float64 // SI; NaN when the cell could not be computed
 	Utils   []float64 // one per check; NaN when not assessed
 	Problem string    // the first run-time problem of the case, if any
+	// Uncomputed is set when a cell of the case could not be computed (a
+	// check that is not assessed is not an uncomputed cell).
+	Uncomputed bool
 }
 
 // Verdict of check k: "pass", "fail", "unknown" (not assessed) or "" for a
@@ -168,7 +171,8 @@ func (w *worker) run(r *Row) {
 		}
 		r.Utils[k] = x
 	}
-	if unknown {
+	r.Uncomputed = w.st.Uncomputed() > 0
+	if unknown || r.Uncomputed {
 		// Rare: build the full results once to say why.
 		if p := w.st.Results().Problems; len(p) > 0 {
 			r.Problem = p[0].Summary
@@ -194,7 +198,22 @@ func same(a, b funcs.Value) bool {
 // numbers that the design checks compare (the cells each check's demand and
 // capacity read directly), in reading order. These are what an engineer
 // scans a case table for; the utilisation of each check is always output.
+// A sheet without checks gives every derived number instead: its results
+// are all there is to read.
 func DefaultPick(s *engine.Sheet) []*engine.Cell {
+	hasCheck := false
+	for _, c := range s.Cells() {
+		hasCheck = hasCheck || c.Kind == engine.Check
+	}
+	if !hasCheck {
+		var out []*engine.Cell
+		for _, c := range s.Cells() {
+			if c.Kind == engine.Derived && c.Type != nil && c.Type.Kind == funcs.Number {
+				out = append(out, c)
+			}
+		}
+		return out
+	}
 	seen := map[int]bool{}
 	for _, c := range s.Cells() {
 		if c.Kind != engine.Check {

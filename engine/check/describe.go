@@ -2,6 +2,7 @@ package check
 
 import (
 	"strconv"
+	"strings"
 
 	"github.com/sheafcalc/sheaf/engine/units"
 	"github.com/sheafcalc/sheaf/funcs"
@@ -82,7 +83,26 @@ func (t *typer) describeType(ty *funcs.Type) string {
 		}
 		return "a record"
 	case funcs.Table:
-		return "a table"
+		// A table is told by its columns: "must be a table, got a table"
+		// says nothing of the column that is missing or in the wrong unit.
+		if len(ty.Fields) == 0 {
+			return "a table"
+		}
+		cols := make([]string, len(ty.Fields))
+		for i, f := range ty.Fields {
+			cols[i] = f.Name
+			if f.Optional {
+				cols[i] += "?"
+			}
+			if f.Type != nil && f.Type.Kind == funcs.Number {
+				if f.Type.Dim.IsNone() {
+					cols[i] += " [1]"
+				} else {
+					cols[i] += " [" + t.unitOf(f.Type.Dim) + "]"
+				}
+			}
+		}
+		return "a table with columns " + strings.Join(cols, ", ")
 	case funcs.Bool:
 		return "a yes/no value (a comparison)"
 	case funcs.String:

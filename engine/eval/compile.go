@@ -3,9 +3,11 @@ package eval
 import (
 	"math"
 	"slices"
+	"strconv"
 
 	"github.com/sheafcalc/sheaf/engine/check"
 	"github.com/sheafcalc/sheaf/engine/diag"
+	"github.com/sheafcalc/sheaf/engine/units"
 	"github.com/sheafcalc/sheaf/funcs"
 	"github.com/sheafcalc/sheaf/internal/plural"
 )
@@ -255,7 +257,16 @@ func arith(n *check.Node) numFn {
 func index(f *Frame, at *check.Node, i float64, n int) (int, bool) {
 	k := int(i)
 	if float64(k) != i || k < 0 || k >= n {
-		f.fail(at, "index out of range", "the list has "+plural.Count(n, "element")+", numbered from 0")
+		what := "index " + units.FormatNumber(i, 6) + " is out of range"
+		if float64(k) != i && !math.IsNaN(i) && !math.IsInf(i, 0) {
+			what = "index " + units.FormatNumber(i, 6) + " is not a whole number"
+		}
+		if n == 0 {
+			f.fail(at, what+": the list is empty", "a list needs an element before it can be indexed")
+		} else {
+			f.fail(at, what+": the list has "+plural.Count(n, "element")+", numbered from 0 to "+strconv.Itoa(n-1),
+				"lists are numbered from 0: the first element is [0], the last ["+strconv.Itoa(n-1)+"]")
+		}
 		return 0, false
 	}
 	return k, true

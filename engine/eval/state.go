@@ -283,15 +283,13 @@ func (s *State) run(i int) {
 		d := s.M.demand[i](f)
 		cp := s.M.capacity[i](f)
 		if f.Fail != nil {
+			s.Demand[i], s.Capacity[i] = nan, nan // not computed (see Unassessed)
 			s.failed(c, f.Fail)
 			return
 		}
 		s.Demand[i], s.Capacity[i] = d, cp
-		if !(cp > 0) || math.IsInf(cp, 0) || !isFinite(d) {
-			s.setProblem(i, &diag.Diagnostic{Range: c.Formula.Source.Range,
-				Summary: "check `" + c.Name + "` cannot be assessed: the capacity must be a positive finite number",
-				Detail:  "utilisation is demand / capacity; with these inputs the capacity is not positive",
-				Hint:    "check the inputs of the capacity side"})
+		if p := Assess(c, d, cp); p != nil {
+			s.setProblem(i, p)
 			return
 		}
 		f.Num[i] = d / cp
@@ -315,6 +313,17 @@ func (s *State) run(i int) {
 		f.Val[i] = v
 		s.Known[i] = true
 	}
+}
+
+// Unassessed reports whether cell i is a design check whose two sides were
+// computed but which cannot be assessed (Assess refused them): a verdict
+// that is missing, not a cell that failed to compute.
+func (s *State) Unassessed(i int) bool {
+	c := s.M.P.Cells[i]
+	if c.Kind != check.Check || s.Known[i] || s.Problem[i] == nil || s.Demand == nil {
+		return false
+	}
+	return !math.IsNaN(s.Demand[i]) && !math.IsNaN(s.Capacity[i])
 }
 
 func isFinite(x float64) bool { return !math.IsNaN(x) && !math.IsInf(x, 0) }
