@@ -3,7 +3,6 @@ package engine
 import (
 	"fmt"
 	"os"
-	"sync"
 
 	"github.com/sheafcalc/sheaf/engine/check"
 	"github.com/sheafcalc/sheaf/engine/diag"
@@ -38,7 +37,6 @@ type Meta = check.Meta
 type Sheet struct {
 	name    string
 	src     []byte
-	file    func() *sheet.File // parses src again on first use (see File)
 	prog    *check.Program
 	mach    *eval.Machine
 	system  units.System
@@ -82,8 +80,6 @@ func Compile(name string, src []byte, opts ...Option) (*Sheet, error) {
 		return nil, errs
 	}
 	opt := cfg.checkOptions()
-	opt.DropItems = true // f is not kept: File parses the source again
-	opt.DropTrees = true // the typed nodes are all the sheet needs
 	prog, cerrs := check.Sheet(f, opt)
 	errs = append(errs, cerrs...)
 	errs.Sort()
@@ -91,10 +87,6 @@ func Compile(name string, src []byte, opts ...Option) (*Sheet, error) {
 		return nil, errs
 	}
 	s := &Sheet{name: name, src: src, prog: prog, mach: eval.Compile(prog), sigFigs: cfg.sigFigs, cfg: cfg}
-	s.file = sync.OnceValue(func() *sheet.File {
-		f, _ := sheet.Parse(name, src, sheet.MaxBytes(cfg.maxBytes))
-		return f
-	})
 	s.system = prog.Meta.System
 	if cfg.hasSystem && cfg.system != units.Neutral {
 		s.system = cfg.system
@@ -108,11 +100,9 @@ func (s *Sheet) Name() string { return s.name }
 // Source returns the text of the sheet.
 func (s *Sheet) Source() []byte { return s.src }
 
-// File returns the syntax tree. The sheet does not keep the tree it was
-// checked from (on a large sheet it is a sizeable part of the memory a
-// load takes at its peak): File parses the source again the first time it
-// is called, which gives the same tree, and keeps it.
-func (s *Sheet) File() *sheet.File { return s.file() }
+// File returns the syntax tree the sheet was checked from (the program's
+// first file; templates are in Program().Files).
+func (s *Sheet) File() *sheet.File { return s.prog.File }
 
 // Program returns the checked program (for exporters that walk the typed
 // trees).
