@@ -1,14 +1,15 @@
 package engine
 
 import (
+	"errors"
 	"fmt"
-	"os"
 
 	"github.com/sheafcalc/sheaf/engine/check"
 	"github.com/sheafcalc/sheaf/engine/diag"
 	"github.com/sheafcalc/sheaf/engine/eval"
 	"github.com/sheafcalc/sheaf/engine/sheet"
 	"github.com/sheafcalc/sheaf/engine/units"
+	"github.com/sheafcalc/sheaf/internal/userfile"
 )
 
 // Kind says what a cell is.
@@ -51,19 +52,13 @@ type Sheet struct {
 // they are.
 func Load(path string, opts ...Option) (*Sheet, error) {
 	cfg := newConfig(opts)
-	fi, err := os.Stat(path)
+	src, err := userfile.ReadFile(path, int64(cfg.maxBytes))
 	if err != nil {
-		return nil, err
-	}
-	if fi.IsDir() {
-		return nil, fmt.Errorf("%s is a directory, not a sheet", path)
-	}
-	if fi.Size() > int64(cfg.maxBytes) {
-		return nil, diag.List{{Range: diag.Range{Start: diag.Pos{File: path}}, Summary: fmt.Sprintf("sheet is too large: %d bytes, the limit is %d", fi.Size(), cfg.maxBytes),
-			Detail: "a sheet is written by a person; split it, or raise the limit"}}
-	}
-	src, err := os.ReadFile(path)
-	if err != nil {
+		var tl *userfile.TooLargeError
+		if errors.As(err, &tl) {
+			return nil, diag.List{{Range: diag.Range{Start: diag.Pos{File: path}}, Summary: fmt.Sprintf("sheet is too large: %d bytes, the limit is %d", tl.Size, tl.Limit),
+				Detail: "a sheet is written by a person; split it, or raise the limit"}}
+		}
 		return nil, err
 	}
 	return Compile(path, src, opts...)
@@ -141,10 +136,7 @@ func ReadSources(l diag.List) diag.Sources {
 		if _, done := out[name]; done || name == "" {
 			continue
 		}
-		if fi, err := os.Stat(name); err != nil || fi.IsDir() || fi.Size() > DefaultMaxBytes {
-			continue
-		}
-		if src, err := os.ReadFile(name); err == nil {
+		if src, err := userfile.ReadFile(name, DefaultMaxBytes); err == nil {
 			out[name] = src
 		}
 	}

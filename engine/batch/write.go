@@ -1,6 +1,7 @@
 package batch
 
 import (
+	"context"
 	"encoding/csv"
 	"fmt"
 	"io"
@@ -90,11 +91,75 @@ func number(si, factor float64) cell {
 	return cell{num: si / factor, si: si, factor: factor, isNum: true}
 }
 
+// Inert makes a text field of CSV output safe to open in a spreadsheet
+// program: a field that starts with `=`, `+`, `-`, `@`, a tab or a carriage
+// return would be read there as a formula (a bad row's raw text such as
+// `=HYPERLINK(...)` would become a live link, or worse), so it gets a
+// leading single quote, which such programs show as text. A field that is a
+// plain decimal number (`-12.5`, `+3e4`) is left alone: numbers stay
+// numbers. Source: OWASP, "CSV Injection" (the characters and the quote
+// prefix).
+func Inert(s string) string {
+	if s == "" {
+		return s
+	}
+	switch s[0] {
+	case '=', '+', '-', '@', '\t', '\r':
+		if plainNumber(s) {
+			return s
+		}
+		return "'" + s
+	}
+	return s
+}
+
+// plainNumber reports whether s is a decimal number with an optional sign
+// and exponent, nothing else: digits, at most one point, then e or E with
+// an optional sign and digits.
+func plainNumber(s string) bool {
+	i := 0
+	if i < len(s) && (s[i] == '+' || s[i] == '-') {
+		i++
+	}
+	digits := 0
+	for ; i < len(s) && s[i] >= '0' && s[i] <= '9'; i++ {
+		digits++
+	}
+	if i < len(s) && s[i] == '.' {
+		i++
+		for ; i < len(s) && s[i] >= '0' && s[i] <= '9'; i++ {
+			digits++
+		}
+	}
+	if digits == 0 {
+		return false
+	}
+	if i < len(s) && (s[i] == 'e' || s[i] == 'E') {
+		i++
+		if i < len(s) && (s[i] == '+' || s[i] == '-') {
+			i++
+		}
+		exp := 0
+		for ; i < len(s) && s[i] >= '0' && s[i] <= '9'; i++ {
+			exp++
+		}
+		if exp == 0 {
+			return false
+		}
+	}
+	return i == len(s)
+}
+
 // WriteCSV writes the outcome as CSV, numbers with sig significant figures
-// in plain or e-notation (units.FormatNumber), rows in case order.
+// in plain or e-notation (units.FormatNumber), rows in case order. Every
+// text field passes through Inert.
 func (o *Outcome) WriteCSV(w io.Writer, sig int) error {
 	cw := csv.NewWriter(w)
-	if err := cw.Write(o.Header()); err != nil {
+	hdr := o.Header()
+	for i, h := range hdr {
+		hdr[i] = Inert(h)
+	}
+	if err := cw.Write(hdr); err != nil {
 		return err
 	}
 	var fs []cell
@@ -106,7 +171,7 @@ func (o *Outcome) WriteCSV(w io.Writer, sig int) error {
 			if f.isNum {
 				rec = append(rec, f.formatted(sig))
 			} else {
-				rec = append(rec, f.text)
+				rec = append(rec, Inert(f.text))
 			}
 		}
 		if err := cw.Write(rec); err != nil {
@@ -122,6 +187,13 @@ func (o *Outcome) WriteCSV(w io.Writer, sig int) error {
 // chart them. The file's properties carry no timestamp that changes from
 // run to run beyond what the library writes.
 func (o *Outcome) WriteXLSX(w io.Writer) error {
+	return o.WriteXLSXContext(context.Background(), w)
+}
+
+// WriteXLSXContext is WriteXLSX that stops with ctx's error when ctx ends
+// (an interrupted command), checked every few hundred rows: a workbook of
+// many cases takes seconds to build.
+func (o *Outcome) WriteXLSXContext(ctx context.Context, w io.Writer) error {
 	f := excelize.NewFile()
 	defer f.Close()
 	const name = "cases"
@@ -149,6 +221,9 @@ func (o *Outcome) WriteXLSX(w io.Writer) error {
 	}
 	var fs []cell
 	for i := range o.Rows {
+		if i%256 == 0 && ctx.Err() != nil {
+			return ctx.Err()
+		}
 		fs = o.fields(&o.Rows[i], fs)
 		row = row[:0]
 		for _, c := range fs {

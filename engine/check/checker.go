@@ -21,6 +21,9 @@ type Options struct {
 	MaxBytes  int          // size of a template file; 0 means sheet.DefaultMaxBytes
 	System    units.System // preferred units in messages; Neutral means the sheet's own
 	HasSystem bool
+	// Loader reads the templates the sheet uses; nil means the files on
+	// disk beside the sheet (NewFileLoader of the sheet's name).
+	Loader Loader
 }
 
 // DefaultMaxCells is the default limit on the number of cells of a sheet.

@@ -19,8 +19,10 @@
 // that failed or were typed from stand-ins stay untyped and never run.
 //
 // A sheet that uses templates (`use rod from "hanger.sheaf"`) is checked
-// as one program: the loader (template.go) finds each template inside the
-// project root, refuses escapes and loops, and reads each file once; the
+// as one program: the checker asks the caller's Loader (template.go) for
+// each template — the files on disk by default (fileloader.go: inside the
+// project root, regular files only), or a git revision — refuses absolute
+// paths and loops, and parses each file once; the
 // template's cells are inlined under qualified names such as `rod.sigma`
 // (use.go), so dependencies, typing and evaluation cross the boundary
 // without a second mechanism. Positions keep their own file, and

@@ -77,7 +77,7 @@ func (u *uses) aliasPos(name string) diag.Pos {
 // and inlines its cells.
 func (c *checker) useTemplate(from *sheet.File, u *sheet.Use, scope string, depth int) {
 	if c.use == nil {
-		c.use = &uses{ld: newLoader(c.prog.File, c.opt.MaxBytes), aliases: map[string]*alias{},
+		c.use = &uses{ld: newLoader(c.prog.File, c.opt), aliases: map[string]*alias{},
 			replaced: map[int]*replaced{}, targets: map[*formula.Formula]map[int32]int{}, cells: map[*sheet.File]int{}}
 	}
 	name := scope + u.Name.Name
