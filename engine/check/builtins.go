@@ -264,7 +264,11 @@ func (t *typer) builtinType(b BuiltinInfo, args []*Node) (*funcs.Type, *argProbl
 		}
 		if n == 1 {
 			if p := plain(0); p != nil {
-				p.hint = "round to a step of the same unit: round(x, 5 mm)"
+				if args[0].Type.Kind == funcs.Number {
+					// round(30.4 deg) would round a number of radians: a step in
+					// the unit says what is rounded.
+					p.hint = "round to a step of the same unit, e.g. round(x, 1 " + t.unitOf(args[0].Type.Dim) + ")"
+				}
 				return nil, p
 			}
 			return numNone, nil

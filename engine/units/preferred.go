@@ -22,15 +22,14 @@ var preferredSymbols = map[System][]string{
 	},
 }
 
-// preferred maps system and dimension to the unit to show; buildPreferred
-// fills it, from the package's one init (catalogue.go), after the catalogue.
-var preferred = map[System]map[Dim]Unit{}
-
-func buildPreferred() {
+// buildPreferred maps system and dimension to the unit to show, parsing
+// the lists against t (whose catalogue is complete), for build.
+func buildPreferred(t *tables) map[System]map[Dim]Unit {
+	preferred := make(map[System]map[Dim]Unit, len(preferredSymbols))
 	for sys, syms := range preferredSymbols {
 		m := make(map[Dim]Unit, len(syms))
 		for _, s := range syms {
-			u, err := Parse(s)
+			u, err := parse(s, t)
 			if err != nil {
 				panic("units: preferred unit " + s + ": " + err.Error())
 			}
@@ -43,6 +42,7 @@ func buildPreferred() {
 		}
 		preferred[sys] = m
 	}
+	return preferred
 }
 
 // Preferred returns the display unit for dimension d in system s (Neutral
@@ -54,7 +54,7 @@ func Preferred(d Dim, s System) (Unit, bool) {
 	if s == Neutral {
 		s = Metric
 	}
-	if u, ok := preferred[s][d]; ok {
+	if u, ok := tab().preferred[s][d]; ok {
 		return u, true
 	}
 	return Coherent(d), false
@@ -77,7 +77,7 @@ var baseOrder = [...]struct {
 // Overflow has no unit: its symbol is "?" and its factor NaN, so a value
 // that reached it anyway is never shown as a number in some unit.
 func Coherent(d Dim) Unit {
-	u := Unit{Dim: d, Factor: 1, Quantity: defaultQty[d], System: Neutral}
+	u := Unit{Dim: d, Factor: 1, Quantity: tab().defaultQty[d], System: Neutral}
 	if d.IsNone() {
 		u.Symbol = "1"
 		return u
