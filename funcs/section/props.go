@@ -65,6 +65,8 @@ func (s *Shape) MomentsAbout(y0, z0 float64) Moments {
 	for _, r := range s.Regions {
 		if r.Ring != nil {
 			m.add(momentsRing(r.Ring, y0, z0), r.Sign)
+		} else if r.Sec != nil {
+			m.add(momentsSector(r.Sec, y0, z0), r.Sign)
 		} else {
 			m.add(momentsAnnulus(r.Ann, y0, z0), r.Sign)
 		}
@@ -86,6 +88,8 @@ func (s *Shape) BBox() (y0, y1, z0, z1 float64) {
 		var a0, a1, b0, b1 float64
 		if r.Ring != nil {
 			a0, a1, b0, b1 = r.Ring.bbox()
+		} else if r.Sec != nil {
+			a0, a1, b0, b1 = r.Sec.bbox()
 		} else {
 			a0, a1 = r.Ann.Yc-r.Ann.Rout, r.Ann.Yc+r.Ann.Rout
 			b0, b1 = r.Ann.Zc-r.Ann.Rout, r.Ann.Zc+r.Ann.Rout
