@@ -4,6 +4,7 @@ package main
 // functions in init.
 import (
 	_ "github.com/sheafcalc/sheaf/funcs/bar"
+	_ "github.com/sheafcalc/sheaf/funcs/catalogue"
 	_ "github.com/sheafcalc/sheaf/funcs/composite"
 	_ "github.com/sheafcalc/sheaf/funcs/plastic"
 	_ "github.com/sheafcalc/sheaf/funcs/section"
