@@ -192,6 +192,9 @@ func WithDirs(dirs []string) (*Catalogue, error) {
 		if d == "" {
 			continue
 		}
+		if st, err := os.Stat(d); err != nil || !st.IsDir() {
+			return nil, fmt.Errorf("catalogue folder %s (from %s) is not a folder that can be read", d, EnvDirs)
+		}
 		tables, err := readFS(os.DirFS(d), ".", d)
 		if err != nil {
 			var pe *fs.PathError
