@@ -54,9 +54,9 @@ func TestConcreteFormulas(t *testing.T) {
 		}
 	}
 	rows := []struct {
-		class                                              string
+		class                                      string
 		fctm, ecm, epsC1, epsCu1, epsC2, epsCu2, n float64 // MPa, GPa, ‰, ‰, ‰, ‰, 1
-		tol                                                [7]float64
+		tol                                        [7]float64
 	}{
 		{"C20/25", 2.2, 30, 2.0, 3.5, 2.0, 3.5, 2.0, [7]float64{0.05, 0.5, 0.05, 0, 0, 0, 0}},
 		{"C30/37", 2.9, 33, 2.2, 3.5, 2.0, 3.5, 2.0, [7]float64{0.05, 0.5, 0.05, 0, 0, 0, 0}},
