@@ -21,6 +21,9 @@ func init() {
 	for _, d := range shortcuts() {
 		funcs.Register(d)
 	}
+	for _, d := range lateralDefs() {
+		funcs.Register(d)
+	}
 }
 
 func p(name string, t *funcs.Type, doc string) funcs.Param {

@@ -209,3 +209,27 @@ func TestMaterialParamAccepts(t *testing.T) {
 		t.Error("a record without E is accepted")
 	}
 }
+
+// TestCFTResistance: REFERENCES.md C11 without confinement (λ̄ > 0.5), and
+// the confined case at λ̄ = 0.3, e = 0 and e/d = 0.05 with the factors of
+// §6.7.3.2(6) written out.
+// Source: EN 1994-1-1:2004 §6.7.3.2 (from memory); REFERENCES.md C11.
+func TestCFTResistance(t *testing.T) {
+	const d, tw, fyd, fy, fcd, fck = 0.2191, 0.010, 355e6, 355e6, 20e6, 30e6
+	r, err := CFTResistance(d, tw, fyd, fy, fcd, fck, 0.6, 0)
+	if err != nil || math.Abs(r.NplRd-2954.69632e3)/2954.69632e3 > 1e-9 || r.EtaC != 0 {
+		t.Errorf("C11: N_pl,Rd = %.9g N (%v), want 2954.69632 kN", r.NplRd, err)
+	}
+	aa := math.Pi * (d*d - (d-2*tw)*(d-2*tw)) / 4
+	ac := math.Pi * (d - 2*tw) * (d - 2*tw) / 4
+	for _, ed := range []float64{0, 0.05} {
+		ea0 := 0.25 * (3 + 2*0.3)
+		ec0 := 4.9 - 18.5*0.3 + 17*0.09
+		ea, ec := ea0+(1-ea0)*10*ed, ec0*(1-10*ed)
+		want := ea*aa*fyd + ac*fcd*(1+ec*tw/d*fy/fck)
+		r, err := CFTResistance(d, tw, fyd, fy, fcd, fck, 0.3, ed*d)
+		if err != nil || math.Abs(r.NplRd-want)/want > 1e-12 {
+			t.Errorf("e/d = %g: N_pl,Rd = %.9g, want %.9g (%v)", ed, r.NplRd, want, err)
+		}
+	}
+}
