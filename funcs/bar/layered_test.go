@@ -102,4 +102,3 @@ func TestLayeredPile(t *testing.T) {
 		t.Error("a patch beyond the end of the bar must be refused")
 	}
 }
-
