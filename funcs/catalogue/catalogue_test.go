@@ -113,6 +113,8 @@ func TestLookups(t *testing.T) {
 		{"HEB 265", "section", []funcs.Value{"HEB 265"}, "", 0, `"HEB 260" and "HEB 280"`},
 		{"HE 260 B misspelt", "section", []funcs.Value{"HEBB 260"}, "", 0, "not in the catalogue"},
 		{"CHS with ×", "section", []funcs.Value{"chs 219.1×10"}, "A", math.Pi / 4 * (0.2191*0.2191 - 0.1991*0.1991), ""},
+		{"thread by diameter", "thread_coarse", []funcs.Value{0.020}, "A_s", math.Pi / 4 * math.Pow(0.020-0.9382*0.0025, 2), ""},
+		{"no coarse thread of 13 mm", "thread_coarse", []funcs.Value{0.013}, "", 0, `the nearest sizes are "M12" and "M14"`},
 		{"C35 written short", "concrete", []funcs.Value{"C35"}, "", 0, `did you mean "C35/45"?`},
 	}
 	for _, c := range cases {

@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"math"
 	"slices"
+	"strconv"
 	"strings"
 
 	"github.com/sheafcalc/sheaf/engine/units"
@@ -263,6 +264,29 @@ func init() {
 		Summary: "an ISO metric thread: d, pitch P and tensile stress area A_s",
 		Doc:     "A metric thread of the coarse series by its designation. The stress area is computed from d and P, and agrees with the ISO 898-1 table within its rounding (tested). A size the series does not have (M13) is an error, never an interpolation.",
 		Formula: "A_s = π/4·(d − 0.9382·P)²",
+	}, "thread")
+	reg(&funcs.Def{
+		Name:   "thread_coarse",
+		Params: []funcs.Param{{Name: "d", Type: num(dimL), Doc: "nominal diameter, m: a size of the coarse series (16 mm for M16)"}},
+		Result: ThreadType,
+		Call: func(a []funcs.Value) (funcs.Value, error) {
+			d, _ := a[0].(float64)
+			mm := d * 1e3
+			if !(mm > 0) || math.IsInf(mm, 0) {
+				return nil, fmt.Errorf("the nominal diameter must be a positive length, got %g m", d)
+			}
+			key := "M" + strconv.FormatFloat(math.Round(mm*1e6)/1e6, 'f', -1, 64)
+			// The shipped ISO 261 table only: a firm's "M13" is not a coarse thread.
+			rows, err := Shipped().Find("thread", key)
+			if err != nil {
+				return nil, fmt.Errorf("no coarse thread of d = %g mm: %w", mm, err)
+			}
+			v := rows[0].Vals
+			return record(ThreadType, v["d"], v["P"], StressArea(v["d"], v["P"])), nil
+		},
+		Summary: "the ISO coarse thread of nominal diameter d (an input a case table may vary)",
+		Doc:     "The coarse-pitch thread of the given nominal diameter, as thread(\"M\" + d in mm) would give: for a sheet whose rod diameter is a numeric input (overridden by --set or a case table). A diameter the series does not have (13 mm) is an error that names the sizes either side, never an interpolation.",
+		Formula: "A_s = π/4·(d − 0.9382·P)², P from the coarse series",
 	}, "thread")
 	reg(&funcs.Def{
 		Name:   "bolt_class",
