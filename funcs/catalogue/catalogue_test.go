@@ -142,7 +142,11 @@ func TestLookups(t *testing.T) {
 // TestHSSDesignWall: the design wall of ASTM A500 HSS is 0.93 t_nom.
 // Source: AISC 360-16 §B4.2 (from memory).
 func TestHSSDesignWall(t *testing.T) {
-	v, err := functest.TryCall(t, "section_dim", "HSS6x6x1/4", "t")
+	s, err := functest.TryCall(t, "section", "HSS6x6x1/4")
+	if err != nil {
+		t.Fatal(err)
+	}
+	v, err := functest.TryCall(t, "section_dim", s, "t")
 	if err != nil || functest.RelErr(v.(float64), 0.93*0.25*0.0254) > 1e-14 {
 		t.Errorf("t = %v (%v), want 0.93·0.25 in", v, err)
 	}

@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"slices"
 	"sort"
+	"sync"
 
 	"github.com/sheafcalc/sheaf/engine/units"
 	"github.com/sheafcalc/sheaf/funcs/section"
@@ -74,6 +75,10 @@ const (
 	HSSWall = 0.93
 )
 
+// byShape finds the catalogue entry behind a section's shape, so that
+// section_dim takes the section itself and the key is written once.
+var byShape sync.Map // *section.Shape -> *Entry
+
 // keep keeps the shape built for a section entry, or returns why it
 // could not be built.
 func keep(e *Entry) func(*section.Shape, error) string {
@@ -82,6 +87,7 @@ func keep(e *Entry) func(*section.Shape, error) string {
 			return err.Error()
 		}
 		e.shape = s
+		byShape.Store(s, e)
 		return ""
 	}
 }

@@ -223,16 +223,21 @@ func init() {
 		Formula: "rolled I: A = 2·b·t_f + (h − 2t_f)·t_w + (4 − π)·r²; tubes: A = b·h − (b − 2t)(h − 2t) − (4 − π)(r_o² − r_i²)",
 	}, "section")
 	reg(&funcs.Def{
-		Name:   "section_dim",
-		Params: []funcs.Param{text("key", "designation, as for section"), text("name", "the dimension: h, b, t_w, t_f, r (I and H); d, t (CHS); h, b, t, r_o, r_i (tubes); t_nom (HSS)")},
+		Name: "section_dim",
+		Params: []funcs.Param{{Name: "s", Type: section.ParamType, Doc: "a section straight from section(\"…\")"},
+			text("name", "the dimension: h, b, t_w, t_f, r (I and H); d, t (CHS); h, b, t, r_o, r_i (tubes); t_nom (HSS)")},
 		Result: num(dimL),
 		Call: func(a []funcs.Value) (funcs.Value, error) {
-			rows, err := find("section", a[0])
+			sh, err := section.ShapeOf(a[0])
 			if err != nil {
 				return nil, err
 			}
+			v, ok := byShape.Load(sh)
+			if !ok {
+				return nil, fmt.Errorf("section_dim needs a section straight from section(\"…\"), not one built, placed or cut in the sheet")
+			}
+			e := v.(*Entry)
 			name, _ := a[1].(string)
-			e := rows[0]
 			var have []string
 			for n, v := range e.Vals {
 				if !strings.HasSuffix(n, "_tab") {
@@ -246,7 +251,7 @@ func init() {
 			return nil, fmt.Errorf("%s has no dimension %q; it has %s", e.Key, name, strings.Join(have, ", "))
 		},
 		Summary: "one dimension of a catalogue section (t_f of an HEB 260, the design wall t of an HSS)",
-		Doc:     "A dimension of a catalogue section by name, in m. For ASTM A500 HSS, t is the design wall 0.93·t_nom and t_nom the nominal one.",
+		Doc:     "A dimension of a catalogue section by name, in m: section_dim(tube, \"t\") with tube = section(\"CHS 273x10\"), so the key is written once. For ASTM A500 HSS, t is the design wall 0.93·t_nom and t_nom the nominal one.",
 		Formula: "as tabulated; HSS t = 0.93·t_nom; EN 10210 tubes r_o = 1.5t, r_i = t",
 	}, "section")
 	reg(&funcs.Def{
@@ -275,11 +280,12 @@ func init() {
 			if !(mm > 0) || math.IsInf(mm, 0) {
 				return nil, fmt.Errorf("the nominal diameter must be a positive length, got %g m", d)
 			}
-			key := "M" + strconv.FormatFloat(math.Round(mm*1e6)/1e6, 'f', -1, 64)
+			size := strconv.FormatFloat(math.Round(mm*1e6)/1e6, 'f', -1, 64)
+			key := "M" + size
 			// The shipped ISO 261 table only: a firm's "M13" is not a coarse thread.
 			rows, err := Shipped().Find("thread", key)
 			if err != nil {
-				return nil, fmt.Errorf("no coarse thread of d = %g mm: %w", mm, err)
+				return nil, fmt.Errorf("no coarse thread of d = %s mm: %w", size, err)
 			}
 			v := rows[0].Vals
 			return record(ThreadType, v["d"], v["P"], StressArea(v["d"], v["P"])), nil
