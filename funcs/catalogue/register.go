@@ -201,6 +201,9 @@ func init() {
 		d.Family = family
 		d.Doc += " Keys are compared without spaces and case (\"heb260\" is \"HEB 260\"); an unknown key is an error that names the nearest sizes. " + doc
 		d.Source = src + "; values marked (from memory) were typed without the published text at hand: check them against the edition you work to"
+		if strings.Contains(doc, "(from memory)") {
+			d.Summary += " (values from memory: see sheaf funcs " + d.Name + ")"
+		}
 		funcs.Register(d)
 	}
 	reg(&funcs.Def{

@@ -121,8 +121,16 @@ func clipArea(p, q *Ring, y0, z0 float64) float64 {
 // same way).
 func boundaryInside(p, q *Ring, shared bool, y0, z0, eps float64) float64 {
 	n, m := len(p.Y), len(q.Y)
+	// Bounding boxes of q's edges, widened by eps, let most pairs of edges
+	// be skipped with four comparisons.
+	boxes := make([][4]float64, m)
+	for k := range m {
+		l := (k + 1) % m
+		boxes[k] = [4]float64{math.Min(q.Y[k], q.Y[l]) - eps, math.Max(q.Y[k], q.Y[l]) + eps, math.Min(q.Z[k], q.Z[l]) - eps, math.Max(q.Z[k], q.Z[l]) + eps}
+	}
 	sum := 0.0
 	ts := make([]float64, 0, 8)
+	near := make([]int, 0, 8) // q's edges whose boxes meet this edge's box
 	for i := range n {
 		j := (i + 1) % n
 		ay, az := p.Y[i]-y0, p.Z[i]-z0
@@ -131,8 +139,16 @@ func boundaryInside(p, q *Ring, shared bool, y0, z0, eps float64) float64 {
 		if rr == 0 {
 			continue
 		}
+		ey0, ey1 := math.Min(p.Y[i], p.Y[j]), math.Max(p.Y[i], p.Y[j])
+		ez0, ez1 := math.Min(p.Z[i], p.Z[j]), math.Max(p.Z[i], p.Z[j])
 		ts = append(ts[:0], 0, 1)
+		near = near[:0]
 		for k := range m {
+			bx := &boxes[k]
+			if bx[1] < ey0 || bx[0] > ey1 || bx[3] < ez0 || bx[2] > ez1 {
+				continue
+			}
+			near = append(near, k)
 			l := (k + 1) % m
 			cy, cz := q.Y[k]-y0, q.Z[k]-z0
 			sy, sz := q.Y[l]-q.Y[k], q.Z[l]-q.Z[k]
@@ -163,7 +179,7 @@ func boundaryInside(p, q *Ring, shared bool, y0, z0, eps float64) float64 {
 			}
 			tm := (t0 + t1) / 2
 			my, mz := ay+tm*ry+y0, az+tm*rz+z0
-			on, same := onBoundary(q, my, mz, ry, rz, eps)
+			on, same := onBoundary(q, near, my, mz, ry, rz, eps)
 			if on {
 				if !(shared && same) {
 					continue
@@ -179,11 +195,13 @@ func boundaryInside(p, q *Ring, shared bool, y0, z0, eps float64) float64 {
 	return sum
 }
 
-// onBoundary reports whether (y, z) lies within eps of an edge of r, and
-// whether that edge runs the same way as the direction (dy, dz).
-func onBoundary(r *Ring, y, z, dy, dz, eps float64) (on, same bool) {
+// onBoundary reports whether (y, z), a point of an edge of the other ring,
+// lies within eps of one of the edges near of r (those whose boxes meet that
+// edge: no other can be that close), and whether that edge runs the same way
+// as the direction (dy, dz).
+func onBoundary(r *Ring, near []int, y, z, dy, dz, eps float64) (on, same bool) {
 	n := len(r.Y)
-	for k := range n {
+	for _, k := range near {
 		l := (k + 1) % n
 		sy, sz := r.Y[l]-r.Y[k], r.Z[l]-r.Z[k]
 		ss := sy*sy + sz*sz
@@ -192,7 +210,8 @@ func onBoundary(r *Ring, y, z, dy, dz, eps float64) (on, same bool) {
 		}
 		wy, wz := y-r.Y[k], z-r.Z[k]
 		t := math.Max(0, math.Min(1, (wy*sy+wz*sz)/ss))
-		if math.Hypot(wy-t*sy, wz-t*sz) <= eps {
+		ey, ez := wy-t*sy, wz-t*sz
+		if ey*ey+ez*ez <= eps*eps {
 			return true, sy*dy+sz*dz > 0
 		}
 	}
