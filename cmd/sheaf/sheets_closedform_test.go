@@ -369,3 +369,27 @@ func catalogueCopy(t *testing.T, path string, pairs ...string) string {
 	}
 	return out
 }
+
+// TestLayeredPileClosedForm: the pile of sheets/layered-pile.sheaf as drawn
+// and with the layers, the size and the load moved by --set (the line loads
+// follow the cells, not typed numbers), against the statics of a bar with
+// friction q_i over [a_i, b_i]: toe R = P − Σq_i(b_i − a_i), shortening
+// δ = (P·L − Σq_i[(b_i − a_i)²/2 + (b_i − a_i)(L − b_i)])/(EA).
+// Source: equilibrium and δ = ∫N/(EA) dx, Gere & Goodno, Mechanics of
+// Materials §2.3; REFERENCES.md C10 is the single-layer case.
+func TestLayeredPileClosedForm(t *testing.T) {
+	t.Chdir("../..")
+	for _, sets := range [][]string{nil, {"z_1=3 m", "z_2=12 m", "D=750 mm", "P_k=3000 kN"}} {
+		r := runExample(t, "sheets/layered-pile.sheaf", sets...)
+		P, L, D := r.v("P_k"), r.v("L"), r.v("D")
+		z1, z2, q1, q2 := r.v("z_1"), r.v("z_2"), r.v("q_1"), r.v("q_2")
+		// Source: EN 1992-1-1 Table 3.1, E_cm of C30/37 (REFERENCES B4 formula).
+		E := 22e9 * math.Pow(3.8, 0.3)
+		EA := E * math.Pi * D * D / 4
+		h1, h2 := z2-z1, L-z2
+		toe := P - q1*h1 - q2*h2
+		delta := (P*L - q1*(h1*h1/2+h1*(L-z2)) - q2*h2*h2/2) / EA
+		r.near("R_toe", r.v("R_toe"), toe, relExact)
+		r.near("s_el", r.v("s_el"), delta, relExact)
+	}
+}
