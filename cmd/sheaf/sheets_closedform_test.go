@@ -393,3 +393,28 @@ func TestLayeredPileClosedForm(t *testing.T) {
 		r.near("s_el", r.v("s_el"), delta, relExact)
 	}
 }
+
+// TestEncasedColumnClosedForm: sheets/encased-column.sheaf against the hand
+// sums of its three parts: the HEB 260 area with its root fillets, the bars,
+// the net concrete; EA, the elastic shares and the squash load.
+// Source: A = 2bt_f + (h − 2t_f)t_w + (4 − π)r² (plane geometry, EN 10365
+// dimensions from memory, REFERENCES D10); composite bar N_i = N·E_iA_i/ΣEA
+// (Gere & Goodno §2.4); EN 1994-1-1 Eq. (6.30) with 0.85 for encased
+// sections (from memory); E_cm by the Table 3.1 formula (REFERENCES B4).
+func TestEncasedColumnClosedForm(t *testing.T) {
+	t.Chdir("../..")
+	r := runExample(t, "sheets/encased-column.sheaf")
+	r.allPass()
+	Aa := 2*0.260*0.0175 + (0.260-2*0.0175)*0.010 + (4-math.Pi)*0.024*0.024
+	As := 4 * math.Pi * 0.008 * 0.008
+	Ac := 0.45*0.45 - Aa - As
+	r.near("A_a", r.v("A_a"), Aa, relExact)
+	r.near("A_s", r.v("A_s"), As, relExact)
+	r.near("A_c", r.v("A_c"), Ac, relExact)
+	Ecm := 22e9 * math.Pow(3.8, 0.3)
+	EA := 210e9*Aa + 200e9*As + Ecm*Ac
+	Nk := r.v("N_k")
+	r.near("N_a", r.v("N_a"), Nk*210e9*Aa/EA, relExact)
+	r.near("N_c", r.v("N_c"), Nk*Ecm*Ac/EA, relExact)
+	r.near("N_plRd", r.v("N_plRd"), Aa*355e6+As*500e6/1.15+0.85*Ac*30e6/1.5, relExact)
+}
