@@ -114,7 +114,23 @@ type Props struct {
 func (s *Shape) Props() Props {
 	y0, z0 := s.Ref()
 	m := s.MomentsAbout(y0, z0)
-	return propsFrom(m, y0, z0)
+	p := propsFrom(m, y0, z0)
+	// A centroid that rounding alone moved off an axis of a symmetric shape
+	// (the arcs of a rolled profile sum to 1e-18 m, not 0) is put back on
+	// it: an offset below 1e-13 of the shape's size is no information, and
+	// printed as 3.4e-15 mm it reads as one.
+	a0, a1, b0, b1 := s.BBox()
+	size := math.Max(a1-a0, b1-b0)
+	if math.Abs(p.Yc) < 1e-13*size {
+		p.Yc = 0
+	}
+	if math.Abs(p.Zc) < 1e-13*size {
+		p.Zc = 0
+	}
+	if math.Abs(p.Iyz) < 1e-13*math.Sqrt(math.Abs(p.Iy*p.Iz)) {
+		p.Iyz = 0
+	}
+	return p
 }
 
 func propsFrom(m Moments, y0, z0 float64) Props {
