@@ -3,6 +3,9 @@ package bar
 import (
 	"math"
 	"testing"
+
+	"github.com/sheafcalc/sheaf/funcs"
+	"github.com/sheafcalc/sheaf/funcs/internal/functest"
 )
 
 // A pile 18 m long, 450 × 450 mm, E = 32 GPa, head load 1800 kN (own
@@ -100,5 +103,35 @@ func TestLayeredPile(t *testing.T) {
 	bad := &Bar{Segments: []Segment{Prismatic(L, A, E)}, Patches: []Patch{{X0: 12, X1: 20, B0: 1, B1: 1}}}
 	if _, err := Solve(bad, Support{Kind: Fixed}, Support{Kind: Free}); err == nil {
 		t.Error("a patch beyond the end of the bar must be refused")
+	}
+}
+
+// TestLayeredPileRegistry: the one-layer pile of TestLayeredPile through the
+// registry as a sheet builds it, with with_line_load_over and with the
+// stepped with_line_load_fn and its steps list.
+// Source: as TestLayeredPile (statics, δ = ∫N/(EA) dx).
+func TestLayeredPileRegistry(t *testing.T) {
+	const L, A, E, P, q = 18.0, 0.45 * 0.45, 32e9, 1800e3, 80e3
+	want := (P*L - q*12*12/2) / (E * A)
+	base := functest.Call(t, "with_point_load", functest.Call(t, "bar_uniform", L, A, E), 0.0, P)
+	over := functest.Call(t, "with_line_load_over", base, 6.0, 18.0, -q, nil)
+	step := &funcs.FuncValue{Name: "q", Call: func(x ...float64) float64 {
+		if x[0] < 6 {
+			return 0
+		}
+		return -q
+	}}
+	fn := functest.Call(t, "with_line_load_fn", base, step, []float64{6})
+	for name, b := range map[string]funcs.Value{"over": over, "fn with steps": fn} {
+		r := functest.Call(t, "solve_bar", b, "free", "fixed").(*funcs.RecordValue)
+		if got := r.Num("u_start", math.NaN()); relErr(got, want) > 1e-10 {
+			t.Errorf("%s: head settlement %.12g m, closed form %.12g m", name, got, want)
+		}
+	}
+	if _, err := functest.TryCall(t, "with_line_load_over", base, 10.0, 4.0, -q, nil); err == nil {
+		t.Error("x1 < x0 must be refused")
+	}
+	if _, err := functest.TryCall(t, "solve_bar", functest.Call(t, "with_line_load_over", base, 10.0, 30.0, -q, nil), "free", "fixed"); err == nil {
+		t.Error("a stretch beyond the end of the bar must be refused")
 	}
 }
