@@ -111,6 +111,7 @@ func TestLookups(t *testing.T) {
 		{"6082 T6 at 10 mm", "aluminium", []funcs.Value{"EN AW-6082 T6", 0.010}, "f_o", 260e6, ""},
 		{"M13 does not exist", "thread", []funcs.Value{"M13"}, "", 0, `the nearest sizes are "M12" and "M14"`},
 		{"HEB 265", "section", []funcs.Value{"HEB 265"}, "", 0, `"HEB 260" and "HEB 280"`},
+		{"CHS wall between two", "section", []funcs.Value{"CHS 219.1x11"}, "", 0, `"CHS 219.1x10" and "CHS 219.1x12.5"`},
 		{"HE 260 B misspelt", "section", []funcs.Value{"HEBB 260"}, "", 0, "not in the catalogue"},
 		{"CHS with ×", "section", []funcs.Value{"chs 219.1×10"}, "A", math.Pi / 4 * (0.2191*0.2191 - 0.1991*0.1991), ""},
 		{"thread by diameter", "thread_coarse", []funcs.Value{0.020}, "A_s", math.Pi / 4 * math.Pow(0.020-0.9382*0.0025, 2), ""},

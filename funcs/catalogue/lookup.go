@@ -5,7 +5,6 @@ import (
 	"errors"
 	"fmt"
 	"io/fs"
-	"math"
 	"os"
 	"path/filepath"
 	"slices"
@@ -91,26 +90,33 @@ func (c *Catalogue) Find(ns, key string) ([]*Entry, error) {
 }
 
 // nearest suggests keys for a miss: in the same series (the letters before
-// the first digit, "HEB", "M", "CHS"), the sizes just below and above by
-// their first number; otherwise the nearest spelling.
+// the first digit, "HEB", "M", "CHS"), the sizes just below and above,
+// comparing the numbers of the key in order (CHS 219.1x11 lies between
+// CHS 219.1x10 and CHS 219.1x12.5); otherwise the nearest spelling.
 func (c *Catalogue) nearest(ns, key string) string {
-	series, size, ok := splitKey(Normalize(key))
-	if ok {
+	series, size := splitKey(Normalize(key))
+	if len(size) > 0 {
 		below, above := "", ""
-		lo, hi := math.Inf(-1), math.Inf(1)
+		var lo, hi []float64
+		var prefixed []string // keys that begin with all the numbers given (C35 -> C35/45)
 		for _, k := range c.keys[ns] {
-			s, v, ok := splitKey(Normalize(k))
-			if !ok || s != series {
+			s, v := splitKey(Normalize(k))
+			if s != series || len(v) == 0 {
 				continue
 			}
-			if v <= size && v > lo {
+			if len(v) > len(size) && cmpSizes(v[:len(size)], size) == 0 {
+				prefixed = append(prefixed, k)
+			}
+			if cmpSizes(v, size) <= 0 && (lo == nil || cmpSizes(v, lo) > 0) {
 				lo, below = v, k
 			}
-			if v >= size && v < hi {
+			if cmpSizes(v, size) >= 0 && (hi == nil || cmpSizes(v, hi) < 0) {
 				hi, above = v, k
 			}
 		}
 		switch {
+		case len(prefixed) == 1:
+			return fmt.Sprintf("did you mean %q?", prefixed[0])
 		case below != "" && above != "" && below != above:
 			return fmt.Sprintf("the nearest sizes are %q and %q", below, above)
 		case below != "":
@@ -125,17 +131,56 @@ func (c *Catalogue) nearest(ns, key string) string {
 	return ""
 }
 
-func splitKey(n string) (string, float64, bool) {
+// splitKey returns the letters before the first digit of a normalised key
+// and every number in it, in order.
+func splitKey(n string) (string, []float64) {
 	i := strings.IndexAny(n, "0123456789")
 	if i < 0 {
-		return "", 0, false
+		return n, nil
 	}
-	j := i
-	for j < len(n) && (n[j] == '.' || (n[j] >= '0' && n[j] <= '9')) {
-		j++
+	var nums []float64
+	for j := i; j < len(n); {
+		if n[j] < '0' || n[j] > '9' {
+			j++
+			continue
+		}
+		k := j
+		for k < len(n) && (n[k] == '.' || (n[k] >= '0' && n[k] <= '9')) {
+			k++
+		}
+		v, err := strconv.ParseFloat(strings.TrimRight(n[j:k], "."), 64)
+		// After an X, a/b is a fraction of an inch (HSS6X6X5/16); elsewhere
+		// the slash separates two numbers (C30/37).
+		if j > 0 && n[j-1] == 'X' && k+1 < len(n) && n[k] == '/' && n[k+1] >= '0' && n[k+1] <= '9' {
+			m := k + 1
+			for m < len(n) && n[m] >= '0' && n[m] <= '9' {
+				m++
+			}
+			if den, e2 := strconv.ParseFloat(n[k+1:m], 64); e2 == nil && den > 0 {
+				v /= den
+				k = m
+			}
+		}
+		if err == nil {
+			nums = append(nums, v)
+		}
+		j = k
 	}
-	v, err := strconv.ParseFloat(n[i:j], 64)
-	return n[:i], v, err == nil
+	return n[:i], nums
+}
+
+// cmpSizes compares the numbers of two keys in order; a key with fewer
+// numbers sorts first when the common ones are equal.
+func cmpSizes(a, b []float64) int {
+	for i := range min(len(a), len(b)) {
+		if a[i] != b[i] {
+			if a[i] < b[i] {
+				return -1
+			}
+			return 1
+		}
+	}
+	return len(a) - len(b)
 }
 
 // Shipped is the catalogue embedded in the binary.
