@@ -1,9 +1,12 @@
 package engine_test
 
 import (
+	"bytes"
 	"fmt"
 	"strings"
 	"testing"
+
+	"github.com/sheafcalc/sheaf/engine"
 )
 
 // genSheet writes a sheet of chains*length derived cells plus inputs: each
@@ -51,10 +54,93 @@ const benchChains, benchLen = 100, 1000 // 100,000 derived cells
 func BenchmarkLoadCheckEval100k(b *testing.B) {
 	src := []byte(genSheet(benchChains, benchLen))
 	b.ReportAllocs()
+	var st *engine.State
 	for b.Loop() {
 		s := compile(b, string(src))
-		st := s.NewState()
+		st = s.NewState()
 		st.Recompute()
+	}
+	perCell(b, benchChains*benchLen)
+	// The last cell of the first chain against the same formulas in Go.
+	p := make([]float64, benchChains)
+	for k := range p {
+		p[k] = float64(k+1) * 1000
+	}
+	out := make([]float64, benchChains*benchLen)
+	plain(benchChains, benchLen, p, out)
+	checkCell(b, st.Eval(), fmt.Sprintf("c0_%d", benchLen-1), out[benchLen-1])
+}
+
+// BenchmarkFloorTokenize100k is the floor the load is measured against: a
+// plain tokenizer that splits the same file into lines, names and numbers
+// and puts every cell name in a map, with no units, no tree and no checks.
+func BenchmarkFloorTokenize100k(b *testing.B) {
+	src := []byte(genSheet(benchChains, benchLen))
+	b.ReportAllocs()
+	var names map[string]int
+	var tokens int
+	for b.Loop() {
+		names, tokens = floorTokenize(src)
+	}
+	perCell(b, benchChains*benchLen)
+	if want := benchChains*(benchLen+1) + 1; len(names) != want || tokens < 10*benchChains*benchLen {
+		b.Fatalf("%d names and %d tokens, want %d names", len(names), tokens, want)
+	}
+}
+
+// floorTokenize returns the line number of every cell name of src and the
+// number of tokens (names, numbers, operators) on the right of the `=`.
+func floorTokenize(src []byte) (map[string]int, int) {
+	names := make(map[string]int, bytes.Count(src, []byte("\n")))
+	line, tokens := 0, 0
+	word := func(c byte) bool {
+		return c == '_' || c == '.' || c >= 'a' && c <= 'z' || c >= 'A' && c <= 'Z' || c >= '0' && c <= '9'
+	}
+	for len(src) > 0 {
+		end := bytes.IndexByte(src, '\n')
+		if end < 0 {
+			end = len(src)
+		}
+		l := src[:end]
+		src = src[min(end+1, len(src)):]
+		line++
+		i := 0
+		for i < len(l) && word(l[i]) {
+			i++
+		}
+		eq := bytes.IndexByte(l, '=')
+		if i == 0 || eq < 0 {
+			continue
+		}
+		names[string(l[:i])] = line
+		for j := eq + 1; j < len(l); {
+			switch c := l[j]; {
+			case c == ' ':
+				j++
+			case word(c):
+				for j < len(l) && word(l[j]) {
+					j++
+				}
+				tokens++
+			default:
+				j++
+				tokens++
+			}
+		}
+	}
+	return names, tokens
+}
+
+// perCell reports ns/cell and B/cell of the benchmark.
+func perCell(b *testing.B, cells int) {
+	b.ReportMetric(float64(b.Elapsed().Nanoseconds())/float64(b.N)/float64(cells), "ns/cell")
+}
+
+func checkCell(b *testing.B, r *engine.Results, name string, want float64) {
+	b.Helper()
+	got := r.Cell(name).SI
+	if d := got - want; d > 1e-9*want || d < -1e-9*want {
+		b.Fatalf("%s = %g, want %g", name, got, want)
 	}
 }
 

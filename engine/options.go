@@ -26,6 +26,7 @@ type config struct {
 	system    units.System
 	hasSystem bool
 	sigFigs   int
+	loader    check.Loader
 }
 
 func newConfig(opts []Option) config {
@@ -80,6 +81,22 @@ func WithSigFigs(n int) Option {
 	}
 }
 
+// Loader reads the templates a sheet uses (see check.Loader): the files on
+// disk by default (NewFileLoader), or, say, the files of a git revision.
+type Loader = check.Loader
+
+// NewFileLoader returns the loader of the templates of the sheet named
+// name on disk, inside its project root (SPEC.md §2), reading files of at
+// most maxBytes bytes (0: DefaultMaxBytes). It is the loader Load and
+// Compile use when no WithLoader option is given.
+func NewFileLoader(name string, maxBytes int) Loader { return check.NewFileLoader(name, maxBytes) }
+
+// WithLoader reads the templates of the sheet through l instead of from the
+// files beside it. l belongs to the one sheet it was made for.
+func WithLoader(l Loader) Option {
+	return func(c *config) { c.loader = l }
+}
+
 func (c config) checkOptions() check.Options {
-	return check.Options{MaxCells: c.maxCells, MaxDepth: c.maxDepth, MaxBytes: c.maxBytes, System: c.system, HasSystem: c.hasSystem}
+	return check.Options{MaxCells: c.maxCells, MaxDepth: c.maxDepth, MaxBytes: c.maxBytes, System: c.system, HasSystem: c.hasSystem, Loader: c.loader}
 }

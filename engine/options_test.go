@@ -18,7 +18,7 @@ func TestOptions(t *testing.T) {
 		msg  string
 	}{
 		{"cells", engine.WithMaxCells(2), "t.sheaf:3:1: too many cells"},
-		{"depth", engine.WithMaxDepth(3), "t.sheaf:2:10: expression nested too deeply"},
+		{"depth", engine.WithMaxDepth(3), "t.sheaf:2:13: expression nested too deeply"},
 	}
 	for _, c := range bad {
 		_, err := engine.Compile("t.sheaf", []byte(src), c.opt)

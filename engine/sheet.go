@@ -1,15 +1,15 @@
 package engine
 
 import (
+	"errors"
 	"fmt"
-	"os"
-	"sync"
 
 	"github.com/sheafcalc/sheaf/engine/check"
 	"github.com/sheafcalc/sheaf/engine/diag"
 	"github.com/sheafcalc/sheaf/engine/eval"
 	"github.com/sheafcalc/sheaf/engine/sheet"
 	"github.com/sheafcalc/sheaf/engine/units"
+	"github.com/sheafcalc/sheaf/internal/userfile"
 )
 
 // Kind says what a cell is.
@@ -38,7 +38,6 @@ type Meta = check.Meta
 type Sheet struct {
 	name    string
 	src     []byte
-	file    func() *sheet.File // parses src again on first use (see File)
 	prog    *check.Program
 	mach    *eval.Machine
 	system  units.System
@@ -53,19 +52,13 @@ type Sheet struct {
 // they are.
 func Load(path string, opts ...Option) (*Sheet, error) {
 	cfg := newConfig(opts)
-	fi, err := os.Stat(path)
+	src, err := userfile.ReadFile(path, int64(cfg.maxBytes))
 	if err != nil {
-		return nil, err
-	}
-	if fi.IsDir() {
-		return nil, fmt.Errorf("%s is a directory, not a sheet", path)
-	}
-	if fi.Size() > int64(cfg.maxBytes) {
-		return nil, diag.List{{Range: diag.Range{Start: diag.Pos{File: path}}, Summary: fmt.Sprintf("sheet is too large: %d bytes, the limit is %d", fi.Size(), cfg.maxBytes),
-			Detail: "a sheet is written by a person; split it, or raise the limit"}}
-	}
-	src, err := os.ReadFile(path)
-	if err != nil {
+		var tl *userfile.TooLargeError
+		if errors.As(err, &tl) {
+			return nil, diag.List{{Range: diag.Range{Start: diag.Pos{File: path}}, Summary: fmt.Sprintf("sheet is too large: %d bytes, the limit is %d", tl.Size, tl.Limit),
+				Detail: "a sheet is written by a person; split it, or raise the limit"}}
+		}
 		return nil, err
 	}
 	return Compile(path, src, opts...)
@@ -82,8 +75,6 @@ func Compile(name string, src []byte, opts ...Option) (*Sheet, error) {
 		return nil, errs
 	}
 	opt := cfg.checkOptions()
-	opt.DropItems = true // f is not kept: File parses the source again
-	opt.DropTrees = true // the typed nodes are all the sheet needs
 	prog, cerrs := check.Sheet(f, opt)
 	errs = append(errs, cerrs...)
 	errs.Sort()
@@ -91,10 +82,6 @@ func Compile(name string, src []byte, opts ...Option) (*Sheet, error) {
 		return nil, errs
 	}
 	s := &Sheet{name: name, src: src, prog: prog, mach: eval.Compile(prog), sigFigs: cfg.sigFigs, cfg: cfg}
-	s.file = sync.OnceValue(func() *sheet.File {
-		f, _ := sheet.Parse(name, src, sheet.MaxBytes(cfg.maxBytes))
-		return f
-	})
 	s.system = prog.Meta.System
 	if cfg.hasSystem && cfg.system != units.Neutral {
 		s.system = cfg.system
@@ -108,11 +95,9 @@ func (s *Sheet) Name() string { return s.name }
 // Source returns the text of the sheet.
 func (s *Sheet) Source() []byte { return s.src }
 
-// File returns the syntax tree. The sheet does not keep the tree it was
-// checked from (on a large sheet it is a sizeable part of the memory a
-// load takes at its peak): File parses the source again the first time it
-// is called, which gives the same tree, and keeps it.
-func (s *Sheet) File() *sheet.File { return s.file() }
+// File returns the syntax tree the sheet was checked from (the program's
+// first file; templates are in Program().Files).
+func (s *Sheet) File() *sheet.File { return s.prog.File }
 
 // Program returns the checked program (for exporters that walk the typed
 // trees).
@@ -151,10 +136,7 @@ func ReadSources(l diag.List) diag.Sources {
 		if _, done := out[name]; done || name == "" {
 			continue
 		}
-		if fi, err := os.Stat(name); err != nil || fi.IsDir() || fi.Size() > DefaultMaxBytes {
-			continue
-		}
-		if src, err := os.ReadFile(name); err == nil {
+		if src, err := userfile.ReadFile(name, DefaultMaxBytes); err == nil {
 			out[name] = src
 		}
 	}

@@ -18,6 +18,7 @@ import (
 	"github.com/sheafcalc/sheaf/engine/batch"
 	"github.com/sheafcalc/sheaf/engine/diag"
 	"github.com/sheafcalc/sheaf/internal/atomicfile"
+	"github.com/sheafcalc/sheaf/internal/userfile"
 )
 
 // batchOptions are the flags of `sheaf batch`.
@@ -102,12 +103,21 @@ func runBatch(ctx context.Context, a *app, o *batchOptions, sheetPath, casesPath
 	if err != nil {
 		return err
 	}
+	if o.out != "" {
+		// Nothing lost: the results never replace the case table, the
+		// sheet or a template the sheet uses.
+		for _, in := range append([]string{casesPath}, s.Files()...) {
+			if in != "-" && userfile.Same(o.out, in) {
+				return userErrorf("--out %s would overwrite %s, which this batch reads; choose another name", o.out, in)
+			}
+		}
+	}
 	var src []byte
 	if casesPath == "-" {
-		src, err = io.ReadAll(a.stdin)
+		src, err = userfile.ReadAll(a.stdin, "stdin", maxCaseBytes)
 		casesPath = "stdin"
 	} else {
-		src, err = os.ReadFile(casesPath)
+		src, err = userfile.ReadFile(casesPath, maxCaseBytes)
 	}
 	if err != nil {
 		return &inputError{fmt.Errorf("cannot read the case table: %w", err)}
@@ -145,7 +155,7 @@ func runBatch(ctx context.Context, a *app, o *batchOptions, sheetPath, casesPath
 	case "csv":
 		err = atomicfile.Write(o.out, 0o644, func(w io.Writer) error { return out.WriteCSV(w, o.sig) })
 	case "xlsx":
-		err = atomicfile.Write(o.out, 0o644, out.WriteXLSX)
+		err = atomicfile.Write(o.out, 0o644, func(w io.Writer) error { return out.WriteXLSXContext(ctx, w) })
 	}
 	if err != nil {
 		return fmt.Errorf("writing the results: %w", err)
@@ -166,6 +176,10 @@ func runBatch(ctx context.Context, a *app, o *batchOptions, sheetPath, casesPath
 	}
 	return nil
 }
+
+// maxCaseBytes limits the size of a case table: about a million rows of a
+// few columns. The table is read whole before its first row runs.
+const maxCaseBytes = 64 << 20
 
 // progressDelay is how long a batch runs before a progress bar appears: a
 // run that ends sooner is not worth a bar.

@@ -125,3 +125,33 @@ func TestBatchHangerHandCalc(t *testing.T) {
 		t.Errorf("columns missing from the output: %v", want)
 	}
 }
+
+// TestBatchInches: a case table with a column in inches and values written
+// with and without their unit, `0.75in` glued to its number included.
+func TestBatchInches(t *testing.T) {
+	csv := filepath.Join(t.TempDir(), "rods.csv")
+	if err := os.WriteFile(csv, []byte("d [in]\n0.75\n0.625 in\n1in\n"), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	out, errs, code := sheaf(t, "batch", filepath.Join("..", "..", "sheets", "duct-hanger-us.sheaf"), csv, "--pick", "d, A_g")
+	if code != exitOK {
+		t.Fatalf("exit %d: %s", code, errs)
+	}
+	lines := strings.Split(strings.TrimSpace(out), "\n")
+	if len(lines) != 4 {
+		t.Fatalf("want a header and 3 cases:\n%s", out)
+	}
+	for i, d := range []float64{0.75, 0.625, 1} {
+		// case, the input d, then the picked d and A_g
+		fields := strings.Split(lines[i+1], ",")
+		got, err := strconv.ParseFloat(fields[2], 64)
+		if err != nil || got != d {
+			t.Errorf("case %d: d = %q, want %g in", i+1, fields[2], d)
+		}
+		// Source: area of a circle πd²/4 (common practice), in in^2 as the column shows.
+		a, err := strconv.ParseFloat(fields[3], 64)
+		if want := math.Pi * d * d / 4; err != nil || math.Abs(a-want) > 1e-5*want {
+			t.Errorf("case %d: A_g = %q, want %.6g in^2", i+1, fields[3], want)
+		}
+	}
+}

@@ -9,6 +9,7 @@ import (
 
 	xlsxout "github.com/sheafcalc/sheaf/engine/export/xlsx"
 	"github.com/sheafcalc/sheaf/internal/plural"
+	"github.com/sheafcalc/sheaf/internal/userfile"
 )
 
 // exportOptions are the flags of `sheaf export`.
@@ -67,6 +68,11 @@ func runExport(a *app, o *exportOptions, path string) error {
 	s, st, err := loadState(a, path, o.system, o.sets)
 	if err != nil {
 		return err
+	}
+	for _, in := range s.Files() {
+		if userfile.Same(out, in) {
+			return userErrorf("-o %s would overwrite %s, which this sheet is built from; choose another name", out, in)
+		}
 	}
 	res := st.Eval()
 	stats, err := xlsxout.WriteFile(out, s, res, xlsxout.Options{Generator: "Sheaf " + versionString()})

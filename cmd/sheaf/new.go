@@ -15,6 +15,7 @@ import (
 	"github.com/sheafcalc/sheaf/engine/sheet"
 	"github.com/sheafcalc/sheaf/internal/atomicfile"
 	"github.com/sheafcalc/sheaf/internal/plural"
+	"github.com/sheafcalc/sheaf/internal/userfile"
 )
 
 // newOptions are the flags of `sheaf new`.
@@ -72,9 +73,12 @@ func runNew(a *app, o *newOptions, template, out string) error {
 			return userErrorf("%s already exists; choose another name, or give --force to overwrite it", out)
 		}
 	}
-	src, err := os.ReadFile(path)
+	if userfile.Same(out, path) {
+		return userErrorf("%s is the template itself; choose another name for the new sheet", out)
+	}
+	src, err := readUserFile(path, engine.DefaultMaxBytes)
 	if err != nil {
-		return &inputError{err}
+		return err
 	}
 	text, n, err := fromTemplate(path, src, out)
 	if err != nil {
@@ -99,6 +103,11 @@ func fromTemplate(path string, src []byte, out string) ([]byte, int, error) {
 	s, err := engine.Compile(path, src)
 	if err != nil {
 		return nil, 0, err
+	}
+	for _, in := range s.Files()[1:] {
+		if userfile.Same(out, in) {
+			return nil, 0, userErrorf("%s is a template that %s uses; choose another name for the new sheet", out, path)
+		}
 	}
 	inputs := map[string]bool{}
 	for _, c := range s.Cells() {
@@ -234,8 +243,13 @@ func dropEmptyHeadings(items []sheet.Item) []sheet.Item {
 // findTemplate resolves a template name: a path to a file, or a name in
 // the library (with or without .sheaf).
 func findTemplate(name, library string) (string, error) {
-	if fi, err := os.Stat(name); err == nil && fi.Mode().IsRegular() {
-		return name, nil
+	if fi, err := os.Stat(name); err == nil {
+		if fi.Mode().IsRegular() {
+			return name, nil
+		}
+		if !fi.IsDir() {
+			return "", &inputError{&userfile.NotRegularError{Path: name, Mode: fi.Mode()}}
+		}
 	}
 	lib := library
 	if lib == "" {

@@ -1,14 +1,21 @@
 package main
 
 import (
+	"context"
 	"errors"
 	"fmt"
 	"io"
+	"os"
+	"os/signal"
 	"runtime/debug"
+	"sync/atomic"
+	"syscall"
+	"time"
 
 	"github.com/spf13/cobra"
 
 	"github.com/sheafcalc/sheaf/engine/diag"
+	"github.com/sheafcalc/sheaf/internal/atomicfile"
 	"github.com/sheafcalc/sheaf/internal/plural"
 )
 
@@ -29,6 +36,9 @@ type app struct {
 	stdin  io.Reader
 	stdout io.Writer
 	stderr io.Writer
+	// beforeReplace, when not nil, is called by fmt just before it checks
+	// that a file is unchanged and replaces it (tests edit the file there).
+	beforeReplace func(path string)
 }
 
 // checksFailedError reports that evaluation succeeded but design checks failed.
@@ -116,6 +126,7 @@ combinations come from the local code and licensed practice.`,
 		newCheckCmd(a),
 		newFuncsCmd(a),
 		newExportCmd(a),
+		newReportCmd(a),
 		newBatchCmd(a),
 		newDiffCmd(a),
 		newFmtCmd(a),
@@ -126,6 +137,14 @@ combinations come from the local code and licensed practice.`,
 }
 
 // Main runs the command line and returns the process exit code.
+//
+// SIGINT and SIGTERM stop the command: the temporary files of the writes
+// under way are removed at once (atomicfile.Abort), so the files they were
+// to replace stay as they were, and the command's context is cancelled. A
+// command that then ends with an error (it was interrupted) exits with
+// 128 + the signal number, as a shell reports it, after a message saying
+// what was kept; one that ends cleanly (watch stops on Ctrl-C) exits as
+// usual. A command that does not end within a grace period is ended.
 func Main(args []string, stdin io.Reader, stdout, stderr io.Writer) (code int) {
 	defer func() {
 		if r := recover(); r != nil {
@@ -133,10 +152,38 @@ func Main(args []string, stdin io.Reader, stdout, stderr io.Writer) (code int) {
 			code = exitInternal
 		}
 	}()
+	ctx, cancel := context.WithCancel(context.Background())
+	defer cancel()
+	sigs := make(chan os.Signal, 1)
+	signal.Notify(sigs, os.Interrupt, syscall.SIGTERM)
+	defer signal.Stop(sigs)
+	done := make(chan struct{})
+	defer close(done)
+	var caught atomic.Pointer[interrupt]
+	go func() {
+		select {
+		case sig := <-sigs:
+			in := &interrupt{sig: sig, removed: atomicfile.Abort()}
+			caught.Store(in)
+			cancel()
+			select {
+			case <-done:
+			case <-time.After(interruptGrace):
+				fmt.Fprintln(stderr, in.message())
+				os.Exit(in.code())
+			}
+		case <-done:
+		}
+	}()
+
 	a := &app{stdin: stdin, stdout: stdout, stderr: stderr}
 	root := newRootCmd(a)
 	root.SetArgs(args)
-	err := root.Execute()
+	err := root.ExecuteContext(ctx)
+	if in := caught.Load(); in != nil && err != nil {
+		fmt.Fprintln(stderr, in.message())
+		return in.code()
+	}
 	if err != nil {
 		var rep *reportedError
 		if !errors.As(err, &rep) {
@@ -144,4 +191,31 @@ func Main(args []string, stdin io.Reader, stdout, stderr io.Writer) (code int) {
 		}
 	}
 	return exitCode(err)
+}
+
+// interruptGrace is how long an interrupted command may take to stop on
+// its own before Main ends the process.
+const interruptGrace = 2 * time.Second
+
+// interrupt is a SIGINT or SIGTERM that stopped a command.
+type interrupt struct {
+	sig     os.Signal
+	removed int // temporary files removed
+}
+
+func (in *interrupt) message() string {
+	name := "SIGINT"
+	if in.sig == syscall.SIGTERM {
+		name = "SIGTERM"
+	}
+	return fmt.Sprintf("sheaf: stopped by %s: no file was left half-written (%s removed); files not yet replaced are as they were", name, plural.Count(in.removed, "temporary file"))
+}
+
+// code is the exit status a shell gives a process the signal ended: 130
+// for SIGINT, 143 for SIGTERM.
+func (in *interrupt) code() int {
+	if s, ok := in.sig.(syscall.Signal); ok {
+		return 128 + int(s)
+	}
+	return 128 + int(syscall.SIGINT)
 }

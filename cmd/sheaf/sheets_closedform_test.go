@@ -418,3 +418,37 @@ func TestEncasedColumnClosedForm(t *testing.T) {
 	r.near("N_c", r.v("N_c"), Nk*Ecm*Ac/EA, relExact)
 	r.near("N_plRd", r.v("N_plRd"), Aa*355e6+As*500e6/1.15+0.85*Ac*30e6/1.5, relExact)
 }
+
+// TestDuctHangerUSClosedForm: the US sheet, written in inches, feet, kip
+// and ksi, against the same mechanics computed here in SI from the NIST
+// factors, and with the rod size given in inches through --set.
+func TestDuctHangerUSClosedForm(t *testing.T) {
+	t.Chdir("../..")
+	// Source: NIST SP 811 (2008) App. B: 1 in = 0.0254 m, 1 ft = 0.3048 m
+	// (exact); 1 kip = 4448.2216152605 N; 1 ksi = 6.894757293168361e6 Pa
+	// (REFERENCES A1, A2, A6, A8).
+	const in, ft, kip, ksi = 0.0254, 0.3048, 4448.2216152605, 6.894757293168361e6
+	for _, c := range []struct {
+		name string
+		sets []string
+		d    float64 // rod diameter, in
+	}{
+		{"as written", nil, 0.75},
+		{"--set in inches", []string{"d=0.625in"}, 0.625},
+		{"--set in inches with a space", []string{"d=0.875 in"}, 0.875},
+	} {
+		t.Run(c.name, func(t *testing.T) {
+			r := runExample(t, "sheets/duct-hanger-us.sheaf", c.sets...)
+			r.allPass()
+			d := c.d * in
+			r.near("d", r.v("d"), d, relExact)
+			Ag := math.Pi * d * d / 4
+			r.near("A_g", r.v("A_g"), Ag, relExact)
+			// Source: AISC 360 D2, φPn = 0.90 Fy Ag (from memory); ASCE/SEI 7 2.3.1, 1.2D + 1.6L (from memory).
+			r.near("phiP_n", r.v("phiP_n"), 0.90*36*ksi*Ag, relExact)
+			r.near("P_u", r.v("P_u"), (1.2*1.2+1.6*0.8)*kip, relExact)
+			// Source: prismatic bar δ = PL/(EA), Gere & Goodno §2.2 (REFERENCES C1's formula).
+			r.near("delta", r.v("delta"), 2.0*kip*6*ft/(29000*ksi*Ag), relExact)
+		})
+	}
+}

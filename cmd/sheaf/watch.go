@@ -17,8 +17,10 @@ import (
 	"github.com/sheafcalc/sheaf/engine"
 	"github.com/sheafcalc/sheaf/engine/diag"
 	"github.com/sheafcalc/sheaf/engine/diff"
+	"github.com/sheafcalc/sheaf/engine/export/report"
 	"github.com/sheafcalc/sheaf/engine/export/text"
 	"github.com/sheafcalc/sheaf/engine/units"
+	"github.com/sheafcalc/sheaf/internal/userfile"
 )
 
 // watchOptions are the flags of `sheaf watch`.
@@ -26,6 +28,7 @@ type watchOptions struct {
 	interval time.Duration
 	rtol     float64
 	system   string
+	serve    string // --serve: address of the live preview ("" for none)
 }
 
 func newWatchCmd(a *app) *cobra.Command {
@@ -58,6 +61,8 @@ Exit status: 0 when stopped with Ctrl-C, 2 when the file cannot be watched.`,
 	f.DurationVar(&o.interval, "interval", 100*time.Millisecond, "quiet time after a save before re-evaluating")
 	f.Float64Var(&o.rtol, "rtol", diff.DefaultRelTol, "relative tolerance below which a result counts as unchanged")
 	f.StringVar(&o.system, "system", "", "display units for cells without a written unit: metric or us")
+	f.StringVar(&o.serve, "serve", "", "serve the report on ADDR (default "+DefaultServe+", loopback only) and update the open page on every save")
+	f.Lookup("serve").NoOptDefVal = DefaultServe
 	return cmd
 }
 
@@ -75,6 +80,8 @@ type watcher struct {
 	dirs   map[string]bool
 	names  map[string]bool // absolute paths of the files that trigger a run
 	loaded bool            // the last attempt loaded the sheet
+	// onRun, when set (--serve), hears the outcome of every run.
+	onRun func(s *engine.Sheet, res *engine.Results, err error, src diag.Sources)
 }
 
 // runWatch watches path until ctx ends. ready, when not nil, is called
@@ -94,7 +101,7 @@ func runWatch(ctx context.Context, a *app, o *watchOptions, path string, ready f
 		}
 		w.opts = append(w.opts, engine.WithSystem(s))
 	}
-	if _, err := os.Stat(path); err != nil {
+	if _, err := userfile.Check(path, engine.DefaultMaxBytes); err != nil {
 		return &inputError{err}
 	}
 	fw, err := fsnotify.NewWatcher()
@@ -103,6 +110,14 @@ func runWatch(ctx context.Context, a *app, o *watchOptions, path string, ready f
 	}
 	defer fw.Close()
 	w.fs = fw
+	if o.serve != "" {
+		p, err := startPreview(ctx, o.serve, report.A4)
+		if err != nil {
+			return err
+		}
+		w.onRun = p.update
+		fmt.Fprintf(a.stdout, "serving the report at %s\n", p.url)
+	}
 	files := w.run()
 	if err := w.follow(files); err != nil {
 		return &inputError{err}
@@ -169,7 +184,7 @@ func clean(p string) string {
 // returns the files to watch.
 func (w *watcher) run() []string {
 	files := []string{w.path}
-	src, err := os.ReadFile(w.path)
+	src, err := userfile.ReadFile(w.path, engine.DefaultMaxBytes)
 	if err != nil {
 		fmt.Fprintf(w.a.stderr, "sheaf: %v; waiting for the file to come back\n", err)
 		w.src = nil
@@ -189,9 +204,15 @@ func (w *watcher) run() []string {
 		} else {
 			fmt.Fprintf(w.a.stderr, "sheaf: %v\n", err)
 		}
+		if w.onRun != nil {
+			w.onRun(nil, nil, err, sourcesFor(list, w.path, src))
+		}
 		return files
 	}
 	res := s.Run(nil)
+	if w.onRun != nil {
+		w.onRun(s, res, nil, nil)
+	}
 	if w.last == nil {
 		_ = text.Write(w.a.stdout, res, engine.DefaultSigFigs)
 	} else {
@@ -205,7 +226,7 @@ func (w *watcher) run() []string {
 	w.last = res
 	w.used = map[string][]byte{}
 	for _, f := range s.Files()[1:] {
-		w.used[f], _ = os.ReadFile(f)
+		w.used[f], _ = userfile.ReadFile(f, engine.DefaultMaxBytes)
 	}
 	return s.Files()
 }
@@ -215,7 +236,7 @@ func (w *watcher) run() []string {
 // sheet's own text is the same.
 func (w *watcher) usedUnchanged() bool {
 	for f, src := range w.used {
-		now, err := os.ReadFile(f)
+		now, err := userfile.ReadFile(f, engine.DefaultMaxBytes)
 		if err != nil || !bytes.Equal(now, src) {
 			return false
 		}

@@ -3,8 +3,7 @@ package check
 import (
 	"fmt"
 
-	"github.com/expr-lang/expr/ast"
-
+	"github.com/sheafcalc/sheaf/engine/formula"
 	"github.com/sheafcalc/sheaf/engine/units"
 	"github.com/sheafcalc/sheaf/funcs"
 	"github.com/sheafcalc/sheaf/internal/plural"
@@ -12,7 +11,7 @@ import (
 
 // call types a call of name with args: a user function of the sheet, a
 // built-in, or a plugin function from the registry, in that order.
-func (t *typer) call(n ast.Node, name string, argNodes []ast.Node) *Node {
+func (t *typer) call(n int32, name string, argNodes []int32) *Node {
 	if i, ok := t.c.local(t.cell, name); ok {
 		fn := t.c.prog.Cells[i]
 		if fn.Kind != Function {
@@ -53,7 +52,7 @@ func (t *typer) call(n ast.Node, name string, argNodes []ast.Node) *Node {
 }
 
 // args types every argument; nil if any failed.
-func (t *typer) args(argNodes []ast.Node) []*Node {
+func (t *typer) args(argNodes []int32) []*Node {
 	args := make([]*Node, len(argNodes))
 	ok := true
 	for i, a := range argNodes {
@@ -68,7 +67,7 @@ func (t *typer) args(argNodes []ast.Node) []*Node {
 
 // userCall types a call of the user function fn (cell idx) whose type is
 // fnType: its own, or the stand-in of a function that failed.
-func (t *typer) userCall(n ast.Node, idx int, fn *Cell, fnType *funcs.Type, argNodes []ast.Node) *Node {
+func (t *typer) userCall(n int32, idx int, fn *Cell, fnType *funcs.Type, argNodes []int32) *Node {
 	if len(argNodes) != len(fn.Params) {
 		return t.fail(n, fmt.Sprintf("%s takes %s, got %d", fn.Name, plural.Count(len(fn.Params), "argument"), len(argNodes)),
 			"the function is defined at "+fn.Pos.String(), "write "+fn.Name+"("+paramList(fn)+")")
@@ -90,7 +89,7 @@ func (t *typer) userCall(n ast.Node, idx int, fn *Cell, fnType *funcs.Type, argN
 	return r
 }
 
-func (t *typer) pluginCall(n ast.Node, def *funcs.Def, argNodes []ast.Node) *Node {
+func (t *typer) pluginCall(n int32, def *funcs.Def, argNodes []int32) *Node {
 	lo, hi := def.MinArgs(), len(def.Params)
 	if len(argNodes) < lo || (len(argNodes) > hi && def.Validate == nil) {
 		want := fmt.Sprintf("%d", hi)
@@ -109,8 +108,8 @@ func (t *typer) pluginCall(n ast.Node, def *funcs.Def, argNodes []ast.Node) *Nod
 		}
 		// A bare name of a user function passed where a function is
 		// expected becomes a function value.
-		if id, isID := a.(*ast.IdentifierNode); isID && p != nil && p.Type.Kind == funcs.Func {
-			if j, found := t.c.local(t.cell, id.Value); found && t.c.prog.Cells[j].Kind == Function {
+		if t.f.Nodes[a].Kind == formula.KName && p != nil && p.Type.Kind == funcs.Func {
+			if j, found := t.c.local(t.cell, t.f.Text(a)); found && t.c.prog.Cells[j].Kind == Function {
 				fn := t.c.prog.Cells[j]
 				fnType := t.c.typeOf(j)
 				if fnType == nil {
@@ -135,7 +134,7 @@ func (t *typer) pluginCall(n ast.Node, def *funcs.Def, argNodes []ast.Node) *Nod
 		}
 		args[i], types[i] = x, x.Type
 		if p != nil && !p.Type.Accepts(x.Type) {
-			t.fail(a, fmt.Sprintf("%s of %s must be %s, got %s", p.Name, def.Name, t.describeType(p.Type), t.describeType(x.Type)), p.Doc, "see `sheaf funcs "+def.Name+"`")
+			t.fail(a, fmt.Sprintf("%s of %s must be %s, got %s", p.Name, def.Name, t.describeType(p.Type), t.describeType(x.Type)), p.Doc, angleArgHint(p.Type, x.Type)+"see `sheaf funcs "+def.Name+"`")
 			ok = false
 		}
 	}

@@ -7,14 +7,11 @@ import (
 	"strconv"
 	"strings"
 
-	"github.com/expr-lang/expr/ast"
-
 	"github.com/sheafcalc/sheaf/engine/diag"
 	"github.com/sheafcalc/sheaf/engine/formula"
 	"github.com/sheafcalc/sheaf/engine/sheet"
 	"github.com/sheafcalc/sheaf/engine/units"
 	"github.com/sheafcalc/sheaf/funcs"
-	"github.com/sheafcalc/sheaf/internal/parallel"
 )
 
 // Options limit and steer checking.
@@ -24,18 +21,9 @@ type Options struct {
 	MaxBytes  int          // size of a template file; 0 means sheet.DefaultMaxBytes
 	System    units.System // preferred units in messages; Neutral means the sheet's own
 	HasSystem bool
-	// DropItems lets Program.File and Program.Files keep only the name,
-	// source and syntax problems of each file once its items are read into
-	// cells: a sheet of 100,000 cells would otherwise hold its syntax tree
-	// (tens of megabytes) beside the program for nothing. f itself is not
-	// changed; a caller that lets go of it frees the items for the phases
-	// that follow. Whoever needs the items again parses Src.
-	DropItems bool
-	// DropTrees releases the syntax tree and references of each cell's
-	// formula once the cell is typed (formula.Formula.Release): the typed
-	// nodes keep their spans, and the memory of the trees is reused for
-	// the typed nodes of the cells that follow.
-	DropTrees bool
+	// Loader reads the templates the sheet uses; nil means the files on
+	// disk beside the sheet (NewFileLoader of the sheet's name).
+	Loader Loader
 }
 
 // DefaultMaxCells is the default limit on the number of cells of a sheet.
@@ -70,35 +58,21 @@ func Sheet(f *sheet.File, opt Options) (*Program, diag.List) {
 	}
 	c := &checker{prog: &Program{File: f, Files: []*sheet.File{f}, ByName: make(map[string]int, len(f.Items))}, opt: opt}
 	c.collect()
-	if opt.DropItems {
-		c.dropItems()
-	}
 	if len(c.prog.Cells) > opt.MaxCells {
 		c.errs.Errorf(c.prog.Cells[opt.MaxCells].Range, fmt.Sprintf("a sheet may hold at most %d cells; this one has %d", opt.MaxCells, len(c.prog.Cells)),
 			"split the calculation into sheets, or raise the limit", "too many cells")
 		c.errs.Sort()
 		return c.prog, c.errs
 	}
+	c.confusableNames()
 	c.parseAll()
 	c.applyOverrides()
 	c.resolve()
 	c.order()
 	c.typeAll()
+	c.budget()
 	c.errs.Sort()
 	return c.prog, c.errs
-}
-
-// dropItems points Program.File and Files at copies of the files without
-// their items (see Options.DropItems).
-func (c *checker) dropItems() {
-	p := c.prog
-	for i, f := range p.Files {
-		bare := &sheet.File{Name: f.Name, Src: f.Src, Syntax: f.Syntax}
-		if f == p.File {
-			p.File = bare
-		}
-		p.Files[i] = bare
-	}
 }
 
 // collect reads the items into cells, the header into Meta, and reports
@@ -117,12 +91,11 @@ func (c *checker) collectFile(f *sheet.File, scope string, depth int) {
 	if scope != "" {
 		section = strings.TrimSuffix(scope, ".")
 	}
-	made := newCells(f.Items)
-	for k, it := range f.Items {
+	for _, it := range f.Items {
 		if len(p.Cells) > c.opt.MaxCells {
 			return // reported by Sheet
 		}
-		cell := made[k]
+		cell := newCell(it)
 		switch it := it.(type) {
 		case *sheet.Meta:
 			if scope == "" {
@@ -176,9 +149,6 @@ func (c *checker) collectFile(f *sheet.File, scope string, depth int) {
 		if IsReserved(cell.Name) {
 			c.errs.Errorf(cell.NameRange, "built-in names, constants and keywords cannot be redefined", "choose another name, e.g. `"+cell.Name+"_1`", "`%s` is a reserved name", cell.Name)
 		}
-		if strings.HasPrefix(cell.Name, formula.SyntheticPrefix) {
-			c.errs.Errorf(cell.NameRange, "Sheaf uses such names for quantity literals", "rename the cell", "names starting with `%s` are reserved", formula.SyntheticPrefix)
-		}
 		if scope != "" {
 			cell.Name, cell.Scope = scope+cell.Name, scope
 		}
@@ -197,22 +167,6 @@ func (c *checker) collectFile(f *sheet.File, scope string, depth int) {
 		p.ByName[cell.Name] = cell.Index
 		p.Cells = append(p.Cells, cell)
 	}
-}
-
-// newCells makes the cell and the formula of each item that is a cell, a
-// user function or a check (nil for the other items), with what they copy
-// from the item; collectFile completes them. On a large sheet this is the
-// first touch of tens of megabytes, which costs far more than the copying
-// on a machine slow to hand out fresh memory, so it runs in chunks on every
-// core.
-func newCells(items []sheet.Item) []*Cell {
-	out := make([]*Cell, len(items))
-	parallel.Chunks(len(items), 2000, func(lo, hi int) {
-		for i := lo; i < hi; i++ {
-			out[i] = newCell(items[i])
-		}
-	})
-	return out
 }
 
 func newCell(it sheet.Item) *Cell {
@@ -336,53 +290,30 @@ func (c *checker) table(cell *Cell, t *sheet.Table) {
 	}
 }
 
-// parseAll parses every formula, in parallel for large sheets: expr-lang's
-// parser dominates the cost of loading.
+// parseAll parses every formula.
 func (c *checker) parseAll() {
-	cells := c.prog.Cells
-	lists := make([]diag.List, len(cells))
 	opt := formula.Options{MaxDepth: c.opt.MaxDepth}
-	work := func(lo, hi int) {
-		for i := lo; i < hi; i++ {
-			cell := cells[i]
-			if cell.Formula == nil {
-				continue
-			}
-			ok, errs := cell.Formula.ParseSource(opt)
-			if !ok {
-				cell.Formula = nil
-			}
-			lists[i] = errs
+	for _, cell := range c.prog.Cells {
+		if cell.Formula == nil {
+			continue
 		}
-	}
-	parallel.Chunks(len(cells), 2000, work)
-	for i, l := range lists {
-		c.errs = append(c.errs, l...)
-		if l.HasErrors() {
-			cells[i].Formula = nil
-			cells[i].Type = nil
+		ok, errs := cell.Formula.ParseSource(opt)
+		c.errs = append(c.errs, errs...)
+		if !ok || errs.HasErrors() {
+			cell.Formula, cell.Type = nil, nil
 		}
 	}
 }
 
-// resolve finds the dependencies of every cell and decides inputs. A
-// sheet without templates resolves its cells in parallel chunks (the
-// lookups only read); with templates, resolving fills a cache of member
-// chains, so it runs on one goroutine.
+// resolve finds the dependencies of every cell, decides inputs and builds
+// the reverse edges.
 func (c *checker) resolve() {
 	p := c.prog
-	work := func(lo, hi int) {
-		// seen[j] == i+1 when cell i already lists cell j: one slice for
-		// the chunk rather than a set per cell.
-		seen := make([]int32, len(p.Cells))
-		for i := lo; i < hi; i++ {
-			c.resolveCell(i, seen)
-		}
-	}
-	if c.use == nil {
-		parallel.Chunks(len(p.Cells), 2000, work)
-	} else {
-		work(0, len(p.Cells))
+	// seen[j] == i+1 when cell i already lists cell j: one slice for the
+	// sheet rather than a set per cell.
+	seen := make([]int32, len(p.Cells))
+	for i := range p.Cells {
+		c.resolveCell(i, seen)
 	}
 	users := make([]int32, len(p.Cells)) // number of users of each cell
 	edges := 0
@@ -416,7 +347,7 @@ func (c *checker) resolveCell(i int, seen []int32) {
 		return
 	}
 	for _, r := range cell.Formula.Refs {
-		if isParam(cell, r.Name) {
+		if isParam(cell, cell.Formula.Text(r)) {
 			continue
 		}
 		j, ok := c.ref(cell, r)
@@ -449,6 +380,11 @@ func isParam(cell *Cell, name string) bool {
 // come in a fixed order (cells in reading order, then built-ins, constants
 // and plugin functions), since diag.Nearest breaks ties by order.
 func (c *checker) suggest(name string) string {
+	if len(c.errs) >= diag.MaxShown {
+		// Past the problems a user is shown, a suggestion is never read:
+		// skipping it keeps a sheet of thousands of mistakes linear.
+		return ""
+	}
 	if c.names == nil {
 		for _, cell := range c.prog.Cells {
 			c.names = append(c.names, cell.Name)
@@ -485,13 +421,8 @@ func (c *checker) typeAll() {
 	if c.opt.HasSystem {
 		sys = c.opt.System
 	}
-	c.arena.startPrefetch(len(c.prog.Order))
-	defer c.arena.stopPrefetch()
 	for _, i := range c.prog.Order {
 		c.typeOne(i, sys)
-		if f := c.prog.Cells[i].Formula; f != nil && c.opt.DropTrees {
-			f.Release()
-		}
 	}
 }
 
@@ -501,7 +432,7 @@ func (c *checker) typeOne(i int, sys units.System) {
 	if cell.Kind == Table {
 		return // typed when read
 	}
-	if cell.Formula == nil || cell.Formula.Tree == nil {
+	if cell.Formula == nil || cell.Formula.Root < 0 {
 		if c.looped == nil || !c.looped[i] {
 			c.standInFor(cell, nil, false) // its formula did not parse
 		}
@@ -538,7 +469,7 @@ func (c *checker) typeCell(t *typer, cell *Cell) {
 	case Check:
 		c.typeCheck(t, cell)
 	case Function:
-		body := t.expr(cell.Formula.Tree)
+		body := t.expr(cell.Formula.Root)
 		if body == nil || !c.fitsUnit(t, cell, body) {
 			return
 		}
@@ -549,7 +480,7 @@ func (c *checker) typeCell(t *typer, cell *Cell) {
 		cell.Body = body
 		cell.Type = funcs.FuncOf(body.Type, ps...)
 	default:
-		body := t.expr(cell.Formula.Tree)
+		body := t.expr(cell.Formula.Root)
 		if body == nil || !c.fitsOverride(t, cell, body) || !c.fitsUnit(t, cell, body) {
 			return
 		}
@@ -617,10 +548,13 @@ func (c *checker) fitsUnit(t *typer, cell *Cell, body *Node) bool {
 		if cell.Unit.Quantity != "" {
 			what = cell.Unit.Quantity
 		}
+		hint := "write the unit of the result, e.g. [" + t.unitOf(body.Type.Dim) + "], or correct the formula"
+		if body.Type.Dim.IsNone() {
+			hint = plainNumberHint(cell.Unit, body)
+		}
 		t.errs.Errorf(cell.Formula.Source.Range,
 			"the unit in brackets sets how the value is shown and must have the dimension of the expression",
-			"write the unit of the result, e.g. ["+t.unitOf(body.Type.Dim)+"], or correct the formula",
-			"display unit %s is %s but the expression is %s", cell.Unit.Symbol, article(what), t.describeDim(body.Type.Dim))
+			hint, "display unit %s is %s but the expression is %s", cell.Unit.Symbol, article(what), t.describeDim(body.Type.Dim))
 		return false
 	}
 	return true
@@ -638,28 +572,29 @@ func article(s string) string {
 
 // typeCheck splits a check at its top-level comparison.
 func (c *checker) typeCheck(t *typer, cell *Cell) {
-	b, ok := cell.Formula.Tree.(*ast.BinaryNode)
-	if !ok || (b.Operator != "<=" && b.Operator != ">=" && b.Operator != "<" && b.Operator != ">") {
-		t.errs.Errorf(cell.Formula.Source.Range, "a check compares a demand with a capacity", "write `check name: demand <= capacity` or `capacity >= demand`",
+	f := cell.Formula
+	b := f.Nodes[f.Root]
+	if b.Kind != formula.KBinary || (b.Op != formula.OpLE && b.Op != formula.OpGE && b.Op != formula.OpLT && b.Op != formula.OpGT) {
+		t.errs.Errorf(f.Source.Range, "a check compares a demand with a capacity", "write `check name: demand <= capacity` or `capacity >= demand`",
 			"check `%s` needs `<=` or `>=` at the top", cell.Name)
 		return
 	}
-	l, r := t.expr(b.Left), t.expr(b.Right)
+	l, r := t.expr(b.A), t.expr(b.B)
 	if l == nil || r == nil {
 		return
 	}
 	if l.Type.Kind != funcs.Number || r.Type.Kind != funcs.Number {
-		t.fail(b, "a check compares two numbers", "got "+t.describeType(l.Type)+" and "+t.describeType(r.Type),
+		t.fail(f.Root, "a check compares two numbers", "got "+t.describeType(l.Type)+" and "+t.describeType(r.Type),
 			"compare a number with a number, e.g. a field `mat.f_y` or an element `xs[0]`")
 		return
 	}
 	if l.Type.Dim != r.Type.Dim {
-		t.fail(b, fmt.Sprintf("cannot compare %s with %s", t.describeDim(l.Type.Dim), t.describeDim(r.Type.Dim)),
+		t.fail(f.Root, fmt.Sprintf("cannot compare %s with %s", t.describeDim(l.Type.Dim), t.describeDim(r.Type.Dim)),
 			"the demand and the capacity of a check must be the same kind of quantity", "check the units of the two sides")
 		return
 	}
-	cell.Op = b.Operator
-	if b.Operator == "<=" || b.Operator == "<" {
+	cell.Op = b.Op.String()
+	if b.Op == formula.OpLE || b.Op == formula.OpLT {
 		cell.Demand, cell.Capacity = l, r
 	} else {
 		cell.Demand, cell.Capacity = r, l
@@ -672,14 +607,15 @@ func (c *checker) typeCheck(t *typer, cell *Cell) {
 func (p *Program) TypeValue(f *formula.Formula, sys units.System) (*Node, diag.List) {
 	var errs diag.List
 	for _, r := range f.Refs {
-		if _, ok := p.ByName[r.Name]; ok {
-			errs.Errorf(r.Range(), "a value given for an input is a quantity such as `45 kN`",
-				"write the number with its unit", "a value cannot refer to the cell `%s`", r.Name)
+		name := f.Text(r)
+		if _, ok := p.ByName[name]; ok {
+			errs.Errorf(f.Range(r), "a value given for an input is a quantity such as `45 kN`",
+				"write the number with its unit", "a value cannot refer to the cell `%s`", name)
 			return nil, errs
 		}
 	}
 	c := &checker{prog: &Program{ByName: map[string]int{}}}
 	t := &typer{c: c, f: f, system: sys, errs: &errs}
-	n := t.expr(f.Tree)
+	n := t.expr(f.Root)
 	return n, errs
 }

@@ -106,3 +106,25 @@ func (n *Node) Range() diag.Range {
 	}
 	return n.F.Source.RangeAt(int(n.From), int(n.To))
 }
+
+// Text returns the source text of the node as written ("" when it has none).
+func (n *Node) Text() string {
+	if n.F == nil || n.From < 0 || int(n.To) > len(n.F.Source.Text) || n.From > n.To {
+		return ""
+	}
+	return n.F.Source.Text[n.From:n.To]
+}
+
+// Quantity returns the quantity literal a constant node was typed from,
+// such as `38 kN` with its written unit, or nil.
+func (n *Node) Quantity() *formula.Quantity {
+	if n.F == nil || n.Op != OpConst {
+		return nil
+	}
+	for i := range n.F.Quantities {
+		if q := &n.F.Quantities[i]; q.From == n.From && q.To == n.To {
+			return q
+		}
+	}
+	return nil
+}

@@ -4,8 +4,6 @@ import (
 	"fmt"
 	"slices"
 
-	"github.com/expr-lang/expr/ast"
-
 	"github.com/sheafcalc/sheaf/engine/diag"
 	"github.com/sheafcalc/sheaf/engine/formula"
 	"github.com/sheafcalc/sheaf/engine/units"
@@ -22,48 +20,55 @@ type typer struct {
 	errs   *diag.List
 }
 
-func (t *typer) fail(n ast.Node, summary, detail, hint string) *Node {
+func (t *typer) fail(n int32, summary, detail, hint string) *Node {
 	t.errs.Add(&diag.Diagnostic{Range: t.f.Range(n), Summary: summary, Detail: detail, Hint: hint})
 	return nil
 }
 
-func (t *typer) node(n ast.Node, op Op, ty *funcs.Type, args ...*Node) *Node {
+func (t *typer) node(n int32, op Op, ty *funcs.Type, args ...*Node) *Node {
 	r := t.c.arena.node()
 	from, to := t.f.Span(n)
 	*r = Node{Op: op, Type: ty, Args: t.c.arena.argList(args), From: int32(from), To: int32(to), F: t.f}
 	return r
 }
 
-// expr types n. It returns nil after reporting a problem, or silently when
-// a cell it uses has failed (one mistake, one message).
-func (t *typer) expr(n ast.Node) *Node {
-	switch n := n.(type) {
-	case *ast.IntegerNode:
+// expr types node n of the formula. It returns nil after reporting a
+// problem, or silently when a cell it uses has failed (one mistake, one
+// message).
+func (t *typer) expr(n int32) *Node {
+	f := t.f
+	nd := &f.Nodes[n]
+	switch nd.Kind {
+	case formula.KNumber:
 		r := t.node(n, OpConst, numNone)
-		r.Num = float64(n.Value)
+		r.Num = f.Num(n)
 		return r
-	case *ast.FloatNode:
-		r := t.node(n, OpConst, numNone)
-		r.Num = n.Value
-		return r
-	case *ast.BoolNode:
-		r := t.node(n, OpBool, funcs.BoolType)
-		if n.Value {
-			r.Num = 1
+	case formula.KQuantity:
+		q := f.Quantity(n)
+		if q.Unit.Factor == 0 {
+			return nil // the unit was reported already
 		}
+		r := t.node(n, OpConst, t.c.arena.num(q.Unit.Dim))
+		r.Num = q.SI
 		return r
-	case *ast.StringNode:
+	case formula.KBool:
+		r := t.node(n, OpBool, funcs.BoolType)
+		r.Num = f.Num(n)
+		return r
+	case formula.KString:
 		r := t.node(n, OpString, funcs.StringType)
-		r.setStr(n.Value)
+		r.setStr(f.StringText(n))
 		return r
-	case *ast.IdentifierNode:
+	case formula.KName:
 		return t.ident(n)
-	case *ast.UnaryNode:
-		x := t.expr(n.Node)
+	case formula.KParen:
+		return t.expr(nd.A)
+	case formula.KUnary:
+		x := t.expr(nd.A)
 		if x == nil {
 			return nil
 		}
-		if n.Operator == "not" || n.Operator == "!" {
+		if nd.Op == formula.OpNot {
 			if x.Type.Kind != funcs.Bool {
 				return t.fail(n, "`not` needs a comparison, got "+t.describeType(x.Type), "", "write a comparison after it, as in `not (N > 0)`")
 			}
@@ -72,37 +77,32 @@ func (t *typer) expr(n ast.Node) *Node {
 		if x.Type.Kind != funcs.Number {
 			return t.fail(n, "cannot negate "+t.describeType(x.Type), "only numbers have a sign", "negate a number, as in `-mat.E` or `-xs[0]`")
 		}
-		if n.Operator == "+" {
+		if nd.Op == formula.OpPlus {
 			return x
 		}
 		return t.node(n, OpNeg, x.Type, x)
-	case *ast.BinaryNode:
+	case formula.KBinary:
 		return t.binary(n)
-	case *ast.ConditionalNode:
-		c, a, b := t.expr(n.Cond), t.expr(n.Exp1), t.expr(n.Exp2)
+	case formula.KCond:
+		c, a, b := t.expr(nd.A), t.expr(nd.B), t.expr(nd.C)
 		if c == nil || a == nil || b == nil {
 			return nil
 		}
 		if c.Type.Kind != funcs.Bool {
-			return t.fail(n.Cond, "the condition of `? :` must be a comparison, got "+t.describeType(c.Type), "", "write e.g. `N > 0 ? a : b`")
+			return t.fail(nd.A, "the condition of `? :` must be a comparison, got "+t.describeType(c.Type), "", "write e.g. `N > 0 ? a : b`")
 		}
 		if !sameType(a.Type, b.Type) {
 			return t.fail(n, fmt.Sprintf("the two choices of `? :` differ: %s and %s", t.describeType(a.Type), t.describeType(b.Type)), "both results of a choice must be the same kind of quantity", "check the units of the two choices")
 		}
 		return t.node(n, OpCond, a.Type, c, a, b)
-	case *ast.MemberNode:
+	case formula.KField, formula.KIndex:
 		return t.member(n)
-	case *ast.CallNode:
-		name := n.Callee.(*ast.IdentifierNode).Value
-		return t.call(n, name, n.Arguments)
-	case *ast.BuiltinNode:
-		return t.call(n, n.Name, n.Arguments)
-	case *ast.ArrayNode:
+	case formula.KCall:
+		return t.call(n, f.Callee(n), f.ArgList(n))
+	case formula.KList:
 		return t.list(n)
-	case *ast.MapNode:
+	case formula.KRecord:
 		return t.record(n)
-	case *ast.ChainNode:
-		return t.expr(n.Node)
 	}
 	return t.fail(n, "this construct is not part of the sheet language", "formulas use + - * / ^, comparisons, calls, fields, lists and records", "")
 }
@@ -117,16 +117,8 @@ func sameType(a, b *funcs.Type) bool {
 	return a.Accepts(b) && b.Accepts(a)
 }
 
-func (t *typer) ident(n *ast.IdentifierNode) *Node {
-	if q, ok := t.f.Quantity(n); ok {
-		if q.Unit.Factor == 0 {
-			return nil // the unit was reported already
-		}
-		r := t.node(n, OpConst, t.c.arena.num(q.Unit.Dim))
-		r.Num = q.SI
-		return r
-	}
-	name := n.Value
+func (t *typer) ident(n int32) *Node {
+	name := t.f.Text(n)
 	for i, p := range t.params {
 		if p.Name == name {
 			r := t.node(n, OpParam, p.Type)
@@ -192,9 +184,9 @@ func paramList(c *Cell) string {
 	return s
 }
 
-func (t *typer) undefined(n ast.Node, name string) *Node {
+func (t *typer) undefined(n int32, name string) *Node {
 	hint := "define it on a line of its own, as in `" + name + " = ...`, or correct the spelling"
-	if _, call := n.(*ast.CallNode); call {
+	if t.f.Nodes[n].Kind == formula.KCall {
 		hint = "`sheaf funcs` lists the functions; a sheet defines its own as `" + name + "(x [m]) = ...`"
 	}
 	if s := t.c.suggestIn(t.scope(), name); s != "" {
@@ -205,18 +197,19 @@ func (t *typer) undefined(n ast.Node, name string) *Node {
 
 var cmpOps = map[string]Op{"<": OpLT, "<=": OpLE, ">": OpGT, ">=": OpGE, "==": OpEQ, "!=": OpNE}
 
-func (t *typer) binary(n *ast.BinaryNode) *Node {
-	a, b := t.expr(n.Left), t.expr(n.Right)
+func (t *typer) binary(n int32) *Node {
+	nd := &t.f.Nodes[n]
+	a, b := t.expr(nd.A), t.expr(nd.B)
 	if a == nil || b == nil {
 		return nil
 	}
-	op := n.Operator
+	op := nd.Op.String()
 	switch op {
-	case "and", "&&", "or", "||":
+	case "and", "or":
 		if a.Type.Kind != funcs.Bool || b.Type.Kind != funcs.Bool {
 			return t.fail(n, "`"+op+"` joins comparisons", "both sides must be comparisons such as `a < b`", "compare each value, as in `a > 0 "+op+" b > 0`")
 		}
-		if op == "and" || op == "&&" {
+		if op == "and" {
 			return t.node(n, OpAnd, funcs.BoolType, a, b)
 		}
 		return t.node(n, OpOr, funcs.BoolType, a, b)
@@ -249,14 +242,19 @@ func (t *typer) binary(n *ast.BinaryNode) *Node {
 			return t.node(n, OpAdd, a.Type, a, b)
 		}
 		return t.node(n, OpSub, a.Type, a, b)
-	case "*":
-		return t.node(n, OpMul, t.c.arena.num(da.Mul(db)), a, b)
-	case "/":
-		return t.node(n, OpDiv, t.c.arena.num(da.Div(db)), a, b)
-	case "^", "**":
+	case "*", "/":
+		d, o := da.Mul(db), OpMul
+		if op == "/" {
+			d, o = da.Div(db), OpDiv
+		}
+		if p := t.dimOverflow(d, op, da, db); p != nil {
+			return t.fail(n, p.summary, overflowDetail, p.hint)
+		}
+		return t.node(n, o, t.c.arena.num(d), a, b)
+	case "^":
 		ty, p := t.powType(a, b, "`^`")
 		if p != nil {
-			at := n.Right
+			at := nd.B
 			if p.arg < 0 {
 				at = n
 			}
@@ -274,16 +272,19 @@ func (t *typer) binary(n *ast.BinaryNode) *Node {
 	return t.fail(n, "operator `"+op+"` is not part of the sheet language", "formulas use + - * / ^ (or **), comparisons, and/or/not and `a ? b : c`", "")
 }
 
-func (t *typer) member(n *ast.MemberNode) *Node {
-	if r, ok := t.templateMember(n); ok {
-		return r
+func (t *typer) member(n int32) *Node {
+	nd := &t.f.Nodes[n]
+	if nd.Kind == formula.KField {
+		if r, ok := t.templateMember(n); ok {
+			return r
+		}
 	}
-	x := t.expr(n.Node)
+	x := t.expr(nd.A)
 	if x == nil {
 		return nil
 	}
-	if s, ok := n.Property.(*ast.StringNode); ok {
-		field := s.Value
+	if nd.Kind == formula.KField {
+		field := t.f.Text(nd.B)
 		switch x.Type.Kind {
 		case funcs.Record, funcs.Table:
 			i := x.Type.Field(field)
@@ -301,7 +302,7 @@ func (t *typer) member(n *ast.MemberNode) *Node {
 				if s := diag.Nearest(field, names); s != "" {
 					hint = "did you mean `" + s + "`?"
 				}
-				return t.fail(n.Property, fmt.Sprintf("%s `%s`", what, field), "", hint)
+				return t.fail(nd.B, fmt.Sprintf("%s `%s`", what, field), "", hint)
 			}
 			if x.Type.Kind == funcs.Table {
 				r := t.node(n, OpColumn, funcs.ListOf(x.Type.Fields[i].Type), x)
@@ -315,7 +316,7 @@ func (t *typer) member(n *ast.MemberNode) *Node {
 		return t.fail(n, "`."+field+"` needs a record or a table, got "+t.describeType(x.Type), "fields belong to records such as `{E: 210 GPa}` and columns to tables",
 			"remove `."+field+"`, or name a record or table before it")
 	}
-	i := t.expr(n.Property)
+	i := t.expr(nd.B)
 	if i == nil {
 		return nil
 	}
@@ -324,7 +325,7 @@ func (t *typer) member(n *ast.MemberNode) *Node {
 			"remove the index, or index a list")
 	}
 	if i.Type.Kind != funcs.Number || !i.Type.Dim.IsNone() {
-		return t.fail(n.Property, "an index must be a plain number, got "+t.describeType(i.Type), "", "the first element is xs[0]")
+		return t.fail(nd.B, "an index must be a plain number, got "+t.describeType(i.Type), "", "the first element is xs[0]")
 	}
 	return t.node(n, OpIndex, x.Type.Elem, x, i)
 }
@@ -340,12 +341,13 @@ func join(xs []string) string {
 	return s
 }
 
-func (t *typer) list(n *ast.ArrayNode) *Node {
-	if len(n.Nodes) == 0 {
+func (t *typer) list(n int32) *Node {
+	items := t.f.ArgList(n)
+	if len(items) == 0 {
 		return t.fail(n, "an empty list has no type", "a list holds one or more values of one kind", "write at least one value: [1 m]")
 	}
-	var args []*Node
-	for _, e := range n.Nodes {
+	args := make([]*Node, 0, len(items))
+	for _, e := range items {
 		x := t.expr(e)
 		if x == nil {
 			return nil
@@ -354,23 +356,24 @@ func (t *typer) list(n *ast.ArrayNode) *Node {
 	}
 	for i, x := range args[1:] {
 		if !sameType(args[0].Type, x.Type) {
-			return t.fail(n.Nodes[i+1], fmt.Sprintf("a list holds values of one kind: %s and %s", t.describeType(args[0].Type), t.describeType(x.Type)),
+			return t.fail(items[i+1], fmt.Sprintf("a list holds values of one kind: %s and %s", t.describeType(args[0].Type), t.describeType(x.Type)),
 				"every item of a list has the unit of the first", "use a record for values of different kinds, as in `{L: 2 m, P: 38 kN}`")
 		}
 	}
 	return t.node(n, OpList, funcs.ListOf(args[0].Type), args...)
 }
 
-func (t *typer) record(n *ast.MapNode) *Node {
+func (t *typer) record(n int32) *Node {
+	pairs := t.f.ArgList(n)
 	var args []*Node
 	var fields []funcs.Field
-	for _, p := range n.Pairs {
-		p := p.(*ast.PairNode)
-		key := p.Key.(*ast.StringNode).Value
+	for k := 0; k+1 < len(pairs); k += 2 {
+		keyNode := pairs[k]
+		key := t.f.Text(keyNode)
 		if slices.ContainsFunc(fields, func(f funcs.Field) bool { return f.Name == key }) {
-			return t.fail(p.Key, "field `"+key+"` is written twice", "each field of a record has its own name", "keep one of the two")
+			return t.fail(keyNode, "field `"+key+"` is written twice", "each field of a record has its own name", "keep one of the two")
 		}
-		x := t.expr(p.Value)
+		x := t.expr(pairs[k+1])
 		if x == nil {
 			return nil
 		}

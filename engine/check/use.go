@@ -1,10 +1,10 @@
 package check
 
 import (
+	"fmt"
 	"slices"
+	"strconv"
 	"strings"
-
-	"github.com/expr-lang/expr/ast"
 
 	"github.com/sheafcalc/sheaf/engine/diag"
 	"github.com/sheafcalc/sheaf/engine/formula"
@@ -32,7 +32,9 @@ type uses struct {
 	replaced map[int]*replaced
 	// targets caches, per formula, the cell each member chain `rod.x`
 	// refers to, keyed by the chain's root identifier.
-	targets map[*formula.Formula]map[*ast.IdentifierNode]int
+	targets map[*formula.Formula]map[int32]int
+	// cells caches expandedCells by file.
+	cells map[*sheet.File]int
 }
 
 // alias is a name given by `use NAME from ...`.
@@ -75,8 +77,8 @@ func (u *uses) aliasPos(name string) diag.Pos {
 // and inlines its cells.
 func (c *checker) useTemplate(from *sheet.File, u *sheet.Use, scope string, depth int) {
 	if c.use == nil {
-		c.use = &uses{ld: newLoader(c.prog.File, c.opt.MaxBytes), aliases: map[string]*alias{},
-			replaced: map[int]*replaced{}, targets: map[*formula.Formula]map[*ast.IdentifierNode]int{}}
+		c.use = &uses{ld: newLoader(c.prog.File, c.opt), aliases: map[string]*alias{},
+			replaced: map[int]*replaced{}, targets: map[*formula.Formula]map[int32]int{}, cells: map[*sheet.File]int{}}
 	}
 	name := scope + u.Name.Name
 	if IsReserved(u.Name.Name) {
@@ -101,6 +103,19 @@ func (c *checker) useTemplate(from *sheet.File, u *sheet.Use, scope string, dept
 		return
 	}
 	defer c.use.ld.done()
+	// Count the cells the use brings in, its own templates' included,
+	// before making any: a few small files that use each other twice at
+	// every level would otherwise make millions of cells first.
+	if n := c.expandedCells(f); len(c.prog.Cells)+n > c.opt.MaxCells {
+		a.failed = true
+		what := countText(n)
+		if n > c.opt.MaxCells {
+			what = "more than " + countText(c.opt.MaxCells) // the count stops there
+		}
+		c.errs.Errorf(u.Range, fmt.Sprintf("using %s here brings in %s cells (its own templates' included); a sheet may hold at most %s", f.Name, what, countText(c.opt.MaxCells)),
+			"use the inner templates once each, or split the calculation into sheets", "template use too large")
+		return
+	}
 	a.file = f.Name
 	if !slices.Contains(c.prog.Files, f) {
 		c.prog.Files = append(c.prog.Files, f)
@@ -129,12 +144,14 @@ func (t *typer) scope() string {
 }
 
 // ref returns the cell a formula's name refers to: a cell of its scope, or
-// for the root of a chain `rod.x`, the template's cell `rod.x`.
-func (c *checker) ref(cell *Cell, r formula.Ref) (int, bool) {
-	if i, ok := c.local(cell, r.Name); ok {
+// for the root of a chain `rod.x`, the template's cell `rod.x`. n is the
+// KName node of the reference in cell's formula.
+func (c *checker) ref(cell *Cell, n int32) (int, bool) {
+	name := cell.Formula.Text(n)
+	if i, ok := c.local(cell, name); ok {
 		return i, true
 	}
-	if c.use == nil || r.Node == nil || !c.use.isAlias(cell.Scope+r.Name) {
+	if c.use == nil || !c.use.isAlias(cell.Scope+name) {
 		return 0, false
 	}
 	m, ok := c.use.targets[cell.Formula]
@@ -142,73 +159,69 @@ func (c *checker) ref(cell *Cell, r formula.Ref) (int, bool) {
 		m = c.memberTargets(cell)
 		c.use.targets[cell.Formula] = m
 	}
-	i, ok := m[r.Node]
+	i, ok := m[n]
 	return i, ok
 }
 
 // memberTargets finds the member chains of cell's formula that name a
-// template's cell.
-func (c *checker) memberTargets(cell *Cell) map[*ast.IdentifierNode]int {
-	m := map[*ast.IdentifierNode]int{}
-	v := visitor(func(n ast.Node) {
-		mem, ok := n.(*ast.MemberNode)
+// template's cell, keyed by the chain's root name node.
+func (c *checker) memberTargets(cell *Cell) map[int32]int {
+	m := map[int32]int{}
+	f := cell.Formula
+	for k := range f.Nodes {
+		nd := &f.Nodes[k]
+		if nd.Kind != formula.KField {
+			continue
+		}
+		prefix, root, ok := c.usePath(cell, f, nd.A)
 		if !ok {
-			return
+			continue
 		}
-		prefix, root, ok := c.usePath(cell, mem.Node)
-		if !ok {
-			return
+		if i, ok := c.prog.ByName[prefix+f.Text(nd.B)]; ok {
+			m[root] = i
 		}
-		if s, ok := mem.Property.(*ast.StringNode); ok {
-			if i, ok := c.prog.ByName[prefix+s.Value]; ok {
-				m[root] = i
-			}
-		}
-	})
-	tree := cell.Formula.Tree
-	ast.Walk(&tree, v)
+	}
 	return m
 }
 
-type visitor func(ast.Node)
-
-func (v visitor) Visit(n *ast.Node) { v(*n) }
-
-// usePath reports whether n names a template use in cell's scope (`rod`,
-// or `rod.bolt` for a template that rod uses) and returns its prefix
-// ("rod.", "rod.bolt.") and the chain's root identifier.
-func (c *checker) usePath(cell *Cell, n ast.Node) (string, *ast.IdentifierNode, bool) {
+// usePath reports whether node n of cell's formula names a template use in
+// cell's scope (`rod`, or `rod.bolt` for a template that rod uses) and
+// returns its prefix ("rod.", "rod.bolt.") and the chain's root name node.
+func (c *checker) usePath(cell *Cell, f *formula.Formula, n int32) (string, int32, bool) {
 	if c.use == nil {
-		return "", nil, false
+		return "", -1, false
 	}
-	switch n := n.(type) {
-	case *ast.IdentifierNode:
+	nd := &f.Nodes[n]
+	switch nd.Kind {
+	case formula.KName:
+		name := f.Text(n)
 		scope := ""
 		if cell != nil {
 			scope = cell.Scope
-			if isParam(cell, n.Value) {
-				return "", nil, false
+			if isParam(cell, name) {
+				return "", -1, false
 			}
 		}
-		if c.use.isAlias(scope + n.Value) {
-			return scope + n.Value + ".", n, true
+		if c.use.isAlias(scope + name) {
+			return scope + name + ".", n, true
 		}
-	case *ast.MemberNode:
-		pre, root, ok := c.usePath(cell, n.Node)
+	case formula.KField:
+		pre, root, ok := c.usePath(cell, f, nd.A)
 		if !ok {
-			return "", nil, false
+			return "", -1, false
 		}
-		if s, ok := n.Property.(*ast.StringNode); ok && c.use.isAlias(pre+s.Value) {
-			return pre + s.Value + ".", root, true
+		if field := f.Text(nd.B); c.use.isAlias(pre + field) {
+			return pre + field + ".", root, true
 		}
 	}
-	return "", nil, false
+	return "", -1, false
 }
 
 // templateMember types `rod.x` when rod names a template use; ok is false
 // when n is an ordinary member access (a record's field, a table's column).
-func (t *typer) templateMember(n *ast.MemberNode) (*Node, bool) {
-	pre, _, ok := t.c.usePath(t.cell, n.Node)
+func (t *typer) templateMember(n int32) (*Node, bool) {
+	nd := &t.f.Nodes[n]
+	pre, _, ok := t.c.usePath(t.cell, t.f, nd.A)
 	if !ok {
 		return nil, false
 	}
@@ -218,22 +231,19 @@ func (t *typer) templateMember(n *ast.MemberNode) (*Node, bool) {
 		return nil, true // reported at the use
 	}
 	written := strings.TrimPrefix(qual, t.scope())
-	s, ok := n.Property.(*ast.StringNode)
-	if !ok {
-		return t.fail(n, "`"+written+"` is a template use, not a list", "its cells are named, not numbered", "refer to a cell by name, e.g. `"+written+"."+t.c.firstCell(pre)+"`"), true
-	}
-	name := pre + s.Value
+	field := t.f.Text(nd.B)
+	name := pre + field
 	if t.c.use.isAlias(name) {
-		return t.fail(n, "`"+written+"."+s.Value+"` is a template use, not a value", "`"+written+"` uses it to bring in the cells of "+t.c.use.aliases[name].file,
-			"refer to one of its cells, e.g. `"+written+"."+s.Value+"."+t.c.firstCell(name+".")+"`"), true
+		return t.fail(n, "`"+written+"."+field+"` is a template use, not a value", "`"+written+"` uses it to bring in the cells of "+t.c.use.aliases[name].file,
+			"refer to one of its cells, e.g. `"+written+"."+field+"."+t.c.firstCell(name+".")+"`"), true
 	}
 	i, ok := t.c.prog.ByName[name]
 	if !ok {
 		hint := ""
-		if near := diag.Nearest(s.Value, t.c.localNames(pre)); near != "" {
+		if near := diag.Nearest(field, t.c.localNames(pre)); near != "" {
 			hint = "did you mean `" + written + "." + near + "`?"
 		}
-		return t.fail(n.Property, "template `"+written+"` has no cell `"+s.Value+"`", "`"+written+"` brings in the cells of "+a.file, hint), true
+		return t.fail(nd.B, "template `"+written+"` has no cell `"+field+"`", "`"+written+"` brings in the cells of "+a.file, hint), true
 	}
 	dep := t.c.prog.Cells[i]
 	ty := t.c.typeOf(i)
@@ -241,7 +251,7 @@ func (t *typer) templateMember(n *ast.MemberNode) (*Node, bool) {
 		if ty == nil {
 			return nil, true
 		}
-		return t.fail(n, "`"+written+"."+s.Value+"` is a function of the template", "a template's functions serve its own cells; only its values can be used here",
+		return t.fail(n, "`"+written+"."+field+"` is a function of the template", "a template's functions serve its own cells; only its values can be used here",
 			"copy the function into this sheet, or give the template a cell that computes the value you need"), true
 	}
 	if ty == nil {
@@ -253,7 +263,7 @@ func (t *typer) templateMember(n *ast.MemberNode) (*Node, bool) {
 }
 
 // aliasValue reports a template use's name written as a value.
-func (t *typer) aliasValue(n *ast.IdentifierNode, name string) *Node {
+func (t *typer) aliasValue(n int32, name string) *Node {
 	qual := t.scope() + name
 	a := t.c.use.aliases[qual]
 	if a.failed {
@@ -293,7 +303,7 @@ func (c *checker) firstCell(prefix string) string {
 
 // suggestIn returns the known name nearest to name in scope, or "".
 func (c *checker) suggestIn(scope, name string) string {
-	if scope == "" {
+	if scope == "" || len(c.errs) >= diag.MaxShown {
 		return c.suggest(name)
 	}
 	names := c.localNames(scope)
@@ -403,7 +413,7 @@ func (c *checker) templateDeps(cell *Cell) []string {
 	}
 	var out []string
 	for _, r := range cell.Formula.Refs {
-		if isParam(cell, r.Name) {
+		if isParam(cell, cell.Formula.Text(r)) {
 			continue
 		}
 		if j, ok := c.ref(cell, r); ok {
@@ -435,12 +445,12 @@ func (c *checker) fitsOverride(t *typer, cell *Cell, body *Node) bool {
 		return true
 	}
 	r := c.use.replaced[cell.Index]
-	if r == nil || r.orig == nil || r.orig.Tree == nil {
+	if r == nil || r.orig == nil || r.orig.Root < 0 {
 		return true
 	}
 	var scratch diag.List
 	ot := &typer{c: c, f: r.orig, cell: &Cell{Name: cell.Name, Scope: r.scope}, system: t.system, errs: &scratch}
-	want := ot.expr(r.orig.Tree)
+	want := ot.expr(r.orig.Root)
 	if want == nil || sameType(want.Type, body.Type) {
 		return true // a broken template input is reported when the template is checked alone
 	}
@@ -450,4 +460,42 @@ func (c *checker) fitsOverride(t *typer, cell *Cell, body *Node) bool {
 	t.errs.Errorf(cell.Formula.Source.Range, "a use block replaces an input with a value of the same kind, so that the template's formulas keep their units",
 		hint, "`%s` of template `%s` is %s, but this value is %s", local, written, article(t.describeType(want.Type)), article(t.describeType(body.Type)))
 	return false
+}
+
+// expandedCells returns the number of cells template f brings in when it
+// is used, counting its own uses of templates (each file counted once and
+// remembered). A file that cannot be read counts for none: the expansion
+// itself reports it.
+func (c *checker) expandedCells(f *sheet.File) int {
+	if n, ok := c.use.cells[f]; ok {
+		return n
+	}
+	c.use.cells[f] = 0 // a loop: reported by the expansion
+	n := 0
+	var scratch diag.List
+	for _, it := range f.Items {
+		switch it := it.(type) {
+		case *sheet.Cell, *sheet.FuncDef, *sheet.Check, *sheet.Table:
+			n++
+		case *sheet.Use:
+			if g := c.use.ld.open(f, it, &scratch); g != nil {
+				n += c.expandedCells(g)
+				c.use.ld.done()
+			}
+		}
+		if n > c.opt.MaxCells {
+			break // enough to refuse; stops the count growing past int
+		}
+	}
+	c.use.cells[f] = n
+	return n
+}
+
+// countText writes a large count as a person reads it: 12,345,678.
+func countText(n int) string {
+	s := strconv.Itoa(n)
+	for i := len(s) - 3; i > 0; i -= 3 {
+		s = s[:i] + "," + s[i:]
+	}
+	return s
 }

@@ -6,7 +6,6 @@ import (
 	"github.com/sheafcalc/sheaf/engine/check"
 	"github.com/sheafcalc/sheaf/engine/diag"
 	"github.com/sheafcalc/sheaf/funcs"
-	"github.com/sheafcalc/sheaf/internal/parallel"
 	"github.com/sheafcalc/sheaf/internal/plural"
 )
 
@@ -54,18 +53,11 @@ func Compile(p *check.Program) *Machine {
 	for k, i := range p.Order {
 		m.topoPos[i] = int32(k)
 	}
-	// Each cell compiles on its own (closures read other cells' values and
-	// bodies by index at run time), so large programs compile on every
-	// core; each slot is written by exactly one worker.
-	// They compile in evaluation order, so the closures of cells evaluated
-	// one after the other lie side by side in memory: on a large sheet,
-	// evaluation then streams through them instead of missing the cache
-	// at every cell.
-	parallel.Chunks(len(p.Order), 4096, func(lo, hi int) {
-		for _, i := range p.Order[lo:hi] {
-			m.compileCell(p.Cells[i])
-		}
-	})
+	// Cells compile in evaluation order, so the closures of cells
+	// evaluated one after the other lie side by side in memory.
+	for _, i := range p.Order {
+		m.compileCell(p.Cells[i])
+	}
 	m.plan = make([]step, len(p.Order))
 	for k, i := range p.Order {
 		c := p.Cells[i]

@@ -106,7 +106,6 @@ func TestOperators(t *testing.T) {
 		{"mul_const", "x * 2.5", func(x, y float64) float64 { return x * 2.5 }, 0},
 		{"div", "x / y", func(x, y float64) float64 { return x / y }, 0},
 		{"power", "x ^ y", math.Pow, 0},
-		{"pow_stars", "x ** y", math.Pow, 0},
 		// x^2 and x^3 multiply instead of calling math.Pow: equal up to
 		// the rounding of one product.
 		{"square", "x ^ 2", func(x, y float64) float64 { return math.Pow(x, 2) }, 1e-15},
@@ -124,11 +123,8 @@ func TestOperators(t *testing.T) {
 		{"eq", "x == y ? 1 : 0", func(x, y float64) float64 { return b2f(x == y) }, 0},
 		{"ne", "x != y ? 1 : 0", func(x, y float64) float64 { return b2f(x != y) }, 0},
 		{"and_word", "x < y and y < 2 ? 1 : 0", func(x, y float64) float64 { return b2f(x < y && y < 2) }, 0},
-		{"and_sym", "x < y && y < 2 ? 1 : 0", func(x, y float64) float64 { return b2f(x < y && y < 2) }, 0},
 		{"or_word", "x < y or y < 0 ? 1 : 0", func(x, y float64) float64 { return b2f(x < y || y < 0) }, 0},
-		{"or_sym", "x < y || y < 0 ? 1 : 0", func(x, y float64) float64 { return b2f(x < y || y < 0) }, 0},
 		{"not_word", "not (x < y) ? 1 : 0", func(x, y float64) float64 { return b2f(!(x < y)) }, 0},
-		{"not_sym", "!(x < y) ? 1 : 0", func(x, y float64) float64 { return b2f(!(x < y)) }, 0},
 		{"cond", "x > y ? x - y : y - x", func(x, y float64) float64 {
 			if x > y {
 				return x - y
@@ -172,9 +168,9 @@ func TestBuiltins(t *testing.T) {
 		{"f_exp", "exp(x)", one(math.Exp), 0},
 		{"f_ln", "ln(x)", one(math.Log), 0},
 		{"f_log10", "log10(x)", one(math.Log10), 0},
-		{"f_sin", "sin(x)", one(math.Sin), 0},
-		{"f_cos", "cos(x)", one(math.Cos), 0},
-		{"f_tan", "tan(x)", one(math.Tan), 0},
+		{"f_sin", "sin(x * 1 rad)", one(math.Sin), 0},
+		{"f_cos", "cos(x * 1 rad)", one(math.Cos), 0},
+		{"f_tan", "tan(x * 1 rad)", one(math.Tan), 0},
 		{"f_asin", "asin(x)", one(math.Asin), 0},
 		{"f_acos", "acos(x)", one(math.Acos), 0},
 		{"f_atan", "atan(x)", one(math.Atan), 0},

@@ -2,6 +2,7 @@ package eval
 
 import (
 	"math"
+	"math/bits"
 	"slices"
 
 	"github.com/sheafcalc/sheaf/engine/check"
@@ -23,10 +24,12 @@ type State struct {
 	// states never write either) and are copied on the first write.
 	ownProblem, ownOver bool
 	dirty               []int
-	mark                []uint32
-	gen                 uint32
-	done                bool
-	last                []int
+	// stale has one bit per position of Program.Order: the cells an
+	// incremental Eval must run. Reading the bits in order gives them in
+	// evaluation order without a sort; Eval leaves every bit clear.
+	stale []uint64
+	done  bool
+	last  []int
 	// lastShared is set while last is Program.Order itself, which must
 	// not be appended to.
 	lastShared bool
@@ -134,32 +137,47 @@ func (s *State) Eval() []int {
 	if len(s.dirty) == 0 {
 		return s.last
 	}
-	s.gen++
-	if s.gen == 0 { // wrapped: clear the marks once every 4 billion runs
-		clear(s.mark)
-		s.gen = 1
+	pos := s.M.topoPos
+	if s.stale == nil {
+		s.stale = make([]uint64, (len(p.Order)+63)/64)
 	}
-	g := s.gen
-	if s.mark == nil {
-		s.mark = make([]uint32, len(p.Cells))
+	stale := s.stale
+	mark := func(i int) bool {
+		k := pos[i]
+		w, b := k>>6, uint64(1)<<(k&63)
+		if stale[w]&b != 0 {
+			return false
+		}
+		stale[w] |= b
+		return true
 	}
+	// The cells downstream of the dirty ones, breadth first, in s.last
+	// as a work list; then s.last is rebuilt from the bits, in order.
 	for _, i := range s.dirty {
-		if s.mark[i] != g {
-			s.mark[i] = g
+		if mark(i) {
 			s.last = append(s.last, i)
 		}
 	}
 	s.dirty = s.dirty[:0]
 	for k := 0; k < len(s.last); k++ {
 		for _, u := range p.Users[s.last[k]] {
-			if s.mark[u] != g {
-				s.mark[u] = g
+			if mark(u) {
 				s.last = append(s.last, u)
 			}
 		}
 	}
-	pos := s.M.topoPos
-	slices.SortFunc(s.last, func(a, b int) int { return int(pos[a]) - int(pos[b]) })
+	n := len(s.last)
+	s.last = s.last[:0]
+	for w, word := range stale {
+		for word != 0 {
+			s.last = append(s.last, p.Order[w<<6+bits.TrailingZeros64(word)])
+			word &= word - 1
+		}
+		stale[w] = 0
+		if len(s.last) == n {
+			break
+		}
+	}
 	for _, i := range s.last {
 		s.run(i)
 	}

@@ -19,8 +19,6 @@ type parser struct {
 	inHeader bool
 	seenMeta map[string]diag.Range
 	// pre and cells hand out the cells of a large sheet (see alloc.go).
-	pre   *cellPrefetch
-	cells []cellUnit
 }
 
 // Parse reads a whole sheet.
@@ -49,8 +47,6 @@ func Parse(name string, src []byte, opts ...Option) (*File, diag.List) {
 	}
 	p.splitLines(p.bom)
 	p.file.Items = make([]Item, 0, len(p.lines))
-	p.startPrefetch()
-	defer p.stopPrefetch()
 	p.parseItems()
 	p.diags.Sort()
 	p.file.Syntax = p.diags

@@ -40,7 +40,7 @@ var listing = []entry{
 	{"W", "power"}, {"kW", "power"},
 	{"Hz", "frequency"},
 	{"1", "dimensionless"}, {"%", "dimensionless"}, {"‰", "dimensionless"}, {"µε", "strain"},
-	{"rad", "angle"}, {"deg", "angle"},
+	{"rad", "angle"}, {"deg", "angle"}, {"gon", "angle"},
 	{"A", "electric current"}, {"mol", "amount of substance"}, {"cd", "luminous intensity"},
 }
 
@@ -52,8 +52,9 @@ var quantities = []struct {
 }{
 	{"dimensionless", None},
 	{"strain", None},
-	{"angle", None},
 	{"ratio", None},
+	{"angle", dAngle},
+	{"plane angle", dAngle},
 	{"length", dLength},
 	{"displacement", dLength},
 	{"area", dimOf(2, 0, 0, 0, 0, 0, 0)},
@@ -100,7 +101,20 @@ var (
 	quantityNames  []string        // quantity names in listing order, for "did you mean"
 )
 
+// init builds every index of the package in one ordered step: the
+// quantity names first (Parse names the quantity of what it reads), then the
+// catalogue (Parse's fast path), then the preferred display units, which
+// are parsed with both in place. It is the package's only init function, so
+// the order never depends on how files are named.
 func init() {
+	buildCatalogue()
+	buildPreferred()
+}
+
+// buildCatalogue fills the quantity indexes, the catalogue and the
+// spellings "did you mean" offers. It panics on a listing that does not
+// parse, so a typo cannot ship.
+func buildCatalogue() {
 	quantityIndex = make(map[string]Dim, len(quantities))
 	defaultQty = make(map[Dim]string, len(quantities))
 	for _, q := range quantities {

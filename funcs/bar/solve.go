@@ -4,6 +4,8 @@ import (
 	"fmt"
 	"math"
 	"slices"
+
+	"github.com/sheafcalc/sheaf/funcs"
 )
 
 // piece is a stretch of one segment between joints and point loads, where
@@ -249,6 +251,7 @@ type Result struct {
 	Length         float64
 
 	v      *solver
+	layout funcs.BarLayout // what a drawing shows of the bar (see Layout)
 	pieces []piece
 	r0, u0 float64
 	pEnd   float64
@@ -273,7 +276,7 @@ func Solve(b *Bar, start, end Support) (*Result, error) {
 		return nil, err
 	}
 	nTot := ps[len(ps)-1].nc - pEnd // R_L when R₀ = 0
-	res := &Result{v: v, pieces: ps, pEnd: pEnd, Length: v.lt}
+	res := &Result{v: v, pieces: ps, pEnd: pEnd, Length: v.lt, layout: layoutOf(b, start, end)}
 	if err := res.solveEnds(start, end, fTot, gTot, nTot, scale); err != nil {
 		return nil, err
 	}

@@ -387,11 +387,9 @@ func (x *exporter) exprText(c *check.Cell, n *check.Node) string {
 // fieldUnit is the display unit of a record field: the unit written on
 // its literal, else the preferred unit of the sheet's system.
 func (x *exporter) fieldUnit(c *check.Cell, arg *check.Node, t *funcs.Type) units.Unit {
-	if arg != nil && c.Formula != nil {
-		for _, q := range c.Formula.Quantities {
-			if q.Range == arg.Range() && q.Unit.Factor != 0 {
-				return q.Unit
-			}
+	if arg != nil {
+		if q := arg.Quantity(); q != nil && q.Unit.Factor != 0 {
+			return q.Unit
 		}
 	}
 	if t == nil {

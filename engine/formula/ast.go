@@ -1,0 +1,163 @@
+package formula
+
+import (
+	"github.com/sheafcalc/sheaf/engine/diag"
+	"github.com/sheafcalc/sheaf/engine/sheet"
+	"github.com/sheafcalc/sheaf/engine/units"
+)
+
+// Kind says what a syntax node is.
+type Kind uint8
+
+const (
+	KNumber   Kind = iota // a plain number: Num(n)
+	KQuantity             // a number with a unit: Quantity(n)
+	KBool                 // true or false: Num(n) is 1 or 0
+	KString               // "text": Text(n) without the quotes is StringText(n)
+	KName                 // a name: Text(n)
+	KUnary                // Op A
+	KBinary               // A Op B
+	KCond                 // A ? B : C
+	KCall                 // B(args): B is the KName callee, args are Args(n)
+	KField                // A.B: B is the KName of the field
+	KIndex                // A[B]
+	KList                 // [args]
+	KRecord               // {k: v, ...}: Args(n) alternates KName keys and values
+	KParen                // (A): kept so that spans and printing keep the brackets
+)
+
+// Op is the operator of a KUnary or KBinary node.
+type Op uint8
+
+const (
+	OpNone Op = iota
+	OpNeg     // -x
+	OpPlus    // +x
+	OpNot     // not x
+	OpAdd     // +
+	OpSub     // -
+	OpMul     // *
+	OpDiv     // /
+	OpPow     // ^
+	OpLT      // <
+	OpLE      // <=
+	OpGT      // >
+	OpGE      // >=
+	OpEQ      // ==
+	OpNE      // !=
+	OpAnd     // and
+	OpOr      // or
+)
+
+var opText = [...]string{OpNone: "", OpNeg: "-", OpPlus: "+", OpNot: "not", OpAdd: "+", OpSub: "-",
+	OpMul: "*", OpDiv: "/", OpPow: "^", OpLT: "<", OpLE: "<=", OpGT: ">", OpGE: ">=", OpEQ: "==",
+	OpNE: "!=", OpAnd: "and", OpOr: "or"}
+
+// String returns the operator as written.
+func (o Op) String() string { return opText[o] }
+
+// IsComparison reports whether o compares two numbers.
+func (o Op) IsComparison() bool { return o >= OpLT && o <= OpNE }
+
+// Node is one node of a formula's syntax tree. Nodes live in the flat slice
+// Formula.Nodes and refer to each other by index, so that a formula is a
+// few allocations however many nodes it has, and a node is 24 bytes.
+type Node struct {
+	Kind Kind
+	Op   Op
+	// Callee marks a KName node that names the function of a call.
+	Callee bool
+	From   int32 // byte span of the node in the formula text, children included
+	To     int32
+	// A, B, C are child node indices (-1 when absent). For KNumber and
+	// KBool A indexes Formula.Nums; for KQuantity Formula.Quantities; for
+	// KCall, KList and KRecord C is the start of the arguments in
+	// Formula.Args and the count is in B for lists and records, in A for
+	// calls (whose B is the callee).
+	A, B, C int32
+}
+
+// Formula is one parsed expression of a sheet: its text, its syntax tree
+// and the names it refers to. Names and literal texts are slices of the
+// source text; positions are byte offsets turned into line:col only when a
+// message is printed.
+type Formula struct {
+	Source sheet.Expr // the expression as written, with its place in the file
+	Nodes  []Node
+	Root   int32 // index of the root node in Nodes (-1 when the text could not be parsed)
+	// Args holds the argument lists of calls, lists and records.
+	Args       []int32
+	Nums       []float64
+	Quantities []Quantity // quantity literals in order of appearance
+	// Refs are the KName nodes that name a value or a function (not the
+	// field names after a dot nor the keys of records), in order of
+	// appearance.
+	Refs []int32
+}
+
+// Quantity is a number written with a unit, such as `38 kN`.
+type Quantity struct {
+	Number   string     // the number as written, e.g. "38"
+	UnitText string     // the unit as written, e.g. "kN"
+	Value    float64    // the number's value, 38
+	Unit     units.Unit // the parsed unit (Factor 0 when it did not parse)
+	SI       float64    // Value in SI base units
+	From, To int32      // byte span of number and unit in the formula text
+}
+
+// Text returns the written text of node n (for a name, the name).
+func (f *Formula) Text(n int32) string {
+	nd := &f.Nodes[n]
+	return f.Source.Text[nd.From:nd.To]
+}
+
+// StringText returns the text of a KString node without its quotes.
+func (f *Formula) StringText(n int32) string {
+	nd := &f.Nodes[n]
+	return f.Source.Text[nd.From+1 : nd.To-1]
+}
+
+// Num returns the value of a KNumber or KBool node.
+func (f *Formula) Num(n int32) float64 { return f.Nums[f.Nodes[n].A] }
+
+// Quantity returns the literal of a KQuantity node.
+func (f *Formula) Quantity(n int32) *Quantity { return &f.Quantities[f.Nodes[n].A] }
+
+// QuantityText returns the literal as written, e.g. "38 kN".
+func (f *Formula) QuantityText(q *Quantity) string { return f.Source.Text[q.From:q.To] }
+
+// QuantityRange returns the sheet range of a quantity literal.
+func (f *Formula) QuantityRange(q *Quantity) diag.Range {
+	return f.Source.RangeAt(int(q.From), int(q.To))
+}
+
+// Args returns the arguments of a KCall, KList or KRecord node.
+func (f *Formula) ArgList(n int32) []int32 {
+	nd := &f.Nodes[n]
+	count := nd.B
+	if nd.Kind == KCall {
+		count = nd.A
+	}
+	return f.Args[nd.C : nd.C+count]
+}
+
+// Callee returns the name a KCall node calls.
+func (f *Formula) Callee(n int32) string { return f.Text(f.Nodes[n].B) }
+
+// Span returns the byte span of node n in the formula text.
+func (f *Formula) Span(n int32) (from, to int) {
+	nd := &f.Nodes[n]
+	return int(nd.From), int(nd.To)
+}
+
+// Range returns the sheet range of node n.
+func (f *Formula) Range(n int32) diag.Range {
+	nd := &f.Nodes[n]
+	return f.Source.RangeAt(int(nd.From), int(nd.To))
+}
+
+// RefName returns the name of reference i (an index into Refs).
+func (f *Formula) RefName(i int) string { return f.Text(f.Refs[i]) }
+
+// IsCallee reports whether the KName node n is the callee of a call.
+func (f *Formula) IsCallee(n int32) bool { return f.Nodes[n].Callee }

@@ -1,0 +1,643 @@
+package formula
+
+import (
+	"errors"
+	"strconv"
+	"strings"
+
+	"github.com/sheafcalc/sheaf/engine/diag"
+	"github.com/sheafcalc/sheaf/engine/sheet"
+	"github.com/sheafcalc/sheaf/engine/units"
+)
+
+// Options limit what a formula may hold.
+type Options struct {
+	MaxDepth int  // bracket and operator nesting; 0 means DefaultMaxDepth
+	MaxNodes uint // syntax tree nodes; 0 means 10,000
+}
+
+// DefaultMaxDepth is the default limit on expression nesting.
+const DefaultMaxDepth = 64
+
+// syntaxDetail is the detail line of a syntax error: what a formula may hold.
+const syntaxDetail = "formulas use + - * / ^, comparisons, `a ? b : c`, calls f(x), fields r.x, lists [a, b] and records {k: v}"
+
+// Parse parses the expression e. Problems come back as diagnostics with
+// positions in the sheet; the Formula is nil when the text cannot be
+// parsed. A formula whose units do not parse comes back with its tree and
+// the unit errors (the literal's Unit has Factor 0).
+func Parse(e sheet.Expr, opt Options) (*Formula, diag.List) {
+	f := &Formula{Source: e}
+	if ok, errs := f.ParseSource(opt); !ok {
+		return nil, errs
+	} else {
+		return f, errs
+	}
+}
+
+// ParseSource parses f.Source into f itself, for callers that allocated the
+// Formula already (the checker keeps one per cell). It reports false when
+// the text cannot be parsed, which is when Parse returns nil.
+func (f *Formula) ParseSource(opt Options) (bool, diag.List) {
+	*f = Formula{Source: f.Source, Root: -1}
+	if opt.MaxDepth <= 0 {
+		opt.MaxDepth = DefaultMaxDepth
+	}
+	if opt.MaxNodes == 0 {
+		opt.MaxNodes = 10000
+	}
+	e := f.Source
+	var errs diag.List
+	if strings.TrimSpace(e.Text) == "" {
+		errs.Errorf(e.Range, "an expression computes the value of the cell", "write a value such as `38 kN` or a formula such as `N / A`", "empty expression")
+		return false, errs
+	}
+	p := parser{f: f, lex: lexer{src: e.Text}, opt: opt, errs: &errs}
+	if !p.parse() {
+		errs.Sort()
+		return false, errs
+	}
+	if errs.HasErrors() {
+		errs.Sort()
+		return true, errs
+	}
+	return true, nil
+}
+
+// parser is a recursive-descent parser of SPEC.md §4; each method quotes
+// the rule it reads. The first syntax error stops it (a panic of
+// *syntaxError caught in parse): a formula is one line, and what follows a
+// slip is rarely worth a second message.
+type parser struct {
+	f     *Formula
+	lex   lexer
+	tok   token
+	prev  token // the token before tok
+	opt   Options
+	depth int
+	errs  *diag.List
+}
+
+func (p *parser) parse() (ok bool) {
+	defer func() {
+		if r := recover(); r != nil {
+			se, isSyntax := r.(*syntaxError)
+			if !isSyntax {
+				panic(r)
+			}
+			p.report(se)
+			ok = false
+		}
+	}()
+	// A formula has about one node per three bytes of text.
+	p.f.Nodes = make([]Node, 0, len(p.lex.src)/3+1)
+	p.next()
+	root := p.expression()
+	if p.tok.kind != tEOF {
+		p.unexpected()
+	}
+	p.f.Root = root
+	return true
+}
+
+func (p *parser) next() {
+	p.prev = p.tok
+	p.tok = p.lex.next()
+}
+
+func (p *parser) isOp(s string) bool { return p.tok.kind == tOp && p.tok.text == s }
+
+// add appends a node and returns its index.
+func (p *parser) add(n Node) int32 {
+	if uint(len(p.f.Nodes)) >= p.opt.MaxNodes {
+		panic(&syntaxError{from: int(n.From), to: int(n.To), summary: "the formula is too long",
+			detail: "a formula may hold at most " + strconv.FormatUint(uint64(p.opt.MaxNodes), 10) + " terms", hint: "split it into intermediate cells"})
+	}
+	p.f.Nodes = append(p.f.Nodes, n)
+	return int32(len(p.f.Nodes) - 1)
+}
+
+func (p *parser) span(n int32) (int32, int32) { return p.f.Nodes[n].From, p.f.Nodes[n].To }
+
+// enter counts one level of nesting; leave undoes it.
+func (p *parser) enter() {
+	p.depth++
+	if p.depth > p.opt.MaxDepth {
+		panic(&syntaxError{from: p.tok.from, to: max(p.tok.to, p.tok.from+1), summary: "expression nested too deeply",
+			detail: "operators and brackets may nest at most " + strconv.Itoa(p.opt.MaxDepth) + " levels deep", hint: "split the formula into intermediate cells"})
+	}
+}
+
+func (p *parser) leave() { p.depth-- }
+
+// expression = choice .
+// choice     = or [ "?" expression ":" expression ] .
+func (p *parser) expression() int32 {
+	p.enter()
+	defer p.leave()
+	c := p.or()
+	if !p.isOp("?") {
+		return c
+	}
+	p.next()
+	a := p.expression()
+	if !p.isOp(":") {
+		if p.tok.kind == tEOF {
+			p.fail(p.tok, "the formula ends too early", "a choice is written `condition ? value_if_true : value_if_false`")
+		}
+		p.fail(p.tok, "expected `:` of `a ? b : c`, found `"+p.tok.text+"`", "a choice is written `condition ? value_if_true : value_if_false`")
+	}
+	p.next()
+	b := p.expression()
+	from, _ := p.span(c)
+	_, to := p.span(b)
+	return p.add(Node{Kind: KCond, From: from, To: to, A: c, B: a, C: b})
+}
+
+// or  = and { "or" and } .
+func (p *parser) or() int32 {
+	x := p.and()
+	for p.isOp("or") {
+		p.next()
+		x = p.binary(OpOr, x, p.and())
+	}
+	return x
+}
+
+// and = not { "and" not } .
+func (p *parser) and() int32 {
+	x := p.not()
+	for p.isOp("and") {
+		p.next()
+		x = p.binary(OpAnd, x, p.not())
+	}
+	return x
+}
+
+// not = "not" not | compare .
+func (p *parser) not() int32 {
+	if !p.isOp("not") {
+		return p.compare()
+	}
+	from := p.tok.from
+	p.next()
+	p.enter()
+	defer p.leave()
+	x := p.not()
+	_, to := p.span(x)
+	return p.add(Node{Kind: KUnary, Op: OpNot, From: int32(from), To: to, A: x, B: -1, C: -1})
+}
+
+var compareOps = map[string]Op{"<": OpLT, "<=": OpLE, ">": OpGT, ">=": OpGE, "==": OpEQ, "!=": OpNE}
+
+func isCompare(s string) bool { _, ok := compareOps[s]; return ok }
+
+// compare = sum [ ( "<" | "<=" | ">" | ">=" | "==" | "!=" ) sum ] .
+//
+// Comparisons do not chain: `a < b < c` is an error.
+func (p *parser) compare() int32 {
+	x := p.sum()
+	if p.tok.kind != tOp {
+		return x
+	}
+	op, ok := compareOps[p.tok.text]
+	if !ok {
+		return x
+	}
+	p.next()
+	x = p.binary(op, x, p.sum())
+	if p.tok.kind == tOp && isCompare(p.tok.text) {
+		p.fail(p.tok, "comparisons do not chain",
+			"write each comparison on its own and join them: `a < b and b < c`")
+	}
+	return x
+}
+
+// sum = product { ( "+" | "-" ) product } .
+func (p *parser) sum() int32 {
+	x := p.product()
+	for p.tok.kind == tOp && (p.tok.text == "+" || p.tok.text == "-") {
+		op := OpAdd
+		if p.tok.text == "-" {
+			op = OpSub
+		}
+		p.next()
+		x = p.binary(op, x, p.product())
+	}
+	return x
+}
+
+// product = unary { ( "*" | "/" ) unary } .
+func (p *parser) product() int32 {
+	x := p.unary()
+	for p.tok.kind == tOp && (p.tok.text == "*" || p.tok.text == "/") {
+		op := OpMul
+		if p.tok.text == "/" {
+			op = OpDiv
+		}
+		p.next()
+		x = p.binary(op, x, p.unary())
+	}
+	return x
+}
+
+// unary = ( "-" | "+" ) unary | power .
+func (p *parser) unary() int32 {
+	if p.tok.kind != tOp || (p.tok.text != "-" && p.tok.text != "+") {
+		return p.power()
+	}
+	op := OpNeg
+	if p.tok.text == "+" {
+		op = OpPlus
+	}
+	from := p.tok.from
+	p.next()
+	p.enter()
+	defer p.leave()
+	x := p.unary()
+	_, to := p.span(x)
+	return p.add(Node{Kind: KUnary, Op: op, From: int32(from), To: to, A: x, B: -1, C: -1})
+}
+
+// power = postfix [ "^" unary ] .
+//
+// So `-x^2` is -(x^2), `2^-1` is 2^(-1) and `a^b^c` is a^(b^c).
+func (p *parser) power() int32 {
+	x := p.postfix()
+	if !p.isOp("^") {
+		return x
+	}
+	p.next()
+	p.enter()
+	defer p.leave()
+	return p.binary(OpPow, x, p.unary())
+}
+
+func (p *parser) binary(op Op, a, b int32) int32 {
+	from, _ := p.span(a)
+	_, to := p.span(b)
+	return p.add(Node{Kind: KBinary, Op: op, From: from, To: to, A: a, B: b, C: -1})
+}
+
+// postfix = primary { "." name | "[" expression "]" } .
+func (p *parser) postfix() int32 {
+	x := p.primary()
+	for p.tok.kind == tOp {
+		switch p.tok.text {
+		case ".":
+			p.next()
+			if p.tok.kind != tName {
+				p.expected("a field name after `.`", "write the field, as in `steel.f_y`")
+			}
+			name := p.name(false)
+			if p.isOp("(") {
+				p.fail(p.tok, "methods are not part of the sheet language", "pass the value as the first argument: `f(x)` rather than `x.f()`")
+			}
+			from, _ := p.span(x)
+			x = p.add(Node{Kind: KField, From: from, To: int32(p.prev.to), A: x, B: name, C: -1})
+		case "[":
+			p.next()
+			i := p.expression()
+			p.close("[", "]")
+			from, _ := p.span(x)
+			x = p.add(Node{Kind: KIndex, From: from, To: int32(p.prev.to), A: x, B: i, C: -1})
+		case "(":
+			p.fail(p.tok, "only named functions can be called", "write `f(x)` where f is a built-in, a plugin or a function of the sheet")
+		default:
+			return x
+		}
+	}
+	return x
+}
+
+// name makes a KName node of the current name token; ref says whether the
+// name refers to a value or a function (not a field or a record key).
+func (p *parser) name(ref bool) int32 {
+	t := p.tok
+	p.next()
+	n := p.add(Node{Kind: KName, From: int32(t.from), To: int32(t.to), A: -1, B: -1, C: -1})
+	if ref {
+		p.f.Refs = append(p.f.Refs, n)
+	}
+	return n
+}
+
+// primary = quantity | number | "true" | "false" | call | name
+//
+//	| "(" expression ")" | "[" [ args ] "]" | "{" [ field { "," field } ] "}" .
+func (p *parser) primary() int32 {
+	t := p.tok
+	switch t.kind {
+	case tNumber:
+		return p.number()
+	case tName:
+		switch t.text {
+		case "let", "if", "nil", "null", "map", "filter":
+			p.nonFeature(t)
+		}
+		if _, ok := p.lex.peekOpen(); ok {
+			return p.call()
+		}
+		return p.name(true)
+	case tString:
+		panic(&syntaxError{from: t.from, to: t.to, summary: "text is only allowed as a function argument",
+			detail: "a cell computes a number, a list, a record or a table; text such as \"fixed\" selects a mode of a function",
+			hint:   "remove the quotes, or pass the text to the function that needs it"})
+	case tEOF:
+		p.atEnd()
+	}
+	switch t.text {
+	case "true", "false":
+		p.next()
+		v := 0.0
+		if t.text == "true" {
+			v = 1
+		}
+		p.f.Nums = append(p.f.Nums, v)
+		return p.add(Node{Kind: KBool, From: int32(t.from), To: int32(t.to), A: int32(len(p.f.Nums) - 1), B: -1, C: -1})
+	case "(":
+		p.next()
+		x := p.expression()
+		p.close("(", ")")
+		return p.add(Node{Kind: KParen, From: int32(t.from), To: int32(p.prev.to), A: x, B: -1, C: -1})
+	case "[":
+		p.next()
+		if p.isOp("]") {
+			p.next()
+			return p.add(Node{Kind: KList, From: int32(t.from), To: int32(p.prev.to), A: -1, B: 0, C: int32(len(p.f.Args))})
+		}
+		args := p.args("[", "]", false)
+		return p.add(Node{Kind: KList, From: int32(t.from), To: int32(p.prev.to), A: -1, B: int32(len(args)), C: p.keep(args)})
+	case "{":
+		return p.record()
+	}
+	p.unexpected()
+	return -1
+}
+
+// number makes a KNumber or KQuantity node of the current number token.
+func (p *parser) number() int32 {
+	t := p.tok
+	p.next()
+	num := t.text[:t.numEnd-t.from]
+	v, out := parseNumber(num)
+	if out {
+		p.errs.Add(&diag.Diagnostic{Range: p.f.Source.RangeAt(t.from, t.numEnd), Summary: "the number `" + num + "` is out of range",
+			Detail: "numbers are 64-bit floating point: their magnitude must lie between about 2.2e-308 and 1.8e308", Hint: "check the exponent"})
+	}
+	if t.unitFrom == t.to {
+		p.f.Nums = append(p.f.Nums, v)
+		return p.add(Node{Kind: KNumber, From: int32(t.from), To: int32(t.to), A: int32(len(p.f.Nums) - 1), B: -1, C: -1})
+	}
+	q := Quantity{Number: num, UnitText: p.lex.src[t.unitFrom:t.to], Value: v, From: int32(t.from), To: int32(t.to)}
+	u, err := units.Parse(q.UnitText)
+	if err != nil {
+		p.errs.Add(p.unitDiag(t, err))
+	} else {
+		q.Unit, q.SI = u, v*u.Factor
+	}
+	p.f.Quantities = append(p.f.Quantities, q)
+	return p.add(Node{Kind: KQuantity, From: int32(t.from), To: int32(t.to), A: int32(len(p.f.Quantities) - 1), B: -1, C: -1})
+}
+
+// call = name "(" [ args ] ")" .
+func (p *parser) call() int32 {
+	t := p.tok
+	callee := p.name(true)
+	p.f.Nodes[callee].Callee = true
+	p.next() // (
+	if p.isOp(")") {
+		p.next()
+		return p.add(Node{Kind: KCall, From: int32(t.from), To: int32(p.prev.to), A: 0, B: callee, C: int32(len(p.f.Args))})
+	}
+	args := p.args("(", ")", true)
+	return p.add(Node{Kind: KCall, From: int32(t.from), To: int32(p.prev.to), A: int32(len(args)), B: callee, C: p.keep(args)})
+}
+
+// args = arg { "," arg } [ "," ] .
+// arg  = string | expression .
+//
+// It reads up to and including the closing bracket.
+func (p *parser) args(open, closing string, text bool) []int32 {
+	var args []int32
+	for {
+		if text && p.tok.kind == tString {
+			args = append(args, p.stringArg())
+		} else {
+			args = append(args, p.expression())
+		}
+		if p.isOp(",") {
+			p.next()
+			if p.isOp(closing) {
+				break // a trailing comma
+			}
+			continue
+		}
+		break
+	}
+	p.close(open, closing)
+	return args
+}
+
+// stringArg reads "text" that is a whole argument.
+func (p *parser) stringArg() int32 {
+	t := p.tok
+	p.next()
+	if p.tok.kind == tOp && (p.tok.text == "," || p.tok.text == ")" || p.tok.text == "}") {
+		return p.add(Node{Kind: KString, From: int32(t.from), To: int32(t.to), A: -1, B: -1, C: -1})
+	}
+	p.fail(t, "text is only allowed as a function argument", "pass the text on its own, as in f(x, \"fixed\")")
+	return -1
+}
+
+// keep appends args to the formula's argument lists and returns their start.
+func (p *parser) keep(args []int32) int32 {
+	start := int32(len(p.f.Args))
+	p.f.Args = append(p.f.Args, args...)
+	return start
+}
+
+// record = "{" [ field { "," field } ] "}" .
+// field  = name ":" ( string | expression ) .
+func (p *parser) record() int32 {
+	t := p.tok
+	p.next()
+	var args []int32
+	for !p.isOp("}") {
+		if p.tok.kind != tName {
+			if p.tok.kind == tEOF {
+				p.atEnd()
+			}
+			p.fail(p.tok, "a record field is written `name: value`", "write the fields as in `{E: 210 GPa, f_y: 355 MPa}`")
+		}
+		key := p.name(false)
+		if !p.isOp(":") {
+			p.fail(p.tok, "a record field is written `name: value`", "write the fields as in `{E: 210 GPa, f_y: 355 MPa}`")
+		}
+		p.next()
+		var v int32
+		if p.tok.kind == tString {
+			v = p.stringArg()
+		} else {
+			v = p.expression()
+		}
+		args = append(args, key, v)
+		if !p.isOp(",") {
+			break
+		}
+		p.next()
+	}
+	p.close("{", "}")
+	return p.add(Node{Kind: KRecord, From: int32(t.from), To: int32(p.prev.to), A: -1, B: int32(len(args)), C: p.keep(args)})
+}
+
+// close consumes the closing bracket of open or reports it missing.
+func (p *parser) close(open, closing string) {
+	if p.isOp(closing) {
+		p.next()
+		return
+	}
+	if p.tok.kind == tEOF {
+		p.fail(p.prev, "the formula ends before `"+closing+"`", "close `"+open+"` with `"+closing+"`")
+	}
+	p.unexpected()
+}
+
+// peekOpen reports whether the next non-space character is `(`.
+func (l *lexer) peekOpen() (int, bool) {
+	for i := l.pos; i < len(l.src); i++ {
+		switch l.src[i] {
+		case ' ', '\t', '\n', '\r':
+			continue
+		case '(':
+			return i, true
+		}
+		return i, false
+	}
+	return len(l.src), false
+}
+
+// fail stops at token t with a summary and a hint.
+func (p *parser) fail(t token, summary, hint string) {
+	to := t.to
+	if to <= t.from {
+		to = t.from + 1
+	}
+	panic(&syntaxError{from: t.from, to: to, summary: summary, detail: syntaxDetail, hint: hint})
+}
+
+func (p *parser) expected(what, hint string) {
+	if p.tok.kind == tEOF {
+		p.fail(p.prev, "expected "+what, hint)
+	}
+	p.fail(p.tok, "expected "+what+", found `"+p.tok.text+"`", hint)
+}
+
+// atEnd reports a formula that ends where a value is due.
+func (p *parser) atEnd() {
+	last := p.prev
+	switch {
+	case last.kind == tEOF:
+		p.fail(last, "the formula ends too early", "finish the expression")
+	case last.text == ".":
+		p.fail(last, "expected a field name after `.`", "write the field, as in `steel.f_y`")
+	case last.text == ",":
+		p.fail(last, "the formula ends after `,`", "write a value after `,`, or remove the comma")
+	case last.kind == tOp && needsValue(last.text):
+		p.fail(last, "the formula ends after `"+last.text+"`", "write a value after `"+last.text+"`, or remove the operator")
+	}
+	p.fail(last, "the formula ends too early", "finish the expression")
+}
+
+// unexpected reports the current token where it cannot stand.
+func (p *parser) unexpected() {
+	got, last := p.tok, p.prev
+	if got.kind == tEOF {
+		p.atEnd()
+	}
+	hint := ""
+	switch {
+	case got.text == "=":
+		hint = "a cell has one `=`; to compare two values write `==`, or `<=` in a check"
+	case (got.text == ")" || got.text == "]" || got.text == "}") && last.kind == tOp && (needsValue(last.text) || last.text == "."):
+		hint = "write a value after `" + last.text + "`"
+	case got.text == ")" || got.text == "]" || got.text == "}":
+		hint = "remove it, or open the matching bracket before it"
+	case got.text == "," && last.kind == tOp && (last.text == "," || last.text == "(" || last.text == "[" || last.text == "{"):
+		hint = "write a value before `,`, or remove the comma"
+	case got.text == ",":
+		hint = "a comma separates the arguments of a call or the items of a list or record"
+	case got.kind == tOp && needsValue(got.text) && last.kind == tOp && needsValue(last.text):
+		hint = "write a value between `" + last.text + "` and `" + got.text + "`"
+	case got.kind == tOp && needsValue(got.text):
+		hint = "write a value before `" + got.text + "`"
+	case got.text == ":" && !strings.Contains(p.lex.src[:got.from], "?"):
+		hint = "a choice is written `condition ? value_if_true : value_if_false`"
+	case last.kind != tEOF && !(last.kind == tOp && (needsValue(last.text) || strings.Contains("([{,.", last.text))):
+		// Two values side by side: `1 2`, `foo bar`, `2 m 3 m`.
+		hint = "write an operator between `" + last.text + "` and `" + got.text + "`, as in `" + last.text + " * " + got.text + "`"
+	}
+	p.fail(got, "unexpected `"+got.text+"`", hint)
+}
+
+// nonFeature reports a word that names a feature of other expression
+// languages that a sheet does not have.
+func (p *parser) nonFeature(t token) {
+	if _, ok := p.lex.peekOpen(); ok && (t.text == "map" || t.text == "filter") {
+		panic(&syntaxError{from: t.from, to: t.to, summary: "closures are not part of the sheet language",
+			detail: "a formula computes one value from cells, lists and tables", hint: "use sum(xs), min(xs), max(xs), mean(xs) or a table column"})
+	}
+	switch t.text {
+	case "let":
+		panic(&syntaxError{from: t.from, to: t.to, summary: "`let` is not part of the sheet language", detail: "each name is a cell of its own", hint: "write the intermediate value as its own cell"})
+	case "if":
+		panic(&syntaxError{from: t.from, to: t.to, summary: "`if` is not part of the sheet language", detail: "a formula chooses with `cond ? a : b`", hint: "write `x > 0 ? a : b`"})
+	case "nil", "null":
+		panic(&syntaxError{from: t.from, to: t.to, summary: "`" + t.text + "` is not part of the sheet language", detail: "every cell has a value", hint: "give the value, e.g. `0 kN`"})
+	}
+}
+
+// needsValue reports whether operator s needs a value after it.
+func needsValue(s string) bool {
+	switch s {
+	case "+", "-", "*", "/", "^", "?", ":", "==", "!=", "<", "<=", ">", ">=", "=", "and", "or", "not":
+		return true
+	}
+	return false
+}
+
+func (p *parser) report(se *syntaxError) {
+	e := p.f.Source
+	from, to := min(se.from, len(e.Text)), min(se.to, len(e.Text))
+	if from == to && from > 0 {
+		from--
+	}
+	p.errs.Add(&diag.Diagnostic{Range: e.RangeAt(from, to), Summary: se.summary, Detail: se.detail, Hint: se.hint})
+}
+
+// unitDiag turns a unit parse error into a diagnostic pointing into the
+// unit text.
+func (p *parser) unitDiag(t token, err error) *diag.Diagnostic {
+	e := p.f.Source
+	d := &diag.Diagnostic{
+		Range:   e.RangeAt(t.unitFrom, t.to),
+		Summary: err.Error(),
+		Detail:  "a number followed by a unit is a quantity: `38 kN`, `4.5 kN/m`, `12e-6 1/K`",
+		Hint:    "to multiply by a cell, write the operator: `2 * x`",
+	}
+	var ue *units.Error
+	if errors.As(err, &ue) {
+		from, to := t.unitFrom+ue.Offset, t.unitFrom+ue.End
+		if to <= from {
+			to = t.to
+		}
+		if from >= t.unitFrom && to <= t.to {
+			d.Range = e.RangeAt(from, to)
+		}
+		d.Summary = ue.Msg
+		if ue.Hint != "" {
+			d.Hint = ue.Hint
+		}
+	}
+	return d
+}

@@ -1,0 +1,76 @@
+package formula
+
+import "strings"
+
+// String prints the tree in a bracketed prefix form, one node per bracket:
+// `(+ x (* 2 (unit 38 kN)))`. Tests compare trees by this text.
+func (f *Formula) String() string {
+	if f.Root < 0 {
+		return "<none>"
+	}
+	var b strings.Builder
+	f.print(&b, f.Root)
+	return b.String()
+}
+
+func (f *Formula) print(b *strings.Builder, n int32) {
+	nd := &f.Nodes[n]
+	switch nd.Kind {
+	case KNumber, KBool, KString, KName:
+		b.WriteString(f.Text(n))
+	case KQuantity:
+		q := f.Quantity(n)
+		b.WriteString("(unit " + q.Number + " " + q.UnitText + ")")
+	case KUnary:
+		b.WriteString("(" + nd.Op.String() + " ")
+		f.print(b, nd.A)
+		b.WriteString(")")
+	case KBinary:
+		b.WriteString("(" + nd.Op.String() + " ")
+		f.print(b, nd.A)
+		b.WriteString(" ")
+		f.print(b, nd.B)
+		b.WriteString(")")
+	case KParen:
+		f.print(b, nd.A)
+	case KCond:
+		b.WriteString("(? ")
+		f.print(b, nd.A)
+		b.WriteString(" ")
+		f.print(b, nd.B)
+		b.WriteString(" ")
+		f.print(b, nd.C)
+		b.WriteString(")")
+	case KField:
+		b.WriteString("(. ")
+		f.print(b, nd.A)
+		b.WriteString(" " + f.Text(nd.B) + ")")
+	case KIndex:
+		b.WriteString("(index ")
+		f.print(b, nd.A)
+		b.WriteString(" ")
+		f.print(b, nd.B)
+		b.WriteString(")")
+	case KCall:
+		b.WriteString("(call " + f.Callee(n))
+		for _, a := range f.ArgList(n) {
+			b.WriteString(" ")
+			f.print(b, a)
+		}
+		b.WriteString(")")
+	case KList:
+		b.WriteString("(list")
+		for _, a := range f.ArgList(n) {
+			b.WriteString(" ")
+			f.print(b, a)
+		}
+		b.WriteString(")")
+	case KRecord:
+		b.WriteString("(record")
+		for _, a := range f.ArgList(n) {
+			b.WriteString(" ")
+			f.print(b, a)
+		}
+		b.WriteString(")")
+	}
+}
