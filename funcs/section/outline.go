@@ -10,13 +10,14 @@ import (
 // drawing of a sector (a root fillet, a rounded tube corner).
 const sectorSides = 16
 
-// Outline returns the regions of the shape for drawings: each polygon as
+// Outline returns the regions of the shape for drawings (its Draw regions
+// where it has them, so arcs show without construction edges): each polygon as
 // it is, each annulus as its outer circle and, when it has a bore, the bore
 // as a circle of the opposite sign, and each sector as a polygon through its
 // centre and points along its arc.
 func (s *Shape) Outline() []funcs.OutlineRegion {
 	var out []funcs.OutlineRegion
-	for _, r := range s.Regions {
+	for _, r := range s.drawRegions() {
 		switch {
 		case r.Ring != nil:
 			out = append(out, funcs.OutlineRegion{Sign: r.Sign, Y: r.Ring.Y, Z: r.Ring.Z})

@@ -227,7 +227,7 @@ func Cut(outer, hole *Shape) (*Shape, error) {
 	if outside := ah - common; outside > overlapTol*ah {
 		return nil, fmt.Errorf("%.6g mm² of the hole's %.6g mm² lie outside the material; a hole must lie inside the section and not overlap another hole", outside*1e6, ah*1e6)
 	}
-	out := &Shape{Regions: append([]Region(nil), outer.Regions...)}
+	out := &Shape{Regions: append([]Region(nil), outer.Regions...), Draw: combineDraw(outer, hole, -1)}
 	for _, r := range hole.Regions {
 		r.Sign = -r.Sign
 		out.Regions = append(out.Regions, r)
@@ -265,7 +265,7 @@ func Join(a, b *Shape) (*Shape, error) {
 	if err := Overlap(a, b); err != nil {
 		return nil, err
 	}
-	return &Shape{Regions: append(append([]Region(nil), a.Regions...), b.Regions...)}, nil
+	return &Shape{Regions: append(append([]Region(nil), a.Regions...), b.Regions...), Draw: combineDraw(a, b, 1)}, nil
 }
 
 // JoinAll joins shapes of which no two overlap.
@@ -274,6 +274,7 @@ func JoinAll(shapes []*Shape) (*Shape, error) {
 		return nil, errors.New("join needs at least one section")
 	}
 	out := &Shape{}
+	drawn := false
 	for i, s := range shapes {
 		for j := range i {
 			if err := Overlap(shapes[j], s); err != nil {
@@ -281,6 +282,12 @@ func JoinAll(shapes []*Shape) (*Shape, error) {
 			}
 		}
 		out.Regions = append(out.Regions, s.Regions...)
+		drawn = drawn || s.Draw != nil
+	}
+	if drawn {
+		for _, s := range shapes {
+			out.Draw = append(out.Draw, s.drawRegions()...)
+		}
 	}
 	return out, nil
 }

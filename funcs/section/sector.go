@@ -144,10 +144,42 @@ func RolledI(h, b, tw, tf, r float64) (*Shape, error) {
 		g.Sign = -1
 		return g
 	}
+	// The drawing: one outline with the fillets as arcs.
+	const n = 16
+	var dy, dz []float64
+	add := func(y, z float64) { dy, dz = append(dy, y), append(dz, z) }
+	add(-y1, -z1)
+	add(y1, -z1)
+	add(y1, -z2)
+	dy, dz = appendArc(dy, dz, y3, -z3, r, 3*math.Pi/2, math.Pi, n)
+	dy, dz = appendArc(dy, dz, y3, z3, r, math.Pi, math.Pi/2, n)
+	add(y1, z2)
+	add(y1, z1)
+	add(-y1, z1)
+	add(-y1, z2)
+	dy, dz = appendArc(dy, dz, -y3, z3, r, math.Pi/2, 0, n)
+	dy, dz = appendArc(dy, dz, -y3, -z3, r, 0, -math.Pi/2, n)
+	add(-y1, -z2)
 	return &Shape{Regions: []Region{
 		{Sign: 1, Ring: ring},
 		hole(y3, -z3, 2), hole(y3, z3, 1), hole(-y3, z3, 0), hole(-y3, -z3, 3),
-	}}, nil
+	}, Draw: []Region{{Sign: 1, Ring: &Ring{Y: dy, Z: dz}}}}, nil
+}
+
+// roundedRing is the outline of the b × h rectangle with corners of radius
+// rho as a polygon, for drawings.
+func roundedRing(b, h, rho float64) *Ring {
+	if rho == 0 {
+		return rectRing(-b/2, -h/2, b/2, h/2)
+	}
+	const n = 16
+	y2, z2 := b/2-rho, h/2-rho
+	var ys, zs []float64
+	ys, zs = appendArc(ys, zs, y2, -z2, rho, -math.Pi/2, 0, n)
+	ys, zs = appendArc(ys, zs, y2, z2, rho, 0, math.Pi/2, n)
+	ys, zs = appendArc(ys, zs, -y2, z2, rho, math.Pi/2, math.Pi, n)
+	ys, zs = appendArc(ys, zs, -y2, -z2, rho, math.Pi, 3*math.Pi/2, n)
+	return &Ring{Y: ys, Z: zs}
 }
 
 // roundedRect is the b × h rectangle centred at the origin with corners
@@ -185,8 +217,9 @@ func RoundedRHS(b, h, t, ro, ri float64) (*Shape, error) {
 	if 2*ro >= math.Min(b, h) || 2*ri >= math.Min(b, h)-2*t {
 		return nil, fmt.Errorf("corner radii r_o = %g m, r_i = %g m do not fit a %g m × %g m tube of wall %g m", ro, ri, b, h, t)
 	}
-	s := &Shape{Regions: append(roundedRect(b, h, ro, 1), roundedRect(b-2*t, h-2*t, ri, -1)...)}
-	s.Core = &Shape{Regions: roundedRect(b-2*t, h-2*t, ri, 1)}
+	s := &Shape{Regions: append(roundedRect(b, h, ro, 1), roundedRect(b-2*t, h-2*t, ri, -1)...),
+		Draw: []Region{{Sign: 1, Ring: roundedRing(b, h, ro)}, {Sign: -1, Ring: roundedRing(b-2*t, h-2*t, ri)}}}
+	s.Core = &Shape{Regions: roundedRect(b-2*t, h-2*t, ri, 1), Draw: []Region{{Sign: 1, Ring: roundedRing(b-2*t, h-2*t, ri)}}}
 	return s, nil
 }
 

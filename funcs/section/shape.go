@@ -39,6 +39,11 @@ type Shape struct {
 	// the tube constructors so that a fill can be made with CoreOf; nil
 	// for other shapes.
 	Core *Shape
+	// Draw, when set, is what a drawing shows instead of Regions: the same
+	// material with its arcs as polylines and no construction edges (a
+	// rolled profile's fillets are squares less quarter circles in Regions,
+	// which would draw as boxes). Properties never read it.
+	Draw []Region
 }
 
 // NewRing checks and normalises a polygon: at least three distinct vertices,
@@ -204,29 +209,69 @@ func (s *Shape) Transform(dy, dz, rot float64) *Shape {
 	move := func(y, z float64) (float64, float64) {
 		return cos*y - sin*z + dy, sin*y + cos*z + dz
 	}
-	out := &Shape{Regions: make([]Region, len(s.Regions))}
-	for k, r := range s.Regions {
-		nr := Region{Sign: r.Sign}
-		if r.Ring != nil {
-			ring := &Ring{Y: make([]float64, len(r.Ring.Y)), Z: make([]float64, len(r.Ring.Z))}
-			for i := range r.Ring.Y {
-				ring.Y[i], ring.Z[i] = move(r.Ring.Y[i], r.Ring.Z[i])
+	moveAll := func(regs []Region) []Region {
+		out := make([]Region, len(regs))
+		for k, r := range regs {
+			nr := Region{Sign: r.Sign}
+			if r.Ring != nil {
+				ring := &Ring{Y: make([]float64, len(r.Ring.Y)), Z: make([]float64, len(r.Ring.Z))}
+				for i := range r.Ring.Y {
+					ring.Y[i], ring.Z[i] = move(r.Ring.Y[i], r.Ring.Z[i])
+				}
+				nr.Ring = ring
+			} else if r.Sec != nil {
+				c := *r.Sec
+				c.Yc, c.Zc = move(c.Yc, c.Zc)
+				c.Th0 += rot
+				nr.Sec = &c
+			} else {
+				a := *r.Ann
+				a.Yc, a.Zc = move(a.Yc, a.Zc)
+				nr.Ann = &a
 			}
-			nr.Ring = ring
-		} else if r.Sec != nil {
-			c := *r.Sec
-			c.Yc, c.Zc = move(c.Yc, c.Zc)
-			c.Th0 += rot
-			nr.Sec = &c
-		} else {
-			a := *r.Ann
-			a.Yc, a.Zc = move(a.Yc, a.Zc)
-			nr.Ann = &a
+			out[k] = nr
 		}
-		out.Regions[k] = nr
+		return out
+	}
+	out := &Shape{Regions: moveAll(s.Regions)}
+	if s.Draw != nil {
+		out.Draw = moveAll(s.Draw)
 	}
 	if s.Core != nil {
 		out.Core = s.Core.Transform(dy, dz, rot)
 	}
 	return out
+}
+
+// drawRegions is what a drawing of s shows.
+func (s *Shape) drawRegions() []Region {
+	if s.Draw != nil {
+		return s.Draw
+	}
+	return s.Regions
+}
+
+// combineDraw is the drawing of the regions of a followed by those of b
+// with their signs multiplied by sign, or nil when neither has a drawing of
+// its own.
+func combineDraw(a, b *Shape, sign float64) []Region {
+	if a.Draw == nil && b.Draw == nil {
+		return nil
+	}
+	out := append([]Region(nil), a.drawRegions()...)
+	for _, r := range b.drawRegions() {
+		r.Sign *= sign
+		out = append(out, r)
+	}
+	return out
+}
+
+// appendArc appends the points of the arc of radius r about (yc, zc) from
+// angle t0 to t1 (either way), both ends included, n segments.
+func appendArc(ys, zs []float64, yc, zc, r, t0, t1 float64, n int) ([]float64, []float64) {
+	for k := range n + 1 {
+		sn, cs := math.Sincos(t0 + (t1-t0)*float64(k)/float64(n))
+		ys, zs = append(ys, yc+r*cs), append(zs, zc+r*sn)
+	}
+	return ys, zs
 }
