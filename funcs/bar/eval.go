@@ -16,6 +16,7 @@ type solver struct {
 	b0, b1  float64   // linear distributed load
 	gamma   float64
 	fns     []Fn
+	patches []Patch
 	hasDist bool // any distributed load at all
 	fail    error
 }
@@ -120,6 +121,9 @@ func (v *solver) loadInt(i int, a, x float64) (float64, error) {
 		return 0, nil
 	}
 	r := v.b0*(x-a) + (v.b1-v.b0)/(2*v.lt)*(x-a)*(x+a)
+	for k := range v.patches {
+		r += v.patches[k].integral(a, x)
+	}
 	if v.gamma != 0 {
 		ai, err := v.areaInt(i, a, x)
 		if err != nil {
