@@ -99,6 +99,7 @@ func TestExitCodes(t *testing.T) {
 		{"run bad set", []string{"run", fx + "ok.sheaf", "--set", "P=3 m"}, "", 2, "", "must be a force", false},
 		{"run stdin", []string{"run", "-"}, string(okSrc), 0, "The design check is ok.", "", false},
 		{"run over max-bytes", []string{"run", "--max-bytes", "10", fx + "ok.sheaf"}, "", 2, "", "too large", false},
+		{"run stdin over max-bytes", []string{"run", "--max-bytes", "10", "-"}, string(okSrc), 2, "", "larger than the limit of 10 bytes", false},
 		{"run over max-lines", []string{"run", "--max-lines", "2", fx + "ok.sheaf"}, "", 2, "", "too many lines", false},
 		{"run bad system", []string{"run", "--system", "mars", fx + "ok.sheaf"}, "", 2, "", "unknown unit system", false},
 
