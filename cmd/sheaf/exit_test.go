@@ -271,3 +271,23 @@ func TestCompletion(t *testing.T) {
 		})
 	}
 }
+
+// TestWatchExitsZeroOnInterrupt: watch, the one command that runs until
+// stopped, exits 0 when interrupted (Ctrl-C), through the built binary.
+func TestWatchExitsZeroOnInterrupt(t *testing.T) {
+	cmd := exec.Command(binary, "watch", "testdata/exit/ok.sheaf")
+	var out, errb syncBuffer
+	cmd.Stdout, cmd.Stderr = &out, &errb
+	if err := cmd.Start(); err != nil {
+		t.Fatal(err)
+	}
+	waitFor(t, &out, "watching testdata/exit/ok.sheaf")
+	if err := cmd.Process.Signal(os.Interrupt); err != nil {
+		t.Fatal(err)
+	}
+	err := cmd.Wait()
+	var ee *exec.ExitError
+	if errors.As(err, &ee) || err != nil {
+		t.Fatalf("watch after Ctrl-C: %v\n%s", err, errb.String())
+	}
+}
