@@ -110,6 +110,9 @@ func TestExitCodes(t *testing.T) {
 		{"run json uncomputed draft", []string{"run", "--json", "--draft", fx + "uncomputed.sheaf"}, "", 0, `"kind": "runtime"`, "", true},
 		{"run json sheet error", []string{"run", "--json", fx + "broken.sheaf"}, "", 2, `"kind": "sheet"`, "", true},
 		{"run json missing file", []string{"run", "--json", fx + "nosuch.sheaf"}, "", 2, `"kind": "input"`, "", true},
+		{"run json bad flag", []string{"run", "--json", "--frob", fx + "ok.sheaf"}, "", 2, "unknown flag", "", true},
+		{"run json no file", []string{"run", "--json"}, "", 2, "accepts 1 arg", "", true},
+		{"batch json one argument", []string{"batch", fx + "ok.sheaf", "--json"}, "", 2, "accepts 2 arg", "", true},
 		{"run json bad set", []string{"run", "--json", fx + "ok.sheaf", "--set", "P=3 m"}, "", 2, "must be a force", "", true},
 
 		{"check ok", []string{"check", fx + "ok.sheaf"}, "", 0, "ok: 2 cells, 1 checks", "", false},

@@ -5,12 +5,15 @@ import (
 	"fmt"
 	"io"
 	"runtime/debug"
+	"slices"
 	"strings"
 
 	"github.com/spf13/cobra"
 
 	"github.com/sheafcalc/sheaf/engine"
+	"github.com/sheafcalc/sheaf/engine/batch"
 	"github.com/sheafcalc/sheaf/engine/diag"
+	"github.com/sheafcalc/sheaf/engine/diff"
 	"github.com/sheafcalc/sheaf/engine/export/jsonout"
 	"github.com/sheafcalc/sheaf/internal/plural"
 )
@@ -95,7 +98,7 @@ func jsonFailure(a *app, schema, path string, err error) error {
 
 // inputArgs makes the argument check of a command an input error (exit 2)
 // that says what the command takes.
-func inputArgs(cmd *cobra.Command) {
+func inputArgs(a *app, cmd *cobra.Command) {
 	check := cmd.Args
 	if check == nil {
 		return
@@ -104,12 +107,30 @@ func inputArgs(cmd *cobra.Command) {
 		if err := check(c, args); err != nil {
 			var in *inputError
 			if errors.As(err, &in) {
-				return err
+				return jsonEarly(a, c, err)
 			}
-			return userErrorf("%s: %v; usage: %s", c.Name(), err, c.UseLine())
+			return jsonEarly(a, c, userErrorf("%s: %v; usage: %s", c.Name(), err, c.UseLine()))
 		}
 		return nil
 	}
+}
+
+// jsonSchemas names the JSON document of each command that has --json.
+var jsonSchemas = map[string]string{
+	"run": jsonout.Schema, "check": checkSchema, "diff": diff.Schema, "batch": batch.Schema, "funcs": funcsSchema,
+}
+
+// jsonEarly turns an error found before a command runs (a bad flag or a
+// wrong number of arguments) into the JSON failure document on stdout
+// when the command line asks for --json, so that even then a JSON
+// consumer gets a document. The command line is read as written: the
+// flags may not have been parsed up to --json when the error came.
+func jsonEarly(a *app, c *cobra.Command, err error) error {
+	schema, ok := jsonSchemas[c.Name()]
+	if !ok || !slices.ContainsFunc(a.args, func(s string) bool { return s == "--json" || s == "--json=true" }) {
+		return err
+	}
+	return jsonFailure(a, schema, "", err)
 }
 
 // version is set at build time with -ldflags "-X main.version=..."; otherwise
@@ -121,6 +142,7 @@ type app struct {
 	stdin  io.Reader
 	stdout io.Writer
 	stderr io.Writer
+	args   []string // the command line, for errors found before a command runs (jsonEarly)
 }
 
 // checksFailedError reports that evaluation succeeded but design checks failed.
@@ -199,8 +221,8 @@ combinations come from the local code and licensed practice.`,
 	root.SetIn(a.stdin)
 	root.SetOut(a.stdout)
 	root.SetErr(a.stderr)
-	root.SetFlagErrorFunc(func(_ *cobra.Command, err error) error {
-		return &inputError{err}
+	root.SetFlagErrorFunc(func(c *cobra.Command, err error) error {
+		return jsonEarly(a, c, &inputError{err})
 	})
 	// With no command, sheaf prints its help; a word that is no command is
 	// wrong input (exit 2), with the nearest command as a hint.
@@ -232,7 +254,7 @@ combinations come from the local code and licensed practice.`,
 		newNewCmd(a),
 	)
 	for _, c := range root.Commands() {
-		inputArgs(c)
+		inputArgs(a, c)
 		if c.ValidArgsFunction == nil && c.Name() != "units" && c.Name() != "funcs" {
 			c.ValidArgsFunction = completeSheets
 		}
@@ -252,7 +274,7 @@ func Main(args []string, stdin io.Reader, stdout, stderr io.Writer) (code int) {
 			code = exitInternal
 		}
 	}()
-	a := &app{stdin: stdin, stdout: stdout, stderr: stderr}
+	a := &app{stdin: stdin, stdout: stdout, stderr: stderr, args: args}
 	return execute(newRootCmd(a), args, stderr)
 }
 
