@@ -168,6 +168,9 @@ func TestExitCodes(t *testing.T) {
 		{"new exists", []string{"new", fx + "ok.sheaf", fx + "fails.sheaf"}, "", 2, "", "exists", false},
 		{"new missing template", []string{"new", fx + "nosuch.sheaf", "{tmp}/x.sheaf"}, "", 2, "", "", false},
 
+		{"completion", []string{"completion", "bash"}, "", 0, "bash completion", "", false},
+		{"completion of an unknown shell", []string{"completion", "tcsh"}, "", 2, "", `unknown command "tcsh" for "sheaf completion"`, false},
+		{"help of an unknown command", []string{"help", "frob"}, "", 2, "", `unknown command "frob"`, false},
 		{"watch missing file", []string{"watch", fx + "nosuch.sheaf"}, "", 2, "", "no such file", false},
 		{"watch no file", []string{"watch"}, "", 2, "", "accepts 1 arg", false},
 	}

@@ -115,6 +115,27 @@ func inputArgs(a *app, cmd *cobra.Command) {
 	}
 }
 
+// unknownCommand refuses the first argument of a command that takes none
+// but subcommands (sheaf, sheaf completion) as an unknown command (exit 2),
+// with the nearest one as a hint.
+func unknownCommand(c *cobra.Command, args []string) error {
+	if len(args) == 0 {
+		return nil
+	}
+	msg := fmt.Sprintf("unknown command %q", args[0])
+	if c.HasParent() {
+		msg = fmt.Sprintf("unknown command %q for %q", args[0], c.CommandPath())
+	}
+	var names []string
+	for _, sub := range c.Commands() {
+		names = append(names, sub.Name())
+	}
+	if sug := diag.Nearest(args[0], names); sug != "" {
+		msg += fmt.Sprintf("; did you mean %q?", sug)
+	}
+	return userErrorf("%s; see %s --help for the commands", msg, c.CommandPath())
+}
+
 // jsonSchemas names the JSON document of each command that has --json.
 var jsonSchemas = map[string]string{
 	"run": jsonout.Schema, "check": checkSchema, "diff": diff.Schema, "batch": batch.Schema, "funcs": funcsSchema,
@@ -226,20 +247,7 @@ combinations come from the local code and licensed practice.`,
 	})
 	// With no command, sheaf prints its help; a word that is no command is
 	// wrong input (exit 2), with the nearest command as a hint.
-	root.Args = func(c *cobra.Command, args []string) error {
-		if len(args) == 0 {
-			return nil
-		}
-		msg := fmt.Sprintf("unknown command %q", args[0])
-		var names []string
-		for _, sub := range c.Commands() {
-			names = append(names, sub.Name())
-		}
-		if sug := diag.Nearest(args[0], names); sug != "" {
-			msg += fmt.Sprintf("; did you mean %q?", sug)
-		}
-		return userErrorf("%s; see sheaf --help for the commands", msg)
-	}
+	root.Args = unknownCommand
 	root.RunE = func(c *cobra.Command, _ []string) error { return c.Help() }
 	root.AddCommand(
 		newUnitsCmd(a),
@@ -253,9 +261,30 @@ combinations come from the local code and licensed practice.`,
 		newWatchCmd(a),
 		newNewCmd(a),
 	)
+	// cobra adds help and completion when it runs; adding them now gives
+	// them the exit table too.
+	root.InitDefaultHelpCmd()
+	root.InitDefaultCompletionCmd()
+	for _, c := range root.Commands() {
+		switch c.Name() {
+		case "completion": // `sheaf completion tcsh`: an unknown shell
+			c.Args = unknownCommand
+			c.RunE = func(c *cobra.Command, _ []string) error { return c.Help() }
+		case "help": // `sheaf help frob`: an unknown topic
+			show := c.Run
+			c.Run = nil
+			c.RunE = func(c *cobra.Command, args []string) error {
+				if found, _, err := root.Find(args); err != nil || (len(args) > 0 && found == root) {
+					return unknownCommand(root, args)
+				}
+				show(c, args)
+				return nil
+			}
+		}
+	}
 	for _, c := range root.Commands() {
 		inputArgs(a, c)
-		if c.ValidArgsFunction == nil && c.Name() != "units" && c.Name() != "funcs" {
+		if c.ValidArgsFunction == nil && !slices.Contains([]string{"units", "funcs", "help", "completion"}, c.Name()) {
 			c.ValidArgsFunction = completeSheets
 		}
 		if c.Long != "" && !strings.Contains(c.Long, exitTable) {
