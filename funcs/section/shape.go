@@ -260,7 +260,7 @@ func Cut(outer, hole *Shape) (*Shape, error) {
 		}
 		for _, p := range r.boundarySamples() {
 			if outer.Density(p[0], p[1]) < 0.5 {
-				return nil, fmt.Errorf("the hole reaches outside the material at y = %.6g m, z = %.6g m; a hole must lie inside the section and not overlap another hole", p[0], p[1])
+				return nil, fmt.Errorf("the hole reaches outside the material at y = %s, z = %s; a hole must lie inside the section and not overlap another hole", funcs.Length(p[0]), funcs.Length(p[1]))
 			}
 		}
 	}
