@@ -149,7 +149,7 @@ func builders() []*funcs.Def {
 				return withBar(args, func(b *Bar) error {
 					for i := range xs {
 						if !finite(xs[i]) || !finite(ps[i]) {
-							return fmt.Errorf("point load row %d: x = %g m, P = %g N must be finite numbers", i+1, xs[i], ps[i])
+							return fmt.Errorf("point load row %d: x = %s, P = %s must be finite numbers", i+1, funcs.Length(xs[i]), funcs.Quantity(ps[i], funcs.Force))
 						}
 						b.Points = append(b.Points, PointLoad{X: xs[i], P: ps[i]})
 					}

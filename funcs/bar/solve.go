@@ -142,7 +142,7 @@ func (v *solver) build(points []PointLoad) (ps []piece, pEnd, scale, f, g float6
 	pts := slices.Clone(points)
 	for k, p := range pts {
 		if !finite(p.X) || !finite(p.P) {
-			return nil, 0, 0, 0, 0, fmt.Errorf("point load %d: x = %g m, P = %g N must be finite numbers", k+1, p.X, p.P)
+			return nil, 0, 0, 0, 0, fmt.Errorf("point load %d: x = %s, P = %s must be finite numbers", k+1, funcs.Length(p.X), funcs.Quantity(p.P, funcs.Force))
 		}
 		if p.X < -tol || p.X > v.lt+tol {
 			return nil, 0, 0, 0, 0, fmt.Errorf("point load %d at x = %s lies outside the bar (0 … %s); hint: positions are measured from the start of the bar", k+1, funcs.Length(p.X), funcs.Length(v.lt))
@@ -390,7 +390,7 @@ func (r *Result) solveEnds(start, end Support, fTot, gTot, nTot, scale float64) 
 		return nil
 	}
 	if singular {
-		return fmt.Errorf("the bar is not held along its axis (start %s, end %s) and its loads do not balance (net %g N); hint: fix one end, or give an end a spring or a stop", start, end, -nTot)
+		return fmt.Errorf("the bar is not held along its axis (start %s, end %s) and its loads do not balance (net %s); hint: fix one end, or give an end a spring or a stop", start, end, funcs.Quantity(-nTot, funcs.Force))
 	}
 	return fmt.Errorf("no consistent state of the gaps was found (start %s, end %s); hint: check the clearances and stop stiffnesses", start, end)
 }

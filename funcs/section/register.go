@@ -241,7 +241,7 @@ func init() {
 			dy, dz := num(a[1]), num(a[2])
 			for _, v := range []float64{dy, dz, rot} {
 				if math.IsNaN(v) || math.IsInf(v, 0) {
-					return nil, fmt.Errorf("place needs finite shifts and angle, got dy = %g m, dz = %g m, rot = %g rad", dy, dz, rot)
+					return nil, fmt.Errorf("place needs finite shifts and angle, got dy = %s, dz = %s, rot = %.4g rad", funcs.Length(dy), funcs.Length(dz), rot)
 				}
 			}
 			return Record(s.Transform(dy, dz, rot)), nil
