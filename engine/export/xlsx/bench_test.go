@@ -51,6 +51,27 @@ func BenchmarkExport10k(b *testing.B) {
 	}
 }
 
+// BenchmarkExport2k is the same at a realistic size for a large
+// calculation: 2,000 cells.
+func BenchmarkExport2k(b *testing.B) {
+	s := compile(b, "gen.sheaf", genSheet(2000))
+	r := s.NewState().Eval()
+	b.ReportAllocs()
+	for b.Loop() {
+		f, st, err := Build(s, r, Options{})
+		if err != nil {
+			b.Fatal(err)
+		}
+		if st.Live != 1800 {
+			b.Fatalf("live %d", st.Live)
+		}
+		if _, err := f.WriteTo(io.Discard); err != nil {
+			b.Fatal(err)
+		}
+		_ = f.Close()
+	}
+}
+
 // TestGeneratedSheet keeps the benchmark honest: its formulas compute
 // what Sheaf does.
 func TestGeneratedSheet(t *testing.T) {

@@ -72,6 +72,9 @@ type exporter struct {
 	opaque   []bool
 	reads    [][]string
 	stats    Stats
+	// templates holds the syntax trees of templates whose tables are
+	// exported (see tableColumns).
+	templates map[string]*sheet.File
 }
 
 // Build makes the workbook of sheet s with results r (from s.NewState()
@@ -420,11 +423,7 @@ func (x *exporter) tableUnits(c *check.Cell, t *funcs.TableValue) []units.Unit {
 	out := make([]units.Unit, len(t.Type.Fields))
 	var cols []sheet.Column
 	if c != nil && c.Kind == engine.Table {
-		for _, it := range x.s.File().Items {
-			if tb, ok := it.(*sheet.Table); ok && tb.Name.Name == c.Name {
-				cols = tb.Columns
-			}
-		}
+		cols = x.tableColumns(c)
 	}
 	for i, f := range t.Type.Fields {
 		out[i] = x.preferred(f.Type.Dim)
@@ -437,6 +436,49 @@ func (x *exporter) tableUnits(c *check.Cell, t *funcs.TableValue) []units.Unit {
 		}
 	}
 	return out
+}
+
+// tableColumns returns the header of the table item that wrote cell c, in
+// the file it was written in: the sheet, or the template a `use` inlined
+// it from (there its name is the template's own, without the scope).
+//
+// The checked program does not keep the syntax trees of its files, and
+// Sheet.File gives the sheet's own only, so a template's header is read
+// by parsing the template's text again, once per file and only when one
+// of its tables is exported. This is a stopgap until the checked program
+// carries the written unit of each table column (issue 9); before it, a
+// template's table was shown in the preferred unit under a header the
+// template does not have (lengths written in cm shown in mm).
+func (x *exporter) tableColumns(c *check.Cell) []sheet.Column {
+	name := strings.TrimPrefix(c.Name, c.Scope)
+	var file *sheet.File
+	if c.Pos.File == x.s.Name() {
+		file = x.s.File()
+	} else {
+		if x.templates == nil {
+			x.templates = map[string]*sheet.File{}
+		}
+		f, done := x.templates[c.Pos.File]
+		if !done {
+			for _, pf := range x.s.Program().Files {
+				if pf != nil && pf.Name == c.Pos.File {
+					f, _ = sheet.Parse(pf.Name, pf.Src)
+					break
+				}
+			}
+			x.templates[c.Pos.File] = f
+		}
+		file = f
+	}
+	if file == nil {
+		return nil
+	}
+	for _, it := range file.Items {
+		if tb, ok := it.(*sheet.Table); ok && tb.Name.Name == name {
+			return tb.Columns
+		}
+	}
+	return nil
 }
 
 func (x *exporter) addTable(path, desc string, t *funcs.TableValue, us []units.Unit, input bool) {
