@@ -15,6 +15,7 @@ import (
 // Columns of the Calculation tab.
 const (
 	colValue = "E"
+	colNote  = "H"
 )
 
 // calcCols is the number of columns of the Calculation tab.
@@ -33,6 +34,7 @@ const (
 	noteFunction  = "function: inlined in the formulas that call it"
 	noteValueOnly = "value from Sheaf, not recomputed here: "
 	notePartly    = "recomputes, but inputs reach it only through values from Sheaf: "
+	noteLocked    = "(locked: values only Sheaf computes depend on it; change it in the sheet and run Sheaf)"
 )
 
 // text returns a string cell. Strings are always written as strings, so a
@@ -52,6 +54,9 @@ func (x *exporter) writeCalc() error {
 	// Print setup and protection go on before streaming: the stream
 	// writer keeps what the tab had, but drops what is set after it.
 	if err := x.finishTab(TabCalc, true); err != nil {
+		return err
+	}
+	if err := x.staleColours(); err != nil {
 		return err
 	}
 	sw, err := x.f.NewStreamWriter(TabCalc)
@@ -103,8 +108,41 @@ func (x *exporter) writeCalc() error {
 			return err
 		}
 	}
-	if err := sw.Flush(); err != nil {
-		return err
+	return sw.Flush()
+}
+
+// staleColours marks each guarded value and its note by conditional
+// formatting once an input it depends on has changed.
+func (x *exporter) staleColours() error {
+	id := -1
+	for i := range x.rows {
+		r := &x.rows[i]
+		var keys []int32
+		switch r.kind {
+		case rowCell:
+			keys = x.stale[r.cr.Cell.Index]
+		case rowField:
+			keys = x.stale[r.cell]
+		}
+		g := x.guardExpr(keys)
+		if g == "" {
+			continue
+		}
+		if id < 0 {
+			var err error
+			id, err = x.f.NewConditionalStyle(&excelize.Style{Font: &excelize.Font{Bold: true, Color: colStale},
+				Fill: excelize.Fill{Type: "pattern", Pattern: 1, Color: []string{fillStale}}})
+			if err != nil {
+				return err
+			}
+		}
+		rr := strconv.Itoa(r.row)
+		for _, col := range []string{colValue, colNote} {
+			if err := x.f.SetConditionalFormat(TabCalc, col+rr+":"+col+rr,
+				[]excelize.ConditionalFormatOptions{{Type: "formula", Criteria: g, Format: &id}}); err != nil {
+				return err
+			}
+		}
 	}
 	return nil
 }
@@ -143,7 +181,11 @@ func (x *exporter) cellRow(cr *engine.CellResult) [calcCols]excelize.Cell {
 		x.stats.ValueOnly++
 	case c.Kind == engine.Table:
 		value, note = x.text(cr.Text, clsText), noteTable
-		x.stats.Inputs++
+		if x.locked(c.Index) {
+			note = "table on the Data tab, " + noteLocked
+		} else {
+			x.stats.Inputs++
+		}
 	default:
 		value, note = x.valueCell(c, cr.Value, c.Kind == engine.Input, c.Body, cr.Unit.Factor)
 		if reads := x.reads[c.Index]; len(reads) > 0 && note == "" {
@@ -166,7 +208,7 @@ func (x *exporter) cellRow(cr *engine.CellResult) [calcCols]excelize.Cell {
 		unit = ""
 	}
 	return [calcCols]excelize.Cell{x.text(name, clsKey), x.text(c.Description, clsText), x.text(expr, clsExpr), x.text(calc, clsExpr),
-		value, x.text(unit, clsText), x.text(c.Reference, clsText), x.text(note, clsText)}
+		value, x.text(unit, clsText), x.text(c.Reference, clsText), x.guardedNote(x.stale[c.Index], note)}
 }
 
 // valueCell writes a number or a truth value: editable for an input, a
@@ -252,7 +294,7 @@ func (x *exporter) fieldRow(r *calcRow) [calcCols]excelize.Cell {
 		unit = ""
 	}
 	return [calcCols]excelize.Cell{x.text(r.path, clsKey), x.text(r.desc, clsText), x.text(r.expr, clsExpr), x.text("", clsExpr),
-		value, x.text(unit, clsText), x.text("", clsText), x.text(note, clsText)}
+		value, x.text(unit, clsText), x.text("", clsText), x.guardedNote(x.stale[r.cell], note)}
 }
 
 func (x *exporter) checkByCell(c *check.Cell) *checkRow {
@@ -294,8 +336,10 @@ func (x *exporter) checkValue(ch *checkRow) (excelize.Cell, string) {
 }
 
 // verdictFormula is the live verdict of a check named n.
+// A utilisation that is an error (an interpolation outside its table
+// after an edit) is not assessed, as in Sheaf.
 func verdictFormula(n string) string {
-	return "IF(" + n + "<=1,\"" + VerdictPass + "\",\"" + VerdictFail + "\")"
+	return "IF(ISERROR(" + n + ")," + quoted(VerdictUnknown) + ",IF(" + n + "<=1," + quoted(VerdictPass) + "," + quoted(VerdictFail) + "))"
 }
 
 func indexOf(c *check.Cell) int {

@@ -42,6 +42,10 @@ func (x *exporter) writeData() error {
 		if b.desc != "" {
 			title += ": " + b.desc
 		}
+		locked := b.input && x.locked(b.cell)
+		if locked {
+			title += " " + noteLocked
+		}
 		if err := sw.SetRow("A"+strconv.Itoa(b.row), []any{x.text(title, clsHeading)}); err != nil {
 			return err
 		}
@@ -65,7 +69,7 @@ func (x *exporter) writeData() error {
 			return err
 		}
 		cls := clsData
-		if b.input {
+		if b.input && !locked {
 			cls = clsInput
 		}
 		// The style of a column is the same down the column (made only
@@ -84,7 +88,7 @@ func (x *exporter) writeData() error {
 			for j, col := range b.t.Cols {
 				cells[j] = excelize.Cell{StyleID: ids[j], Value: col[i] / b.units[j].Factor}
 			}
-			if b.input {
+			if b.input && !locked {
 				x.stats.Inputs += len(cells)
 			}
 			if err := sw.SetRow("A"+strconv.Itoa(b.firstDataRow()+i), row); err != nil {

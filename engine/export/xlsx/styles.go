@@ -26,6 +26,8 @@ const (
 	clsPass                   // verdict: passes
 	clsFail                   // verdict: fails or not assessed
 	clsCaution                // the caution paragraph
+	clsBanner                 // the out-of-date banner of the summary
+	clsVerdict                // a live verdict: coloured by conditional formatting
 	clsCount                  // the number of classes
 )
 
@@ -35,6 +37,11 @@ const (
 	fillValueOnly = "EDEDED"
 	fillHeader    = "D9E2EC"
 	fontMarked    = "595959"
+	colPass       = "2E7D32"
+	colFail       = "C00000"
+	fillFail      = "FBE3E3"
+	colStale      = "7A4A00"
+	fillStale     = "FFD9A0"
 )
 
 type styleKey struct {
@@ -103,6 +110,11 @@ func (s *styles) make(c class, numFmt string) int {
 		st.Font = &excelize.Font{Bold: true, Color: "2E7D32"}
 	case clsFail:
 		st.Font = &excelize.Font{Bold: true, Color: "C00000"}
+	case clsVerdict:
+		st.Font = &excelize.Font{Bold: true}
+	case clsBanner:
+		st.Font = &excelize.Font{Bold: true, Color: "C00000"}
+		st.Alignment.WrapText = true
 	}
 	if c == clsCaution {
 		st.Font = &excelize.Font{Italic: true}

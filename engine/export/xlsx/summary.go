@@ -27,6 +27,12 @@ func (x *exporter) writeSummary() error {
 	if err := x.finishTab(tab, false); err != nil {
 		return err
 	}
+	if len(x.checks) > 0 {
+		// Set before streaming, as the print setup.
+		if err := x.verdictColours(tab, fmt.Sprintf("G%d:G%d", summaryFirstCheck, summaryFirstCheck+len(x.checks)-1)); err != nil {
+			return err
+		}
+	}
 	sw, err := x.f.NewStreamWriter(tab)
 	if err != nil {
 		return err
@@ -50,6 +56,15 @@ func (x *exporter) writeSummary() error {
 	var merges [][2]string
 	if err := put(x.text(title, clsTitle)); err != nil {
 		return err
+	}
+	// Row 2: the banner that names the inputs changed since Sheaf ran
+	// (empty while there are none, or nothing depends on Sheaf alone).
+	if f := x.bannerFormula(); f != "" {
+		if err := sw.SetRow("A2", []any{excelize.Cell{StyleID: x.st.id(clsBanner, ""), Formula: f, Value: ""}},
+			excelize.RowOpts{Height: 2 * lineHeight}); err != nil {
+			return err
+		}
+		merges = append(merges, [2]string{"A2", "H2"})
 	}
 	row++
 	for _, kv := range [][2]string{{"Project", m.Project}, {"Basis", m.Basis}, {"Author", m.Author}, {"Checker", m.Checker},
@@ -94,6 +109,10 @@ func (x *exporter) writeSummary() error {
 		rng := fmt.Sprintf("G%d:G%d", first, row-1)
 		n := len(x.checks)
 		f := fmt.Sprintf("COUNTIF(%s,\"%s\")&\" of %d design checks pass\"", rng, VerdictPass, n)
+		if x.anyFlag != "" {
+			f = fmt.Sprintf("IF(COUNTIF(%s,\"%s\")>0,COUNTIF(%s,\"%s\")&\" of %d design checks out of date: %s\",%s)",
+				rng, VerdictRerun, rng, VerdictRerun, n, VerdictRerun, f)
+		}
 		cached := fmt.Sprintf("%d of %d design checks pass", pass, n)
 		if err := put(x.text("Overall", clsKey), excelize.Cell{StyleID: x.st.id(clsKey, ""), Formula: f, Value: cached}); err != nil {
 			return err
@@ -126,10 +145,36 @@ func (x *exporter) writeSummary() error {
 			return err
 		}
 	}
-	if err := sw.Flush(); err != nil {
-		return err
+	if first != summaryFirstCheck {
+		return fmt.Errorf("internal error: the checks start in row %d of the summary, not %d", first, summaryFirstCheck)
 	}
-	return nil
+	return sw.Flush()
+}
+
+// summaryFirstCheck is the row of the first check on the summary: title,
+// banner, seven header lines, a blank row, the heading and the column
+// headers come before it.
+const summaryFirstCheck = 13
+
+// verdictColours colours the verdicts of rng by conditional formatting,
+// so that a verdict that changes after an edit takes its colour with it.
+func (x *exporter) verdictColours(tab, rng string) error {
+	var opts []excelize.ConditionalFormatOptions
+	for _, v := range []struct {
+		word string
+		st   excelize.Style
+	}{
+		{VerdictPass, excelize.Style{Font: &excelize.Font{Bold: true, Color: colPass}}},
+		{VerdictFail, excelize.Style{Font: &excelize.Font{Bold: true, Color: colFail}, Fill: excelize.Fill{Type: "pattern", Pattern: 1, Color: []string{fillFail}}}},
+		{VerdictRerun, excelize.Style{Font: &excelize.Font{Bold: true, Color: colStale}, Fill: excelize.Fill{Type: "pattern", Pattern: 1, Color: []string{fillStale}}}},
+	} {
+		id, err := x.f.NewConditionalStyle(&v.st)
+		if err != nil {
+			return err
+		}
+		opts = append(opts, excelize.ConditionalFormatOptions{Type: "cell", Criteria: "==", Value: quoted(v.word), Format: &id})
+	}
+	return x.f.SetConditionalFormat(tab, rng, opts)
 }
 
 // checkSummary is a row of the checks table: the demand and capacity are
@@ -158,11 +203,15 @@ func (x *exporter) checkSummary(ch *checkRow) []any {
 	var util, verdict any
 	if ch.known {
 		util = excelize.Cell{StyleID: x.st.id(clsDerived, "0.000"), Formula: name, Value: ch.util}
-		cls, word := clsPass, VerdictPass
+		cls, word := clsVerdict, VerdictPass
 		if !ch.pass {
-			cls, word = clsFail, VerdictFail
+			word = VerdictFail
 		}
-		verdict = excelize.Cell{StyleID: x.st.id(cls, ""), Formula: verdictFormula(name), Value: word}
+		f := verdictFormula(name)
+		if g := x.guardExpr(x.stale[c.Index]); g != "" {
+			f = "IF(" + g + "," + quoted(VerdictRerun) + "," + f + ")"
+		}
+		verdict = excelize.Cell{StyleID: x.st.id(cls, ""), Formula: f, Value: word}
 	} else {
 		util = x.text("", clsText)
 		verdict = x.text(VerdictUnknown, clsFail)

@@ -75,11 +75,30 @@ type exporter struct {
 	// templates holds the syntax trees of templates whose tables are
 	// exported (see tableColumns).
 	templates map[string]*sheet.File
+	// Guards (see guard.go): the editable inputs, those of each input
+	// cell, for each cell the inputs that make it out of date, the tables
+	// to lock, the inputs that guard something, the flag of any change.
+	keys      []guardKey
+	inputKeys [][]int32
+	stale     [][]int32
+	lockTable []bool
+	usedKeys  []int
+	anyFlag   string
+	anyRow    int
 }
 
 // Build makes the workbook of sheet s with results r (from s.NewState()
 // after any overrides, then Eval).
 func Build(s *engine.Sheet, r *engine.Results, opt Options) (*excelize.File, Stats, error) {
+	x, err := export(s, r, opt)
+	if err != nil {
+		return nil, x.stats, err
+	}
+	return x.f, x.stats, nil
+}
+
+// export builds the workbook and returns the exporter with its layout.
+func export(s *engine.Sheet, r *engine.Results, opt Options) (*exporter, error) {
 	n := len(r.Cells)
 	x := &exporter{s: s, r: r, sig: opt.SigFigs, gen: opt.Generator, names: newNamer(n), values: make(map[string]valueAt, n)}
 	if x.sig <= 0 {
@@ -92,17 +111,17 @@ func Build(s *engine.Sheet, r *engine.Results, opt Options) (*excelize.File, Sta
 	x.st = &styles{f: x.f, cache: map[styleKey]int{}}
 	x.tr = &translator{refs: make(map[string]ref, n), cells: s.Cells()}
 	x.layout()
-	for _, step := range []func() error{x.writeSummary, x.writeCalc, x.writeData, x.writeCharts, x.finishTabs, x.workbookProps} {
+	for _, step := range []func() error{x.writeSummary, x.writeCalc, x.writeData, x.writeCharts, x.writeRun, x.finishTabs, x.workbookProps} {
 		if err := step(); err != nil {
 			_ = x.f.Close()
-			return nil, x.stats, err
+			return x, err
 		}
 	}
 	if x.st.err != nil {
 		_ = x.f.Close()
-		return nil, x.stats, x.st.err
+		return x, x.st.err
 	}
-	return x.f, x.stats, nil
+	return x, nil
 }
 
 // finishing is a tab waiting for its print setup and protection.
@@ -143,6 +162,7 @@ type calcRow struct {
 	input  bool
 	formul *check.Node // the field's own expression, when written in a record literal
 	desc   string
+	cell   int // rowField: the index of the record cell
 }
 
 // checkRow is a design check as the summary shows it.
@@ -161,6 +181,7 @@ type tableBlock struct {
 	t     *funcs.TableValue
 	units []units.Unit
 	input bool // a table of the sheet: its entries are editable
+	cell  int  // the index of the table cell; -1 for a table inside a value
 	row   int  // first row (the title)
 }
 
@@ -223,6 +244,7 @@ func (x *exporter) layout() {
 			x.checks = append(x.checks, x.checkOf(c, valueRow))
 		}
 		x.tr.refs[c.Name] = r
+		x.inputKeyOf(i)
 		if cr.Known {
 			if v, ok := cr.Value.(float64); ok {
 				x.values[c.Name] = valueAt{v, units.Unit{Factor: r.factor, Symbol: cr.Unit.Symbol}}
@@ -232,7 +254,7 @@ func (x *exporter) layout() {
 		case *funcs.RecordValue:
 			row = x.layoutRecord(c, c.Name, v, c.Kind == engine.Input, c.Body, row)
 		case *funcs.TableValue:
-			x.addTable(c.Name, c.Description, v, x.tableUnits(c, v), c.Kind == engine.Table)
+			x.addTable(c.Name, c.Description, v, x.tableUnits(c, v), c.Kind == engine.Table, i)
 		}
 	}
 	// The Data tab follows the order the tables were met.
@@ -312,6 +334,7 @@ func (x *exporter) markOpaque() {
 		slices.Sort(reads)
 		x.reads[i] = slices.Compact(reads)
 	}
+	x.guardStale()
 }
 
 // calcValueRef is the absolute reference of the value cell in row on the
@@ -344,7 +367,7 @@ func (x *exporter) layoutRecord(c *check.Cell, path string, v *funcs.RecordValue
 		if lit != nil && lit.Op == check.OpRecord && i < len(lit.Args) && lit.Type != nil && i < len(lit.Type.Fields) && lit.Type.Fields[i].Name == fld.Name {
 			arg = lit.Args[i]
 		}
-		fr := calcRow{kind: rowField, row: row, path: p, val: v.Fields[i], input: input, formul: arg, desc: fld.Doc}
+		fr := calcRow{kind: rowField, row: row, path: p, val: v.Fields[i], input: input, formul: arg, desc: fld.Doc, cell: c.Index}
 		if arg != nil {
 			fr.expr = x.exprText(c, arg)
 		}
@@ -353,10 +376,20 @@ func (x *exporter) layoutRecord(c *check.Cell, path string, v *funcs.RecordValue
 			fr.unit = x.fieldUnit(c, arg, fld.Type)
 			x.tr.refs[p] = ref{name: x.pathName(p), factor: fr.unit.Factor}
 			x.values[p] = valueAt{fv, fr.unit}
+			if input && arg != nil {
+				u := fr.unit.Pretty()
+				if u == "1" {
+					u = ""
+				}
+				x.addKey(c.Index, p, fv/fr.unit.Factor, u)
+			}
 			x.rows = append(x.rows, fr)
 			row++
 		case bool:
 			x.tr.refs[p] = ref{name: x.pathName(p), factor: 1, bool: true}
+			if input && arg != nil {
+				x.addKey(c.Index, p, fv, "")
+			}
 			x.rows = append(x.rows, fr)
 			row++
 		case *funcs.RecordValue:
@@ -365,7 +398,7 @@ func (x *exporter) layoutRecord(c *check.Cell, path string, v *funcs.RecordValue
 		case *funcs.TableValue:
 			x.rows = append(x.rows, fr)
 			row++
-			x.addTable(p, fld.Doc, fv, x.tableUnits(nil, fv), false)
+			x.addTable(p, fld.Doc, fv, x.tableUnits(nil, fv), false, -1)
 		default:
 			x.rows = append(x.rows, fr)
 			row++
@@ -481,11 +514,11 @@ func (x *exporter) tableColumns(c *check.Cell) []sheet.Column {
 	return nil
 }
 
-func (x *exporter) addTable(path, desc string, t *funcs.TableValue, us []units.Unit, input bool) {
+func (x *exporter) addTable(path, desc string, t *funcs.TableValue, us []units.Unit, input bool, cell int) {
 	if t == nil || t.Type == nil {
 		return
 	}
-	x.tables = append(x.tables, &tableBlock{path: path, desc: desc, t: t, units: us, input: input})
+	x.tables = append(x.tables, &tableBlock{path: path, desc: desc, t: t, units: us, input: input, cell: cell})
 	x.stats.Tables++
 }
 
@@ -524,6 +557,7 @@ func (x *exporter) workbookProps() error {
 		}
 		names = append(names, excelize.DefinedName{Name: rf.name, RefersTo: calcValueRef(r.row), Comment: p})
 	}
+	names = append(names, x.guardNames()...)
 	for _, nr := range x.dataRanges {
 		names = append(names, excelize.DefinedName{Name: nr.name, RefersTo: nr.rng})
 	}
