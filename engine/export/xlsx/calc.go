@@ -266,7 +266,9 @@ func (x *exporter) fieldRow(r *calcRow) [calcCols]excelize.Cell {
 	switch v := r.val.(type) {
 	case float64, bool:
 		body := r.formul
-		if body == nil {
+		if body == nil && r.plugin != nil {
+			value, note = x.pluginFieldCell(r)
+		} else if body == nil {
 			x.stats.ValueOnly++
 			fmtStr := ""
 			if f, ok := v.(float64); ok {

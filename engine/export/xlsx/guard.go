@@ -8,6 +8,7 @@ import (
 	"github.com/xuri/excelize/v2"
 
 	"github.com/sheafcalc/sheaf/engine"
+	"github.com/sheafcalc/sheaf/engine/check"
 	"github.com/sheafcalc/sheaf/funcs"
 )
 
@@ -97,18 +98,17 @@ func (x *exporter) guardStale() {
 		}
 		if x.opaque[i] {
 			x.stale[i] = x.upstream(i)
+			if b := c.Body; b != nil && b.Op == check.OpPlugin && b.Def().Spreadsheet != nil {
+				// Its fields with a spreadsheet form are live: out of
+				// date only through what the call's arguments read.
+				if x.staleFields == nil {
+					x.staleFields = make([][]int32, n)
+				}
+				x.staleFields[i] = x.staleOf(b.Args...)
+			}
 			continue
 		}
-		var s []int32
-		for _, d := range c.DepIdx {
-			if d >= 0 && d < n {
-				s = append(s, x.stale[d]...)
-			}
-		}
-		if len(s) > 0 {
-			slices.Sort(s)
-			x.stale[i] = slices.Compact(s)
-		}
+		x.stale[i] = x.staleOf(c.Body, c.Demand, c.Capacity)
 	}
 	for _, s := range x.stale {
 		for _, k := range s {
@@ -129,6 +129,71 @@ func (x *exporter) guardStale() {
 		x.anyFlag = x.names.take("changed.any")
 		x.anyRow = row
 	}
+}
+
+// staleOf is the union of the stale sets of what the trees read.
+func (x *exporter) staleOf(ns ...*check.Node) []int32 {
+	var s []int32
+	x.walkRefs(func(d int, live bool) {
+		if live {
+			s = append(s, x.staleFields[d]...)
+		} else {
+			s = append(s, x.stale[d]...)
+		}
+	}, ns...)
+	if len(s) == 0 {
+		return nil
+	}
+	slices.Sort(s)
+	return slices.Compact(s)
+}
+
+// walkRefs calls fn for every cell the trees read: live is true for a
+// record read only through a field the workbook computes live (tube.A).
+func (x *exporter) walkRefs(fn func(cell int, live bool), ns ...*check.Node) {
+	var walk func(n *check.Node)
+	walk = func(n *check.Node) {
+		if n == nil {
+			return
+		}
+		switch n.Op {
+		case check.OpCell, check.OpUser, check.OpFuncRef:
+			fn(int(n.Index), false)
+		case check.OpField:
+			if a := n.Args[0]; a.Op == check.OpCell && x.liveField[x.tr.path(n)] {
+				fn(int(a.Index), true)
+				return
+			}
+		}
+		for _, a := range n.Args {
+			walk(a)
+		}
+	}
+	for _, n := range ns {
+		walk(n)
+	}
+}
+
+// pluginFieldCell writes a field of a record made by a plugin call by the
+// field's spreadsheet form: live, in the field's display unit.
+func (x *exporter) pluginFieldCell(r *calcRow) (excelize.Cell, string) {
+	v, _ := r.val.(float64)
+	f := r.unit.Factor
+	if f == 0 {
+		f = 1
+	}
+	fmtStr := numFormat(v/f, x.sig)
+	t, err := x.tr.pluginField(r.plugin, r.path[strings.LastIndexByte(r.path, '.')+1:])
+	if err != nil {
+		x.stats.ValueOnly++
+		return excelize.Cell{StyleID: x.st.id(clsValueOnly, fmtStr), Value: v / f}, noteValueOnly + err.Error()
+	}
+	s := t.s
+	if f != 1 {
+		s = t.operand() + "/" + num(f).operand()
+	}
+	x.stats.Live++
+	return excelize.Cell{StyleID: x.st.id(clsDerived, fmtStr), Value: v / f, Formula: s}, ""
 }
 
 // upstream returns the input keys upstream of cell i, and marks the

@@ -199,12 +199,10 @@ func (t *translator) expr(n *check.Node) (term, error) {
 }
 
 // plugin translates a call of a plugin by its spreadsheet form (the
-// registry's Spreadsheet): form with the arguments in place, divided by
-// the form's validity condition, so that the formula is an error where
-// the call is one.
+// registry's Spreadsheet) with the call's arguments in place.
 func (t *translator) plugin(n *check.Node, form string) (term, error) {
 	d := n.Def()
-	s, err := d.ExpandSpreadsheet(form, func(p funcs.Placeholder) (string, error) {
+	s, err := spreadsheetFormula(d, form, func(p funcs.Placeholder) (string, error) {
 		if p.Param >= len(n.Args) || n.Args[p.Param] == nil {
 			if p.Default == "" {
 				return "", fail("calls `" + d.Name + "` without an argument its spreadsheet form needs")
@@ -221,6 +219,9 @@ func (t *translator) plugin(n *check.Node, form string) (term, error) {
 			if r.factor != 1 {
 				return "", fail("passes `" + d.Name + "` a table column that is not shown in SI units")
 			}
+			if p.Increasing {
+				return increasing(r.name, r.rows), nil
+			}
 			return r.name, nil
 		}
 		x, err := t.expr(a)
@@ -232,28 +233,25 @@ func (t *translator) plugin(n *check.Node, form string) (term, error) {
 	if err != nil {
 		return term{}, err
 	}
+	return term{s: s, atom: true}, nil
+}
+
+// spreadsheetFormula expands a spreadsheet form of d (its Formula or a
+// field's) with arg, divided by the form's validity condition so that
+// the formula is an error where the call is one; bracketed.
+func spreadsheetFormula(d *funcs.Def, form string, arg func(funcs.Placeholder) (string, error)) (string, error) {
+	s, err := d.ExpandSpreadsheet(form, arg)
+	if err != nil {
+		return "", err
+	}
 	if v := d.Spreadsheet.Valid; v != "" {
-		cond, err := d.ExpandSpreadsheet(v, func(p funcs.Placeholder) (string, error) {
-			if p.Param >= len(n.Args) || n.Args[p.Param] == nil {
-				return p.Default, nil
-			}
-			a := n.Args[p.Param]
-			if p.Column != "" {
-				r := t.refs[t.path(a)+"."+p.Column]
-				if p.Increasing {
-					return increasing(r.name, r.rows), nil
-				}
-				return r.name, nil
-			}
-			x, err := t.expr(a)
-			return x.s, err
-		})
+		cond, err := d.ExpandSpreadsheet(v, arg)
 		if err != nil {
-			return term{}, err
+			return "", err
 		}
 		s = "(" + s + ")/IF(" + cond + ",1,0)"
 	}
-	return term{s: "(" + s + ")", atom: true}, nil
+	return "(" + s + ")", nil
 }
 
 // increasing is the condition that the column range rng of n rows

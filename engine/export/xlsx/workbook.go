@@ -75,6 +75,10 @@ type exporter struct {
 	// templates holds the syntax trees of templates whose tables are
 	// exported (see tableColumns).
 	templates map[string]*sheet.File
+	// liveField marks the fields of records made by a plugin call that the
+	// workbook computes by the plugin's spreadsheet form (tube.A).
+	liveField   map[string]bool
+	staleFields [][]int32 // by record cell: the inputs that make its live fields out of date
 	// Guards (see guard.go): the editable inputs, those of each input
 	// cell, for each cell the inputs that make it out of date, the tables
 	// to lock, the inputs that guard something, the flag of any change.
@@ -163,6 +167,9 @@ type calcRow struct {
 	formul *check.Node // the field's own expression, when written in a record literal
 	desc   string
 	cell   int // rowField: the index of the record cell
+	// rowField: the plugin call that made the record, when the field has
+	// a spreadsheet form (see translator.pluginField).
+	plugin *check.Node
 }
 
 // checkRow is a design check as the summary shows it.
@@ -322,15 +329,14 @@ func (x *exporter) markOpaque() {
 			continue
 		}
 		var reads []string
-		for _, d := range c.DepIdx {
-			if d < 0 || d >= n {
-				continue
-			}
-			if x.opaque[d] {
+		x.walkRefs(func(d int, live bool) {
+			if x.opaque[d] && !live {
 				reads = append(reads, p.Cells[d].Name)
 			}
-			reads = append(reads, x.reads[d]...)
-		}
+			if !live {
+				reads = append(reads, x.reads[d]...)
+			}
+		}, c.Body, c.Demand, c.Capacity)
 		slices.Sort(reads)
 		x.reads[i] = slices.Compact(reads)
 	}
@@ -368,6 +374,15 @@ func (x *exporter) layoutRecord(c *check.Cell, path string, v *funcs.RecordValue
 			arg = lit.Args[i]
 		}
 		fr := calcRow{kind: rowField, row: row, path: p, val: v.Fields[i], input: input, formul: arg, desc: fld.Doc, cell: c.Index}
+		if path == c.Name && lit != nil && lit.Op == check.OpPlugin {
+			if f := lit.Def().Spreadsheet; f != nil && f.Fields[fld.Name] != "" {
+				fr.plugin = lit
+				if x.liveField == nil {
+					x.liveField = map[string]bool{}
+				}
+				x.liveField[p] = true
+			}
+		}
 		if arg != nil {
 			fr.expr = x.exprText(c, arg)
 		}
