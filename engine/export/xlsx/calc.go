@@ -8,6 +8,7 @@ import (
 
 	"github.com/sheafcalc/sheaf/engine"
 	"github.com/sheafcalc/sheaf/engine/check"
+	"github.com/sheafcalc/sheaf/engine/units"
 	"github.com/sheafcalc/sheaf/funcs"
 	"github.com/sheafcalc/sheaf/internal/plural"
 )
@@ -22,19 +23,26 @@ const (
 const calcCols = 8
 
 var calcHeader = [calcCols]string{"Name", "Description", "Expression as written", "With values", "Value", "Unit", "Reference", "Note"}
-var calcWidths = [calcCols]float64{16, 34, 30, 46, 13, 9, 26, 30}
+
+// calcWidths fit A4 landscape at about 90 % (text of 11 points prints
+// at about 10): the whole is 160 character widths.
+var calcWidths = [calcCols]float64{14, 28, 24, 34, 12, 8, 20, 20}
 
 // calcMono marks the columns shown in the monospaced expression font.
 var calcMono = [calcCols]bool{2: true, 3: true}
 
 // Notes written beside values.
 const (
-	noteInput     = "input: edit in the unit shown"
+	noteInput     = ""
 	noteTable     = "input table: see the Data tab"
 	noteFunction  = "function: inlined in the formulas that call it"
-	noteValueOnly = "value from Sheaf, not recomputed here: "
-	notePartly    = "recomputes, but inputs reach it only through values from Sheaf: "
-	noteLocked    = "(locked: values only Sheaf computes depend on it; change it in the sheet and run Sheaf)"
+	noteValueOnly = "Sheaf only: "
+	notePartly    = "recomputes, but reads values from Sheaf: "
+	// calcGuide is the one explanation of the colours and notes, in the
+	// title row of the tab.
+	calcGuide = "Amber: inputs, typed in the unit shown. Grey italic: values only Sheaf computes (the note says why); " +
+		"after an edit upstream of one, it and what reads it are marked out of date until Sheaf runs again."
+	noteLocked = "(locked: values only Sheaf computes depend on it; change it in the sheet and run Sheaf)"
 )
 
 // text returns a string cell. Strings are always written as strings, so a
@@ -75,7 +83,11 @@ func (x *exporter) writeCalc() error {
 	if title == "" {
 		title = x.s.Name()
 	}
-	if err := sw.SetRow("A1", []any{x.text(title+": calculation", clsTitle)}); err != nil {
+	if err := sw.SetRow("A1", []any{x.text(title+": calculation", clsTitle), nil, nil, x.text(calcGuide, clsText)},
+		excelize.RowOpts{Height: rowHeight([]excelize.Cell{{Value: calcGuide}}, []float64{calcWidths[3] + calcWidths[4] + calcWidths[5] + calcWidths[6] + calcWidths[7]}, nil)}); err != nil {
+		return err
+	}
+	if err := sw.MergeCell("D1", "H1"); err != nil {
 		return err
 	}
 	head := make([]any, len(calcHeader))
@@ -188,6 +200,10 @@ func (x *exporter) cellRow(cr *engine.CellResult) [calcCols]excelize.Cell {
 		}
 	default:
 		value, note = x.valueCell(c, cr.Value, c.Kind == engine.Input, c.Body, cr.Unit.Factor)
+		if _, num := cr.Value.(float64); num && c.Kind == engine.Input {
+			// As written and as typed: no digit hidden.
+			value.StyleID = x.st.id(clsInput, generalFormat)
+		}
 		if reads := x.reads[c.Index]; len(reads) > 0 && note == "" {
 			note = notePartly + strings.Join(reads, ", ")
 		}
@@ -279,6 +295,9 @@ func (x *exporter) fieldRow(r *calcRow) [calcCols]excelize.Cell {
 			note = noteValueOnly + "a field of a result only Sheaf computes"
 		} else {
 			value, note = x.valueCell(nil, r.val, r.input, body, r.unit.Factor)
+			if _, num := v.(float64); num && r.input {
+				value.StyleID = x.st.id(clsInput, generalFormat)
+			}
 		}
 		if _, ok := v.(float64); ok {
 			unit = r.unit.Pretty()
@@ -289,6 +308,8 @@ func (x *exporter) fieldRow(r *calcRow) [calcCols]excelize.Cell {
 		value, note = x.text("table, "+plural.Count(v.Rows(), "row"), clsText), "table: see the Data tab"
 	case string:
 		value = x.text(v, clsText)
+	case []float64:
+		value = x.text(x.listText(v, r.listUnit), clsText)
 	default:
 		value = x.text("list", clsText)
 	}
@@ -308,6 +329,26 @@ func (x *exporter) checkByCell(c *check.Cell) *checkRow {
 	return &checkRow{cell: c}
 }
 
+// utilFormat shows a utilisation as a percentage, as Sheaf's listings do
+// (the value stays the ratio, which the formulas use).
+const utilFormat = "0.0%"
+
+// listText writes a list of SI numbers in unit u: "[12, 16, 20] mm".
+func (x *exporter) listText(v []float64, u units.Unit) string {
+	if u.Factor == 0 {
+		u.Factor = 1
+	}
+	parts := make([]string, len(v))
+	for i, e := range v {
+		parts[i] = units.FormatNumber(e/u.Factor, x.sig)
+	}
+	s := "[" + strings.Join(parts, ", ") + "]"
+	if p := u.Pretty(); p != "" && p != "1" {
+		s += " " + p
+	}
+	return s
+}
+
 // Verdict words.
 const (
 	VerdictPass    = "passes"
@@ -323,10 +364,10 @@ func (x *exporter) checkValue(ch *checkRow) (excelize.Cell, string) {
 	}
 	t, _ := x.formula(ch.cell.Index)
 	f, err := t.f, t.err
-	cell := excelize.Cell{Value: ch.util, StyleID: x.st.id(clsDerived, "0.000")}
+	cell := excelize.Cell{Value: ch.util, StyleID: x.st.id(clsDerived, utilFormat)}
 	if err != nil {
 		x.stats.ValueOnly++
-		cell.StyleID = x.st.id(clsValueOnly, "0.000")
+		cell.StyleID = x.st.id(clsValueOnly, utilFormat)
 		return cell, noteValueOnly + err.Error()
 	}
 	x.stats.Live++

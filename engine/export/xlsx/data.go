@@ -64,6 +64,9 @@ func (x *exporter) writeData() error {
 				}
 			}
 			fmts[j] = numFormat(big, x.sig)
+			if j < len(b.written) && b.written[j] != "" {
+				fmts[j] = b.written[j]
+			}
 		}
 		if err := sw.SetRow("A"+strconv.Itoa(b.row+1), head); err != nil {
 			return err

@@ -184,7 +184,7 @@ func judge(t *testing.T, x *exporter, e edit, res *engine.Results, calc, summary
 		case bool:
 			same = strings.EqualFold(got, strconv.FormatBool(w))
 		case float64:
-			g, err := strconv.ParseFloat(got, 64)
+			g, err := parseShown(got)
 			same = err == nil && closeOrCancelled(g, w)
 		}
 		if same {
@@ -263,6 +263,16 @@ func judge(t *testing.T, x *exporter, e edit, res *engine.Results, calc, summary
 	if banner != "" && !strings.Contains(banner, strings.Split(e.what, "[")[0]) {
 		t.Errorf("%s raised 10 %%: the banner %q does not name the input", e.what, banner)
 	}
+}
+
+// parseShown reads a number the other spreadsheet wrote to CSV: a cell
+// formatted as a percentage keeps its % sign there (utilisations).
+func parseShown(s string) (float64, error) {
+	if p, ok := strings.CutSuffix(s, "%"); ok {
+		v, err := strconv.ParseFloat(p, 64)
+		return v / 100, err
+	}
+	return strconv.ParseFloat(s, 64)
 }
 
 // closeOrCancelled is close (relative 1e-9), or both within 1e-12 of zero

@@ -168,7 +168,7 @@ func TestStyles(t *testing.T) {
 	for _, c := range []struct {
 		path, class string
 	}{{"L", "input"}, {"P", "input"}, {"steel.E", "input"}, {"stretch_hand", "formula"}, {"u_end", "formula"}, {"foot", "formula"},
-		{"res.u_end", "value"}, {"tube.A", "value"}} {
+		{"res.u_end", "value"}, {"tube.A", "formula"}} {
 		st := style(nameCell(t, f, c.path))
 		locked := st.Protection == nil || st.Protection.Locked
 		switch c.class {

@@ -28,6 +28,9 @@ const (
 	clsCaution                // the caution paragraph
 	clsBanner                 // the out-of-date banner of the summary
 	clsVerdict                // a live verdict: coloured by conditional formatting
+	clsSign                   // a blank of the sign-off block: unlocked, underlined
+	clsMono                   // a checksum: monospaced
+	clsComment                // a comment of the sheet on the Calculation tab
 	clsCount                  // the number of classes
 )
 
@@ -110,6 +113,14 @@ func (s *styles) make(c class, numFmt string) int {
 		st.Font = &excelize.Font{Bold: true, Color: "2E7D32"}
 	case clsFail:
 		st.Font = &excelize.Font{Bold: true, Color: "C00000"}
+	case clsSign:
+		st.Border = []excelize.Border{{Type: "bottom", Color: "7F7F7F", Style: 1}}
+		locked = false
+	case clsMono:
+		st.Font = &excelize.Font{Family: "Consolas", Size: 9}
+	case clsComment:
+		st.Font = &excelize.Font{Italic: true, Color: "1F3864"}
+		st.Alignment.WrapText = true
 	case clsVerdict:
 		st.Font = &excelize.Font{Bold: true}
 	case clsBanner:
@@ -169,3 +180,7 @@ func decimalFormats(n int, suffix string) []string {
 	}
 	return out
 }
+
+// generalFormat shows a number as typed, at the precision it is written
+// with ("1.2", "0.9775"), and never hides a digit a client types.
+const generalFormat = "General"

@@ -2,6 +2,7 @@ package xlsxout
 
 import (
 	"fmt"
+	"regexp"
 	"slices"
 	"strconv"
 	"strings"
@@ -159,14 +160,15 @@ type calcRow struct {
 	title string // heading text
 	cr    *engine.CellResult
 	// rowField: the record cell, the field path and value.
-	path   string
-	expr   string
-	val    funcs.Value
-	unit   units.Unit
-	input  bool
-	formul *check.Node // the field's own expression, when written in a record literal
-	desc   string
-	cell   int // rowField: the index of the record cell
+	path     string
+	expr     string
+	val      funcs.Value
+	unit     units.Unit
+	input    bool
+	listUnit units.Unit  // rowField of a list of numbers: the unit its elements are shown in
+	formul   *check.Node // the field's own expression, when written in a record literal
+	desc     string
+	cell     int // rowField: the index of the record cell
 	// rowField: the plugin call that made the record, when the field has
 	// a spreadsheet form (see translator.pluginField).
 	plugin *check.Node
@@ -189,7 +191,10 @@ type tableBlock struct {
 	units []units.Unit
 	input bool // a table of the sheet: its entries are editable
 	cell  int  // the index of the table cell; -1 for a table inside a value
-	row   int  // first row (the title)
+	// written: the number format of each column of a table of the
+	// sheet, which shows its entries as written (generalFormat).
+	written []string
+	row     int // first row (the title)
 }
 
 // firstDataRow is the Data row of a block's first entry.
@@ -374,6 +379,9 @@ func (x *exporter) layoutRecord(c *check.Cell, path string, v *funcs.RecordValue
 			arg = lit.Args[i]
 		}
 		fr := calcRow{kind: rowField, row: row, path: p, val: v.Fields[i], input: input, formul: arg, desc: fld.Doc, cell: c.Index}
+		if fld.Type != nil && fld.Type.Kind == funcs.List && fld.Type.Elem != nil {
+			fr.listUnit = x.preferred(fld.Type.Elem.Dim)
+		}
 		if path == c.Name && lit != nil && lit.Op == check.OpPlugin {
 			if f := lit.Def().Spreadsheet; f != nil && f.Fields[fld.Name] != "" {
 				fr.plugin = lit
@@ -389,6 +397,7 @@ func (x *exporter) layoutRecord(c *check.Cell, path string, v *funcs.RecordValue
 		switch fv := v.Fields[i].(type) {
 		case float64:
 			fr.unit = x.fieldUnit(c, arg, fld.Type)
+			fr.desc = withoutSIUnit(fld.Doc, fr.unit)
 			x.tr.refs[p] = ref{name: x.pathName(p), factor: fr.unit.Factor}
 			x.values[p] = valueAt{fv, fr.unit}
 			if input && arg != nil {
@@ -498,6 +507,14 @@ func (x *exporter) tableUnits(c *check.Cell, t *funcs.TableValue) []units.Unit {
 // template's table was shown in the preferred unit under a header the
 // template does not have (lengths written in cm shown in mm).
 func (x *exporter) tableColumns(c *check.Cell) []sheet.Column {
+	if tb := x.tableItem(c); tb != nil {
+		return tb.Columns
+	}
+	return nil
+}
+
+// tableItem is the table item that wrote table cell c (see tableColumns).
+func (x *exporter) tableItem(c *check.Cell) *sheet.Table {
 	name := strings.TrimPrefix(c.Name, c.Scope)
 	var file *sheet.File
 	if c.Pos.File == x.s.Name() {
@@ -523,7 +540,7 @@ func (x *exporter) tableColumns(c *check.Cell) []sheet.Column {
 	}
 	for _, it := range file.Items {
 		if tb, ok := it.(*sheet.Table); ok && tb.Name.Name == name {
-			return tb.Columns
+			return tb
 		}
 	}
 	return nil
@@ -533,7 +550,14 @@ func (x *exporter) addTable(path, desc string, t *funcs.TableValue, us []units.U
 	if t == nil || t.Type == nil {
 		return
 	}
-	x.tables = append(x.tables, &tableBlock{path: path, desc: desc, t: t, units: us, input: input, cell: cell})
+	b := &tableBlock{path: path, desc: desc, t: t, units: us, input: input, cell: cell}
+	if input {
+		b.written = make([]string, len(t.Type.Fields))
+		for j := range b.written {
+			b.written[j] = generalFormat
+		}
+	}
+	x.tables = append(x.tables, b)
 	x.stats.Tables++
 }
 
@@ -589,4 +613,18 @@ func (x *exporter) workbookProps() error {
 	m := x.s.Meta()
 	return x.f.SetDocProps(&excelize.DocProperties{Title: m.Title, Subject: m.Project, Creator: m.Author, Revision: m.Revision,
 		Description: "Calculation sheet " + x.s.Name() + ", exported by " + x.gen})
+}
+
+// siSuffix matches the SI unit a field's description ends with
+// ("area, m²", "force [N]").
+var siSuffix = regexp.MustCompile(`(,\s*|\s*\[)(m|m²|m³|m⁴|Pa|N|N/m|N·m|K|1/K|kg/m³|rad)\]?$`)
+
+// withoutSIUnit drops the SI unit from the end of a field's description
+// when the field is shown in another unit (the Unit column says which):
+// "area, m²" beside a value in mm² would be misread.
+func withoutSIUnit(doc string, u units.Unit) string {
+	if u.Factor == 1 {
+		return doc
+	}
+	return siSuffix.ReplaceAllString(doc, "")
 }
