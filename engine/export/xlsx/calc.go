@@ -8,6 +8,7 @@ import (
 
 	"github.com/sheafcalc/sheaf/engine"
 	"github.com/sheafcalc/sheaf/engine/check"
+	"github.com/sheafcalc/sheaf/engine/sheet"
 	"github.com/sheafcalc/sheaf/engine/units"
 	"github.com/sheafcalc/sheaf/funcs"
 	"github.com/sheafcalc/sheaf/internal/plural"
@@ -111,6 +112,21 @@ func (x *exporter) writeCalc() error {
 			for j := 1; j < calcCols; j++ {
 				cells[j] = x.text("", clsHeading)
 			}
+		case rowComment:
+			cells[0] = x.text("", clsText)
+			cells[1] = x.text(r.title, clsComment)
+			for j := 2; j < calcCols; j++ {
+				cells[j] = x.text("", clsText)
+			}
+			rr := strconv.Itoa(r.row)
+			h := rowHeight(cells[1:2], []float64{commentWidth}, []bool{true})
+			if err := sw.SetRow("A"+rr, row, excelize.RowOpts{Height: h}); err != nil {
+				return err
+			}
+			if err := sw.MergeCell("B"+rr, "H"+rr); err != nil {
+				return err
+			}
+			continue
 		case rowCell:
 			cells = x.cellRow(r.cr)
 		case rowField:
@@ -121,6 +137,51 @@ func (x *exporter) writeCalc() error {
 		}
 	}
 	return sw.Flush()
+}
+
+// commentWidth is the width of the merged columns B:H a comment spans,
+// less a margin.
+const commentWidth = 140
+
+// commentBlock is a paragraph of full-line comments of the sheet: the
+// lines without their "#", and the offset of the first.
+type commentBlock struct {
+	off  int
+	text string
+}
+
+// commentBlocks are the comments of the sheet file in reading order,
+// consecutive lines joined into one block (a blank line or any other item
+// ends a block). Comments of templates stay in the templates.
+func (x *exporter) commentBlocks() []commentBlock {
+	f := x.s.File()
+	if f == nil {
+		return nil
+	}
+	var out []commentBlock
+	open := false
+	for _, it := range f.Items {
+		c, ok := it.(*sheet.Comment)
+		if !ok {
+			open = false
+			continue
+		}
+		line := strings.TrimPrefix(c.Text, " ")
+		if open {
+			out[len(out)-1].text += "\n" + line
+			continue
+		}
+		out = append(out, commentBlock{off: c.Range.Start.Offset, text: line})
+		open = true
+	}
+	// A block of empty comment lines says nothing.
+	kept := out[:0]
+	for _, b := range out {
+		if strings.TrimSpace(b.text) != "" {
+			kept = append(kept, b)
+		}
+	}
+	return kept
 }
 
 // staleColours marks each guarded value and its note by conditional

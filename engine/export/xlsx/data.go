@@ -105,6 +105,13 @@ func (x *exporter) writeData() error {
 	return nil
 }
 
+// Chart fonts: axis numbers in black at a size that prints (the default
+// grey is close to white on paper).
+var (
+	axisFont      = excelize.Font{Color: "000000", Size: 10}
+	axisTitleFont = excelize.Font{Color: "000000", Size: 10, Bold: true}
+)
+
 // chartSpec is one chart: y column against x column of a table.
 type chartSpec struct {
 	b          *tableBlock
@@ -123,6 +130,12 @@ func chartsOf(b *tableBlock) []chartSpec {
 		}
 		return what
 	}
+	// The title says what is plotted and for which result, in the words
+	// of the sheet (its description), not by internal name.
+	of := b.owner
+	if of == "" {
+		of = b.path
+	}
 	var out []chartSpec
 	switch b.t.Type.Name {
 	case "bar_samples":
@@ -132,20 +145,21 @@ func chartsOf(b *tableBlock) []chartSpec {
 		}
 		for _, s := range [][3]string{{"N", "N(x)", "axial force N"}, {"u", "u(x)", "displacement u"}, {"sigma", "σ(x)", "axial stress σ"}} {
 			if y := col(s[0]); y >= 0 {
-				out = append(out, chartSpec{b, x, y, b.path + ": " + s[1] + ", " + s[2] + " along the bar", label(x, "position x"), label(y, s[2])})
+				out = append(out, chartSpec{b, x, y, s[1] + ", " + s[2] + " along the bar: " + of, label(x, "position x"), label(y, s[2])})
 			}
 		}
 	case "n_eps_curve":
 		e, n := col("eps"), col("N")
 		if e >= 0 && n >= 0 {
-			out = append(out, chartSpec{b, e, n, b.path + ": N(ε), axial force against uniform strain", label(e, "strain ε"), label(n, "axial force N")})
+			out = append(out, chartSpec{b, e, n, "N(ε), axial force against uniform strain: " + of, label(e, "strain ε"), label(n, "axial force N")})
 		}
 	}
 	return out
 }
 
-// chartHeight is the number of rows one chart takes on the Charts tab.
-const chartHeight = 22
+// chartHeight is the number of rows one chart takes on the Charts tab:
+// one chart a printed page (landscape A4), with a page break before each.
+const chartHeight = 26
 
 func (x *exporter) writeCharts() error {
 	var specs []chartSpec
@@ -179,11 +193,18 @@ func (x *exporter) writeCharts() error {
 				Marker: excelize.ChartMarker{Symbol: "none"}, Line: excelize.LineOptions{Type: excelize.LineSolid, Width: 1.5}}},
 			Title:     excelize.ChartTitle{Paragraph: []excelize.RichTextRun{{Text: s.title}}},
 			Legend:    excelize.ChartLegend{Position: "none"},
-			XAxis:     excelize.ChartAxis{MajorGridLines: true, Title: excelize.ChartTitle{Paragraph: []excelize.RichTextRun{{Text: s.xAxis}}}},
-			YAxis:     excelize.ChartAxis{MajorGridLines: true, Title: excelize.ChartTitle{Paragraph: []excelize.RichTextRun{{Text: s.yAx}}}},
-			Dimension: excelize.ChartDimension{Width: 760, Height: 400},
+			XAxis: excelize.ChartAxis{MajorGridLines: true, Font: axisFont,
+				Title: excelize.ChartTitle{Paragraph: []excelize.RichTextRun{{Text: s.xAxis, Font: &axisTitleFont}}}},
+			YAxis: excelize.ChartAxis{MajorGridLines: true, Font: axisFont,
+				Title: excelize.ChartTitle{Paragraph: []excelize.RichTextRun{{Text: s.yAx, Font: &axisTitleFont}}}},
+			Dimension: excelize.ChartDimension{Width: 900, Height: 460},
 		}
 		cell, _ := excelize.CoordinatesToCellName(2, 2+i*chartHeight)
+		if i > 0 {
+			if err := x.f.InsertPageBreak(TabCharts, "A"+strconv.Itoa(1+i*chartHeight)); err != nil {
+				return err
+			}
+		}
 		if err := x.f.AddChart(TabCharts, cell, ch); err != nil {
 			return fmt.Errorf("chart %q: %w", s.title, err)
 		}

@@ -119,7 +119,8 @@ func (s *styles) make(c class, numFmt string) int {
 	case clsMono:
 		st.Font = &excelize.Font{Family: "Consolas", Size: 9}
 	case clsComment:
-		st.Font = &excelize.Font{Italic: true, Color: "1F3864"}
+		// Monospaced, as written: hand checks in comments are aligned.
+		st.Font = &excelize.Font{Family: "Consolas", Size: 10, Color: "1F3864"}
 		st.Alignment.WrapText = true
 	case clsVerdict:
 		st.Font = &excelize.Font{Bold: true}

@@ -118,7 +118,9 @@ func TestCharts(t *testing.T) {
 	}
 	all := strings.Join(charts, "\n")
 	for _, want := range []string{
-		"res.samples: N(x)", "res.samples: u(x)", "res.samples: σ(x)", "curve: N(ε)",
+		// Titles in the sheet's words: the description of the result.
+		"N(x), axial force N along the bar: fixed at the top, loaded at the foot", "u(x), displacement u along the bar: fixed at the top",
+		"σ(x), axial stress σ along the bar: fixed", "N(ε), axial force against uniform strain: N against strain",
 		"Data!$A$", "Data!$B$", "Data!$C$", "Data!$D$", "position x [mm]", "strain ε",
 	} {
 		if !strings.Contains(all, want) {

@@ -151,6 +151,7 @@ const (
 	rowHeading rowKind = iota
 	rowCell
 	rowField
+	rowComment // a comment of the sheet, in its place
 )
 
 // calcRow is one row of the Calculation tab.
@@ -191,6 +192,7 @@ type tableBlock struct {
 	units []units.Unit
 	input bool // a table of the sheet: its entries are editable
 	cell  int  // the index of the table cell; -1 for a table inside a value
+	owner string // the description of the cell the table belongs to
 	// written: the number format of each column of a table of the
 	// sheet, which shows its entries as written (generalFormat).
 	written []string
@@ -226,10 +228,18 @@ func (x *exporter) layout() {
 		}
 	}
 	section = ""
-	x.rows = make([]calcRow, 0, len(x.r.Cells)+headings) // record fields may add more
+	comments := x.commentBlocks()
+	x.rows = make([]calcRow, 0, len(x.r.Cells)+headings+len(comments)) // record fields may add more
 	for i := range x.r.Cells {
 		cr := &x.r.Cells[i]
 		c := cr.Cell
+		if c.Range.Start.File == x.s.Name() {
+			for len(comments) > 0 && comments[0].off < c.Range.Start.Offset {
+				x.rows = append(x.rows, calcRow{kind: rowComment, row: row, title: comments[0].text})
+				row++
+				comments = comments[1:]
+			}
+		}
 		if c.Section != section {
 			section = c.Section
 			if section != "" {
@@ -266,8 +276,12 @@ func (x *exporter) layout() {
 		case *funcs.RecordValue:
 			row = x.layoutRecord(c, c.Name, v, c.Kind == engine.Input, c.Body, row)
 		case *funcs.TableValue:
-			x.addTable(c.Name, c.Description, v, x.tableUnits(c, v), c.Kind == engine.Table, i)
+			x.addTable(c.Name, c.Description, v, x.tableUnits(c, v), c.Kind == engine.Table, i).setOwner(c.Description)
 		}
+	}
+	for _, b := range comments {
+		x.rows = append(x.rows, calcRow{kind: rowComment, row: row, title: b.text})
+		row++
 	}
 	// The Data tab follows the order the tables were met.
 	drow := 1
@@ -422,7 +436,7 @@ func (x *exporter) layoutRecord(c *check.Cell, path string, v *funcs.RecordValue
 		case *funcs.TableValue:
 			x.rows = append(x.rows, fr)
 			row++
-			x.addTable(p, fld.Doc, fv, x.tableUnits(nil, fv), false, -1)
+			x.addTable(p, fld.Doc, fv, x.tableUnits(nil, fv), false, -1).setOwner(c.Description)
 		default:
 			x.rows = append(x.rows, fr)
 			row++
@@ -546,9 +560,18 @@ func (x *exporter) tableItem(c *check.Cell) *sheet.Table {
 	return nil
 }
 
-func (x *exporter) addTable(path, desc string, t *funcs.TableValue, us []units.Unit, input bool, cell int) {
+// setOwner records the description of the cell a table belongs to (a nil
+// block, a table not exported, takes none).
+func (b *tableBlock) setOwner(desc string) {
+	if b != nil {
+		b.owner = desc
+	}
+}
+
+// addTable adds a table to the Data tab; nil when it has no type.
+func (x *exporter) addTable(path, desc string, t *funcs.TableValue, us []units.Unit, input bool, cell int) *tableBlock {
 	if t == nil || t.Type == nil {
-		return
+		return nil
 	}
 	b := &tableBlock{path: path, desc: desc, t: t, units: us, input: input, cell: cell}
 	if input {
@@ -559,6 +582,7 @@ func (x *exporter) addTable(path, desc string, t *funcs.TableValue, us []units.U
 	}
 	x.tables = append(x.tables, b)
 	x.stats.Tables++
+	return b
 }
 
 func (x *exporter) checkOf(c *check.Cell, row int) *checkRow {
@@ -605,6 +629,10 @@ func (x *exporter) workbookProps() error {
 			return fmt.Errorf("defined name %s for %s: %w", d.Name, d.Comment, err)
 		}
 		return fmt.Errorf("defined name %s: %w", names[i].Name, err)
+	}
+	// The column headers of the Calculation tab print on every page.
+	if err := x.f.SetDefinedName(&excelize.DefinedName{Name: "_xlnm.Print_Titles", RefersTo: TabCalc + "!$2:$2", Scope: TabCalc}); err != nil {
+		return err
 	}
 	full := true
 	if err := x.f.SetCalcProps(&excelize.CalcPropsOptions{FullCalcOnLoad: &full}); err != nil {
