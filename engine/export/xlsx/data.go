@@ -191,8 +191,8 @@ func (x *exporter) writeCharts() error {
 			// type is set.
 			Series: []excelize.ChartSeries{{Name: headerRef(s.yc), Categories: colRange(s.xc), Values: colRange(s.yc),
 				Marker: excelize.ChartMarker{Symbol: "none"}, Line: excelize.LineOptions{Type: excelize.LineSolid, Width: 1.5}}},
-			Title:     excelize.ChartTitle{Paragraph: []excelize.RichTextRun{{Text: s.title}}},
-			Legend:    excelize.ChartLegend{Position: "none"},
+			Title:  excelize.ChartTitle{Paragraph: []excelize.RichTextRun{{Text: s.title}}},
+			Legend: excelize.ChartLegend{Position: "none"},
 			XAxis: excelize.ChartAxis{MajorGridLines: true, Font: axisFont,
 				Title: excelize.ChartTitle{Paragraph: []excelize.RichTextRun{{Text: s.xAxis, Font: &axisTitleFont}}}},
 			YAxis: excelize.ChartAxis{MajorGridLines: true, Font: axisFont,

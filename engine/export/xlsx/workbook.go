@@ -190,8 +190,8 @@ type tableBlock struct {
 	desc  string
 	t     *funcs.TableValue
 	units []units.Unit
-	input bool // a table of the sheet: its entries are editable
-	cell  int  // the index of the table cell; -1 for a table inside a value
+	input bool   // a table of the sheet: its entries are editable
+	cell  int    // the index of the table cell; -1 for a table inside a value
 	owner string // the description of the cell the table belongs to
 	// written: the number format of each column of a table of the
 	// sheet, which shows its entries as written (generalFormat).
