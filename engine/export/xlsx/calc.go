@@ -27,7 +27,7 @@ var calcHeader = [calcCols]string{"Name", "Description", "Expression as written"
 
 // calcWidths fit A4 landscape at about 90 % (text of 11 points prints
 // at about 10): the whole is 160 character widths.
-var calcWidths = [calcCols]float64{14, 28, 24, 34, 12, 8, 20, 20}
+var calcWidths = [calcCols]float64{17, 27, 24, 32, 12, 8, 20, 20}
 
 // calcMono marks the columns shown in the monospaced expression font.
 var calcMono = [calcCols]bool{2: true, 3: true}
@@ -84,11 +84,11 @@ func (x *exporter) writeCalc() error {
 	if title == "" {
 		title = x.s.Name()
 	}
-	if err := sw.SetRow("A1", []any{x.text(title+": calculation", clsTitle), nil, nil, x.text(calcGuide, clsText)},
-		excelize.RowOpts{Height: rowHeight([]excelize.Cell{{Value: calcGuide}}, []float64{calcWidths[3] + calcWidths[4] + calcWidths[5] + calcWidths[6] + calcWidths[7]}, nil)}); err != nil {
+	if err := sw.SetRow("A1", []any{x.text(title+": calculation", clsTitle), nil, nil, nil, x.text(calcGuide, clsText)},
+		excelize.RowOpts{Height: rowHeight([]excelize.Cell{{Value: calcGuide}}, []float64{calcWidths[4] + calcWidths[5] + calcWidths[6] + calcWidths[7]}, nil)}); err != nil {
 		return err
 	}
-	if err := sw.MergeCell("D1", "H1"); err != nil {
+	if err := sw.MergeCell("E1", "H1"); err != nil {
 		return err
 	}
 	head := make([]any, len(calcHeader))
@@ -276,6 +276,12 @@ func (x *exporter) cellRow(cr *engine.CellResult) [calcCols]excelize.Cell {
 			switch cr.Value.(type) {
 			case *funcs.RecordValue:
 				note = "record: its fields follow"
+				if x.opaque[c.Index] {
+					note = noteValueOnly + "its fields follow"
+					if c.Body != nil && c.Body.Str() != "" {
+						note = noteValueOnly + "computed with `" + c.Body.Str() + "`; its fields follow"
+					}
+				}
 			case *funcs.TableValue:
 				note = "table: see the Data tab"
 			}
@@ -352,8 +358,8 @@ func (x *exporter) fieldRow(r *calcRow) [calcCols]excelize.Cell {
 				v = f / r.unit.Factor
 				fmtStr = numFormat(f/r.unit.Factor, x.sig)
 			}
+			// The record's row says why; the grey says it here.
 			value = excelize.Cell{StyleID: x.st.id(clsValueOnly, fmtStr), Value: v}
-			note = noteValueOnly + "a field of a result only Sheaf computes"
 		} else {
 			value, note = x.valueCell(nil, r.val, r.input, body, r.unit.Factor)
 			if _, num := v.(float64); num && r.input {

@@ -261,7 +261,7 @@ func (x *exporter) checkSummary(ch *checkRow) []any {
 }
 
 // placeholderWarning stands beside a header field that is a placeholder.
-const placeholderWarning = "placeholder: fill in before issue"
+const placeholderWarning = "placeholder: fill in"
 
 // isPlaceholder reports whether a header field holds no real value yet:
 // empty, a dash, or a word that stands for one.
