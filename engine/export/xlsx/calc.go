@@ -203,8 +203,7 @@ func (x *exporter) staleColours() error {
 		}
 		if id < 0 {
 			var err error
-			id, err = x.f.NewConditionalStyle(&excelize.Style{Font: &excelize.Font{Bold: true, Color: colStale},
-				Fill: excelize.Fill{Type: "pattern", Pattern: 1, Color: []string{fillStale}}})
+			id, err = x.f.NewConditionalStyle(&staleStyle)
 			if err != nil {
 				return err
 			}
@@ -283,7 +282,7 @@ func (x *exporter) cellRow(cr *engine.CellResult) [calcCols]excelize.Cell {
 					}
 				}
 			case *funcs.TableValue:
-				note = "table: see the Data tab"
+				note = "table: see the " + TabSamples + " tab"
 			}
 		}
 	}
@@ -372,7 +371,7 @@ func (x *exporter) fieldRow(r *calcRow) [calcCols]excelize.Cell {
 	case *funcs.RecordValue:
 		value, note = x.text("record", clsText), "its fields follow"
 	case *funcs.TableValue:
-		value, note = x.text("table, "+plural.Count(v.Rows(), "row"), clsText), "table: see the Data tab"
+		value, note = x.text("table, "+plural.Count(v.Rows(), "row"), clsText), "table: see the "+TabSamples+" tab"
 	case string:
 		value = x.text(v, clsText)
 	case []float64:

@@ -19,25 +19,39 @@ type nodeAlias = check.Node
 // header row of "column [unit]", then the entries in display units. The
 // entries of the sheet's own tables are inputs.
 func (x *exporter) writeData() error {
-	if len(x.tables) == 0 {
+	if err := x.writeTables(TabData); err != nil {
+		return err
+	}
+	return x.writeTables(TabSamples)
+}
+
+// writeTables writes the tables of one tab.
+func (x *exporter) writeTables(tab string) error {
+	var blocks []*tableBlock
+	for _, b := range x.tables {
+		if b.tab == tab {
+			blocks = append(blocks, b)
+		}
+	}
+	if len(blocks) == 0 {
 		return nil
 	}
-	if _, err := x.f.NewSheet(TabData); err != nil {
+	if _, err := x.f.NewSheet(tab); err != nil {
 		return err
 	}
 	// Print setup and protection go on before streaming: the stream
 	// writer keeps what the tab had, but drops what is set after it.
-	if err := x.finishTab(TabData, false); err != nil {
+	if err := x.finishTab(tab, false); err != nil {
 		return err
 	}
-	sw, err := x.f.NewStreamWriter(TabData)
+	sw, err := x.f.NewStreamWriter(tab)
 	if err != nil {
 		return err
 	}
 	if err := sw.SetColWidth(1, 16, 14); err != nil {
 		return err
 	}
-	for _, b := range x.tables {
+	for _, b := range blocks {
 		title := b.path
 		if b.desc != "" {
 			title += ": " + b.desc
@@ -177,12 +191,12 @@ func (x *exporter) writeCharts() error {
 	for i, s := range specs {
 		colRange := func(j int) string {
 			c, _ := excelize.ColumnNumberToName(j + 1)
-			return dataColumnRef(c, s.b.firstDataRow(), s.b.firstDataRow()+s.b.t.Rows()-1)
+			return dataColumnRef(s.b.tab, c, s.b.firstDataRow(), s.b.firstDataRow()+s.b.t.Rows()-1)
 		}
 		headerRef := func(j int) string {
 			c, _ := excelize.ColumnNumberToName(j + 1)
 			row := strconv.Itoa(s.b.firstDataRow() - 1)
-			return TabData + "!$" + c + "$" + row
+			return s.b.tab + "!$" + c + "$" + row
 		}
 		ch := &excelize.Chart{
 			Type: excelize.Scatter,

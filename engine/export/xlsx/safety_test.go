@@ -194,7 +194,7 @@ func TestStyles(t *testing.T) {
 			}
 		}
 	}
-	for _, tab := range []string{TabSummary, TabCalc, TabData} {
+	for _, tab := range []string{TabSummary, TabCalc, TabSamples, TabCharts, TabRun} {
 		if err := f.UnprotectSheet(tab); err != nil {
 			t.Errorf("%s is not protected: %v", tab, err)
 		}

@@ -47,6 +47,10 @@ const (
 	fillStale     = "FFD9A0"
 )
 
+// staleStyle marks a value that is out of date (conditional formatting).
+var staleStyle = excelize.Style{Font: &excelize.Font{Bold: true, Color: colStale},
+	Fill: excelize.Fill{Type: "pattern", Pattern: 1, Color: []string{fillStale}}}
+
 type styleKey struct {
 	cls class
 	fmt string

@@ -5,13 +5,14 @@ import (
 	"encoding/hex"
 	"fmt"
 	"path/filepath"
+	"strconv"
 	"strings"
 
 	"github.com/xuri/excelize/v2"
 )
 
 // summaryWidths fit A4 portrait at about 90 %: 104 character widths.
-var summaryWidths = []float64{14, 30, 10, 10, 6, 10, 10, 14}
+var summaryWidths = []float64{14, 29, 10, 10, 6, 10, 12, 13}
 
 // summaryWide is the width of the whole summary, in character widths.
 const summaryWide = 104
@@ -214,7 +215,29 @@ func (x *exporter) verdictColours(tab, rng string) error {
 		}
 		opts = append(opts, excelize.ConditionalFormatOptions{Type: "cell", Criteria: "==", Value: quoted(v.word), Format: &id})
 	}
-	return x.f.SetConditionalFormat(tab, rng, opts)
+	if err := x.f.SetConditionalFormat(tab, rng, opts); err != nil {
+		return err
+	}
+	// Demand, capacity and utilisation of a check that depends on a value
+	// only Sheaf computes are marked once an input upstream has changed.
+	id := -1
+	for k, ch := range x.checks {
+		g := x.guardExpr(x.stale[ch.cell.Index])
+		if g == "" {
+			continue
+		}
+		if id < 0 {
+			var err error
+			if id, err = x.f.NewConditionalStyle(&staleStyle); err != nil {
+				return err
+			}
+		}
+		r := strconv.Itoa(summaryFirstCheck + k)
+		if err := x.f.SetConditionalFormat(tab, "C"+r+":F"+r, []excelize.ConditionalFormatOptions{{Type: "formula", Criteria: g, Format: &id}}); err != nil {
+			return err
+		}
+	}
+	return nil
 }
 
 // checkSummary is a row of the checks table: the demand and capacity are

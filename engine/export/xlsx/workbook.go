@@ -21,6 +21,7 @@ const (
 	TabSummary = "Summary"
 	TabCalc    = "Calculation"
 	TabData    = "Data"
+	TabSamples = "Samples"
 	TabCharts  = "Charts"
 )
 
@@ -193,6 +194,7 @@ type tableBlock struct {
 	input bool   // a table of the sheet: its entries are editable
 	cell  int    // the index of the table cell; -1 for a table inside a value
 	owner string // the description of the cell the table belongs to
+	tab   string // TabData or TabSamples
 	// written: the number format of each column of a table of the
 	// sheet, which shows its entries as written (generalFormat).
 	written []string
@@ -283,19 +285,25 @@ func (x *exporter) layout() {
 		x.rows = append(x.rows, calcRow{kind: rowComment, row: row, title: b.text})
 		row++
 	}
-	// The Data tab follows the order the tables were met.
-	drow := 1
+	// The tables of the sheet go on the Data tab, the tables Sheaf
+	// computed (bar samples, curves) on the Samples tab, each in the order
+	// met.
+	drow := map[string]int{TabData: 1, TabSamples: 1}
 	for _, b := range x.tables {
-		b.row = drow
+		b.tab = TabSamples
+		if b.input {
+			b.tab = TabData
+		}
+		b.row = drow[b.tab]
 		n := b.t.Rows()
 		for j, fld := range b.t.Type.Fields {
 			col, _ := excelize.ColumnNumberToName(j + 1)
-			rng := dataColumnRef(col, b.firstDataRow(), b.firstDataRow()+max(n, 1)-1)
+			rng := dataColumnRef(b.tab, col, b.firstDataRow(), b.firstDataRow()+max(n, 1)-1)
 			p := b.path + "." + fld.Name
 			x.tr.refs[p] = ref{name: x.pathName(p), factor: b.units[j].Factor, rows: n}
 			x.dataRanges = append(x.dataRanges, namedRange{x.tr.refs[p].name, rng})
 		}
-		drow += n + 3
+		drow[b.tab] += n + 3
 	}
 	x.markOpaque()
 }
@@ -370,8 +378,8 @@ func calcValueRef(row int) string {
 
 // dataColumnRef is the absolute reference of rows first to last of column
 // col on the Data tab: Data!$B$4:$B$20.
-func dataColumnRef(col string, first, last int) string {
-	return TabData + "!$" + col + "$" + strconv.Itoa(first) + ":$" + col + "$" + strconv.Itoa(last)
+func dataColumnRef(tab, col string, first, last int) string {
+	return tab + "!$" + col + "$" + strconv.Itoa(first) + ":$" + col + "$" + strconv.Itoa(last)
 }
 
 // namedRange is a defined name of a column range on the Data tab.
@@ -645,7 +653,7 @@ func (x *exporter) workbookProps() error {
 
 // siSuffix matches the SI unit a field's description ends with
 // ("area, m²", "force [N]").
-var siSuffix = regexp.MustCompile(`(,\s*|\s*\[)(m|m²|m³|m⁴|Pa|N|N/m|N·m|K|1/K|kg/m³|rad)\]?$`)
+var siSuffix = regexp.MustCompile(`(,\s*|\s*\[)(m|m²|m³|m⁴|Pa|N|N/m|N·m|K|1/K|kg/m³|rad)\]?($|\s*\()`)
 
 // withoutSIUnit drops the SI unit from the end of a field's description
 // when the field is shown in another unit (the Unit column says which):
@@ -654,5 +662,10 @@ func withoutSIUnit(doc string, u units.Unit) string {
 	if u.Factor == 1 {
 		return doc
 	}
-	return siSuffix.ReplaceAllString(doc, "")
+	return strings.TrimSpace(siSuffix.ReplaceAllStringFunc(doc, func(m string) string {
+		if strings.HasSuffix(m, "(") {
+			return " ("
+		}
+		return ""
+	}))
 }
