@@ -295,7 +295,7 @@ func (x *exporter) writeRun() error {
 			return err
 		}
 	}
-	if err := sw.SetRow("A1", []any{x.text("Inputs as Sheaf computed with them", clsTitle)}); err != nil {
+	if err := sw.SetRow("A1", []any{x.text("Inputs as Sheaf computed with them", clsTitle)}, excelize.RowOpts{Height: 24}); err != nil {
 		return err
 	}
 	if err := sw.SetRow("A2", []any{x.text("Values marked grey were computed by Sheaf from these inputs. When one is changed, "+
@@ -322,9 +322,9 @@ func (x *exporter) writeRun() error {
 		changed := "D" + r + "<>C" + r
 		switch v := key.val.(type) {
 		case float64:
-			nf := numFormat(v, 15)
-			at = excelize.Cell{StyleID: x.st.id(clsData, nf), Value: v}
-			now = excelize.Cell{StyleID: x.st.id(clsDerived, nf), Value: v, Formula: name}
+			// General shows every digit that matters, as typed.
+			at = excelize.Cell{StyleID: x.st.id(clsData, generalFormat), Value: v}
+			now = excelize.Cell{StyleID: x.st.id(clsDerived, generalFormat), Value: v, Formula: name}
 		case string:
 			// Text compares without regard to case in a spreadsheet;
 			// Sheaf's modes do not.
