@@ -121,6 +121,7 @@ combinations come from the local code and licensed practice.`,
 		newFmtCmd(a),
 		newWatchCmd(a),
 		newNewCmd(a),
+		newLspCmd(a),
 	)
 	return root
 }
