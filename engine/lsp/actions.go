@@ -80,6 +80,7 @@ func (s *Server) codeActions(params json.RawMessage) (any, *rpcError) {
 	if err != nil {
 		return nil, err
 	}
+	d.ensure()
 	out := []codeAction{}
 	for _, ld := range p.Context.Diagnostics {
 		fix := ld.Data

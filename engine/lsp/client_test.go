@@ -31,6 +31,7 @@ type client struct {
 	diags map[string][]lspDiagnostic // last published, by URI
 	nDiag int                        // publishDiagnostics received
 	inbox []*message
+	last  json.RawMessage // the last result
 }
 
 func newClient(t testing.TB, opt Options) *client {
@@ -100,6 +101,7 @@ func (c *client) try(method string, params any, result any) *rpcError {
 		if m.Error != nil {
 			return m.Error
 		}
+		c.last = m.Result
 		if result != nil {
 			if err := json.Unmarshal(m.Result, result); err != nil {
 				c.t.Fatalf("%s: result %s: %v", method, m.Result, err)

@@ -2,6 +2,7 @@ package lsp
 
 import (
 	"regexp"
+	"strings"
 
 	"github.com/sheafcalc/sheaf/engine"
 	"github.com/sheafcalc/sheaf/engine/diag"
@@ -33,6 +34,10 @@ type document struct {
 	// line still holds the item it held (see setText). Requests that need
 	// more than values check the text again first (ensure).
 	stale bool
+	// unparsed says that file is the parse of an older text: the edits
+	// since changed input values on their lines and nothing else, so each
+	// line still holds the item file has for it (see lineEdit).
+	unparsed bool
 }
 
 func newDocument(uri string, version int, src string) *document {
@@ -67,6 +72,10 @@ func (d *document) check() {
 
 // ensure brings the analysis up to the current text.
 func (d *document) ensure() {
+	if d.unparsed {
+		d.parse(d.lines.src)
+		d.unparsed = false
+	}
 	if d.stale {
 		d.check()
 	}
@@ -78,8 +87,12 @@ func (d *document) ensure() {
 // is the path typing takes, and it reports true. Any other edit checks the
 // whole text again.
 func (d *document) setText(version int, src string) (fast bool) {
-	old := d.file
 	d.version = version
+	if d.sheet != nil && d.lineEdit(src) {
+		return true
+	}
+	d.ensure()
+	old := d.file
 	d.parse(src)
 	if d.sheet != nil && !d.failed && d.inputsOnly(old, d.file) {
 		d.stale = true
@@ -87,6 +100,123 @@ func (d *document) setText(version int, src string) (fast bool) {
 	}
 	d.check()
 	return false
+}
+
+// lineEdit takes the fast path without parsing the new text: it compares
+// the new text with the current one line by line, and succeeds when every
+// changed line is a one-line cell (or template override) of the current
+// parse whose text before the expression and annotation after it stay,
+// and whose new expression is a quantity literal that fits the input.
+// The parse is then left as it is (unparsed), since every item keeps its
+// lines; whatever needs the items parses the text again first (ensure).
+func (d *document) lineEdit(src string) bool {
+	nt := newText(src)
+	if nt.lineCount() != d.lines.lineCount() {
+		return false
+	}
+	type set struct {
+		name string
+		text string
+	}
+	var sets []set
+	var byLine []sheet.Item
+	for i := 0; i < nt.lineCount(); i++ {
+		cur, nw := d.lines.line(i), nt.line(i)
+		if cur == nw {
+			continue
+		}
+		if byLine == nil {
+			byLine = make([]sheet.Item, d.lines.lineCount()+1)
+			for _, it := range d.file.Items {
+				r := it.Span()
+				if r.Start.Line == r.End.Line && r.Start.Line >= 1 && r.Start.Line <= len(byLine) {
+					byLine[r.Start.Line-1] = it
+				}
+				if u, ok := it.(*sheet.Use); ok {
+					for _, o := range u.Overrides {
+						if o.Range.Start.Line == o.Range.End.Line && o.Range.Start.Line <= len(byLine) {
+							byLine[o.Range.Start.Line-1] = &override{prefix: u.Name.Name + ".", Cell: o}
+						}
+					}
+				}
+			}
+		}
+		var c *sheet.Cell
+		prefix := ""
+		switch it := byLine[i].(type) {
+		case *sheet.Cell:
+			c = it
+		case *override:
+			c, prefix = it.Cell, it.prefix
+		default:
+			return false
+		}
+		e := byteCol(cur, c.Expr.Range.Start.Col)
+		if e < 0 || e > len(nw) || cur[:e] != nw[:e] {
+			return false
+		}
+		v0, a0 := splitAnnot(cur[e:])
+		v1, a1 := splitAnnot(nw[e:])
+		if a0 != a1 || v0 == "" || !quantityLit.MatchString(v1) {
+			return false
+		}
+		sets = append(sets, set{prefix + c.Name.Name, v1})
+	}
+	if len(sets) == 0 {
+		return src == d.lines.src // the same text (else line breaks changed)
+	}
+	vals := make([]funcs.Value, len(sets))
+	for i, st := range sets {
+		c := d.sheet.Lookup(st.name)
+		if c == nil || c.Kind != engine.Input || c.Type == nil || c.Type.Kind != funcs.Number {
+			return false
+		}
+		v, err := d.sheet.ParseInput(st.name, st.text)
+		if err != nil {
+			return false
+		}
+		vals[i] = v
+	}
+	for i, st := range sets {
+		if err := d.state.Set(st.name, vals[i]); err != nil {
+			return false
+		}
+	}
+	d.state.Recompute()
+	d.lines, d.stale, d.unparsed = nt, true, true
+	return true
+}
+
+// override is a template override with the name of its `use`.
+type override struct {
+	prefix string
+	*sheet.Cell
+}
+
+func (o *override) Span() diag.Range { return o.Cell.Range }
+
+// byteCol returns the byte offset of 1-based rune column col in ln, or -1.
+func byteCol(ln string, col int) int {
+	n := 1
+	for i := range ln {
+		if n == col {
+			return i
+		}
+		n++
+	}
+	if n == col {
+		return len(ln)
+	}
+	return -1
+}
+
+// splitAnnot splits the rest of a cell's line after its expression's
+// start into the expression (trimmed) and the annotation from `--` on.
+func splitAnnot(s string) (expr, annot string) {
+	if i := strings.Index(s, "--"); i >= 0 {
+		return strings.TrimSpace(s[:i]), s[i:]
+	}
+	return strings.TrimSpace(s), ""
 }
 
 // quantityLit is a number with an optional unit and nothing else: the only

@@ -19,6 +19,7 @@ func (s *Server) formatting(params json.RawMessage) (any, *rpcError) {
 	if err != nil {
 		return nil, err
 	}
+	d.ensure()
 	out, ferr := sheet.Format(d.file)
 	if ferr != nil {
 		return nil, &rpcError{Code: codeRequestFailed, Message: "not formatted: " + ferr.Error()}

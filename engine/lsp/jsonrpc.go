@@ -140,6 +140,11 @@ func (w *writer) write(m *message) error {
 	if err != nil {
 		return err
 	}
+	return w.writeBody(body)
+}
+
+// writeBody queues one message body, already encoded.
+func (w *writer) writeBody(body []byte) error {
 	frame := append([]byte(fmt.Sprintf("Content-Length: %d\r\n\r\n", len(body))), body...)
 	w.start.Do(func() { go w.loop() })
 	w.mu.Lock()

@@ -457,6 +457,7 @@ func (s *Server) documentSymbols(params json.RawMessage) (any, *rpcError) {
 	if err != nil {
 		return nil, err
 	}
+	d.ensure()
 	out := []documentSymbol{}
 	var section *documentSymbol
 	flush := func() {
