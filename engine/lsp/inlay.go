@@ -54,8 +54,10 @@ func (s *Server) inlayHints(params json.RawMessage) (any, *rpcError) {
 		if line < first || line > last {
 			continue
 		}
-		label, tip := d.valueText(c)
-		out = append(out, inlayHint{Position: d.lines.lineEnd(line), Label: "= " + label, PaddingLeft: true, Tooltip: tip})
+		// No tooltip: the SI value is in the hover, and on a sheet of
+		// thousands of cells it would double what each request sends.
+		label, _ := d.valueText(c)
+		out = append(out, inlayHint{Position: d.lines.lineEnd(line), Label: "= " + label, PaddingLeft: true})
 	}
 	for _, it := range d.file.Items {
 		u, ok := it.(*sheet.Use)
