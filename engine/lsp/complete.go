@@ -2,7 +2,6 @@ package lsp
 
 import (
 	"encoding/json"
-	"os"
 	"path/filepath"
 	"regexp"
 	"sort"
@@ -195,25 +194,15 @@ func templatePaths(d *document) []completionItem {
 	out := []completionItem{}
 	dir := filepath.Dir(d.path)
 	root := projectRoot(dir)
-	_ = filepath.WalkDir(root, func(path string, e os.DirEntry, err error) error {
-		if err != nil || len(out) >= maxPathItems {
-			return filepath.SkipDir
-		}
-		if e.IsDir() {
-			if n := e.Name(); path != root && (strings.HasPrefix(n, ".") || n == "node_modules") {
-				return filepath.SkipDir
-			}
-			return nil
-		}
-		if !strings.HasSuffix(path, ".sheaf") || filepath.Clean(path) == filepath.Clean(d.path) {
-			return nil
+	for _, path := range sheafFiles(root, maxPathItems+1) {
+		if filepath.Clean(path) == filepath.Clean(d.path) {
+			continue
 		}
 		rel, err := filepath.Rel(dir, path)
 		if err != nil {
-			return nil
+			continue
 		}
 		out = append(out, completionItem{Label: filepath.ToSlash(rel), Kind: kindFile, Detail: "template"})
-		return nil
-	})
+	}
 	return out
 }

@@ -82,9 +82,11 @@ func (r *reader) read() ([]byte, error) {
 	if n > maxMessage {
 		return nil, fmt.Errorf("%w: a message of %d bytes is over the limit of %d", errFraming, n, maxMessage)
 	}
-	body := make([]byte, n)
-	if _, err := io.ReadFull(r.r, body); err != nil {
-		return nil, fmt.Errorf("%w: the body ended early: %v", errFraming, err)
+	// Read what comes rather than allocate the announced length first: a
+	// broken header must not cost the memory it names.
+	body, err := io.ReadAll(io.LimitReader(r.r, int64(n)))
+	if err != nil || len(body) < n {
+		return nil, fmt.Errorf("%w: the body ended after %d of %d bytes", errFraming, len(body), n)
 	}
 	return body, nil
 }

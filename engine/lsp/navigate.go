@@ -366,22 +366,7 @@ func (s *Server) projectSheets(d *document, defFile string) ([]*engine.Sheet, *r
 	out := []*engine.Sheet{d.sheet}
 	seen := map[string]bool{filepath.Clean(d.path): true}
 	root := projectRoot(filepath.Dir(d.path))
-	var paths []string
-	_ = filepath.WalkDir(root, func(path string, e os.DirEntry, err error) error {
-		if err != nil {
-			return nil
-		}
-		if e.IsDir() {
-			if n := e.Name(); path != root && (strings.HasPrefix(n, ".") || n == "node_modules" || n == "testdata") {
-				return filepath.SkipDir
-			}
-			return nil
-		}
-		if strings.HasSuffix(path, ".sheaf") && len(paths) < maxProjectSheets {
-			paths = append(paths, path)
-		}
-		return nil
-	})
+	paths := sheafFiles(root, maxProjectSheets)
 	for _, path := range paths {
 		if seen[filepath.Clean(path)] {
 			continue
@@ -429,6 +414,38 @@ func usesFile(f *sheet.File, path, defFile string) bool {
 		}
 	}
 	return false
+}
+
+// maxWalk bounds the folders and files a walk of a project visits: a
+// sheet outside any project (no .git, no sheaf.root) has its own folder
+// as root, which may be a home folder of any size.
+const maxWalk = 20_000
+
+// sheafFiles lists up to max .sheaf files under root, skipping hidden
+// folders and node_modules, visiting at most maxWalk entries.
+func sheafFiles(root string, max int) []string {
+	var out []string
+	seen := 0
+	_ = filepath.WalkDir(root, func(path string, e os.DirEntry, err error) error {
+		seen++
+		if seen > maxWalk || len(out) >= max {
+			return filepath.SkipAll
+		}
+		if err != nil {
+			return nil
+		}
+		if e.IsDir() {
+			if n := e.Name(); path != root && (strings.HasPrefix(n, ".") || n == "node_modules") {
+				return filepath.SkipDir
+			}
+			return nil
+		}
+		if strings.HasSuffix(path, ".sheaf") {
+			out = append(out, path)
+		}
+		return nil
+	})
+	return out
 }
 
 // projectRoot finds the project root as SPEC.md says: the nearest folder
