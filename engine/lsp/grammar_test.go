@@ -438,3 +438,53 @@ func TestGrammarLine(t *testing.T) {
 		}
 	}
 }
+
+// scopesByUnit returns the scopes of each UTF-16 unit of line, joined by
+// spaces, as vscode-textmate reports its tokens.
+func scopesByUnit(g *tmGrammar, line string) []string {
+	toks := g.tokenize(line)
+	var row []string
+	for i, r := range line {
+		s := strings.Join(toks[i], " ")
+		row = append(row, s)
+		if r >= 0x10000 {
+			row = append(row, s) // two UTF-16 units
+		}
+	}
+	return row
+}
+
+// TestGrammarTokens checks the UTF-16 view of the scopes on a line with a
+// character outside the Basic Multilingual Plane, and writes the scopes of
+// every bundled sheet to $SHEAF_TM_DUMP when it is set, for
+// editors/vscode/test/compare.js to compare with Oniguruma's (.ci/run).
+func TestGrammarTokens(t *testing.T) {
+	g := loadGrammar(t)
+	line := "σ [MPa] = 1 MPa -- 𝜎 here"
+	row := scopesByUnit(g, line)
+	if len(row) != len(utf16Of(line)) {
+		t.Fatalf("%d units, want %d", len(row), len(utf16Of(line)))
+	}
+	if last := row[len(row)-1]; !strings.Contains(last, "comment.line.double-dash.sheaf") {
+		t.Errorf("last unit scoped %q", last)
+	}
+	out := os.Getenv("SHEAF_TM_DUMP")
+	if out == "" {
+		return
+	}
+	paths, _ := filepath.Glob("../../sheets/*.sheaf")
+	dump := map[string][][]string{}
+	for _, p := range paths {
+		b, err := os.ReadFile(p)
+		if err != nil {
+			t.Fatal(err)
+		}
+		for _, ln := range strings.Split(string(b), "\n") {
+			dump[filepath.Base(p)] = append(dump[filepath.Base(p)], scopesByUnit(g, ln))
+		}
+	}
+	b, _ := json.Marshal(dump)
+	if err := os.WriteFile(out, b, 0o644); err != nil {
+		t.Fatal(err)
+	}
+}
