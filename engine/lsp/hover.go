@@ -33,6 +33,13 @@ func (s *Server) hover(params json.RawMessage) (any, *rpcError) {
 		md = d.fieldHover(t.cell, t.name)
 	case tParam:
 		md = "**" + t.name + "**: a parameter of the function"
+		if x := d.cellAt(p.Position.Line+1, d.lines.runeCol(p.Position)); x != nil && x.Kind == engine.Function {
+			for _, q := range x.Params {
+				if q.Name == t.name && q.Unit.Symbol != "" {
+					md = "**" + t.name + "** [" + q.Unit.Symbol + "]: a parameter of `" + signature(x) + "`"
+				}
+			}
+		}
 	case tPlugin:
 		md = pluginHover(t.def, d.system())
 	case tBuiltin:

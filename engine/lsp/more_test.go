@@ -176,3 +176,54 @@ func FuzzServe(f *testing.F) {
 func frame(body string) string {
 	return "Content-Length: " + itoa(len(body)) + "\r\n\r\n" + body
 }
+
+// TestTemplateSaved: fixing a template and saving it checks the open
+// sheets that use it again.
+func TestTemplateSaved(t *testing.T) {
+	dir := t.TempDir()
+	os.WriteFile(filepath.Join(dir, "sheaf.root"), nil, 0o644)
+	tpath := filepath.Join(dir, "t.sheaf")
+	os.WriteFile(tpath, []byte("a [kN] = 3 kN\nb [kN] = a + 2 m\n"), 0o644)
+	main := "use t from \"t.sheaf\"\nx [kN] = t.b * 2\n"
+	c := newClient(t, Options{})
+	c.initialize()
+	uri := pathToURI(filepath.Join(dir, "main.sheaf"))
+	c.open(uri, main)
+	turi := pathToURI(tpath)
+	if ds := c.waitDiags(turi); len(ds) != 1 {
+		t.Fatalf("template problems: %+v", ds)
+	}
+	if hs := c.hints(uri); len(hs) != 0 {
+		t.Errorf("values shown for a sheet whose template is broken: %+v", hs)
+	}
+	os.WriteFile(tpath, []byte("a [kN] = 3 kN\nb [kN] = a + 2 kN\n"), 0o644) // the editor saved the fix
+	c.notify("textDocument/didSave", didCloseParams{TextDocument: textDocumentIdentifier{URI: turi}})
+	if ds := c.waitDiags(turi); len(ds) != 0 {
+		t.Errorf("template problems after the fix: %+v", ds)
+	}
+	// x = (3 kN + 2 kN) * 2 = 10 kN.
+	if h := hintOn(t, c.hints(uri), 1); h.Label != "= 10 kN" {
+		t.Errorf("x shows %q after the fix", h.Label)
+	}
+	c.shutdown()
+}
+
+// TestParamHover: a parameter in a function body is the parameter, not a
+// cell of the same name.
+func TestParamHover(t *testing.T) {
+	src := "N [kN] = 5 kN\nf(N [kN], L [m]) [kN*m] = N * L\ny [kN*m] = f(2 kN, 3 m)\n"
+	c := newClient(t, Options{})
+	c.initialize()
+	c.open(rodURI, src)
+	var hv hover
+	c.call("textDocument/hover", at(rodURI, 1, strings.Index("f(N [kN], L [m]) [kN*m] = N * L", "= N")+2), &hv)
+	if !strings.Contains(hv.Contents.Value, "**N** [kN]: a parameter of `f(N [kN], L [m]) [kN*m]`") {
+		t.Errorf("hover on the parameter N:\n%s", hv.Contents.Value)
+	}
+	var locs []location
+	c.call("textDocument/definition", at(rodURI, 1, strings.Index("f(N [kN], L [m]) [kN*m] = N * L", "* L")+2), &locs)
+	if len(locs) != 1 || locs[0].Range.Start != (position{1, 10}) {
+		t.Errorf("definition of the parameter L: %+v", locs)
+	}
+	c.shutdown()
+}

@@ -5,6 +5,7 @@ import (
 	"errors"
 	"fmt"
 	"io"
+	"path/filepath"
 	"sync"
 	"time"
 )
@@ -173,7 +174,7 @@ func init() {
 		"textDocument/didOpen":            (*Server).didOpen,
 		"textDocument/didChange":          (*Server).didChange,
 		"textDocument/didClose":           (*Server).didClose,
-		"textDocument/didSave":            func(*Server, json.RawMessage) (any, *rpcError) { return nil, nil },
+		"textDocument/didSave":            (*Server).didSave,
 		"textDocument/inlayHint":          (*Server).inlayHints,
 		"textDocument/hover":              (*Server).hover,
 		"textDocument/completion":         (*Server).completion,
@@ -242,7 +243,9 @@ func (s *Server) initialize(params json.RawMessage) (any, *rpcError) {
 			"textDocumentSync": map[string]any{"openClose": true, "change": 1}, // full text on each change
 			"hoverProvider":    true,
 			"completionProvider": map[string]any{
-				"triggerCharacters": []string{".", " ", "\"", "/", "["},
+				// Not space: a list of every cell on each space of a large
+				// sheet is noise; editors complete as letters are typed.
+				"triggerCharacters": []string{".", "\"", "["},
 			},
 			"definitionProvider":         true,
 			"referencesProvider":         true,
@@ -320,6 +323,35 @@ func (s *Server) didClose(params json.RawMessage) (any, *rpcError) {
 	}
 	delete(s.docs, uri)
 	s.setPublished(uri, nil)
+	return nil, nil
+}
+
+// didSave checks again the other open sheets built from the saved file:
+// templates are read from disk, so a saved template changes them.
+func (s *Server) didSave(params json.RawMessage) (any, *rpcError) {
+	var p didCloseParams
+	if err := decode(params, &p); err != nil {
+		return nil, err
+	}
+	saved := filepath.Clean(uriToPath(p.TextDocument.URI))
+	for uri, d := range s.docs {
+		if uri == p.TextDocument.URI {
+			continue
+		}
+		uses := d.failed // a broken sheet may be broken by the template
+		if d.sheet != nil {
+			for _, f := range d.sheet.Files() {
+				if filepath.Clean(f) == saved {
+					uses = true
+				}
+			}
+		}
+		if uses {
+			d.ensure()
+			d.check()
+			s.publish(d)
+		}
+	}
 	return nil, nil
 }
 
