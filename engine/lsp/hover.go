@@ -89,7 +89,7 @@ func (s *Server) cellHover(d *document, c *engine.Cell) string {
 			b.WriteString("  (" + tip + ")")
 		}
 	}
-	if c.Type != nil && c.Type.Kind == funcs.Number {
+	if c.Type != nil && c.Type.Kind == funcs.Number && c.Kind != engine.Check {
 		u := d.sheet.DisplayUnit(c)
 		q := u.Quantity
 		if q == "" && !c.Type.Dim.IsNone() {
@@ -100,8 +100,8 @@ func (s *Server) cellHover(d *document, c *engine.Cell) string {
 		} else {
 			b.WriteString("\n\n" + q + ", dimension " + c.Type.Dim.String())
 		}
-	} else if c.Type != nil && c.Kind != engine.Check {
-		b.WriteString("\n\n" + c.Type.String())
+	} else if c.Type != nil && c.Kind != engine.Check && c.Kind != engine.Function {
+		b.WriteString("\n\n" + typeText(c.Type, d.system()))
 	}
 	if c.Kind == engine.Function {
 		b.WriteString("\n\n```sheaf\n" + signature(c) + "\n```")
@@ -265,7 +265,11 @@ func (d *document) fieldHover(c *engine.Cell, field string) string {
 
 // typeText writes a parameter or result type with a unit in the system's
 // practice ("force [kN]").
-func typeText(t *funcs.Type, sys units.System) string {
+func typeText(t *funcs.Type, sys units.System) string { return typeTextAt(t, sys, 0) }
+
+// typeTextAt writes a type nested depth deep: a named record within
+// another, or in a signature, is written by its name alone.
+func typeTextAt(t *funcs.Type, sys units.System, depth int) string {
 	if t == nil {
 		return "any"
 	}
@@ -279,6 +283,25 @@ func typeText(t *funcs.Type, sys units.System) string {
 		}
 		return "[" + u.Symbol + "]"
 	}
+	switch t.Kind {
+	case funcs.List:
+		if t.Elem != nil {
+			return "list of " + typeTextAt(t.Elem, sys, depth)
+		}
+	case funcs.Record, funcs.Table:
+		if t.Name != "" && (len(t.Fields) == 0 || depth > 0) {
+			return t.Name
+		}
+		var fs []string
+		for _, f := range t.Fields {
+			fs = append(fs, f.Name+": "+typeTextAt(f.Type, sys, depth+1))
+		}
+		head := t.Kind.String()
+		if t.Name != "" {
+			head = t.Name
+		}
+		return head + " {" + strings.Join(fs, ", ") + "}"
+	}
 	return t.String()
 }
 
@@ -286,7 +309,7 @@ func typeText(t *funcs.Type, sys units.System) string {
 func pluginSignature(def *funcs.Def, sys units.System) string {
 	var ps []string
 	for _, p := range def.Params {
-		s := p.Name + ": " + typeText(p.Type, sys)
+		s := p.Name + ": " + typeTextAt(p.Type, sys, 1)
 		if p.Optional {
 			s += "?"
 		}
@@ -294,7 +317,7 @@ func pluginSignature(def *funcs.Def, sys units.System) string {
 	}
 	out := def.Name + "(" + strings.Join(ps, ", ") + ")"
 	if def.Result != nil {
-		out += " → " + typeText(def.Result, sys)
+		out += " → " + typeTextAt(def.Result, sys, 1)
 	}
 	return out
 }

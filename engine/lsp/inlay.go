@@ -51,6 +51,9 @@ func (s *Server) inlayHints(params json.RawMessage) (any, *rpcError) {
 		if c.Range.End.Col == 1 && line > c.Range.Start.Line-1 {
 			line-- // an end at the start of the next line
 		}
+		if c.Kind == engine.Table {
+			line = c.Range.Start.Line - 1 // beside `table name`, not its last row
+		}
 		if line < first || line > last {
 			continue
 		}
