@@ -416,6 +416,13 @@ func TestRenameAcrossProject(t *testing.T) {
 	c.open(uri, src)
 	li := lineOf(t, src, "N_Ed [kN] =")
 	var we workspaceEdit
+	// With changes not saved, the sheets that use the template were
+	// checked against another text: the rename is refused.
+	c.change(uri, 2, "# a new first line\n"+src)
+	if err := c.try("textDocument/rename", renameParams{textDocumentPositionParams: at(uri, li+1, 1), NewName: "N_design"}, &we); err == nil {
+		t.Error("rename accepted while the template has unsaved changes")
+	}
+	c.change(uri, 3, src)
 	c.call("textDocument/rename", renameParams{textDocumentPositionParams: at(uri, li, 1), NewName: "N_design"}, &we)
 	c.shutdown()
 	if after := snapshot(t, dir); !equalMaps(before, after) {

@@ -280,7 +280,14 @@ func (s *Server) rename(params json.RawMessage) (any, *rpcError) {
 				return nil, &rpcError{Code: codeRequestFailed, Message: "`" + prefix + p.NewName + "` is already a cell of " + sh.Name()}
 			}
 			src := func(f string) *text { return s.textOf(d, f) }
+			built := sh.Sources()
 			for _, o := range occurrences(sh, x, src) {
+				// An edit is only as good as the text it was found in: a
+				// file open with changes not saved differs from what the
+				// other sheets were checked against.
+				if b, ok := built[o.r.Start.File]; !ok || string(b) != src(o.r.Start.File).src {
+					return nil, &rpcError{Code: codeRequestFailed, Message: o.r.Start.File + " differs from what " + sh.Name() + " was checked against (unsaved changes?); save it, then rename"}
+				}
 				seg, ok := lastSegment(o.r, local, src(o.r.Start.File))
 				if !ok {
 					return nil, &rpcError{Code: codeRequestFailed, Message: "cannot find `" + local + "` written at " + o.r.Start.String() + "; nothing renamed"}
