@@ -407,6 +407,13 @@ func (s *Server) projectSheets(d *document, defFile string) ([]*engine.Sheet, *r
 			}
 		}
 		if builtFrom {
+			// The sheet was checked against the files on disk; one of them
+			// open with changes not saved would make its uses unfindable.
+			for name, b := range sh.Sources() {
+				if o := s.docs[pathToURI(name)]; o != nil && o.lines.src != string(b) {
+					return nil, &rpcError{Code: codeRequestFailed, Message: name + " has changes not saved, and " + path + " uses it; save it, then rename"}
+				}
+			}
 			out = append(out, sh)
 		}
 	}
