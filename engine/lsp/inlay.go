@@ -75,7 +75,32 @@ func (s *Server) inlayHints(params json.RawMessage) (any, *rpcError) {
 			out = append(out, inlayHint{Position: d.lines.lineEnd(line), Label: label, PaddingLeft: true})
 		}
 	}
-	return out, nil
+	return encodeHints(out), nil
+}
+
+// encodeHints writes the hints as JSON. A sheet of thousands of cells has
+// as many hints, and encoding them by reflection costs more than finding
+// their values.
+func encodeHints(hs []inlayHint) rawResult {
+	b := make([]byte, 0, 64*len(hs)+2)
+	b = append(b, '[')
+	for i, h := range hs {
+		if i > 0 {
+			b = append(b, ',')
+		}
+		b = append(b, `{"position":{"line":`...)
+		b = strconv.AppendInt(b, int64(h.Position.Line), 10)
+		b = append(b, `,"character":`...)
+		b = strconv.AppendInt(b, int64(h.Position.Character), 10)
+		b = append(b, `},"label":`...)
+		lb, _ := json.Marshal(h.Label) // escapes as encoding/json does (<, >, & included)
+		b = append(b, lb...)
+		if h.PaddingLeft {
+			b = append(b, `,"paddingLeft":true`...)
+		}
+		b = append(b, '}')
+	}
+	return append(b, ']')
 }
 
 // valueText returns the current value of c as shown beside its line, and

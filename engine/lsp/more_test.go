@@ -1,6 +1,7 @@
 package lsp
 
 import (
+	"encoding/json"
 	"os"
 	"path/filepath"
 	"strings"
@@ -226,4 +227,20 @@ func TestParamHover(t *testing.T) {
 		t.Errorf("definition of the parameter L: %+v", locs)
 	}
 	c.shutdown()
+}
+
+// TestEncodeHints: the hand-written encoding of inlay hints is the one
+// encoding/json gives.
+func TestEncodeHints(t *testing.T) {
+	tests := [][]inlayHint{
+		{},
+		{{Position: position{3, 17}, Label: "= 109.5 MPa", PaddingLeft: true}},
+		{{Position: position{0, 0}, Label: `= "a<b>&c" σ 𝜎 ‰`}, {Position: position{1 << 20, 2}, Label: "= 38.03 % ok", PaddingLeft: true}},
+	}
+	for _, hs := range tests {
+		want, _ := json.Marshal(hs)
+		if got := encodeHints(hs); string(got) != string(want) {
+			t.Errorf("encodeHints:\n%s\nencoding/json:\n%s", got, want)
+		}
+	}
 }

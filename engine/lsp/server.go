@@ -116,7 +116,13 @@ func (s *Server) reply(id json.RawMessage, result any, rerr *rpcError) {
 		id = json.RawMessage("null")
 	}
 	if rerr == nil {
-		b, err := json.Marshal(result)
+		var b []byte
+		var err error
+		if raw, ok := result.(rawResult); ok {
+			b = raw
+		} else {
+			b, err = json.Marshal(result)
+		}
 		if err == nil {
 			// The result is encoded once, straight into the frame: a
 			// message with a RawMessage result would be validated and
@@ -160,6 +166,10 @@ func (s *Server) request(method string) {
 		s.logf("writing %s: %v", method, err)
 	}
 }
+
+// rawResult is a result encoded by its handler (the values of a large
+// sheet, written straight into bytes).
+type rawResult []byte
 
 // handler answers one method. It runs with s.mu held.
 type handler func(s *Server, params json.RawMessage) (any, *rpcError)
