@@ -180,8 +180,10 @@ func (s *Server) substituted(d *document, c *engine.Cell) string {
 			if len(n.Args) == 1 && n.Args[0].Op == check.OpCell && int(n.Args[0].Index) < len(cells) {
 				if v, ok := d.state.Value(cells[n.Args[0].Index].Name); ok {
 					if r, ok := v.(*funcs.RecordValue); ok && r.Type != nil && int(n.Index) < len(r.Fields) {
-						if x, ok := r.Fields[n.Index].(float64); ok && n.Type != nil && n.Type.Kind == funcs.Number {
-							text = units.Format(x, preferred(n.Type.Dim, d.sheet.System()), sigFigs)
+						if f := r.Type.Fields[n.Index]; f.Type != nil && f.Type.Kind == funcs.Number {
+							if x, ok := r.Fields[n.Index].(float64); ok {
+								text = units.Format(x, preferred(f.Type.Dim, d.sheet.System()), sigFigs)
+							}
 						}
 					}
 				}

@@ -126,10 +126,9 @@ func occurrences(s *engine.Sheet, x *engine.Cell, sources func(string) *text) []
 			walk(a)
 		}
 	}
-	users := s.Program().Users
-	if x.Index < len(users) {
-		for _, i := range users[x.Index] {
-			for _, t := range trees(s.Cells()[i]) {
+	for _, c := range s.Cells() {
+		if slices.Contains(c.DepIdx, x.Index) {
+			for _, t := range trees(c) {
 				walk(t)
 			}
 		}

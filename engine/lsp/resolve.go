@@ -296,8 +296,8 @@ func (d *document) nodeTarget(n *check.Node, word string, wr lspRange) *target {
 	case check.OpParam:
 		return &target{kind: tParam, name: word, rng: wr, node: n}
 	case check.OpPlugin:
-		if word == n.Str() && n.Def() != nil {
-			return &target{kind: tPlugin, name: word, def: n.Def(), rng: wr}
+		if def, ok := funcs.Lookup(n.Str()); ok && word == n.Str() {
+			return &target{kind: tPlugin, name: word, def: def, rng: wr}
 		}
 	case check.OpBuiltin:
 		if word == n.Str() {
