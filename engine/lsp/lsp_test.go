@@ -321,6 +321,12 @@ func TestBundledSheets(t *testing.T) {
 	if len(paths) < 5 {
 		t.Fatalf("found %d sheets", len(paths))
 	}
+	before := snapshot(t, "../../sheets")
+	defer func() {
+		if !equalMaps(before, snapshot(t, "../../sheets")) {
+			t.Error("the server changed files under sheets/")
+		}
+	}()
 	c := newClient(t, Options{})
 	c.initialize()
 	for _, p := range paths {
@@ -368,6 +374,54 @@ func TestBundledSheets(t *testing.T) {
 		}
 		if n == 0 {
 			t.Errorf("%s: no cells of its own", p)
+		}
+		// The bundled sheets are in canonical layout: formatting changes
+		// nothing.
+		var edits []textEdit
+		c.call("textDocument/formatting", documentParams{TextDocument: textDocumentIdentifier{URI: uri}}, &edits)
+		if len(edits) != 0 {
+			t.Errorf("%s: formatting a canonical sheet gave %d edits", p, len(edits))
+		}
+		// Completion at the end of the last line offers every cell of the
+		// sheet's own.
+		var cl completionList
+		last := strings.Count(string(src), "\n")
+		c.call("textDocument/completion", at(uri, last, 0), &cl)
+		offered := map[string]bool{}
+		for _, it := range cl.Items {
+			offered[it.Label] = true
+		}
+		for _, x := range s.Cells() {
+			if !strings.Contains(x.Name, ".") && !offered[x.Name] {
+				t.Errorf("%s: completion lacks %s", p, x.Name)
+			}
+		}
+	}
+
+	// didChange of an input of a bundled sheet: the values beside the
+	// lines are those of the engine's run with the same input set.
+	abs0, _ := filepath.Abs("../../sheets/mezzanine-hanger.sheaf")
+	src0, _ := os.ReadFile(abs0)
+	uri0 := pathToURI(abs0)
+	changed := strings.Replace(string(src0), "= 16 mm ", "= 20 mm ", 1)
+	c.change(uri0, 2, changed)
+	s0, err := engine.Load(abs0)
+	if err != nil {
+		t.Fatal(err)
+	}
+	v, err := s0.ParseInput("d", "20 mm")
+	if err != nil {
+		t.Fatal(err)
+	}
+	res := s0.Run(map[string]any{"d": v})
+	byLine := map[int]string{}
+	for _, h := range c.hints(uri0) {
+		byLine[h.Position.Line] = h.Label
+	}
+	for _, name := range []string{"A_s", "sigma", "delta", "F_tRd"} {
+		cr := res.Cell(name)
+		if got := byLine[cr.Cell.Range.End.Line-1]; got != "= "+cr.Text {
+			t.Errorf("after d = 20 mm: %s shows %q, the engine's run %q", name, got, cr.Text)
 		}
 	}
 	// Definition of a template's cell opens the template.
