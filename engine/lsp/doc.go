@@ -17,9 +17,14 @@
 // Files by concern: jsonrpc.go (framing and messages), protocol.go (the
 // LSP types used), text.go (byte offsets and UTF-16 positions), server.go
 // (lifecycle and dispatch), document.go (analysis of one document and the
-// fast path for input values), diagnostics.go, inlay.go, hover.go,
-// complete.go, navigate.go (definition, references, rename, symbols),
-// format.go, actions.go (quick fixes).
+// fast path for input values), resolve.go (what lies under the cursor),
+// diagnostics.go, inlay.go, hover.go, complete.go, navigate.go
+// (definition, references, rename, symbols), format.go, actions.go
+// (quick fixes).
+//
+// Templates are read from disk, as the engine reads them: an edit of a
+// template open in the editor reaches the sheets that use it when it is
+// saved (didSave and didChangeWatchedFiles check them again).
 //
 // The JSON-RPC framing is written here with the standard library: the Go
 // LSP modules on offer (go.lsp.dev/protocol, github.com/tliron/glsp) stop
