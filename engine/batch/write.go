@@ -1,6 +1,7 @@
 package batch
 
 import (
+	"bytes"
 	"context"
 	"encoding/csv"
 	"fmt"
@@ -10,6 +11,7 @@ import (
 	"github.com/xuri/excelize/v2"
 
 	"github.com/sheafcalc/sheaf/engine/units"
+	"github.com/sheafcalc/sheaf/internal/opc"
 )
 
 // Header returns the column titles of the output table: `case`, each input
@@ -249,7 +251,15 @@ func (o *Outcome) WriteXLSXContext(ctx context.Context, w io.Writer) error {
 	if err := sw.Flush(); err != nil {
 		return err
 	}
-	if _, err := f.WriteTo(w); err != nil {
+	var buf bytes.Buffer
+	if _, err := f.WriteTo(&buf); err != nil {
+		return fmt.Errorf("writing the workbook: %w", err)
+	}
+	pkg, err := opc.Canonical(buf.Bytes()) // the same cases give the same bytes
+	if err != nil {
+		return fmt.Errorf("writing the workbook: %w", err)
+	}
+	if _, err := w.Write(pkg); err != nil {
 		return fmt.Errorf("writing the workbook: %w", err)
 	}
 	return nil

@@ -1,10 +1,12 @@
 package xlsxout
 
 import (
+	"bytes"
 	"io"
 
 	"github.com/sheafcalc/sheaf/engine"
 	"github.com/sheafcalc/sheaf/internal/atomicfile"
+	"github.com/sheafcalc/sheaf/internal/opc"
 )
 
 // WriteFile builds the workbook and writes it to path. The bytes go to a
@@ -16,8 +18,16 @@ func WriteFile(path string, s *engine.Sheet, r *engine.Results, opt Options) (St
 		return stats, err
 	}
 	defer f.Close()
+	var buf bytes.Buffer
+	if _, err := f.WriteTo(&buf); err != nil {
+		return stats, err
+	}
+	pkg, err := opc.Canonical(buf.Bytes())
+	if err != nil {
+		return stats, err
+	}
 	return stats, writeAtomic(path, func(w io.Writer) error {
-		_, err := f.WriteTo(w)
+		_, err := w.Write(pkg)
 		return err
 	})
 }
