@@ -20,11 +20,12 @@ func (s *Sheet) Files() []string {
 // looks the cell up by name nor boxes the number, so a batch of many cases
 // can read its results without allocating.
 func (st *State) Number(c *Cell) (float64, bool) {
-	if c == nil || c.Index >= len(st.sheet.prog.Cells) || st.sheet.prog.Cells[c.Index] != c || !st.st.Known[c.Index] {
+	e := st.read()
+	if c == nil || c.Index >= len(st.sheet.prog.Cells) || st.sheet.prog.Cells[c.Index] != c || !e.Known[c.Index] {
 		return 0, false
 	}
 	if c.Type != nil && (c.Type.Kind == funcs.Number || c.Kind == Check) {
-		return st.st.F.Num[c.Index], true
+		return e.F.Num[c.Index], true
 	}
 	return 0, false
 }

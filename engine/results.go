@@ -22,6 +22,10 @@ type Results struct {
 	Cells    []CellResult  // every cell, reading order (checks included)
 	Checks   []CheckResult // the design checks, reading order
 	Problems diag.List     // run-time problems, one per failed cell
+	// Combos says how a sheet with actions was evaluated (nil for a sheet
+	// without): the cells that depend on actions show their values in the
+	// combination Combos.Shown, and each check its governing combination.
+	Combos *ComboSummary
 }
 
 // CellResult is the value of one cell.
@@ -44,6 +48,9 @@ type CheckResult struct {
 	Unit     units.Unit // display unit of demand and capacity
 	Util     float64    // demand / capacity
 	Pass     bool       // Util <= 1
+	// Combo is the outcome over the combinations of its limit state, for a
+	// check that depends on actions (nil for the others).
+	Combo *ComboOutcome
 }
 
 // Failed returns the number of checks that fail or could not be assessed.
@@ -72,7 +79,7 @@ func (r *Results) Cell(name string) *CellResult {
 // sheet then allocates a few blocks instead of a string per cell.
 func (st *State) Results() *Results {
 	s := st.sheet
-	e := st.st
+	e := st.read()
 	n := len(s.prog.Cells)
 	r := &Results{Meta: s.prog.Meta, Cells: make([]CellResult, n)}
 	buf := make([]byte, 0, 12*n)
@@ -125,6 +132,7 @@ func (st *State) Results() *Results {
 	// Sorted by position but not thinned to one per line as diag.List.Sort
 	// does: there is one problem per failed cell already, and the cells of
 	// a template used twice fail on the same line of the template.
+	st.addCombos(r)
 	slices.SortStableFunc(r.Problems, func(a, b *diag.Diagnostic) int {
 		return cmp.Or(a.Range.Start.Compare(b.Range.Start), cmp.Compare(a.Summary, b.Summary))
 	})

@@ -39,6 +39,7 @@ type Sheet struct {
 	src     []byte
 	prog    *check.Program
 	mach    *eval.Machine
+	combos  *Combos // nil when the sheet has no actions
 	system  units.System
 	sigFigs int
 	cfg     config
@@ -82,11 +83,17 @@ func Compile(name string, src []byte, opts ...Option) (*Sheet, error) {
 	opt := cfg.checkOptions()
 	prog, cerrs := check.Sheet(f, opt)
 	errs = append(errs, cerrs...)
+	var combos *Combos
+	if !errs.HasErrors() {
+		var xerrs diag.List
+		combos, xerrs = setupCombos(prog)
+		errs = append(errs, xerrs...)
+	}
 	errs.Sort()
 	if errs.HasErrors() {
 		return nil, errs
 	}
-	s := &Sheet{name: name, src: src, prog: prog, mach: eval.Compile(prog), sigFigs: cfg.sigFigs, cfg: cfg}
+	s := &Sheet{name: name, src: src, prog: prog, mach: eval.Compile(prog), combos: combos, sigFigs: cfg.sigFigs, cfg: cfg}
 	s.system = prog.Meta.System
 	if cfg.hasSystem && cfg.system != units.Neutral {
 		s.system = cfg.system

@@ -223,7 +223,7 @@ func TestOverride(t *testing.T) {
 		t.Errorf("accompanying snow at %g, want 0.9", f)
 	}
 	var src string
-	for _, f := range r.Used([]Action{g, qB, sn}) {
+	for _, f := range r.Used([]Action{g, qB, sn}, []string{ULS}) {
 		if f.Key == "psi_0 snow" {
 			src = f.SourceText()
 		}

@@ -244,15 +244,16 @@ func (r *Rules) psi(n int, a Action) float64 {
 	return r.factor(fmt.Sprintf("psi_%d %s", n, a.Row()))
 }
 
-// Used returns the factors that the combinations of acts use, in the
-// order of the rule set's table.
-func (r *Rules) Used(acts []Action) []Factor {
+// Used returns the factors that the combinations of acts in the limit
+// states states use, in the order of the rule set's table.
+func (r *Rules) Used(acts []Action, states []string) []Factor {
 	rows := map[string]bool{}
-	anyPerm, anyVar, anyAcc := false, false, false
+	anyPerm, anyFav, anyVar, anyAcc := false, false, false, false
 	for _, a := range acts {
 		switch {
 		case a.Class == Permanent:
 			anyPerm = true
+			anyFav = anyFav || a.Favourable
 		case a.Class == Accidental:
 			anyAcc = true
 		default:
@@ -260,21 +261,47 @@ func (r *Rules) Used(acts []Action) []Factor {
 			rows[a.Row()] = true
 		}
 	}
+	in := func(sts ...string) bool {
+		for _, s := range sts {
+			if slices.Contains(states, s) {
+				return true
+			}
+		}
+		return false
+	}
+	acc := anyAcc && in(AccidentalLS)
 	var out []Factor
 	for _, f := range r.factors {
 		use := false
-		switch {
-		case strings.HasPrefix(f.Key, "psi_"):
-			_, row, _ := strings.Cut(f.Key, " ")
-			use = rows[row]
-		case strings.HasPrefix(f.Key, "gamma_G"):
-			use = anyPerm && (anyAcc || !strings.HasSuffix(f.Key, "accidental"))
-		case strings.HasPrefix(f.Key, "gamma_Q"):
-			use = anyVar
-		case f.Key == "xi":
-			use = r.family == en610ab && anyPerm
-		default: // gamma_A, the leading ψ of the accidental combination
-			use = anyAcc
+		switch f.Key {
+		case "gamma_G_sup":
+			use = anyPerm && in(ULS)
+		case "gamma_G_inf":
+			use = anyFav && in(ULS)
+		case "gamma_Q":
+			use = anyVar && in(ULS)
+		case "xi":
+			use = anyPerm && r.family == en610ab && in(ULS)
+		case "gamma_G_sup equ":
+			use = anyPerm && in(EQU)
+		case "gamma_G_inf equ":
+			use = anyFav && in(EQU)
+		case "gamma_Q equ":
+			use = anyVar && in(EQU)
+		case "gamma_A", "gamma_G accidental":
+			use = acc
+		case "psi accidental leading":
+			use = acc && anyVar
+		default:
+			n, row, _ := strings.Cut(f.Key, " ")
+			switch n {
+			case "psi_0":
+				use = rows[row] && in(ULS, EQU, Characteristic)
+			case "psi_1":
+				use = rows[row] && (in(Frequent) || acc)
+			case "psi_2":
+				use = rows[row] && (in(Frequent, QuasiPermanent) || acc)
+			}
 		}
 		if use {
 			out = append(out, f)

@@ -45,12 +45,22 @@ func Write(w io.Writer, r *engine.Results, sigFigs int) error {
 				b.WriteString("\n")
 			}
 		}
-		line := "  " + pad(c.Cell.Name, nameW) + "  " + pad(c.Text, valW)
+		val, w := c.Text, valW
+		if r.Combos != nil {
+			w += len(dependsMark)
+			if marked(r, c.Cell) {
+				val += dependsMark
+			}
+		}
+		line := "  " + pad(c.Cell.Name, nameW) + "  " + pad(val, w)
 		line += annotation(c.Cell.Description, c.Cell.Reference)
 		b.WriteString(strings.TrimRight(line, " ") + "\n")
 	}
 	if len(r.Checks) > 0 {
 		writeChecks(&b, r, sigFigs)
+	}
+	if r.Combos != nil {
+		writeCombos(&b, r)
 	}
 	if len(r.Problems) > 0 {
 		b.WriteString("\nNot computed\n------------\n")
@@ -90,7 +100,7 @@ func annotation(desc, ref string) string {
 
 func writeChecks(b *strings.Builder, r *engine.Results, sig int) {
 	b.WriteString("\nDesign checks\n-------------\n")
-	type row struct{ name, dem, cap, util, verdict, note string }
+	type row struct{ name, dem, cap, util, verdict, note, combo string }
 	var rows []row
 	var w [5]int
 	for _, c := range r.Checks {
@@ -105,6 +115,7 @@ func writeChecks(b *strings.Builder, r *engine.Results, sig int) {
 			}
 		}
 		rw.note = annotation(c.Cell.Description, c.Cell.Reference)
+		rw.combo = checkCombo(c)
 		for i, s := range []string{rw.name, rw.dem, rw.cap, rw.util, rw.verdict} {
 			w[i] = max(w[i], utf8.RuneCountInString(s))
 		}
@@ -114,6 +125,9 @@ func writeChecks(b *strings.Builder, r *engine.Results, sig int) {
 		line := "  " + pad(rw.name, w[0]) + "  " + padLeft(rw.dem, w[1]) + " of " + padLeft(rw.cap, w[2]) +
 			"  " + padLeft(rw.util, w[3]) + "  " + pad(rw.verdict, w[4]) + rw.note
 		b.WriteString(strings.TrimRight(line, " ") + "\n")
+		if rw.combo != "" {
+			b.WriteString("    " + rw.combo + "\n")
+		}
 	}
 }
 

@@ -1,0 +1,270 @@
+package engine
+
+import (
+	"math"
+
+	"github.com/sheafcalc/sheaf/engine/diag"
+	"github.com/sheafcalc/sheaf/engine/eval"
+	"github.com/sheafcalc/sheaf/engine/units"
+)
+
+// comboState is what a State of a sheet with actions keeps beside its
+// base state (the inputs and the cells that do not depend on actions): the
+// state of the combination shown, and per check the outcome of every
+// combination of its limit state.
+type comboState struct {
+	view *eval.State // the base state with the actions of the shown combination; checks at their governing values
+	// util[k*len(All)+m] is the utilisation of dependent check k in
+	// combination m (NaN when not assessed, or not of its limit state).
+	util    []float64
+	gov     []int // per dependent check: the governing combination (index into All), -1 when none
+	failing []int // per dependent check: combinations in which it fails or cannot be assessed
+	count   []int // per dependent check: combinations evaluated
+	shown   int   // the combination whose values the cells show
+	probs   diag.List
+}
+
+// recomputeCombos evaluates the base state and then every combination.
+// For each combination the action cells are set to their factored
+// characteristic values on a clone of the base state, and only the cells
+// downstream of them are recomputed (the incremental evaluation of
+// eval.State). The clone is made once per call, not once per combination.
+func (st *State) recomputeCombos() {
+	cs := st.sheet.combos
+	base := st.st
+	base.Eval()
+	cm := st.cmb
+	if cm == nil {
+		cm = &comboState{}
+		st.cmb = cm
+	}
+	nc, nm := len(cs.checks), len(cs.All)
+	if len(cm.util) != nc*nm {
+		cm.util = make([]float64, nc*nm)
+		cm.gov, cm.failing, cm.count = make([]int, nc), make([]int, nc), make([]int, nc)
+	}
+	cm.probs = cm.probs[:0]
+	chars := make([]float64, len(cs.Cells))
+	known := make([]bool, len(cs.Cells))
+	for a, c := range cs.Cells {
+		chars[a], known[a] = base.F.Num[c.Index], base.Known[c.Index]
+	}
+	work := base.Clone()
+	apply := func(m int) {
+		f := cs.All[m].Factors
+		for a, c := range cs.Cells {
+			if known[a] {
+				work.Set(c.Index, f[a]*chars[a])
+			}
+		}
+		work.Eval()
+	}
+	for m := 0; m < nm; m++ {
+		apply(m)
+		state := cs.All[m].State
+		for k, i := range cs.checks {
+			u := math.NaN()
+			if cs.states[k] == state && work.Known[i] {
+				u = work.F.Num[i]
+				if work.Demand[i] < 0 {
+					u = math.Inf(-1) // the demand reversed: not assessed
+				}
+			}
+			cm.util[k*nm+m] = u
+		}
+	}
+	// The governing combination of each check: the first in which it cannot
+	// be assessed (a failed cell, a capacity that is not positive, a demand
+	// whose sign reversed), else the one of the largest utilisation.
+	worst, worstU := -1, math.Inf(-1)
+	for k := range cs.checks {
+		g, gu, bad := -1, math.Inf(-1), false
+		cm.failing[k], cm.count[k] = 0, 0
+		for m := 0; m < nm; m++ {
+			if cs.All[m].State != cs.states[k] {
+				continue
+			}
+			cm.count[k]++
+			u := cm.util[k*nm+m]
+			notAssessed := math.IsNaN(u) || math.IsInf(u, -1)
+			if notAssessed || u > 1 {
+				cm.failing[k]++
+			}
+			switch {
+			case bad:
+			case notAssessed:
+				g, bad = m, true
+			case u > gu:
+				g, gu = m, u
+			}
+		}
+		cm.gov[k] = g
+		rank := gu
+		if bad {
+			rank = math.Inf(1)
+		}
+		if g >= 0 && (worst < 0 || rank > worstU) {
+			worst, worstU = g, rank
+		}
+	}
+	if worst < 0 {
+		worst = 0
+	}
+	cm.shown = worst
+	// The governing values of each check, then the view: the shown
+	// combination's values with every dependent check at its governing
+	// combination.
+	type gv struct {
+		d, c, u float64
+		kn      bool
+	}
+	vals := make([]gv, nc)
+	cur := -1
+	seen := map[string]bool{}
+	sig := st.sheet.sigFigs
+	for k, i := range cs.checks {
+		g := cm.gov[k]
+		if g < 0 {
+			continue
+		}
+		if g != cur {
+			apply(g)
+			cur = g
+		}
+		v := gv{d: work.Demand[i], c: work.Capacity[i], u: work.F.Num[i], kn: work.Known[i]}
+		var probs []*diag.Diagnostic
+		if !v.kn && g != worst { // the view shows the problems of worst itself
+			// The check's own problem, or those of the cells it depends
+			// on: in this combination only, so the view may not show them.
+			if p := work.Problem[i]; p != nil {
+				probs = append(probs, p)
+			} else {
+				for j, p := range work.Problem {
+					if p != nil && cs.Depends[j] {
+						probs = append(probs, p)
+					}
+				}
+			}
+		} else if v.d < 0 {
+			cell := st.sheet.prog.Cells[i]
+			unit := st.sheet.checkUnit(cell)
+			probs = append(probs, &diag.Diagnostic{Range: cell.Formula.Source.Range,
+				Summary: "check `" + cell.Name + "` cannot be assessed: its demand is " + units.Format(v.d, unit, sig) + ", of the opposite sign",
+				Detail:  "the actions reverse the demand in this combination (a tie in compression, uplift on a support); a utilisation below zero would pass by accident",
+				Hint:    "check the reversed state with a check of its own, e.g. the member as a strut"})
+			v.kn = false
+		}
+		for _, p := range probs {
+			cp := *p
+			cp.Summary += " (in " + cs.All[g].Name + ": " + cs.Text(g) + ")"
+			if !seen[cp.Summary] {
+				seen[cp.Summary] = true
+				cm.probs = append(cm.probs, &cp)
+			}
+		}
+		vals[k] = v
+	}
+	if nm > 0 && cur != worst {
+		apply(worst)
+	}
+	for k, i := range cs.checks {
+		if cm.gov[k] < 0 {
+			continue
+		}
+		v := vals[k]
+		work.F.Num[i], work.Demand[i], work.Capacity[i], work.Known[i] = v.u, v.d, v.c, v.kn
+	}
+	cm.view = work
+}
+
+// read returns the state readers see: the view of a sheet with actions,
+// else the base state.
+func (st *State) read() *eval.State {
+	if st.cmb != nil && st.cmb.view != nil {
+		return st.cmb.view
+	}
+	return st.st
+}
+
+// clone copies the combination outcome for State.Clone.
+func (cm *comboState) clone() *comboState {
+	if cm == nil {
+		return nil
+	}
+	c := *cm
+	if cm.view != nil {
+		c.view = cm.view.Clone()
+	}
+	c.util = append([]float64(nil), cm.util...)
+	c.gov = append([]int(nil), cm.gov...)
+	c.failing = append([]int(nil), cm.failing...)
+	c.count = append([]int(nil), cm.count...)
+	c.probs = append(diag.List(nil), cm.probs...)
+	return &c
+}
+
+// ComboOutcome is the outcome of one check of a sheet with actions.
+type ComboOutcome struct {
+	State     string    // the limit state it is checked in
+	Governing string    // name of the governing combination ("ULS 3")
+	Text      string    // the governing combination in words
+	Clause    string    // the expression it follows
+	Evaluated int       // combinations evaluated for it
+	Failing   int       // combinations in which it fails or cannot be assessed
+	Utils     []float64 // utilisation in each combination of Combos.All; NaN where not of its limit state or not assessed
+}
+
+// ComboSummary says how the cells of a sheet with actions were evaluated.
+type ComboSummary struct {
+	*Combos
+	Shown     int // the combination whose values the cells that depend on actions show
+	Evaluated int // combinations evaluated (all limit states)
+}
+
+// addCombos completes r with the outcome of the combinations.
+func (st *State) addCombos(r *Results) {
+	cs, cm := st.sheet.combos, st.cmb
+	if cs == nil || cm == nil {
+		return
+	}
+	r.Combos = &ComboSummary{Combos: cs, Shown: cm.shown, Evaluated: len(cs.All)}
+	// The problems of the view's cells that depend on actions hold in the
+	// shown combination: say which.
+	inView := map[*diag.Diagnostic]bool{}
+	for i, p := range cm.view.Problem {
+		if p != nil && cs.Depends[i] {
+			inView[p] = true
+		}
+	}
+	for n, p := range r.Problems {
+		if inView[p] {
+			cp := *p
+			cp.Summary += " (in " + cs.All[cm.shown].Name + ": " + cs.Text(cm.shown) + ")"
+			r.Problems[n] = &cp
+		}
+	}
+	r.Problems = append(r.Problems, cm.probs...)
+	nm := len(cs.All)
+	at := map[int]int{}
+	for k, i := range cs.checks {
+		at[i] = k
+	}
+	for n := range r.Checks {
+		ch := &r.Checks[n]
+		k, ok := at[ch.Cell.Index]
+		if !ok {
+			continue
+		}
+		o := &ComboOutcome{State: cs.states[k], Evaluated: cm.count[k], Failing: cm.failing[k],
+			Utils: append([]float64(nil), cm.util[k*nm:(k+1)*nm]...)}
+		for m := range o.Utils {
+			if math.IsInf(o.Utils[m], -1) {
+				o.Utils[m] = math.NaN()
+			}
+		}
+		if g := cm.gov[k]; g >= 0 {
+			o.Governing, o.Text, o.Clause = cs.All[g].Name, cs.Text(g), cs.All[g].Clause
+		}
+		ch.Combo = o
+	}
+}

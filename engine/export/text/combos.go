@@ -1,0 +1,144 @@
+package text
+
+import (
+	"fmt"
+	"strings"
+	"unicode/utf8"
+
+	"github.com/sheafcalc/sheaf/engine"
+	"github.com/sheafcalc/sheaf/engine/combine"
+	"github.com/sheafcalc/sheaf/engine/units"
+)
+
+// dependsMark follows the value of a cell that depends on actions.
+const dependsMark = " *"
+
+// marked reports whether cell c of r shows its value in one combination.
+func marked(r *engine.Results, c *engine.Cell) bool {
+	return r.Combos != nil && r.Combos.Depends[c.Index] && c.Kind != engine.Check
+}
+
+// checkCombo is the line under a check that depends on actions: its
+// governing combination and how many were evaluated.
+func checkCombo(ch engine.CheckResult) string {
+	o := ch.Combo
+	if o == nil {
+		return ""
+	}
+	s := "governs " + o.Governing + ": " + o.Text + ", " + o.Clause + "; " +
+		fmt.Sprintf("%d %s combinations evaluated", o.Evaluated, o.State)
+	if o.Failing > 0 {
+		s += fmt.Sprintf(", %d fail or cannot be assessed", o.Failing)
+	}
+	return s
+}
+
+// writeCombos writes how the actions were combined: the rules, the
+// factors with their sources, and which combination the marked cells show.
+func writeCombos(b *strings.Builder, r *engine.Results) {
+	cs := r.Combos
+	b.WriteString("\nCombinations\n------------\n")
+	b.WriteString("  rules    " + cs.Rules.Name + ": " + cs.Rules.Title + "\n")
+	var acts []string
+	for i, a := range cs.Actions {
+		acts = append(acts, a.Name+" ("+cs.Cells[i].Action.Kind.Text()+")")
+	}
+	b.WriteString("  actions  " + strings.Join(acts, ", ") + "\n")
+	if fs := cs.UsedFactors(); len(fs) > 0 {
+		b.WriteString("  factors\n")
+		w := 0
+		for _, f := range fs {
+			w = max(w, utf8.RuneCountInString(f.Symbol))
+		}
+		for _, f := range fs {
+			src := f.SourceText()
+			if f.Replaced {
+				src = "replaced by " + src + "; built-in " + combine.FormatFactor(f.Builtin)
+			}
+			b.WriteString("    " + pad(f.Symbol, w) + "  " + padLeft(combine.FormatFactor(f.Value), 5) + "  " + src + "\n")
+		}
+	}
+	counts := map[string]int{}
+	var order []string
+	for _, c := range cs.All {
+		if counts[c.State] == 0 {
+			order = append(order, c.State)
+		}
+		counts[c.State]++
+	}
+	var parts []string
+	for _, st := range order {
+		parts = append(parts, fmt.Sprintf("%d %s", counts[st], st))
+	}
+	b.WriteString("  evaluated " + strings.Join(parts, ", ") + " (`sheaf run --combinations` lists them)\n")
+	b.WriteString("  " + strings.TrimSpace(dependsMark) + " depends on actions: shown in " + cs.All[cs.Shown].Name + " (" + cs.Text(cs.Shown) + ")\n")
+}
+
+// WriteCombinations writes the table of every combination of r: its name,
+// limit state, the expression it follows, the combination in words, and the
+// utilisation of each check of its limit state.
+func WriteCombinations(w interface{ WriteString(string) (int, error) }, r *engine.Results) error {
+	cs := r.Combos
+	var b strings.Builder
+	if cs == nil {
+		b.WriteString("The sheet has no actions, so no combinations.\n")
+		_, err := w.WriteString(b.String())
+		return err
+	}
+	b.WriteString("Combinations of " + cs.Rules.Name + " (" + cs.Rules.Title + ")\n\n")
+	type row []string
+	head := row{"name", "limit state", "follows", "combination"}
+	var checks []engine.CheckResult
+	for _, ch := range r.Checks {
+		if ch.Combo != nil {
+			checks = append(checks, ch)
+			head = append(head, ch.Cell.Name)
+		}
+	}
+	rows := []row{head}
+	for m, c := range cs.All {
+		rw := row{c.Name, c.State, c.Clause, cs.Text(m)}
+		for _, ch := range checks {
+			cell := ""
+			if ch.Combo.State == c.State {
+				u := ch.Combo.Utils[m]
+				cell = "not assessed"
+				if u == u { // not NaN
+					cell = units.FormatNumber(u*100, 3) + " %"
+				}
+				if ch.Combo.Governing == c.Name {
+					cell += " <"
+				}
+			}
+			rw = append(rw, cell)
+		}
+		rows = append(rows, rw)
+	}
+	wd := make([]int, len(head))
+	for _, rw := range rows {
+		for i, s := range rw {
+			wd[i] = max(wd[i], utf8.RuneCountInString(s))
+		}
+	}
+	for _, rw := range rows {
+		line := " "
+		for i, s := range rw {
+			if i >= 4 {
+				line += " " + padLeft(s, wd[i])
+			} else {
+				line += " " + pad(s, wd[i])
+			}
+		}
+		b.WriteString(strings.TrimRight(line, " ") + "\n")
+	}
+	b.WriteString("\n< marks the governing combination of each check.\n")
+	if fs := cs.UsedFactors(); len(fs) > 0 {
+		b.WriteString("\nFactors\n")
+		for _, f := range fs {
+			b.WriteString("  " + f.Symbol + " = " + combine.FormatFactor(f.Value) + "  " + f.SourceText() + "\n")
+		}
+	}
+	b.WriteString("\n" + Caution + "\n")
+	_, err := w.WriteString(b.String())
+	return err
+}
