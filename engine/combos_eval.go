@@ -65,20 +65,18 @@ func (st *State) recomputeCombos() {
 		for k, i := range cs.checks {
 			u := math.NaN()
 			if cs.states[k] == state && work.Known[i] {
-				u = work.F.Num[i]
-				if work.Demand[i] < 0 {
-					u = math.Inf(-1) // the demand reversed: not assessed
-				}
+				u = work.F.Num[i] // below zero when the demand reversed: not assessed
 			}
 			cm.util[k*nm+m] = u
 		}
 	}
 	// The governing combination of each check: the first in which it cannot
-	// be assessed (a failed cell, a capacity that is not positive, a demand
-	// whose sign reversed), else the one of the largest utilisation.
+	// be assessed (a failed cell, a capacity that is not positive), else the
+	// one in which its demand is most reversed (a utilisation below zero),
+	// else the one of the largest utilisation.
 	worst, worstU := -1, math.Inf(-1)
 	for k := range cs.checks {
-		g, gu, bad := -1, math.Inf(-1), false
+		g, gu, unknown, rev := -1, math.Inf(-1), false, false
 		cm.failing[k], cm.count[k] = 0, 0
 		for m := 0; m < nm; m++ {
 			if cs.All[m].State != cs.states[k] {
@@ -86,21 +84,25 @@ func (st *State) recomputeCombos() {
 			}
 			cm.count[k]++
 			u := cm.util[k*nm+m]
-			notAssessed := math.IsNaN(u) || math.IsInf(u, -1)
-			if notAssessed || u > 1 {
+			if math.IsNaN(u) || u < 0 || u > 1 {
 				cm.failing[k]++
 			}
 			switch {
-			case bad:
-			case notAssessed:
-				g, bad = m, true
+			case unknown:
+			case math.IsNaN(u):
+				g, unknown = m, true
+			case u < 0:
+				if !rev || u < gu {
+					g, gu, rev = m, u, true
+				}
+			case rev:
 			case u > gu:
 				g, gu = m, u
 			}
 		}
 		cm.gov[k] = g
 		rank := gu
-		if bad {
+		if unknown || rev {
 			rank = math.Inf(1)
 		}
 		if g >= 0 && (worst < 0 || rank > worstU) {
@@ -205,13 +207,16 @@ func (cm *comboState) clone() *comboState {
 
 // ComboOutcome is the outcome of one check of a sheet with actions.
 type ComboOutcome struct {
-	State     string    // the limit state it is checked in
-	Governing string    // name of the governing combination ("ULS 3")
-	Text      string    // the governing combination in words
-	Clause    string    // the expression it follows
-	Evaluated int       // combinations evaluated for it
-	Failing   int       // combinations in which it fails or cannot be assessed
-	Utils     []float64 // utilisation in each combination of Combos.All; NaN where not of its limit state or not assessed
+	State     string // the limit state it is checked in
+	Governing string // name of the governing combination ("ULS 3")
+	Text      string // the governing combination in words
+	Clause    string // the expression it follows
+	Evaluated int    // combinations evaluated for it
+	Failing   int    // combinations in which it fails or cannot be assessed
+	// Utils is the utilisation in each combination of Combos.All: NaN
+	// where not of its limit state or not computed, below zero where the
+	// demand reversed (not assessed: such a combination governs).
+	Utils []float64
 }
 
 // ComboSummary says how the cells of a sheet with actions were evaluated.
@@ -257,11 +262,6 @@ func (st *State) addCombos(r *Results) {
 		}
 		o := &ComboOutcome{State: cs.states[k], Evaluated: cm.count[k], Failing: cm.failing[k],
 			Utils: append([]float64(nil), cm.util[k*nm:(k+1)*nm]...)}
-		for m := range o.Utils {
-			if math.IsInf(o.Utils[m], -1) {
-				o.Utils[m] = math.NaN()
-			}
-		}
 		if g := cm.gov[k]; g >= 0 {
 			o.Governing, o.Text, o.Clause = cs.All[g].Name, cs.Text(g), cs.All[g].Clause
 		}

@@ -102,8 +102,12 @@ func WriteCombinations(w interface{ WriteString(string) (int, error) }, r *engin
 			cell := ""
 			if ch.Combo.State == c.State {
 				u := ch.Combo.Utils[m]
-				cell = "not assessed"
-				if u == u { // not NaN
+				switch {
+				case u != u: // NaN
+					cell = "not assessed"
+				case u < 0:
+					cell = "reversed"
+				default:
 					cell = units.FormatNumber(u*100, 3) + " %"
 				}
 				if ch.Combo.Governing == c.Name {
