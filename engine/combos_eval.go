@@ -3,6 +3,7 @@ package engine
 import (
 	"math"
 
+	"github.com/sheafcalc/sheaf/engine/combine"
 	"github.com/sheafcalc/sheaf/engine/diag"
 	"github.com/sheafcalc/sheaf/engine/eval"
 	"github.com/sheafcalc/sheaf/engine/units"
@@ -101,9 +102,15 @@ func (st *State) recomputeCombos() {
 			}
 		}
 		cm.gov[k] = g
+		// The cells show the governing combination of the most utilised
+		// check, a check of the default (ultimate) limit state before the
+		// others: a design value is what a reader of N_Ed expects.
 		rank := gu
 		if unknown || rev {
 			rank = math.Inf(1)
+		}
+		if cs.states[k] == combine.Default {
+			rank += 1e300
 		}
 		if g >= 0 && (worst < 0 || rank > worstU) {
 			worst, worstU = g, rank
@@ -175,6 +182,13 @@ func (st *State) recomputeCombos() {
 		}
 		v := vals[k]
 		work.F.Num[i], work.Demand[i], work.Capacity[i], work.Known[i] = v.u, v.d, v.c, v.kn
+	}
+	// Action cells show their characteristic values (the cells downstream
+	// keep those of the shown combination).
+	for a, c := range cs.Cells {
+		if known[a] {
+			work.F.Num[c.Index] = chars[a]
+		}
 	}
 	cm.view = work
 }

@@ -15,9 +15,10 @@ import (
 
 // runOptions are the flags of `sheaf run`.
 type runOptions struct {
-	sets   []string
-	json   bool
-	system string
+	sets         []string
+	json         bool
+	system       string
+	combinations bool
 }
 
 func newRunCmd(a *app) *cobra.Command {
@@ -31,7 +32,12 @@ utilisation. Inputs can be replaced with --set name=value (the value takes a
 unit: --set P=45kN --set "d=24 mm").
 
 Exit status: 0 when every design check passes, 1 when a check fails or
-cannot be assessed, 2 when the sheet or a --set has errors.`,
+cannot be assessed, 2 when the sheet or a --set has errors.
+
+A sheet with actions is evaluated in every combination of its rules
+(SPEC.md §5a): each check shows its governing combination and how many were
+evaluated, and fails when it fails in any of them. --combinations prints the
+table of all combinations instead of the listing.`,
 		Args: cobra.ExactArgs(1),
 		RunE: func(cmd *cobra.Command, args []string) error {
 			return runRun(a, o, args[0])
@@ -39,6 +45,7 @@ cannot be assessed, 2 when the sheet or a --set has errors.`,
 	}
 	cmd.Flags().StringArrayVar(&o.sets, "set", nil, setUsage)
 	cmd.Flags().BoolVar(&o.json, "json", false, "print the results as JSON")
+	cmd.Flags().BoolVar(&o.combinations, "combinations", false, "print the table of every combination of the sheet's actions, with each check's utilisation in it")
 	cmd.Flags().StringVar(&o.system, "system", "", "display units for cells without a written unit: metric or us")
 	return cmd
 }
@@ -99,9 +106,12 @@ func runRun(a *app, o *runOptions, path string) error {
 		return err
 	}
 	res := st.Eval()
-	if o.json {
+	switch {
+	case o.json:
 		err = jsonout.Write(a.stdout, res)
-	} else {
+	case o.combinations:
+		err = text.WriteCombinations(a.stdout, res)
+	default:
 		err = text.Write(a.stdout, res, engine.DefaultSigFigs)
 	}
 	if err != nil {

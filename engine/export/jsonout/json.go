@@ -16,7 +16,9 @@ type Document struct {
 	Checks   []Check   `json:"checks"`
 	Failed   int       `json:"failed"`
 	Problems []Problem `json:"problems"`
-	Caution  string    `json:"caution"`
+	// Combinations is present for a sheet with actions.
+	Combinations *Combinations `json:"combinations,omitempty"`
+	Caution      string        `json:"caution"`
 }
 
 // Meta is the header of the sheet.
@@ -49,6 +51,9 @@ type Cell struct {
 	Expr        string    `json:"expr,omitempty"`
 	Deps        []string  `json:"deps,omitempty"`
 	Columns     []Column  `json:"columns,omitempty"` // tables
+	// InCombination names the combination whose value a cell that depends
+	// on actions shows (an action itself shows its characteristic value).
+	InCombination string `json:"in_combination,omitempty"`
 }
 
 // Field is a numeric or text field of a record value.
@@ -77,6 +82,9 @@ type Check struct {
 	Pass        bool     `json:"pass"`
 	Description string   `json:"description,omitempty"`
 	Reference   string   `json:"reference,omitempty"`
+	// Combination is the outcome over the combinations of its limit state,
+	// for a check that depends on actions.
+	Combination *CheckCombination `json:"combination,omitempty"`
 }
 
 // Problem is a run-time problem at a cell.
@@ -112,6 +120,9 @@ func Build(r *engine.Results) *Document {
 		jc := Cell{Name: c.Cell.Name, Kind: c.Cell.Kind.String(), Section: c.Cell.Section, Known: c.Known,
 			Unit: c.Unit.Symbol, Text: c.Text, Description: c.Cell.Description, Reference: c.Cell.Reference,
 			Expr: c.Cell.Expr, Deps: c.Cell.Deps}
+		if r.Combos != nil && r.Combos.Depends[c.Cell.Index] && c.Cell.Kind != engine.Check && c.Cell.Action == nil {
+			jc.InCombination = r.Combos.All[r.Combos.Shown].Name
+		}
 		if c.Known {
 			switch v := c.Value.(type) {
 			case float64:
@@ -145,8 +156,10 @@ func Build(r *engine.Results) *Document {
 			jc.Demand, jc.Capacity = num(c.Demand/c.Unit.Factor), num(c.Capacity/c.Unit.Factor)
 			jc.Utilisation = num(c.Util)
 		}
+		jc.Combination = checkCombo(r, c)
 		d.Checks = append(d.Checks, jc)
 	}
+	d.Combinations = buildCombos(r)
 	for _, p := range r.Problems {
 		d.Problems = append(d.Problems, Problem{Pos: p.Range.Start.String(), Summary: p.Summary, Detail: p.Detail, Hint: p.Hint})
 	}

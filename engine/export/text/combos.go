@@ -2,6 +2,7 @@ package text
 
 import (
 	"fmt"
+	"io"
 	"strings"
 	"unicode/utf8"
 
@@ -15,7 +16,7 @@ const dependsMark = " *"
 
 // marked reports whether cell c of r shows its value in one combination.
 func marked(r *engine.Results, c *engine.Cell) bool {
-	return r.Combos != nil && r.Combos.Depends[c.Index] && c.Kind != engine.Check
+	return r.Combos != nil && r.Combos.Depends[c.Index] && c.Kind != engine.Check && c.Action == nil
 }
 
 // checkCombo is the line under a check that depends on actions: its
@@ -71,18 +72,18 @@ func writeCombos(b *strings.Builder, r *engine.Results) {
 		parts = append(parts, fmt.Sprintf("%d %s", counts[st], st))
 	}
 	b.WriteString("  evaluated " + strings.Join(parts, ", ") + " (`sheaf run --combinations` lists them)\n")
-	b.WriteString("  " + strings.TrimSpace(dependsMark) + " depends on actions: shown in " + cs.All[cs.Shown].Name + " (" + cs.Text(cs.Shown) + ")\n")
+	b.WriteString("  actions show their characteristic values; " + strings.TrimSpace(dependsMark) + " depends on actions: shown in " + cs.All[cs.Shown].Name + " (" + cs.Text(cs.Shown) + ")\n")
 }
 
 // WriteCombinations writes the table of every combination of r: its name,
 // limit state, the expression it follows, the combination in words, and the
 // utilisation of each check of its limit state.
-func WriteCombinations(w interface{ WriteString(string) (int, error) }, r *engine.Results) error {
+func WriteCombinations(w io.Writer, r *engine.Results) error {
 	cs := r.Combos
 	var b strings.Builder
 	if cs == nil {
 		b.WriteString("The sheet has no actions, so no combinations.\n")
-		_, err := w.WriteString(b.String())
+		_, err := io.WriteString(w, b.String())
 		return err
 	}
 	b.WriteString("Combinations of " + cs.Rules.Name + " (" + cs.Rules.Title + ")\n\n")
@@ -143,6 +144,6 @@ func WriteCombinations(w interface{ WriteString(string) (int, error) }, r *engin
 		}
 	}
 	b.WriteString("\n" + Caution + "\n")
-	_, err := w.WriteString(b.String())
+	_, err := io.WriteString(w, b.String())
 	return err
 }
