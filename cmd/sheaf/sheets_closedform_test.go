@@ -29,9 +29,32 @@ type sheetRun struct {
 		} `json:"columns"`
 	} `json:"cells"`
 	Checks []struct {
-		Name string `json:"name"`
-		Pass bool   `json:"pass"`
+		Name        string   `json:"name"`
+		Pass        bool     `json:"pass"`
+		DemandSI    *float64 `json:"demand_si"`
+		Combination *struct {
+			Governing string `json:"governing"`
+			Text      string `json:"text"`
+			Evaluated int    `json:"evaluated"`
+		} `json:"combination"`
 	} `json:"checks"`
+}
+
+// demand is the SI demand of a check (in its governing combination for a
+// sheet with actions), and the combination in words ("" when none).
+func (r *exampleRun) demand(name string) (float64, string) {
+	r.t.Helper()
+	for _, c := range r.res.Checks {
+		if c.Name == name && c.DemandSI != nil {
+			text := ""
+			if c.Combination != nil {
+				text = c.Combination.Text
+			}
+			return *c.DemandSI, text
+		}
+	}
+	r.t.Fatalf("no check %s with a demand", name)
+	return math.NaN(), ""
 }
 
 // exampleRun runs a sheet with overrides and decodes its JSON listing.
@@ -164,20 +187,32 @@ func TestCanopyHangerClosedForm(t *testing.T) {
 			}
 			L, d := r.v("L"), r.v("d")
 			E, gam := r.f("steel", "E"), r.f("steel", "gamma")
-			gG, gQ := r.v("gamma_G"), r.v("gamma_Q")
+			// The combinations the sheet wrote by hand before it had actions:
+			// 1.35 G + 1.5 S for the stress, G + S for the elongation; γG,sup
+			// 1.35 and γQ 1.5 from EN 1990 Table A1.2(B) (REFERENCES D7).
+			const gG, gQ = 1.35, 1.5
 			area := r.v("a_proj") / 2 * r.v("s")
 			A := math.Pi * d * d / 4
 			Pk := (r.v("g_k") + r.v("q_k")) * area
 			PEd := gG*r.v("g_k")*area + gQ*r.v("q_k")*area
 			r.near("A", r.v("A"), A, relExact)
+			r.near("G", r.v("G"), r.v("g_k")*area, relExact) // actions show characteristic values
 			// Source: prismatic bar δ = PL/(EA), REFERENCES C1 (Gere & Goodno ch. 2),
 			// plus a bar hanging under its own weight δ = γL²/(2E), REFERENCES C3
 			// (Timoshenko, Strength of Materials I, Art. 2); superposition holds
-			// for a linear bar.
+			// for a linear bar. The stretch check governs in G + S + w_rod.
 			want := Pk*L/(E*A) + gam*L*L/(2*E)
-			r.near("delta (solver)", r.v("delta"), want, relExact)
-			r.near("delta_sum (shortcuts)", r.v("delta_sum"), want, relExact)
-			r.near("delta_g", r.v("delta_g"), gam*L*L/(2*E), relExact)
+			dem, comb := r.demand("stretch")
+			r.near("stretch demand (solver)", dem, want, relExact)
+			if comb != "1.0 G + 1.0 S + 1.0 w_rod" {
+				t.Errorf("stretch governs in %q", comb)
+			}
+			// The cells show the governing combination of the stress check,
+			// 1.35 G + 1.5 S + 1.35 w_rod.
+			wantD := PEd*L/(E*A) + gG*gam*L*L/(2*E)
+			r.near("delta (solver, ULS)", r.v("delta"), wantD, relExact)
+			r.near("delta_sum (shortcuts, ULS)", r.v("delta_sum"), wantD, relExact)
+			r.near("delta_g", r.v("delta_g"), gG*gam*L*L/(2*E), relExact)
 			// Source: equilibrium of the whole rod: the truss carries the end
 			// pull and the factored weight γ_G·γ·A·L (common practice).
 			R := PEd + gG*gam*A*L
@@ -185,6 +220,11 @@ func TestCanopyHangerClosedForm(t *testing.T) {
 			// Source: σ_max = (P + γAL)/A at the support, REFERENCES C3 (σ = γL)
 			// plus the end pull over the area.
 			r.near("sigma_Ed", r.v("sigma_Ed"), R/A, relExact)
+			dem, comb = r.demand("stress")
+			r.near("stress demand", dem, R/A, relExact)
+			if comb != "1.35 G + 1.5 S + 1.35 w_rod" {
+				t.Errorf("stress governs in %q", comb)
+			}
 			r.near("sigma_g", r.v("sigma_g"), gG*gam*L, relExact)
 			if x := r.v("x_sigma"); x != 0 {
 				t.Errorf("largest stress at x = %g m, want at the truss (0)", x)
