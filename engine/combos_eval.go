@@ -282,3 +282,29 @@ func (st *State) addCombos(r *Results) {
 		ch.Combo = o
 	}
 }
+
+// Shown returns the name of the combination whose values the cells that
+// depend on actions hold after the last Recompute ("" for a sheet without
+// actions, or before the first).
+func (st *State) Shown() string {
+	cs, cm := st.sheet.combos, st.cmb
+	if cs == nil || cm == nil || cm.view == nil || len(cs.All) == 0 {
+		return ""
+	}
+	return cs.All[cm.shown].Name
+}
+
+// Governing returns the name of the governing combination of check c after
+// the last Recompute ("" when c does not depend on actions).
+func (st *State) Governing(c *Cell) string {
+	cs, cm := st.sheet.combos, st.cmb
+	if cs == nil || cm == nil || cm.view == nil {
+		return ""
+	}
+	for k, i := range cs.checks {
+		if i == c.Index && cm.gov[k] >= 0 {
+			return cs.All[cm.gov[k]].Name
+		}
+	}
+	return ""
+}

@@ -32,6 +32,10 @@ type Row struct {
 	Picks   []float64 // SI; NaN when the cell could not be computed
 	Utils   []float64 // one per check; NaN when not assessed
 	Problem string    // the first run-time problem of the case, if any
+	// Sheets with actions: the combination the picked cells that depend on
+	// actions show, and each check's governing combination.
+	Shown     string
+	Governing []string
 }
 
 // Verdict of check k: "pass", "fail", "unknown" (not assessed) or "" for a
@@ -167,6 +171,13 @@ func (w *worker) run(r *Row) {
 			x, unknown = math.NaN(), true
 		}
 		r.Utils[k] = x
+	}
+	if w.out.Sheet.Combos() != nil {
+		r.Shown = w.st.Shown()
+		r.Governing = make([]string, len(w.out.Checks))
+		for k, c := range w.out.Checks {
+			r.Governing[k] = w.st.Governing(c)
+		}
 	}
 	if unknown {
 		// Rare: build the full results once to say why.
