@@ -18,10 +18,12 @@ type comboState struct {
 	// util[k*len(All)+m] is the utilisation of dependent check k in
 	// combination m (NaN when not assessed, or not of its limit state).
 	util    []float64
-	gov     []int // per dependent check: the governing combination (index into All), -1 when none
-	failing []int // per dependent check: combinations in which it fails or cannot be assessed
-	count   []int // per dependent check: combinations evaluated
-	shown   int   // the combination whose values the cells show
+	dem     []float64 // demand, in the same layout as util
+	capa    []float64 // capacity, likewise
+	gov     []int     // per dependent check: the governing combination (index into All), -1 when none
+	failing []int     // per dependent check: combinations in which it fails or cannot be assessed
+	count   []int     // per dependent check: combinations evaluated
+	shown   int       // the combination whose values the cells show
 	probs   diag.List
 }
 
@@ -42,6 +44,7 @@ func (st *State) recomputeCombos() {
 	nc, nm := len(cs.checks), len(cs.All)
 	if len(cm.util) != nc*nm {
 		cm.util = make([]float64, nc*nm)
+		cm.dem, cm.capa = make([]float64, nc*nm), make([]float64, nc*nm)
 		cm.gov, cm.failing, cm.count = make([]int, nc), make([]int, nc), make([]int, nc)
 	}
 	cm.probs = cm.probs[:0]
@@ -68,9 +71,10 @@ func (st *State) recomputeCombos() {
 			if cs.states[k] == state && work.Known[i] {
 				u = work.F.Num[i] // below zero when the demand reversed: not assessed
 			}
-			cm.util[k*nm+m] = u
+			cm.util[k*nm+m], cm.dem[k*nm+m], cm.capa[k*nm+m] = u, work.Demand[i], work.Capacity[i]
 		}
 	}
+	cur := nm - 1 // the combination work holds
 	// The governing combination of each check: the first in which it cannot
 	// be assessed (a failed cell, a capacity that is not positive), else the
 	// one in which its demand is most reversed (a utilisation below zero),
@@ -128,7 +132,6 @@ func (st *State) recomputeCombos() {
 		kn      bool
 	}
 	vals := make([]gv, nc)
-	cur := -1
 	seen := map[string]bool{}
 	sig := st.sheet.sigFigs
 	for k, i := range cs.checks {
@@ -136,13 +139,14 @@ func (st *State) recomputeCombos() {
 		if g < 0 {
 			continue
 		}
-		if g != cur {
-			apply(g)
-			cur = g
-		}
-		v := gv{d: work.Demand[i], c: work.Capacity[i], u: work.F.Num[i], kn: work.Known[i]}
+		x := k*nm + g
+		v := gv{d: cm.dem[x], c: cm.capa[x], u: cm.util[x], kn: !math.IsNaN(cm.util[x])}
 		var probs []*diag.Diagnostic
 		if !v.kn && g != worst { // the view shows the problems of worst itself
+			if g != cur {
+				apply(g)
+				cur = g
+			}
 			// The check's own problem, or those of the cells it depends
 			// on: in this combination only, so the view may not show them.
 			if p := work.Problem[i]; p != nil {

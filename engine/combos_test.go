@@ -213,3 +213,29 @@ func BenchmarkCombinations(b *testing.B) {
 		b.Fatalf("utilisation %g, want %g", u, want)
 	}
 }
+
+// FuzzCombinations compiles and runs sheets with actions: nothing panics,
+// and a check that passes has a utilisation from 0 to 1 in its governing
+// combination, never a passing negative one.
+func FuzzCombinations(f *testing.F) {
+	f.Add(upliftSheet)
+	f.Add(benchSheet(5))
+	f.Add("combinations: EN 1990 6.10a/b\naction permanent favourable G [kN] = 4 kN\naction snow high S [kN] = 3 kN\naction thermal T [K] = 20 K\nN [kN] = G + S + T * 1 kN/K\ncheck t: N <= 20 kN\ncheck f in frequent: N <= 9 kN\ncheck q in quasi-permanent: N <= 9 kN\n")
+	f.Add("combinations: ASCE 7 ASD\naction permanent D [kN] = 4 kN\naction imposed H L_r [kN] = 1 kN\naction wind W [kN] = -9 kN\nN [kN] = D + L_r + W\ncheck t: N <= 20 kN\n")
+	f.Add("combinations: EN 1990 6.10\nfactor psi accidental leading = 2\naction permanent G [kN] = 4 kN\naction accidental A [kN] = 30 kN\naction imposed B Q [kN] = 2 kN\ncheck a in accidental: G + A + Q <= 40 kN\n")
+	f.Fuzz(func(t *testing.T, src string) {
+		s, err := engine.Compile("f.sheaf", []byte(src), engine.WithMaxCells(200))
+		if err != nil {
+			return
+		}
+		r := s.Run(nil)
+		for _, ch := range r.Checks {
+			if ch.Pass && !(ch.Util >= 0 && ch.Util <= 1) {
+				t.Fatalf("check %s passes with utilisation %g", ch.Cell.Name, ch.Util)
+			}
+			if ch.Combo != nil && ch.Combo.Evaluated == 0 {
+				t.Fatalf("check %s evaluated in no combination", ch.Cell.Name)
+			}
+		}
+	})
+}
