@@ -121,7 +121,8 @@ const (
 	srcA12A = "EN 1990 Table A1.2(A)"
 )
 
-// psiRows is EN 1990 Table A1.1: ψ0, ψ1, ψ2 of each row.
+// psiRows is EN 1990 Table A1.1: ψ0, ψ1, ψ2 of each row (REFERENCES D6
+// gives all but categories F and G, which are from memory).
 var psiRows = []struct {
 	row        string
 	psi        [3]float64
@@ -132,8 +133,8 @@ var psiRows = []struct {
 	{"imposed C", [3]float64{0.7, 0.7, 0.6}, false}, // congregation areas
 	{"imposed D", [3]float64{0.7, 0.7, 0.6}, false}, // shopping areas
 	{"imposed E", [3]float64{1.0, 0.9, 0.8}, false}, // storage areas
-	{"imposed F", [3]float64{0.7, 0.7, 0.6}, true},  // traffic, vehicle weight ≤ 30 kN
-	{"imposed G", [3]float64{0.7, 0.5, 0.3}, true},  // traffic, 30 kN < vehicle weight ≤ 160 kN
+	{"imposed F", [3]float64{0.7, 0.7, 0.6}, true},  // traffic, vehicle weight ≤ 30 kN (from memory)
+	{"imposed G", [3]float64{0.7, 0.5, 0.3}, true},  // traffic, 30 kN < vehicle weight ≤ 160 kN (from memory)
 	{"imposed H", [3]float64{0, 0, 0}, false},       // roofs
 	{"snow", [3]float64{0.5, 0.2, 0}, false},        // sites at or below 1000 m
 	{"snow high", [3]float64{0.7, 0.5, 0.2}, false}, // sites above 1000 m
@@ -141,7 +142,9 @@ var psiRows = []struct {
 	{"thermal", [3]float64{0.6, 0.5, 0}, false}, // temperature (non-fire)
 }
 
-// enFactors returns the factors of EN 1990 rules.
+// enFactors returns the factors of EN 1990 rules: Table A1.2(B) as in
+// REFERENCES D7; Table A1.2(A) (EQU) and the accidental combination (6.11b)
+// from memory.
 func enFactors() []Factor {
 	fs := []Factor{
 		{Key: "gamma_G_sup", Symbol: "γG,sup", Value: 1.35, Source: srcA12B},
