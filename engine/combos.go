@@ -154,6 +154,19 @@ func setupCombos(prog *check.Program) (*Combos, diag.List) {
 			states = append(states, st)
 		}
 	}
+	// An action that reaches no check is most likely a term forgotten in a
+	// formula: refused, since the checks would pass without it.
+	for a, c := range cs.Cells {
+		reach := reachesCheck(prog, c.Index)
+		switch {
+		case len(reach) == 0:
+			errs.Errorf(c.NameRange, "no design check depends on this action, so leaving it out of a formula would pass unnoticed",
+				"use it in the formula of the force it acts in, or delete it", "action `%s` reaches no check", c.Name)
+		case cs.Actions[a].Class == combine.Accidental && !slices.ContainsFunc(reach, func(i int) bool { return StateOf(prog.Cells[i]) == combine.AccidentalLS }):
+			errs.Errorf(c.NameRange, "an accidental action is combined only in the accidental limit state (EN 1990 6.11b), and no check that uses it is in it",
+				"write `check NAME in accidental: ...` for the check it acts on", "accidental action `%s` reaches no check in accidental", c.Name)
+		}
+	}
 	if errs.HasErrors() {
 		return nil, errs
 	}
@@ -185,6 +198,27 @@ func setupCombos(prog *check.Program) (*Combos, diag.List) {
 		return nil, errs
 	}
 	return cs, nil
+}
+
+// reachesCheck returns the checks that depend on cell i.
+func reachesCheck(prog *check.Program, i int) []int {
+	seen := map[int]bool{i: true}
+	todo := []int{i}
+	var out []int
+	for len(todo) > 0 {
+		j := todo[len(todo)-1]
+		todo = todo[:len(todo)-1]
+		for _, u := range prog.Users[j] {
+			if !seen[u] {
+				seen[u] = true
+				todo = append(todo, u)
+				if prog.Cells[u].Kind == Check {
+					out = append(out, u)
+				}
+			}
+		}
+	}
+	return out
 }
 
 // actionUsed names the action that cell j is or depends on.

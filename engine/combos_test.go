@@ -119,15 +119,17 @@ func TestCellsOutsideActionsOnce(t *testing.T) {
 
 func TestComboErrors(t *testing.T) {
 	cases := []struct{ name, src, want string }{
-		{"no rules", "action permanent G [kN] = 4 kN\n", "actions without combination rules"},
+		{"no rules", "action permanent G [kN] = 4 kN\ncheck c: G <= 5 kN\n", "actions without combination rules"},
 		{"unknown rules", "combinations: EN 1990 6.1\naction permanent G [kN] = 4 kN\n", "unknown combination rules `EN 1990 6.1`"},
-		{"action from action", "combinations: EN 1990 6.10\naction permanent G [kN] = 4 kN\naction wind W [kN] = 2 * G\n", "action `W` uses the action `G`"},
-		{"factor typo", "combinations: EN 1990 6.10\naction permanent G [kN] = 4 kN\nfactor gama_Q = 1.5\n", "cannot replace factor `gama_Q`"},
-		{"factor out of range", "combinations: EN 1990 6.10\naction permanent G [kN] = 4 kN\nfactor gamma_Q = 15\n", "cannot replace factor `gamma_Q`"},
+		{"action from action", "combinations: EN 1990 6.10\naction permanent G [kN] = 4 kN\naction wind W [kN] = 2 * G\ncheck c: W <= 5 kN\n", "action `W` uses the action `G`"},
+		{"factor typo", "combinations: EN 1990 6.10\naction permanent G [kN] = 4 kN\nfactor gama_Q = 1.5\ncheck c: G <= 5 kN\n", "cannot replace factor `gama_Q`"},
+		{"factor out of range", "combinations: EN 1990 6.10\naction permanent G [kN] = 4 kN\nfactor gamma_Q = 15\ncheck c: G <= 5 kN\n", "cannot replace factor `gamma_Q`"},
 		{"factor without actions", "factor gamma_Q = 1.5\n", "factor line without actions"},
 		{"state the rules lack", "combinations: ASCE 7 LRFD\naction permanent D [kN] = 4 kN\ncheck c in frequent: D <= 5 kN\n", "no combinations of ASCE 7 LRFD for the limit state `frequent`"},
-		{"thermal under ASCE", "combinations: ASCE 7 ASD\naction permanent D [kN] = 4 kN\naction thermal T [K] = 20 K\ncheck c: D <= 5 kN\n", "cannot combine the actions for `uls`"},
+		{"thermal under ASCE", "combinations: ASCE 7 ASD\naction permanent D [kN] = 4 kN\naction thermal T [K] = 20 K\ncheck c: D + T * 0.1 kN/K <= 5 kN\n", "cannot combine the actions for `uls`"},
 		{"accidental state without accidental actions", "combinations: EN 1990 6.10\naction permanent G [kN] = 4 kN\ncheck c in accidental: G <= 5 kN\n", "cannot combine the actions for `accidental`"},
+		{"action used by no check", "combinations: EN 1990 6.10\naction permanent G [kN] = 4 kN\naction wind W [kN] = 2 kN\ncheck c: G <= 5 kN\n", "action `W` reaches no check"},
+		{"accidental action without an accidental check", "combinations: EN 1990 6.10\naction permanent G [kN] = 4 kN\naction accidental A [kN] = 2 kN\ncheck c: G + A <= 5 kN\n", "accidental action `A` reaches no check in accidental"},
 		{"action of a record", "combinations: EN 1990 6.10\naction permanent G = {a: 1 kN}\n", "action `G` is a record, not a number"},
 	}
 	for _, tc := range cases {
