@@ -433,6 +433,13 @@ func TestDuctHangerUSClosedForm(t *testing.T) {
 			// Source: AISC 360 D2, φPn = 0.90 Fy Ag (from memory); ASCE/SEI 7 2.3.1, 1.2D + 1.6L (from memory).
 			r.near("phiP_n", r.v("phiP_n"), 0.90*36*ksi*Ag, relExact)
 			r.near("P_u", r.v("P_u"), (1.2*1.2+1.6*0.8)*kip, relExact)
+			// The sheet's actions D and L give 1.4D and 1.2D + 1.6L (REFERENCES
+			// D8); the second governs the tension check, as written by hand before.
+			dem, comb := r.demand("tension")
+			r.near("tension demand", dem, (1.2*1.2+1.6*0.8)*kip, relExact)
+			if comb != "1.2 D + 1.6 L" {
+				t.Errorf("tension governs in %q", comb)
+			}
 			// Source: prismatic bar δ = PL/(EA), Gere & Goodno §2.2 (REFERENCES C1's formula).
 			r.near("delta", r.v("delta"), 2.0*kip*6*ft/(29000*ksi*Ag), relExact)
 		})

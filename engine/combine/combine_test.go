@@ -30,7 +30,7 @@ var (
 	qB  = Action{Name: "Q", Class: Imposed, Category: 'B'}
 	sn  = Action{Name: "S", Class: Snow}
 	wi  = Action{Name: "W", Class: Wind}
-	dL  = Action{Name: "L", Class: Imposed, Category: 'B'} // L of ASCE/SEI 7
+	dL  = Action{Name: "L", Class: Imposed} // L of ASCE/SEI 7: no category of EN 1990
 	dD  = Action{Name: "D", Class: Permanent}
 	thm = Action{Name: "T", Class: Thermal}
 )
@@ -262,6 +262,8 @@ func TestFromMemory(t *testing.T) {
 	}
 }
 
+func r0() *Rules { r, _ := Lookup("EN 1990 6.10"); return r }
+
 func TestRefused(t *testing.T) {
 	a, _ := Lookup("ASCE 7 LRFD")
 	if _, err := a.Combinations([]Action{dD, thm}, ULS); err == nil || !strings.Contains(err.Error(), "thermal") {
@@ -269,6 +271,9 @@ func TestRefused(t *testing.T) {
 	}
 	if _, err := a.Combinations([]Action{dD}, Frequent); err == nil {
 		t.Error("ASCE/SEI 7 gave frequent combinations")
+	}
+	if _, err := r0().Combinations([]Action{g, {Name: "Q", Class: Imposed}}, ULS); err == nil || !strings.Contains(err.Error(), "category") {
+		t.Errorf("EN 1990 without the category of an imposed action: %v", err)
 	}
 	if _, ok := Lookup("EN 1991 6.10"); ok {
 		t.Error("unknown rules found")

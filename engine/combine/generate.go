@@ -108,6 +108,11 @@ func (g *gen) add(prefix, clause string, f []float64, lead int) {
 // en generates the combinations of EN 1990.
 func (g *gen) en() error {
 	r := g.r
+	for _, a := range g.acts {
+		if a.Class == Imposed && (a.Category < 'A' || a.Category > 'H') {
+			return fmt.Errorf("the imposed action `%s` needs its category of use for the ψ factors of EN 1990 Table A1.1: write `imposed B` (offices), `imposed H` (roofs), ...", a.Name)
+		}
+	}
 	var perms, vars, accs []int
 	for i, a := range g.acts {
 		switch {

@@ -43,7 +43,7 @@ func ParseClass(s string) (Class, bool) {
 type Action struct {
 	Name       string
 	Class      Class
-	Category   byte // Imposed: 'A' … 'H' (EN 1990 Table A1.1)
+	Category   byte // Imposed: 'A' … 'H' (EN 1990 Table A1.1), 0 when not given (ASCE/SEI 7 needs none but H for roofs)
 	High       bool // Snow: a site above 1000 m
 	Favourable bool // Permanent: also taken with its favourable factor
 }
@@ -196,6 +196,21 @@ func Lookup(name string) (*Rules, bool) {
 			States: []string{ULS}, family: asceASD}, true
 	}
 	return nil, false
+}
+
+// StateLabel is how a listing names limit state st under these rules:
+// the default one of ASCE/SEI 7 is "strength" (LRFD) or "allowable
+// stress" (ASD), not "uls".
+func (r *Rules) StateLabel(st string) string {
+	if st == ULS {
+		switch r.family {
+		case asceLRFD:
+			return "strength"
+		case asceASD:
+			return "allowable stress"
+		}
+	}
+	return st
 }
 
 // Factors returns the factors of the rule set (none for ASCE/SEI 7, whose

@@ -21,7 +21,7 @@ type Action struct {
 // is high; for a permanent action whether a favourable part is considered.
 type ActionKind struct {
 	Class      string // "permanent", "imposed", "snow", "wind", "thermal", "accidental"
-	Category   string // imposed: "A" … "H"; otherwise ""
+	Category   string // imposed: "A" … "H", or "" when not written; otherwise ""
 	High       bool   // snow: a site above 1000 m (EN 1990 Table A1.1)
 	Favourable bool   // permanent: also taken with its favourable factor
 	Range      diag.Range
@@ -69,7 +69,7 @@ var LimitStates = []string{"uls", "equ", "characteristic", "frequent", "quasi-pe
 // parseAction reads an action on lines [i, j).
 //
 //	action   = "action" kind name [ unit-spec ] "=" expression [ annotation ] .
-//	kind     = "permanent" [ "favourable" ] | "imposed" category | "snow" [ "high" ]
+//	kind     = "permanent" [ "favourable" ] | "imposed" [ category ] | "snow" [ "high" ]
 //	         | "wind" | "thermal" | "accidental" .
 //	category = "A" | "B" | "C" | "D" | "E" | "F" | "G" | "H" .
 func (p *parser) parseAction(i, j int) Item {
@@ -95,7 +95,7 @@ func (p *parser) parseAction(i, j int) Item {
 		}
 		p.errAt(p.rng(i, at, max(min(at+1, ln.end), k)),
 			"an action gives its kind, then its name: `action permanent G [kN] = 12 kN`",
-			"kinds are `permanent`, `permanent favourable`, `imposed A` … `imposed H`, `snow`, `snow high`, `wind`, `thermal`, `accidental`",
+			"kinds are `permanent`, `permanent favourable`, `imposed`, `imposed A` … `imposed H`, `snow`, `snow high`, `wind`, `thermal`, `accidental`",
 			"expected the kind and the name of the action")
 		return nil
 	}
@@ -133,13 +133,13 @@ func (p *parser) actionKind(i int, t string, from, to int) (ActionKind, bool) {
 			k.Favourable, rest = true, rest[1:]
 		}
 	case "imposed":
-		if len(rest) == 0 || len(rest[0]) != 1 || rest[0][0] < 'A' || rest[0][0] > 'H' {
-			at := p.rng(i, a, b)
-			p.errAt(at, "an imposed action names its category of use, A to H (EN 1990 Table A1.1): `imposed B` for offices, `imposed H` for roofs",
-				"write e.g. `action imposed B Q [kN] = 6 kN`", "imposed action without its category")
-			return k, false
+		if len(rest) > 0 && len(rest[0]) == 1 && rest[0][0] >= 'A' && rest[0][0] <= 'Z' {
+			if rest[0][0] > 'H' {
+				return bad(rest[0], "an imposed action's category of use is A to H (EN 1990 Table A1.1): `imposed B` for offices, `imposed H` for roofs",
+					"write e.g. `action imposed B Q [kN] = 6 kN`")
+			}
+			k.Category, rest = rest[0], rest[1:]
 		}
-		k.Category, rest = rest[0], rest[1:]
 	case "snow":
 		if len(rest) > 0 && rest[0] == "high" {
 			k.High, rest = true, rest[1:]

@@ -21,13 +21,13 @@ func marked(r *engine.Results, c *engine.Cell) bool {
 
 // checkCombo is the line under a check that depends on actions: its
 // governing combination and how many were evaluated.
-func checkCombo(ch engine.CheckResult) string {
+func checkCombo(r *engine.Results, ch engine.CheckResult) string {
 	o := ch.Combo
 	if o == nil {
 		return ""
 	}
 	s := "governs " + o.Governing + ": " + o.Text + ", " + o.Clause + "; " +
-		fmt.Sprintf("%d %s combinations evaluated", o.Evaluated, o.State)
+		fmt.Sprintf("%d %s combinations evaluated", o.Evaluated, r.Combos.Rules.StateLabel(o.State))
 	if o.Failing > 0 {
 		s += fmt.Sprintf(", %d fail or cannot be assessed", o.Failing)
 	}
@@ -58,6 +58,8 @@ func writeCombos(b *strings.Builder, r *engine.Results) {
 			}
 			b.WriteString("    " + pad(f.Symbol, w) + "  " + padLeft(combine.FormatFactor(f.Value), 5) + "  " + src + "\n")
 		}
+	} else {
+		b.WriteString("  factors  as written in each combination of the rules (`sheaf run --combinations` names the clause of each)\n")
 	}
 	counts := map[string]int{}
 	var order []string
@@ -69,7 +71,7 @@ func writeCombos(b *strings.Builder, r *engine.Results) {
 	}
 	var parts []string
 	for _, st := range order {
-		parts = append(parts, fmt.Sprintf("%d %s", counts[st], st))
+		parts = append(parts, fmt.Sprintf("%d %s", counts[st], cs.Rules.StateLabel(st)))
 	}
 	b.WriteString("  evaluated " + strings.Join(parts, ", ") + " (`sheaf run --combinations` lists them)\n")
 	b.WriteString("  actions show their characteristic values; " + strings.TrimSpace(dependsMark) + " depends on actions: shown in " + cs.All[cs.Shown].Name + " (" + cs.Text(cs.Shown) + ")\n")
@@ -98,7 +100,7 @@ func WriteCombinations(w io.Writer, r *engine.Results) error {
 	}
 	rows := []row{head}
 	for m, c := range cs.All {
-		rw := row{c.Name, c.State, c.Clause, cs.Text(m)}
+		rw := row{c.Name, cs.Rules.StateLabel(c.State), c.Clause, cs.Text(m)}
 		for _, ch := range checks {
 			cell := ""
 			if ch.Combo.State == c.State {

@@ -115,7 +115,7 @@ func writeChecks(b *strings.Builder, r *engine.Results, sig int) {
 			}
 		}
 		rw.note = annotation(c.Cell.Description, c.Cell.Reference)
-		rw.combo = checkCombo(c)
+		rw.combo = checkCombo(r, c)
 		for i, s := range []string{rw.name, rw.dem, rw.cap, rw.util, rw.verdict} {
 			w[i] = max(w[i], utf8.RuneCountInString(s))
 		}
