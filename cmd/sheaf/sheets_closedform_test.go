@@ -237,6 +237,17 @@ func TestCFTColumnClosedForm(t *testing.T) {
 	t.Chdir("../..")
 	r := runExample(t, "sheets/cft-column.sheaf")
 	r.allPass()
+	// The actions G and Q combined by EN 1990 (6.10): 1.35 G + 1.5 Q governs
+	// both resistance checks, as the sheet wrote by hand before (REFERENCES D7).
+	NEd := 1.35*r.v("G_k") + 1.5*r.v("Q_k")
+	r.near("N_Ed", r.v("N_Ed"), NEd, relExact)
+	for _, name := range []string{"squash", "buckling"} {
+		dem, comb := r.demand(name)
+		r.near(name+" demand", dem, NEd, relExact)
+		if comb != "1.35 G + 1.5 Q" {
+			t.Errorf("%s governs in %q", name, comb)
+		}
+	}
 	d, tw := r.v("d"), r.v("t")
 	di := d - 2*tw
 	Aa := math.Pi * (d*d - di*di) / 4
