@@ -28,6 +28,9 @@ type Combos struct {
 	// states their limit state.
 	checks []int
 	states []string
+	// feeds lists, per cell index, the dependent checks (indices into
+	// checks) that use the cell, directly or through other cells.
+	feeds [][]int
 }
 
 // Combos returns the combination set-up of the sheet, or nil when the
@@ -152,6 +155,22 @@ func setupCombos(prog *check.Program) (*Combos, diag.List) {
 		cs.states = append(cs.states, st)
 		if !slices.Contains(states, st) {
 			states = append(states, st)
+		}
+	}
+	cs.feeds = make([][]int, len(prog.Cells))
+	for k, i := range cs.checks {
+		seen := map[int]bool{i: true}
+		todo := []int{i}
+		for len(todo) > 0 {
+			j := todo[len(todo)-1]
+			todo = todo[:len(todo)-1]
+			for _, d := range prog.Cells[j].DepIdx {
+				if cs.Depends[d] && !seen[d] {
+					seen[d] = true
+					cs.feeds[d] = append(cs.feeds[d], k)
+					todo = append(todo, d)
+				}
+			}
 		}
 	}
 	// An action that reaches no check is most likely a term forgotten in a

@@ -21,6 +21,8 @@ type comboState struct {
 	dem     []float64 // demand, in the same layout as util
 	capa    []float64 // capacity, likewise
 	gov     []int     // per dependent check: the governing combination (index into All), -1 when none
+	rank    []float64 // per dependent check: how much it governs the choice of the combination cells show
+	cellIn  []int     // per cell: the combination whose value it shows, -1 for a cell that does not depend on actions
 	failing []int     // per dependent check: combinations in which it fails or cannot be assessed
 	count   []int     // per dependent check: combinations evaluated
 	shown   int       // the combination whose values the cells show
@@ -46,6 +48,7 @@ func (st *State) recomputeCombos() {
 		cm.util = make([]float64, nc*nm)
 		cm.dem, cm.capa = make([]float64, nc*nm), make([]float64, nc*nm)
 		cm.gov, cm.failing, cm.count = make([]int, nc), make([]int, nc), make([]int, nc)
+		cm.rank = make([]float64, nc)
 	}
 	cm.probs = cm.probs[:0]
 	chars := make([]float64, len(cs.Cells))
@@ -116,6 +119,7 @@ func (st *State) recomputeCombos() {
 		if cs.states[k] == combine.Default {
 			rank += 1e300
 		}
+		cm.rank[k] = rank
 		if g >= 0 && (worst < 0 || rank > worstU) {
 			worst, worstU = g, rank
 		}
@@ -177,8 +181,64 @@ func (st *State) recomputeCombos() {
 		}
 		vals[k] = v
 	}
+	// Each cell that depends on actions shows its value in the governing
+	// combination of the check it feeds that governs the most (a check of
+	// the default limit state first); a cell that feeds no check, in
+	// worst. The values of the other combinations are kept aside while
+	// work is brought back to worst.
+	n := len(st.sheet.prog.Cells)
+	if len(cm.cellIn) != n {
+		cm.cellIn = make([]int, n)
+	}
+	need := map[int][]int{}
+	for i := range cm.cellIn {
+		cm.cellIn[i] = -1
+		if !cs.Depends[i] || st.sheet.prog.Cells[i].Kind == Check {
+			continue
+		}
+		m, best := worst, math.Inf(-1)
+		for _, k := range cs.feeds[i] {
+			if cm.gov[k] >= 0 && cm.rank[k] > best {
+				m, best = cm.gov[k], cm.rank[k]
+			}
+		}
+		cm.cellIn[i] = m
+		if m != worst {
+			need[m] = append(need[m], i)
+		}
+	}
+	type saved struct {
+		i     int
+		num   float64
+		val   any
+		known bool
+	}
+	var keep []saved
+	for m := 0; m < nm; m++ { // in order, so the result does not depend on map order
+		cells := need[m]
+		if len(cells) == 0 {
+			continue
+		}
+		if cur != m {
+			apply(m)
+			cur = m
+		}
+		for _, i := range cells {
+			sv := saved{i: i, num: work.F.Num[i], known: work.Known[i]}
+			if work.F.Val != nil {
+				sv.val = work.F.Val[i]
+			}
+			keep = append(keep, sv)
+		}
+	}
 	if nm > 0 && cur != worst {
 		apply(worst)
+	}
+	for _, sv := range keep {
+		work.F.Num[sv.i], work.Known[sv.i] = sv.num, sv.known
+		if work.F.Val != nil {
+			work.F.Val[sv.i] = sv.val
+		}
 	}
 	for k, i := range cs.checks {
 		if cm.gov[k] < 0 {
@@ -217,6 +277,8 @@ func (cm *comboState) clone() *comboState {
 	}
 	c.util = append([]float64(nil), cm.util...)
 	c.gov = append([]int(nil), cm.gov...)
+	c.rank = append([]float64(nil), cm.rank...)
+	c.cellIn = append([]int(nil), cm.cellIn...)
 	c.failing = append([]int(nil), cm.failing...)
 	c.count = append([]int(nil), cm.count...)
 	c.probs = append(diag.List(nil), cm.probs...)
@@ -240,8 +302,13 @@ type ComboOutcome struct {
 // ComboSummary says how the cells of a sheet with actions were evaluated.
 type ComboSummary struct {
 	*Combos
-	Shown     int // the combination whose values the cells that depend on actions show
+	Shown     int // the combination that governs the most (that of the most utilised uls check)
 	Evaluated int // combinations evaluated (all limit states)
+	// CellIn is, per cell index, the combination whose value the cell
+	// shows: the governing one of the check it feeds that governs the
+	// most, else Shown; -1 for a cell that does not depend on actions and
+	// for an action (it shows its characteristic value) or a check.
+	CellIn []int
 }
 
 // addCombos completes r with the outcome of the combinations.
@@ -250,12 +317,15 @@ func (st *State) addCombos(r *Results) {
 	if cs == nil || cm == nil {
 		return
 	}
-	r.Combos = &ComboSummary{Combos: cs, Shown: cm.shown, Evaluated: len(cs.All)}
+	r.Combos = &ComboSummary{Combos: cs, Shown: cm.shown, Evaluated: len(cs.All), CellIn: append([]int(nil), cm.cellIn...)}
+	for _, c := range cs.Cells {
+		r.Combos.CellIn[c.Index] = -1
+	}
 	// The problems of the view's cells that depend on actions hold in the
 	// shown combination: say which.
 	inView := map[*diag.Diagnostic]bool{}
 	for i, p := range cm.view.Problem {
-		if p != nil && cs.Depends[i] {
+		if p != nil && cs.Depends[i] && (cm.cellIn[i] == cm.shown || cm.cellIn[i] < 0) {
 			inView[p] = true
 		}
 	}

@@ -241,3 +241,34 @@ func FuzzCombinations(f *testing.F) {
 		}
 	})
 }
+
+// TestCellShowsItsChecksCombination: a cell that feeds only a
+// serviceability check shows its value in that check's governing
+// combination, one that feeds the ultimate check in its own.
+func TestCellShowsItsChecksCombination(t *testing.T) {
+	s := compile(t, `combinations: EN 1990 6.10
+action permanent G [kN] = 10 kN
+action imposed B Q [kN] = 4 kN
+N [kN] = G + Q
+N_s [kN] = N * 1
+N_u [kN] = N * 1
+check u: N_u <= 40 kN
+check s in characteristic: N_s <= 30 kN
+`)
+	r := s.Run(nil)
+	// 1.35 × 10 + 1.5 × 4 = 19.5 kN (ULS 2); 10 + 4 = 14 kN (SLS-c 2);
+	// REFERENCES D7. N feeds both: the uls check decides.
+	for name, want := range map[string]struct {
+		v     float64
+		combo string
+	}{"N_u": {19500, "ULS 2"}, "N_s": {14000, "SLS-c 2"}, "N": {19500, "ULS 2"}, "G": {10000, ""}} {
+		c := r.Cell(name)
+		got := ""
+		if m := r.Combos.CellIn[c.Cell.Index]; m >= 0 {
+			got = r.Combos.All[m].Name
+		}
+		if math.Abs(c.SI-want.v) > 1e-9 || got != want.combo {
+			t.Errorf("%s = %g in %q, want %g in %q", name, c.SI, got, want.v, want.combo)
+		}
+	}
+}

@@ -120,8 +120,8 @@ func Build(r *engine.Results) *Document {
 		jc := Cell{Name: c.Cell.Name, Kind: c.Cell.Kind.String(), Section: c.Cell.Section, Known: c.Known,
 			Unit: c.Unit.Symbol, Text: c.Text, Description: c.Cell.Description, Reference: c.Cell.Reference,
 			Expr: c.Cell.Expr, Deps: c.Cell.Deps}
-		if r.Combos != nil && r.Combos.Depends[c.Cell.Index] && c.Cell.Kind != engine.Check && c.Cell.Action == nil {
-			jc.InCombination = r.Combos.All[r.Combos.Shown].Name
+		if r.Combos != nil && r.Combos.CellIn[c.Cell.Index] >= 0 {
+			jc.InCombination = r.Combos.All[r.Combos.CellIn[c.Cell.Index]].Name
 		}
 		if c.Known {
 			switch v := c.Value.(type) {

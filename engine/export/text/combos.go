@@ -11,12 +11,14 @@ import (
 	"github.com/sheafcalc/sheaf/engine/units"
 )
 
-// dependsMark follows the value of a cell that depends on actions.
-const dependsMark = " *"
-
-// marked reports whether cell c of r shows its value in one combination.
-func marked(r *engine.Results, c *engine.Cell) bool {
-	return r.Combos != nil && r.Combos.Depends[c.Index] && c.Kind != engine.Check && c.Action == nil
+// cellCombo is the combination whose value cell c of r shows, "" when it
+// does not depend on actions (or is an action, shown at its characteristic
+// value).
+func cellCombo(r *engine.Results, c *engine.Cell) string {
+	if r.Combos == nil || c.Index >= len(r.Combos.CellIn) || r.Combos.CellIn[c.Index] < 0 {
+		return ""
+	}
+	return r.Combos.All[r.Combos.CellIn[c.Index]].Name
 }
 
 // checkCombo is the line under a check that depends on actions: its
@@ -74,7 +76,19 @@ func writeCombos(b *strings.Builder, r *engine.Results) {
 		parts = append(parts, fmt.Sprintf("%d %s", counts[st], cs.Rules.StateLabel(st)))
 	}
 	b.WriteString("  evaluated " + strings.Join(parts, ", ") + " (`sheaf run --combinations` lists them)\n")
-	b.WriteString("  actions show their characteristic values; " + strings.TrimSpace(dependsMark) + " depends on actions: shown in " + cs.All[cs.Shown].Name + " (" + cs.Text(cs.Shown) + ")\n")
+	b.WriteString("  actions show their characteristic values; a cell that depends on them shows its value in the combination\n" +
+		"  named beside it: the governing one of the check it feeds (if several, of the most utilised, uls first)\n")
+	seen := map[int]bool{}
+	for _, m := range cs.CellIn {
+		if m >= 0 && !seen[m] {
+			seen[m] = true
+		}
+	}
+	for m := range cs.All {
+		if seen[m] {
+			b.WriteString("    " + cs.All[m].Name + " = " + cs.Text(m) + "\n")
+		}
+	}
 }
 
 // WriteCombinations writes the table of every combination of r: its name,

@@ -32,6 +32,12 @@ func Write(w io.Writer, r *engine.Results, sigFigs int) error {
 		nameW = max(nameW, utf8.RuneCountInString(c.Cell.Name))
 		valW = max(valW, utf8.RuneCountInString(c.Text))
 	}
+	comboW := 0 // room for " (ULS 2)" after values that depend on actions
+	for _, c := range r.Cells {
+		if m := cellCombo(r, c.Cell); m != "" {
+			comboW = max(comboW, utf8.RuneCountInString(m)+3)
+		}
+	}
 	section := "\x00"
 	for _, c := range r.Cells {
 		if c.Cell.Kind == engine.Check {
@@ -47,9 +53,9 @@ func Write(w io.Writer, r *engine.Results, sigFigs int) error {
 		}
 		val, w := c.Text, valW
 		if r.Combos != nil {
-			w += len(dependsMark)
-			if marked(r, c.Cell) {
-				val += dependsMark
+			w += comboW
+			if m := cellCombo(r, c.Cell); m != "" {
+				val += " (" + m + ")"
 			}
 		}
 		line := "  " + pad(c.Cell.Name, nameW) + "  " + pad(val, w)
