@@ -292,6 +292,7 @@ type ComboOutcome struct {
 	Text      string // the governing combination in words
 	Clause    string // the expression it follows
 	Evaluated int    // combinations evaluated for it
+	Reversed  bool   // the demand has the opposite sign in the governing combination (not assessed)
 	Failing   int    // combinations in which it fails or cannot be assessed
 	// Utils is the utilisation in each combination of Combos.All: NaN
 	// where not of its limit state or not computed, below zero where the
@@ -352,6 +353,7 @@ func (st *State) addCombos(r *Results) {
 			Utils: append([]float64(nil), cm.util[k*nm:(k+1)*nm]...)}
 		if g := cm.gov[k]; g >= 0 {
 			o.Governing, o.Text, o.Clause = cs.All[g].Name, cs.Text(g), cs.All[g].Clause
+			o.Reversed = o.Utils[g] < 0
 		}
 		ch.Combo = o
 	}

@@ -29,7 +29,7 @@ func TestUpliftReversesTheTie(t *testing.T) {
 	if ch.Pass || ch.Known {
 		t.Fatalf("a tie in compression passes its tension check: %+v", ch)
 	}
-	if ch.Combo == nil || ch.Combo.Text != "1.0 G + 1.5 W" || ch.Combo.Evaluated != 4 || ch.Combo.Failing != 2 {
+	if ch.Combo == nil || ch.Combo.Text != "1.0 G + 1.5 W" || ch.Combo.Evaluated != 4 || ch.Combo.Failing != 2 || !ch.Combo.Reversed {
 		t.Fatalf("combination outcome %+v", ch.Combo)
 	}
 	if r.Failed() != 1 {

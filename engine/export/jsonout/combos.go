@@ -54,6 +54,7 @@ type CheckCombination struct {
 	Clause       string      `json:"follows"`
 	Evaluated    int         `json:"evaluated"`
 	Failing      int         `json:"failing"`
+	GovReversed  bool        `json:"governing_reversed"`
 	Utilisations []ComboUtil `json:"utilisations"`
 	Reversed     []string    `json:"reversed,omitempty"`
 }
@@ -97,7 +98,7 @@ func checkCombo(r *engine.Results, ch engine.CheckResult) *CheckCombination {
 		return nil
 	}
 	jc := &CheckCombination{State: o.State, Governing: o.Governing, Text: o.Text, Clause: o.Clause,
-		Evaluated: o.Evaluated, Failing: o.Failing, Utilisations: []ComboUtil{}}
+		Evaluated: o.Evaluated, Failing: o.Failing, GovReversed: o.Reversed, Utilisations: []ComboUtil{}}
 	for m, c := range r.Combos.All {
 		if c.State != o.State {
 			continue

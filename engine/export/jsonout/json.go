@@ -54,6 +54,9 @@ type Cell struct {
 	// InCombination names the combination whose value a cell that depends
 	// on actions shows (an action itself shows its characteristic value).
 	InCombination string `json:"in_combination,omitempty"`
+	// Action is the kind of an action cell ("permanent", "imposed B", ...),
+	// whose value is its characteristic value.
+	Action string `json:"action,omitempty"`
 }
 
 // Field is a numeric or text field of a record value.
@@ -120,6 +123,9 @@ func Build(r *engine.Results) *Document {
 		jc := Cell{Name: c.Cell.Name, Kind: c.Cell.Kind.String(), Section: c.Cell.Section, Known: c.Known,
 			Unit: c.Unit.Symbol, Text: c.Text, Description: c.Cell.Description, Reference: c.Cell.Reference,
 			Expr: c.Cell.Expr, Deps: c.Cell.Deps}
+		if c.Cell.Action != nil {
+			jc.Action = c.Cell.Action.Kind.Text()
+		}
 		if r.Combos != nil && r.Combos.CellIn[c.Cell.Index] >= 0 {
 			jc.InCombination = r.Combos.All[r.Combos.CellIn[c.Cell.Index]].Name
 		}

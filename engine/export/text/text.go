@@ -111,6 +111,13 @@ func writeChecks(b *strings.Builder, r *engine.Results, sig int) {
 	var w [5]int
 	for _, c := range r.Checks {
 		rw := row{name: c.Cell.Name, verdict: Unknown, dem: "-", cap: "-", util: "-"}
+		if !c.Known && c.Combo != nil && c.Combo.Reversed {
+			// The demand and capacity are known; the sign is not that of
+			// the check.
+			rw.dem = units.Format(c.Demand, c.Unit, sig)
+			rw.cap = units.Format(c.Capacity, c.Unit, sig)
+			rw.util = "reversed"
+		}
 		if c.Known {
 			rw.dem = units.Format(c.Demand, c.Unit, sig)
 			rw.cap = units.Format(c.Capacity, c.Unit, sig)
