@@ -198,6 +198,11 @@ func Lookup(name string) (*Rules, bool) {
 	return nil, false
 }
 
+// TakesFavourable reports whether the rules take a permanent action marked
+// favourable at its favourable factor in turn (EN 1990); ASCE/SEI 7 writes
+// its 0.9D and 0.6D combinations for every permanent load instead.
+func (r *Rules) TakesFavourable() bool { return r.family == en610 || r.family == en610ab }
+
 // StateLabel is how a listing names limit state st under these rules:
 // the default one of ASCE/SEI 7 is "strength" (LRFD) or "allowable
 // stress" (ASD), not "uls".

@@ -47,6 +47,16 @@ func writeCombos(b *strings.Builder, r *engine.Results) {
 		acts = append(acts, a.Name+" ("+cs.Cells[i].Action.Kind.Text()+")")
 	}
 	b.WriteString("  actions  " + strings.Join(acts, ", ") + "\n")
+	var supOnly []string
+	for _, a := range cs.Actions {
+		if a.Class == combine.Permanent && !a.Favourable {
+			supOnly = append(supOnly, a.Name)
+		}
+	}
+	if len(supOnly) > 0 && cs.Rules.TakesFavourable() {
+		b.WriteString("  note     taken unfavourable only: " + strings.Join(supOnly, ", ") +
+			"; write `permanent favourable` for one that can relieve a check (uplift, overturning)\n")
+	}
 	if fs := cs.UsedFactors(); len(fs) > 0 {
 		b.WriteString("  factors\n")
 		w := 0
