@@ -41,6 +41,11 @@ func runCheck(a *app, _ *checkOptions, path string) error {
 			cells++
 		}
 	}
+	if cs := s.Combos(); cs != nil {
+		_, err = fmt.Fprintf(a.stdout, "ok: %d cells, %d checks, %d actions in %d combinations of %s\n",
+			cells, checks, len(cs.Actions), len(cs.All), cs.Rules.Name)
+		return err
+	}
 	_, err = fmt.Fprintf(a.stdout, "ok: %d cells, %d checks\n", cells, checks)
 	return err
 }

@@ -75,3 +75,18 @@ func TestBatchWithActions(t *testing.T) {
 		}
 	}
 }
+
+// TestCombinationErrorsGolden renders every mistake of a sheet with actions
+// at its place, all of them in one run.
+func TestCombinationErrorsGolden(t *testing.T) {
+	t.Chdir("../..")
+	out, errs, code := sheaf(t, "check", "cmd/sheaf/testdata/combos/broken.sheaf")
+	if code != exitInput || out != "" {
+		t.Fatalf("exit %d, stdout %q", code, out)
+	}
+	golden.Check(t, filepath.Join("cmd", "sheaf", "testdata", "combos", "broken.golden"), []byte(errs), *update)
+	out, _, code = sheaf(t, "check", "sheets/canopy-hanger.sheaf")
+	if code != exitOK || out != "ok: 29 cells, 2 checks, 3 actions in 4 combinations of EN 1990 6.10\n" {
+		t.Errorf("check of the canopy sheet: exit %d, %q", code, out)
+	}
+}
