@@ -29,3 +29,14 @@ func (st *State) Number(c *Cell) (float64, bool) {
 	}
 	return 0, false
 }
+
+// Uncomputed returns the number of cells the last evaluation could not
+// compute (as Results.Uncomputed, without building the results).
+func (st *State) Uncomputed() int {
+	if st.cmb != nil && st.cmb.view != nil {
+		// The view's cells, and the cells that failed in a check's
+		// governing combination only (Results lists both).
+		return st.cmb.view.Uncomputed() + len(st.cmb.probs)
+	}
+	return st.st.Uncomputed()
+}

@@ -3,10 +3,10 @@ package engine
 import (
 	"math"
 
+	"github.com/sheafcalc/sheaf/engine/check"
 	"github.com/sheafcalc/sheaf/engine/combine"
 	"github.com/sheafcalc/sheaf/engine/diag"
 	"github.com/sheafcalc/sheaf/engine/eval"
-	"github.com/sheafcalc/sheaf/engine/units"
 )
 
 // comboState is what a State of a sheet with actions keeps beside its
@@ -26,7 +26,11 @@ type comboState struct {
 	failing []int     // per dependent check: combinations in which it fails or cannot be assessed
 	count   []int     // per dependent check: combinations evaluated
 	shown   int       // the combination whose values the cells show
-	probs   diag.List
+	// term is, per dependent check whose capacity is a min(...) or
+	// max(...), the term that governs it in the check's governing
+	// combination ("" when none is known); nil entries elsewhere.
+	term  []*string
+	probs diag.List
 }
 
 // recomputeCombos evaluates the base state and then every combination.
@@ -49,6 +53,7 @@ func (st *State) recomputeCombos() {
 		cm.dem, cm.capa = make([]float64, nc*nm), make([]float64, nc*nm)
 		cm.gov, cm.failing, cm.count = make([]int, nc), make([]int, nc), make([]int, nc)
 		cm.rank = make([]float64, nc)
+		cm.term = make([]*string, nc)
 	}
 	cm.probs = cm.probs[:0]
 	chars := make([]float64, len(cs.Cells))
@@ -70,11 +75,24 @@ func (st *State) recomputeCombos() {
 		apply(m)
 		state := cs.All[m].State
 		for k, i := range cs.checks {
-			u := math.NaN()
-			if cs.states[k] == state && work.Known[i] {
-				u = work.F.Num[i] // below zero when the demand reversed: not assessed
+			u, d, c := math.NaN(), math.NaN(), math.NaN()
+			if cs.states[k] == state {
+				switch {
+				case work.Known[i]:
+					u, d, c = work.F.Num[i], work.Demand[i], work.Capacity[i]
+				case work.Unassessed(i):
+					// Both sides computed, the check refused by
+					// eval.Assess: a reversed demand is kept as a
+					// utilisation below zero, so the most reversed
+					// combination can govern; the other refusals
+					// (a capacity that is not positive) stay NaN.
+					d, c = work.Demand[i], work.Capacity[i]
+					if reversed(d, c) {
+						u = d / c
+					}
+				}
 			}
-			cm.util[k*nm+m], cm.dem[k*nm+m], cm.capa[k*nm+m] = u, work.Demand[i], work.Capacity[i]
+			cm.util[k*nm+m], cm.dem[k*nm+m], cm.capa[k*nm+m] = u, d, c
 		}
 	}
 	cur := nm - 1 // the combination work holds
@@ -134,19 +152,28 @@ func (st *State) recomputeCombos() {
 	type gv struct {
 		d, c, u float64
 		kn      bool
+		own     *diag.Diagnostic // why the check has no verdict in its governing combination
 	}
 	vals := make([]gv, nc)
 	seen := map[string]bool{}
-	sig := st.sheet.sigFigs
+	prog := st.sheet.prog
 	for k, i := range cs.checks {
 		g := cm.gov[k]
+		cm.term[k] = nil
 		if g < 0 {
 			continue
 		}
 		x := k*nm + g
-		v := gv{d: cm.dem[x], c: cm.capa[x], u: cm.util[x], kn: !math.IsNaN(cm.util[x])}
+		v := gv{d: cm.dem[x], c: cm.capa[x], u: cm.util[x]}
+		v.kn = !math.IsNaN(v.u) && v.u >= 0
 		var probs []*diag.Diagnostic
-		if !v.kn && g != worst { // the view shows the problems of worst itself
+		switch {
+		case v.kn:
+		case !math.IsNaN(v.d) && !math.IsNaN(v.c):
+			// Both sides computed: not assessed, for the reason the
+			// evaluation of every sheet gives (eval.Assess).
+			v.own = eval.Assess(prog.Cells[i], v.d, v.c)
+		case g != worst: // the view shows the problems of worst itself
 			if g != cur {
 				apply(g)
 				cur = g
@@ -154,7 +181,7 @@ func (st *State) recomputeCombos() {
 			// The check's own problem, or those of the cells it depends
 			// on: in this combination only, so the view may not show them.
 			if p := work.Problem[i]; p != nil {
-				probs = append(probs, p)
+				v.own = p
 			} else {
 				for j, p := range work.Problem {
 					if p != nil && cs.Depends[j] {
@@ -162,21 +189,12 @@ func (st *State) recomputeCombos() {
 					}
 				}
 			}
-		} else if v.d < 0 {
-			cell := st.sheet.prog.Cells[i]
-			unit := st.sheet.checkUnit(cell)
-			probs = append(probs, &diag.Diagnostic{Range: cell.Formula.Source.Range,
-				Summary: "check `" + cell.Name + "` cannot be assessed: its demand is " + units.Format(v.d, unit, sig) + ", of the opposite sign",
-				Detail:  "the actions reverse the demand in this combination (a tie in compression, uplift on a support); a utilisation below zero would pass by accident",
-				Hint:    "check the reversed state with a check of its own, e.g. the member as a strut"})
-			v.kn = false
 		}
 		for _, p := range probs {
-			cp := *p
-			cp.Summary += " (in " + cs.All[g].Name + ": " + cs.Text(g) + ")"
+			cp := inCombo(p, cs, g)
 			if !seen[cp.Summary] {
 				seen[cp.Summary] = true
-				cm.probs = append(cm.probs, &cp)
+				cm.probs = append(cm.probs, cp)
 			}
 		}
 		vals[k] = v
@@ -213,16 +231,34 @@ func (st *State) recomputeCombos() {
 		val   any
 		known bool
 	}
+	// The governing term of a min/max capacity is found in the check's
+	// own governing combination, which the view may not show.
+	terms := map[int][]int{}
+	for k, i := range cs.checks {
+		if g := cm.gov[k]; g >= 0 && vals[k].kn && capacityChoice(prog, prog.Cells[i]) {
+			terms[g] = append(terms[g], k)
+		}
+	}
+	findTerms := func(m int) {
+		for _, k := range terms[m] {
+			t := ""
+			if n := work.Governing(cs.checks[k]); n != nil {
+				t = n.Text()
+			}
+			cm.term[k] = &t
+		}
+	}
 	var keep []saved
 	for m := 0; m < nm; m++ { // in order, so the result does not depend on map order
 		cells := need[m]
-		if len(cells) == 0 {
+		if m == worst || (len(cells) == 0 && len(terms[m]) == 0) {
 			continue
 		}
 		if cur != m {
 			apply(m)
 			cur = m
 		}
+		findTerms(m)
 		for _, i := range cells {
 			sv := saved{i: i, num: work.F.Num[i], known: work.Known[i]}
 			if work.F.Val != nil {
@@ -234,6 +270,9 @@ func (st *State) recomputeCombos() {
 	if nm > 0 && cur != worst {
 		apply(worst)
 	}
+	if nm > 0 {
+		findTerms(worst)
+	}
 	for _, sv := range keep {
 		work.F.Num[sv.i], work.Known[sv.i] = sv.num, sv.known
 		if work.F.Val != nil {
@@ -241,10 +280,19 @@ func (st *State) recomputeCombos() {
 		}
 	}
 	for k, i := range cs.checks {
-		if cm.gov[k] < 0 {
+		g := cm.gov[k]
+		if g < 0 {
 			continue
 		}
 		v := vals[k]
+		own := v.own
+		if !v.kn && own == nil && g == worst {
+			own = work.Problem[i] // nil when a cell it uses failed (the view shows that one)
+		}
+		if own != nil {
+			own = inCombo(own, cs, g)
+		}
+		work.SetProblem(i, own)
 		work.F.Num[i], work.Demand[i], work.Capacity[i], work.Known[i] = v.u, v.d, v.c, v.kn
 	}
 	// Action cells show their characteristic values (the cells downstream
@@ -255,6 +303,57 @@ func (st *State) recomputeCombos() {
 		}
 	}
 	cm.view = work
+}
+
+// reversed reports whether a check with demand d and capacity c (both
+// computed) was refused only because the demand has the other sign: the
+// case of eval.Assess that actions produce (a tie in compression under
+// uplift).
+func reversed(d, c float64) bool {
+	return d < 0 && !math.IsInf(d, 0) && c > 0 && !math.IsInf(c, 0)
+}
+
+// inCombo is a copy of problem p that names combination g, in which it
+// holds.
+func inCombo(p *diag.Diagnostic, cs *Combos, g int) *diag.Diagnostic {
+	cp := *p
+	cp.Summary += " (in " + cs.All[g].Name + ": " + cs.Text(g) + ")"
+	return &cp
+}
+
+// capacityChoice reports whether the capacity of check c is a min(...) or
+// max(...) of several terms, written in the check or in the cell it names
+// (the cases eval.State.Governing names a term for).
+func capacityChoice(prog *check.Program, c *Cell) bool {
+	n := c.Capacity
+	if n == nil {
+		return false
+	}
+	if n.Op == check.OpCell {
+		if k := int(n.Index); k >= 0 && k < len(prog.Cells) && prog.Cells[k].Body != nil {
+			n = prog.Cells[k].Body
+		}
+	}
+	return n.Op == check.OpBuiltin && (n.Builtin == check.BMin || n.Builtin == check.BMax) && len(n.Args) >= 2
+}
+
+// comboTerm returns the governing term of check cell i in its governing
+// combination, and false when i does not depend on actions or its capacity
+// is not a min/max (eval.State.Governing on the view then answers).
+func (st *State) comboTerm(i int) (string, bool) {
+	cs, cm := st.sheet.combos, st.cmb
+	if cs == nil || cm == nil || cm.view == nil {
+		return "", false
+	}
+	for k, j := range cs.checks {
+		if j == i {
+			if cm.term[k] == nil {
+				return "", cm.gov[k] >= 0
+			}
+			return *cm.term[k], true
+		}
+	}
+	return "", false
 }
 
 // read returns the state readers see: the view of a sheet with actions,
@@ -276,6 +375,9 @@ func (cm *comboState) clone() *comboState {
 		c.view = cm.view.Clone()
 	}
 	c.util = append([]float64(nil), cm.util...)
+	c.dem = append([]float64(nil), cm.dem...)
+	c.capa = append([]float64(nil), cm.capa...)
+	c.term = append([]*string(nil), cm.term...)
 	c.gov = append([]int(nil), cm.gov...)
 	c.rank = append([]float64(nil), cm.rank...)
 	c.cellIn = append([]int(nil), cm.cellIn...)
@@ -324,9 +426,11 @@ func (st *State) addCombos(r *Results) {
 	}
 	// The problems of the view's cells that depend on actions hold in the
 	// shown combination: say which.
+	// (A check's own problem names its governing combination already.)
 	inView := map[*diag.Diagnostic]bool{}
+	prog := st.sheet.prog
 	for i, p := range cm.view.Problem {
-		if p != nil && cs.Depends[i] && (cm.cellIn[i] == cm.shown || cm.cellIn[i] < 0) {
+		if p != nil && cs.Depends[i] && prog.Cells[i].Kind != Check && (cm.cellIn[i] == cm.shown || cm.cellIn[i] < 0) {
 			inView[p] = true
 		}
 	}

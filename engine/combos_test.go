@@ -35,14 +35,29 @@ func TestUpliftReversesTheTie(t *testing.T) {
 	if r.Failed() != 1 {
 		t.Errorf("Failed() = %d", r.Failed())
 	}
-	found := false
+	// The reason is the one every sheet gives for a demand of the other
+	// sense (eval.Assess), naming the combination; the demand shown is
+	// that of the governing combination, and the check is not assessed,
+	// not an uncomputed cell.
+	if math.Abs(ch.Demand-(-11000)) > 1e-9 || math.Abs(ch.Capacity-20000) > 1e-9 {
+		t.Errorf("governing demand %g N, capacity %g N; want -11000 N of 20000 N", ch.Demand, ch.Capacity)
+	}
+	if ch.Problem == nil || !strings.Contains(ch.Problem.Summary, "demand is compression; this check is written for tension") ||
+		!strings.Contains(ch.Problem.Summary, "(in ULS 4: 1.0 G + 1.5 W)") {
+		t.Errorf("the check does not say why it is not assessed: %v", ch.Problem)
+	}
+	found := 0
 	for _, p := range r.Problems {
-		if strings.Contains(p.Summary, "-11 kN, of the opposite sign") && strings.Contains(p.Summary, "1.0 G + 1.5 W") {
-			found = true
+		if p == ch.Problem {
+			found++
 		}
 	}
-	if !found {
-		t.Errorf("no problem names the reversed demand: %v", r.Problems)
+	if found != 1 || len(r.Problems) != 1 || r.Uncomputed() != 0 {
+		t.Errorf("problems %v (the check's reason %d times), uncomputed %d", r.Problems, found, r.Uncomputed())
+	}
+	st := s.NewState()
+	if rr := st.Eval(); st.Uncomputed() != rr.Uncomputed() {
+		t.Errorf("State.Uncomputed %d, Results.Uncomputed %d", st.Uncomputed(), rr.Uncomputed())
 	}
 	// With less uplift the tie stays in tension: 1.0 × 4 − 1.5 × 2 = 1 kN
 	// at least, 1.35 × 4 = 5.4 kN at most.
@@ -269,6 +284,43 @@ check s in characteristic: N_s <= 30 kN
 		}
 		if math.Abs(c.SI-want.v) > 1e-9 || got != want.combo {
 			t.Errorf("%s = %g in %q, want %g in %q", name, c.SI, got, want.v, want.combo)
+		}
+	}
+}
+
+// TestGoverningTermInItsCombination: the term of a min(...) capacity that
+// governs is found in the check's own governing combination, not in the
+// one the cells show. Our own scenario, EN 1990 6.10 (Table A1.2(B)):
+// ULS 1 = 1.35 G, ULS 2 = 1.35 G + 1.5 Q with G = Q = 10 kN. R1 = 40 kN −
+// 0.5 Q is 40 kN in ULS 1 and 32.5 kN in ULS 2, so R = min(R1, 35 kN) is
+// 35 kN (the constant governs) and 32.5 kN (R1 governs). Check a: 13.5/35
+// and 28.5/32.5, governs in ULS 2, which the cells show; check b:
+// (20 − 0)/35 = 0.571 and (20 − 15)/32.5 = 0.154, governs in ULS 1, where
+// the constant term gives the capacity.
+func TestGoverningTermInItsCombination(t *testing.T) {
+	s := compile(t, `combinations: EN 1990 6.10
+action permanent G [kN] = 10 kN
+action imposed B Q [kN] = 10 kN
+N [kN] = G + Q
+R1 [kN] = 40 kN - 0.5 * Q
+R [kN] = min(R1, 35 kN)
+D_b [kN] = 20 kN - Q
+check a: N <= R
+check b: D_b <= R
+`)
+	r := s.Run(nil)
+	want := map[string]struct {
+		combo, term string
+		util        float64
+	}{
+		"a": {"ULS 2", "R1", 28.5 / 32.5},
+		"b": {"ULS 1", "35 kN", 20.0 / 35},
+	}
+	for _, ch := range r.Checks {
+		w := want[ch.Cell.Name]
+		if ch.Combo == nil || ch.Combo.Governing != w.combo || ch.Governing != w.term || math.Abs(ch.Util-w.util) > 1e-12 {
+			t.Errorf("check %s: governs in %v with term %q, utilisation %g; want %s, %q, %g",
+				ch.Cell.Name, ch.Combo, ch.Governing, ch.Util, w.combo, w.term, w.util)
 		}
 	}
 }

@@ -11,6 +11,7 @@ import (
 // a mistake or an attack, refused with a diagnostic.
 const (
 	DefaultMaxBytes = sheet.DefaultMaxBytes
+	DefaultMaxLines = sheet.DefaultMaxLines
 	DefaultMaxCells = 200_000
 	DefaultMaxDepth = formula.DefaultMaxDepth
 	DefaultSigFigs  = 4
@@ -21,15 +22,17 @@ type Option func(*config)
 
 type config struct {
 	maxBytes  int
+	maxLines  int
 	maxCells  int
 	maxDepth  int
 	system    units.System
 	hasSystem bool
 	sigFigs   int
+	loader    check.Loader
 }
 
 func newConfig(opts []Option) config {
-	c := config{maxBytes: DefaultMaxBytes, maxCells: DefaultMaxCells, maxDepth: DefaultMaxDepth, sigFigs: DefaultSigFigs}
+	c := config{maxBytes: DefaultMaxBytes, maxLines: DefaultMaxLines, maxCells: DefaultMaxCells, maxDepth: DefaultMaxDepth, sigFigs: DefaultSigFigs}
 	for _, o := range opts {
 		if o != nil {
 			o(&c)
@@ -43,6 +46,16 @@ func WithMaxBytes(n int) Option {
 	return func(c *config) {
 		if n > 0 {
 			c.maxBytes = n
+		}
+	}
+}
+
+// WithMaxLines limits the number of physical lines of the source (default
+// 1,000,000). A source over the limit is refused before it is parsed.
+func WithMaxLines(n int) Option {
+	return func(c *config) {
+		if n > 0 {
+			c.maxLines = n
 		}
 	}
 }
@@ -80,6 +93,22 @@ func WithSigFigs(n int) Option {
 	}
 }
 
+// Loader reads the templates a sheet uses (see check.Loader): the files on
+// disk by default (NewFileLoader), or, say, the files of a git revision.
+type Loader = check.Loader
+
+// NewFileLoader returns the loader of the templates of the sheet named
+// name on disk, inside its project root (SPEC.md §2), reading files of at
+// most maxBytes bytes (0: DefaultMaxBytes). It is the loader Load and
+// Compile use when no WithLoader option is given.
+func NewFileLoader(name string, maxBytes int) Loader { return check.NewFileLoader(name, maxBytes) }
+
+// WithLoader reads the templates of the sheet through l instead of from the
+// files beside it. l belongs to the one sheet it was made for.
+func WithLoader(l Loader) Option {
+	return func(c *config) { c.loader = l }
+}
+
 func (c config) checkOptions() check.Options {
-	return check.Options{MaxCells: c.maxCells, MaxDepth: c.maxDepth, MaxBytes: c.maxBytes, System: c.system, HasSystem: c.hasSystem}
+	return check.Options{MaxCells: c.maxCells, MaxDepth: c.maxDepth, MaxBytes: c.maxBytes, System: c.system, HasSystem: c.hasSystem, Loader: c.loader}
 }

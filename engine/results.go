@@ -48,6 +48,17 @@ type CheckResult struct {
 	Unit     units.Unit // display unit of demand and capacity
 	Util     float64    // demand / capacity
 	Pass     bool       // Util <= 1
+	// Problem says why a check whose two sides were computed is not
+	// assessed (a demand of the other sense than the capacity, a capacity
+	// that is not positive); nil otherwise. It is in Results.Problems too.
+	// For a check that depends on actions, it is the reason in its
+	// governing combination, which it names.
+	Problem *diag.Diagnostic
+	// Governing is the term of a min(...) or max(...) capacity that gives
+	// the capacity, as written (e.g. `N_bRd`); "" when the capacity is not
+	// such a choice. For a check that depends on actions, the term in its
+	// governing combination.
+	Governing string
 	// Combo is the outcome over the combinations of its limit state, for a
 	// check that depends on actions (nil for the others).
 	Combo *ComboOutcome
@@ -59,6 +70,19 @@ func (r *Results) Failed() int {
 	for _, c := range r.Checks {
 		if !c.Pass {
 			n++
+		}
+	}
+	return n
+}
+
+// Uncomputed returns the number of cells that could not be computed (run-time
+// problems other than a check that is not assessed): a sheet with any is
+// not a finished calculation, whatever its checks say.
+func (r *Results) Uncomputed() int {
+	n := len(r.Problems)
+	for _, c := range r.Checks {
+		if c.Problem != nil {
+			n--
 		}
 	}
 	return n
@@ -86,39 +110,16 @@ func (st *State) Results() *Results {
 	ends := make([]int32, n) // end of cell i's text in buf; -1 when not a number
 	for i, c := range s.prog.Cells {
 		cr := &r.Cells[i]
-		*cr = CellResult{Cell: c, Known: e.Known[i], Unit: s.DisplayUnit(c)}
 		ends[i] = -1
 		if p := e.Problem[i]; p != nil {
 			r.Problems = append(r.Problems, p)
 		}
-		if cr.Known {
-			cr.Value = st.value(c)
-			if x, ok := cr.Value.(float64); ok {
-				cr.SI = x
-				cr.Display = x / cr.Unit.Factor
-				if c.Kind != Function {
-					buf = units.AppendFormat(buf, x, cr.Unit, s.sigFigs)
-					ends[i] = int32(len(buf))
-				}
-			} else {
-				cr.Text = describeValue(cr.Value, s.sigFigs)
-			}
-		} else {
-			cr.SI = math.NaN()
-			cr.Display = math.NaN()
-			cr.Text = "unknown"
-		}
-		if c.Kind == Function {
-			cr.Text = "function"
+		if st.fill(cr, i) {
+			buf = units.AppendFormat(buf, cr.SI, cr.Unit, s.sigFigs)
+			ends[i] = int32(len(buf))
 		}
 		if c.Kind == Check {
-			cu := s.checkUnit(c)
-			ch := CheckResult{Cell: c, Known: cr.Known, Unit: cu, Demand: e.Demand[i], Capacity: e.Capacity[i], Util: math.NaN()}
-			if cr.Known {
-				ch.Util = cr.SI
-				ch.Pass = ch.Util <= 1
-			}
-			r.Checks = append(r.Checks, ch)
+			r.Checks = append(r.Checks, st.checkResult(cr, i))
 		}
 	}
 	texts := string(buf)
@@ -137,6 +138,111 @@ func (st *State) Results() *Results {
 		return cmp.Or(a.Range.Start.Compare(b.Range.Start), cmp.Compare(a.Summary, b.Summary))
 	})
 	return r
+}
+
+// fill sets the result of cell i but, for a number, its text; it reports
+// whether the text is still to write (units.Format of SI in Unit).
+func (st *State) fill(cr *CellResult, i int) (numText bool) {
+	s, e := st.sheet, st.read()
+	c := s.prog.Cells[i]
+	*cr = CellResult{Cell: c, Known: e.Known[i], Unit: s.DisplayUnit(c)}
+	if cr.Known {
+		cr.Value = st.value(c)
+		if x, ok := cr.Value.(float64); ok {
+			cr.SI = x
+			cr.Display = x / cr.Unit.Factor
+			numText = c.Kind != Function
+		} else {
+			cr.Text = describeValue(cr.Value, s.sigFigs)
+		}
+	} else {
+		cr.SI = math.NaN()
+		cr.Display = math.NaN()
+		cr.Text = "unknown"
+	}
+	if c.Kind == Function {
+		cr.Text = "function"
+	}
+	return numText
+}
+
+// checkResult is the outcome of check cell i, whose cell result is cr.
+func (st *State) checkResult(cr *CellResult, i int) CheckResult {
+	s, e := st.sheet, st.read()
+	c := s.prog.Cells[i]
+	ch := CheckResult{Cell: c, Known: cr.Known, Unit: s.checkUnit(c), Demand: e.Demand[i], Capacity: e.Capacity[i], Util: math.NaN()}
+	if cr.Known {
+		ch.Util = cr.SI
+		ch.Pass = ch.Util <= 1
+		if term, ok := st.comboTerm(i); ok {
+			// The view's cells may show another combination than this
+			// check's governing one: the term was found in its own.
+			ch.Governing = term
+		} else if g := e.Governing(i); g != nil {
+			ch.Governing = g.Text()
+		}
+	} else if e.Unassessed(i) {
+		ch.Problem = e.Problem[i]
+	}
+	return ch
+}
+
+// Recomputed returns the indices (into Results.Cells) of the cells the
+// last evaluation computed, in reading order: only their results can
+// differ from those of the evaluation before.
+func (st *State) Recomputed() []int {
+	if st.sheet.combos != nil {
+		// Every cell: the combinations move values the base state did
+		// not recompute (see Update).
+		idx := make([]int, len(st.sheet.prog.Cells))
+		for i := range idx {
+			idx[i] = i
+		}
+		return idx
+	}
+	idx := slices.Clone(st.lastIdx())
+	slices.Sort(idx)
+	return idx
+}
+
+// Update brings r, the results of an earlier evaluation of this state, up
+// to date in place, redoing only the cells at idx (Recomputed): on a large
+// sheet where one input changed, a few cells instead of all. It panics if
+// r is of another sheet.
+func (st *State) Update(r *Results, idx []int) {
+	s := st.sheet
+	if len(r.Cells) != len(s.prog.Cells) || (len(r.Cells) > 0 && r.Cells[0].Cell != s.prog.Cells[0]) {
+		panic("engine: Update of the results of another sheet")
+	}
+	if s.combos != nil {
+		// A change of one input can change the combination every cell
+		// that depends on actions shows, and the governing one of every
+		// check: the results are built again (Recomputed names every cell).
+		*r = *st.Results()
+		return
+	}
+	for _, i := range idx {
+		cr := &r.Cells[i]
+		if st.fill(cr, i) {
+			cr.Text = units.Format(cr.SI, cr.Unit, s.sigFigs)
+		}
+		if cr.Cell.Kind == Check {
+			for k := range r.Checks {
+				if r.Checks[k].Cell == cr.Cell {
+					r.Checks[k] = st.checkResult(cr, i)
+				}
+			}
+		}
+	}
+	r.Problems = r.Problems[:0]
+	for _, p := range st.st.Problem {
+		if p != nil {
+			r.Problems = append(r.Problems, p)
+		}
+	}
+	slices.SortStableFunc(r.Problems, func(a, b *diag.Diagnostic) int {
+		return cmp.Or(a.Range.Start.Compare(b.Range.Start), cmp.Compare(a.Summary, b.Summary))
+	})
 }
 
 // checkUnit is the display unit of a check's demand and capacity: the

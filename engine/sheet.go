@@ -1,14 +1,16 @@
 package engine
 
 import (
+	"bytes"
+	"errors"
 	"fmt"
-	"os"
 
 	"github.com/sheafcalc/sheaf/engine/check"
 	"github.com/sheafcalc/sheaf/engine/diag"
 	"github.com/sheafcalc/sheaf/engine/eval"
 	"github.com/sheafcalc/sheaf/engine/sheet"
 	"github.com/sheafcalc/sheaf/engine/units"
+	"github.com/sheafcalc/sheaf/internal/userfile"
 )
 
 // Kind says what a cell is.
@@ -52,19 +54,13 @@ type Sheet struct {
 // they are.
 func Load(path string, opts ...Option) (*Sheet, error) {
 	cfg := newConfig(opts)
-	fi, err := os.Stat(path)
+	src, err := userfile.ReadFile(path, int64(cfg.maxBytes))
 	if err != nil {
-		return nil, err
-	}
-	if fi.IsDir() {
-		return nil, fmt.Errorf("%s is a directory, not a sheet", path)
-	}
-	if fi.Size() > int64(cfg.maxBytes) {
-		return nil, diag.List{{Range: diag.Range{Start: diag.Pos{File: path}}, Summary: fmt.Sprintf("sheet is too large: %d bytes, the limit is %d", fi.Size(), cfg.maxBytes),
-			Detail: "a sheet is written by a person; split it, or raise the limit"}}
-	}
-	src, err := os.ReadFile(path)
-	if err != nil {
+		var tl *userfile.TooLargeError
+		if errors.As(err, &tl) {
+			return nil, diag.List{{Range: diag.Range{Start: diag.Pos{File: path}}, Summary: fmt.Sprintf("sheet is too large: %d bytes, the limit is %d", tl.Size, tl.Limit),
+				Detail: "a sheet is written by a person; split it, or raise the limit"}}
+		}
 		return nil, err
 	}
 	return Compile(path, src, opts...)
@@ -75,7 +71,19 @@ func Load(path string, opts ...Option) (*Sheet, error) {
 // one per line.
 func Compile(name string, src []byte, opts ...Option) (*Sheet, error) {
 	cfg := newConfig(opts)
-	f, errs := sheet.Parse(name, src, sheet.MaxBytes(cfg.maxBytes))
+	// The limits are checked before anything is parsed: a source over
+	// them is refused at once, not checked first (loading stops at a
+	// limit error).
+	if len(src) > cfg.maxBytes {
+		return nil, tooLarge(name, int64(len(src)), cfg.maxBytes)
+	}
+	if n := bytes.Count(src, []byte{'\n'}); n > cfg.maxLines || (n == cfg.maxLines && len(src) > 0 && src[len(src)-1] != '\n') {
+		return nil, diag.List{{Range: diag.Range{Start: diag.Pos{File: name}},
+			Summary: fmt.Sprintf("sheet has too many lines: more than %d", cfg.maxLines),
+			Detail:  "a sheet is written by a person; nothing of it was read",
+			Hint:    "split it into sheets that use one another, or raise the limit (sheaf: --max-lines N; Go: engine.WithMaxLines)"}}
+	}
+	f, errs := sheet.Parse(name, src, sheet.MaxBytes(cfg.maxBytes), sheet.MaxLines(cfg.maxLines))
 	if f == nil {
 		errs.Sort()
 		return nil, errs
@@ -99,6 +107,14 @@ func Compile(name string, src []byte, opts ...Option) (*Sheet, error) {
 		s.system = cfg.system
 	}
 	return s, nil
+}
+
+// tooLarge is the diagnostic of a source over the size limit.
+func tooLarge(name string, size int64, limit int) diag.List {
+	return diag.List{{Range: diag.Range{Start: diag.Pos{File: name}},
+		Summary: fmt.Sprintf("sheet is too large: %d bytes, the limit is %d", size, limit),
+		Detail:  "a sheet is written by a person; nothing of it was read",
+		Hint:    "split it into sheets that use one another, or raise the limit (sheaf: --max-bytes N; Go: engine.WithMaxBytes)"}}
 }
 
 // Name returns the name the sheet was loaded under.
@@ -148,10 +164,7 @@ func ReadSources(l diag.List) diag.Sources {
 		if _, done := out[name]; done || name == "" {
 			continue
 		}
-		if fi, err := os.Stat(name); err != nil || fi.IsDir() || fi.Size() > DefaultMaxBytes {
-			continue
-		}
-		if src, err := os.ReadFile(name); err == nil {
+		if src, err := userfile.ReadFile(name, DefaultMaxBytes); err == nil {
 			out[name] = src
 		}
 	}

@@ -183,7 +183,11 @@ func (s *Sheet) describe(c *Cell) string {
 		}
 		u := s.DisplayUnit(c)
 		if u.Quantity != "" {
-			return "a " + u.Quantity + " (" + u.Symbol + ")"
+			a := "a "
+			if strings.ContainsRune("aeiou", rune(u.Quantity[0])) {
+				a = "an " // an angle, an area load
+			}
+			return a + u.Quantity + " (" + u.Symbol + ")"
 		}
 		return "a quantity in " + u.Symbol
 	}

@@ -7,15 +7,18 @@ import (
 
 	"github.com/spf13/cobra"
 
+	"github.com/sheafcalc/sheaf/engine"
 	xlsxout "github.com/sheafcalc/sheaf/engine/export/xlsx"
 	"github.com/sheafcalc/sheaf/internal/plural"
+	"github.com/sheafcalc/sheaf/internal/userfile"
 )
 
 // exportOptions are the flags of `sheaf export`.
 type exportOptions struct {
-	out    string
-	sets   []string
-	system string
+	out   string
+	sets  []string
+	draft bool
+	sheet sheetFlags
 }
 
 func newExportCmd(a *app) *cobra.Command {
@@ -34,25 +37,37 @@ only Sheaf can compute are marked. The file is written whole or not at all:
 an existing workbook is replaced only when the new one is complete.
 
 Without -o the workbook goes beside the sheet, with the extension .xlsx.
+FILE - reads the sheet from stdin; -o is then needed.
 
-Exit status: 0 when the workbook is written and every design check passes,
+A header value that is still a placeholder of a new sheet (a date
+YYYY-MM-DD, an author <name>) is written as it is, with a warning on stderr:
+the client sees it on the summary.
+
+Exit status here: 0 when the workbook is written and every design check passes,
 1 when it is written but a check fails or cannot be assessed, 2 when the
-sheet, a flag or the output path is wrong.`,
+sheet, a flag or the output path is wrong, or a cell could not be computed
+(the workbook is written then too; --draft keeps the status at 0 or 1).`,
 		Example: `  sheaf export hanger.sheaf
   sheaf export hanger.sheaf -o client/hanger-rev-B.xlsx --set P=45kN`,
-		Args: cobra.ExactArgs(1),
+		Args:              cobra.ExactArgs(1),
+		ValidArgsFunction: completeSheets,
 		RunE: func(cmd *cobra.Command, args []string) error {
 			return runExport(a, o, args[0])
 		},
 	}
 	cmd.Flags().StringVarP(&o.out, "output", "o", "", "workbook to write (default: the sheet's name with .xlsx)")
 	cmd.Flags().StringArrayVar(&o.sets, "set", nil, setUsage)
-	cmd.Flags().StringVar(&o.system, "system", "", "display units for cells without a written unit: metric or us")
+	_ = cmd.RegisterFlagCompletionFunc("set", completeInputs)
+	cmd.Flags().BoolVar(&o.draft, "draft", false, draftUsage)
+	o.sheet.add(cmd, true)
 	return cmd
 }
 
 func runExport(a *app, o *exportOptions, path string) error {
 	out := o.out
+	if out == "" && path == "-" {
+		return userErrorf("export - reads the sheet from stdin: name the workbook with -o, e.g. -o calc.xlsx")
+	}
 	if out == "" {
 		out = strings.TrimSuffix(path, filepath.Ext(path)) + ".xlsx"
 	}
@@ -64,7 +79,7 @@ func runExport(a *app, o *exportOptions, path string) error {
 			return userErrorf("-o %s would overwrite the sheet itself; choose another name", out)
 		}
 	}
-	s, st, err := loadState(a, path, o.system, o.sets)
+	s, st, err := loadState(a, path, &o.sheet, o.sets)
 	if err != nil {
 		return err
 	}
@@ -74,6 +89,11 @@ func runExport(a *app, o *exportOptions, path string) error {
 		// deliver numbers that do not follow the checks.
 		return userErrorf("%s has actions; the workbook does not yet carry their combinations, so it is not written (run `sheaf run --combinations` for the table)", path)
 	}
+	for _, in := range s.Files() {
+		if userfile.Same(out, in) {
+			return userErrorf("-o %s would overwrite %s, which this sheet is built from; choose another name", out, in)
+		}
+	}
 	res := st.Eval()
 	stats, err := xlsxout.WriteFile(out, s, res, xlsxout.Options{Generator: "Sheaf " + versionString()})
 	if err != nil {
@@ -82,9 +102,43 @@ func runExport(a *app, o *exportOptions, path string) error {
 	fmt.Fprintf(a.stdout, "wrote %s: %s, %s, %s only Sheaf computes, %s, %s\n", out,
 		plural.Count(stats.Cells, "cell"), plural.Count(stats.Live, "live formula"), plural.Count(stats.ValueOnly, "value"),
 		plural.Count(stats.Tables, "table"), plural.Count(stats.Charts, "chart"))
+	warnPlaceholders(a, s.Name(), s.Meta())
 	if n := res.Failed(); n > 0 {
 		fmt.Fprintf(a.stderr, "%s; the workbook shows them\n", (&checksFailedError{n}).Error())
-		return &reportedError{&checksFailedError{n}, exitChecks}
 	}
-	return nil
+	return resultsError(a, res, o.draft)
+}
+
+// warnPlaceholders warns on stderr about header values that are still the
+// placeholders `sheaf new` writes (or look like them): they would reach the
+// client's summary as they are.
+func warnPlaceholders(a *app, name string, m engine.Meta) {
+	for _, kv := range [][2]string{{"title", m.Title}, {"project", m.Project}, {"author", m.Author},
+		{"checker", m.Checker}, {"date", m.Date}, {"revision", m.Revision}} {
+		if isPlaceholder(kv[1]) {
+			fmt.Fprintf(a.stderr, "sheaf: warning: %s: the header %s is still the placeholder %q; the workbook's summary shows it to the client\n", name, kv[0], kv[1])
+		}
+	}
+}
+
+// isPlaceholder reports whether a header value is a template's
+// placeholder: a date pattern like YYYY-MM-DD, a <name> in angle brackets,
+// or a TODO / TBD / XXX marker.
+func isPlaceholder(v string) bool {
+	v = strings.TrimSpace(v)
+	up := strings.ToUpper(v)
+	switch {
+	case v == "":
+		return false
+	case strings.Contains(up, "YYYY") || strings.Contains(up, "DD-MM") || strings.Contains(up, "MM-DD"):
+		return true
+	case strings.HasPrefix(v, "<") && strings.HasSuffix(v, ">"):
+		return true
+	}
+	for _, w := range strings.FieldsFunc(up, func(r rune) bool { return r < 'A' || r > 'Z' }) {
+		if w == "TODO" || w == "TBD" || w == "XXX" || w == "FIXME" {
+			return true
+		}
+	}
+	return false
 }

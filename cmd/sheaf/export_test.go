@@ -102,3 +102,20 @@ func TestExportErrors(t *testing.T) {
 		t.Errorf("no workbook written: %v", err)
 	}
 }
+
+// TestIsPlaceholder: the header values export warns about (they would
+// reach the client's summary as written) and values it leaves alone.
+func TestIsPlaceholder(t *testing.T) {
+	for _, c := range []struct {
+		v    string
+		want bool
+	}{
+		{"YYYY-MM-DD", true}, {"yyyy-mm-dd", true}, {"DD-MM-YYYY", true}, {"<name>", true}, {"TODO", true},
+		{"rev TBD", true}, {"XXX", true},
+		{"2026-03-14", false}, {"", false}, {"A. Engineer", false}, {"Todd", false}, {"B", false}, {"MM Smith", false},
+	} {
+		if got := isPlaceholder(c.v); got != c.want {
+			t.Errorf("isPlaceholder(%q) = %v, want %v", c.v, got, c.want)
+		}
+	}
+}

@@ -5,13 +5,14 @@ import (
 	"errors"
 	"fmt"
 	"io"
-	"os"
+	"path/filepath"
 
 	"github.com/spf13/cobra"
 
 	"github.com/sheafcalc/sheaf/engine/diag"
 	"github.com/sheafcalc/sheaf/engine/sheet"
 	"github.com/sheafcalc/sheaf/internal/atomicfile"
+	"github.com/sheafcalc/sheaf/internal/userfile"
 )
 
 // fmtOptions are the flags of `sheaf fmt`.
@@ -32,12 +33,14 @@ kept exactly as written; nothing is dropped. Formatting twice changes
 nothing.
 
 Each file is replaced whole (a temporary file renamed over it, keeping its
-permissions), and only when its text changes; the names of the files
-rewritten are printed. A file with syntax errors is left alone and its
+permissions), and only when its text changes and it still holds the text
+that was formatted (a file edited meanwhile is left alone, with a message);
+the names of the files rewritten are printed. A symbolic link stays a link:
+the file it leads to is formatted. Only regular files are read. A file with syntax errors is left alone and its
 errors are shown. With --check nothing is written: the files that are not
 in canonical layout are listed. FILE - reads stdin and writes stdout.
 
-Exit status: 0 when done (with --check: every file is canonical), 1 with
+Exit status here: 0 when done (with --check: every file is canonical), 1 with
 --check when a file would change, 2 when a file cannot be read or has
 syntax errors.`,
 		Args: cobra.MinimumNArgs(1),
@@ -81,9 +84,9 @@ func runFmt(a *app, o *fmtOptions, files []string) error {
 // fmtFile formats one file and reports whether it changed (or would).
 func fmtFile(a *app, o *fmtOptions, path string) (bool, error) {
 	if path == "-" {
-		src, err := io.ReadAll(a.stdin)
+		src, err := userfile.ReadAll(a.stdin, "stdin", sheet.DefaultMaxBytes)
 		if err != nil {
-			return false, err
+			return false, &inputError{err}
 		}
 		out, err := formatReported(a, "stdin", src)
 		if err != nil {
@@ -99,15 +102,16 @@ func fmtFile(a *app, o *fmtOptions, path string) (bool, error) {
 		_, err = a.stdout.Write(out)
 		return false, err
 	}
-	fi, err := os.Stat(path)
-	if err != nil {
-		return false, &inputError{err}
+	// A symbolic link stays a link: the file it leads to is formatted.
+	target := path
+	if real, err := filepath.EvalSymlinks(path); err == nil {
+		target = real
 	}
-	if !fi.Mode().IsRegular() {
-		return false, userErrorf("%s is not a regular file", path)
-	}
-	src, err := os.ReadFile(path)
+	src, fi, err := userfile.ReadFileInfo(target, sheet.DefaultMaxBytes)
 	if err != nil {
+		if target != path {
+			err = fmt.Errorf("%s (the file %s links to): %w", target, path, err)
+		}
 		return false, &inputError{err}
 	}
 	out, err := formatReported(a, path, src)
@@ -121,7 +125,27 @@ func fmtFile(a *app, o *fmtOptions, path string) (bool, error) {
 	if o.check {
 		return true, nil
 	}
-	if err := atomicfile.WriteFile(path, out, fi.Mode().Perm()); err != nil {
+	// The file is replaced only if it still holds what was formatted: an
+	// edit saved meanwhile (an editor, another fmt) is never lost.
+	unchanged := func() error {
+		if a.beforeReplace != nil {
+			a.beforeReplace(target)
+		}
+		now, err := userfile.ReadFile(target, sheet.DefaultMaxBytes)
+		if err == nil {
+			err = userfile.Unchanged(target, fi)
+		}
+		if err != nil || !bytes.Equal(now, src) {
+			return userErrorf("%s changed while it was being formatted, so it was left as it is; run sheaf fmt again", path)
+		}
+		return nil
+	}
+	write := func(w io.Writer) error { _, err := w.Write(out); return err }
+	if err := atomicfile.WriteChecked(target, fi.Mode().Perm(), write, unchanged); err != nil {
+		var ie *inputError
+		if errors.As(err, &ie) {
+			return false, err
+		}
 		return false, fmt.Errorf("cannot rewrite %s: %w", path, err)
 	}
 	return true, nil

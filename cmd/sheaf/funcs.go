@@ -17,6 +17,7 @@ import (
 // funcsOptions are the flags of `sheaf funcs`.
 type funcsOptions struct {
 	family string // keep one family; empty lists all
+	json   bool
 }
 
 // newFuncsCmd builds `sheaf funcs`, the listing of the plugin functions.
@@ -33,7 +34,14 @@ display units; a sheet may pass any unit of the same dimension.
 
 With a name, print what the function computes, its formula, each parameter
 with its meaning and valid range, the result (with the fields of a record
-result, which a sheet reads as r.field) and the published source.`,
+result, which a sheet reads as r.field) and the published source.
+
+With --json, the same as one JSON document on stdout (schema in
+schema/sheaf.schema.json): each function with its family, summary, formula,
+source, and each parameter and result with its kind, its unit (the
+preferred metric unit) and its dimension.
+
+Exit status here: 0 when listed, 2 for an unknown function or family.`,
 		Example: `  sheaf funcs
   sheaf funcs --family section
   sheaf funcs chs`,
@@ -43,15 +51,58 @@ result, which a sheet reads as r.field) and the published source.`,
 			}
 			return nil
 		},
+		ValidArgsFunction: completeFuncs,
 		RunE: func(_ *cobra.Command, args []string) error {
+			name := ""
 			if len(args) == 1 {
-				return runFuncsDescribe(a, args[0])
+				name = args[0]
+			}
+			if o.json {
+				return jsonFailure(a, funcsSchema, name, runFuncsJSON(a, o, name))
+			}
+			if name != "" {
+				return runFuncsDescribe(a, name)
 			}
 			return runFuncsList(a, o)
 		},
 	}
 	cmd.Flags().StringVar(&o.family, "family", "", "list only the functions of this family")
+	cmd.Flags().BoolVar(&o.json, "json", false, "print the functions as JSON")
+	_ = cmd.RegisterFlagCompletionFunc("family", func(*cobra.Command, []string, string) ([]string, cobra.ShellCompDirective) {
+		return familyNames(), cobra.ShellCompDirectiveNoFileComp
+	})
 	return cmd
+}
+
+// completeFuncs completes the name of a function (built-in or plugin),
+// each with its summary.
+func completeFuncs(_ *cobra.Command, args []string, prefix string) ([]string, cobra.ShellCompDirective) {
+	if len(args) > 0 {
+		return nil, cobra.ShellCompDirectiveNoFileComp
+	}
+	var out []string
+	for _, b := range check.Builtins {
+		if strings.HasPrefix(b.Name, prefix) {
+			out = append(out, b.Name+"\t"+b.Sig)
+		}
+	}
+	for _, d := range funcs.All() {
+		if strings.HasPrefix(d.Name, prefix) {
+			out = append(out, d.Name+"\t"+d.Summary)
+		}
+	}
+	return out, cobra.ShellCompDirectiveNoFileComp
+}
+
+// familyNames lists the families, the built-in math first.
+func familyNames() []string {
+	families := []string{builtinFamily}
+	for _, d := range funcs.All() {
+		if !slices.Contains(families, d.Family) {
+			families = append(families, d.Family)
+		}
+	}
+	return families
 }
 
 // builtinFamily is the family name under which the language's own math
@@ -123,7 +174,7 @@ func runFuncsDescribe(a *app, name string) error {
 	fmt.Fprintf(w, "%s (family %s)\n", d.Name, d.Family)
 	fmt.Fprintf(w, "  %s\n\n", signature(d))
 	fmt.Fprintf(w, "%s\n\n", d.Summary)
-	wrap(w, d.Doc, "", 78)
+	wrap(w, docText(d.Doc, nil), "", 78)
 	if d.Formula != "" {
 		fmt.Fprintf(w, "\nFormula:\n  %s\n", d.Formula)
 	}
@@ -136,7 +187,7 @@ func runFuncsDescribe(a *app, name string) error {
 			}
 			fmt.Fprintf(w, "  %s %s%s\n", p.Name, typeText(p.Type), opt)
 			if p.Doc != "" {
-				wrap(w, p.Doc, "      ", 78)
+				wrap(w, docText(p.Doc, p.Type), "      ", 78)
 			}
 		}
 	}
@@ -150,7 +201,7 @@ func runFuncsDescribe(a *app, name string) error {
 		for _, f := range r.Fields {
 			fmt.Fprintf(w, "    %s %s\n", f.Name, typeText(f.Type))
 			if f.Doc != "" {
-				wrap(w, f.Doc, "        ", 78)
+				wrap(w, docText(f.Doc, f.Type), "        ", 78)
 			}
 		}
 	}

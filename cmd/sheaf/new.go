@@ -7,6 +7,7 @@ import (
 	"path/filepath"
 	"sort"
 	"strings"
+	"time"
 
 	"github.com/spf13/cobra"
 
@@ -15,22 +16,23 @@ import (
 	"github.com/sheafcalc/sheaf/engine/sheet"
 	"github.com/sheafcalc/sheaf/internal/atomicfile"
 	"github.com/sheafcalc/sheaf/internal/plural"
+	"github.com/sheafcalc/sheaf/internal/userfile"
 )
 
 // newOptions are the flags of `sheaf new`.
 type newOptions struct {
 	force   bool
 	library string
+	date    string
+	now     func() time.Time // the clock (tests fix it); nil is time.Now
 }
 
 // libraryDir is the folder of templates looked for in the current
 // directory and its parents.
 const libraryDir = "sheets"
 
-// datePlaceholder replaces the template's date: the new sheet is not dated
-// by the tool (the same template gives the same file on every day), and the
-// placeholder is plain to see in review.
-const datePlaceholder = "YYYY-MM-DD"
+// dateLayout is the form of the date a new sheet gets (ISO 8601).
+const dateLayout = "2006-01-02"
 
 func newNewCmd(a *app) *cobra.Command {
 	o := &newOptions{}
@@ -42,7 +44,8 @@ func newNewCmd(a *app) *cobra.Command {
 --library DIR) named with or without .sheaf, or any sheet given by path.
 
 The new sheet is a standalone copy: the header is kept with the date set to
-the placeholder ` + datePlaceholder + `, a comment names the template, and every
+today's date (or --date YYYY-MM-DD: the output is then the same on every
+day, for scripts and tests), a comment names the template, and every
 input cell is gathered at the top under "## Inputs", so the values to edit
 are in one place; the rest follows unchanged, in canonical layout. The copy
 evaluates exactly as the template does until you edit it.
@@ -50,7 +53,7 @@ evaluates exactly as the template does until you edit it.
 OUT must not exist unless --force is given; it is written whole or not at
 all.
 
-Exit status: 0 when written, 2 when the template is not found or has
+Exit status here: 0 when written, 2 when the template is not found or has
 errors, or OUT exists.`,
 		Args: cobra.ExactArgs(2),
 		RunE: func(cmd *cobra.Command, args []string) error {
@@ -59,10 +62,21 @@ errors, or OUT exists.`,
 	}
 	cmd.Flags().BoolVarP(&o.force, "force", "f", false, "overwrite OUT if it exists")
 	cmd.Flags().StringVar(&o.library, "library", "", "folder of templates (default: the nearest sheets/ folder)")
+	cmd.Flags().StringVar(&o.date, "date", "", "the date of the new sheet, YYYY-MM-DD (default: today)")
 	return cmd
 }
 
 func runNew(a *app, o *newOptions, template, out string) error {
+	date := o.date
+	if date == "" {
+		now := o.now
+		if now == nil {
+			now = time.Now
+		}
+		date = now().Format(dateLayout)
+	} else if _, err := time.Parse(dateLayout, date); err != nil {
+		return userErrorf("--date %s: write the date as YYYY-MM-DD, e.g. --date 2026-03-14", date)
+	}
 	path, err := findTemplate(template, o.library)
 	if err != nil {
 		return err
@@ -72,11 +86,14 @@ func runNew(a *app, o *newOptions, template, out string) error {
 			return userErrorf("%s already exists; choose another name, or give --force to overwrite it", out)
 		}
 	}
-	src, err := os.ReadFile(path)
-	if err != nil {
-		return &inputError{err}
+	if userfile.Same(out, path) {
+		return userErrorf("%s is the template itself; choose another name for the new sheet", out)
 	}
-	text, n, err := fromTemplate(path, src, out)
+	src, err := readUserFile(path, engine.DefaultMaxBytes)
+	if err != nil {
+		return err
+	}
+	text, n, err := fromTemplate(path, src, out, date)
 	if err != nil {
 		var list diag.List
 		if errors.As(err, &list) {
@@ -94,11 +111,16 @@ func runNew(a *app, o *newOptions, template, out string) error {
 }
 
 // fromTemplate builds the text of the new sheet out from the template at
-// path and returns it with the number of inputs gathered.
-func fromTemplate(path string, src []byte, out string) ([]byte, int, error) {
+// path, dated date, and returns it with the number of inputs gathered.
+func fromTemplate(path string, src []byte, out, date string) ([]byte, int, error) {
 	s, err := engine.Compile(path, src)
 	if err != nil {
 		return nil, 0, err
+	}
+	for _, in := range s.Files()[1:] {
+		if userfile.Same(out, in) {
+			return nil, 0, userErrorf("%s is a template that %s uses; choose another name for the new sheet", out, path)
+		}
 	}
 	inputs := map[string]bool{}
 	for _, c := range s.Cells() {
@@ -117,7 +139,7 @@ func fromTemplate(path string, src []byte, out string) ([]byte, int, error) {
 			if inHeader {
 				if it.Key.Name == "date" {
 					m := *it
-					m.Value = datePlaceholder
+					m.Value = date
 					head = append(head, &m)
 				} else {
 					head = append(head, it)
@@ -234,8 +256,13 @@ func dropEmptyHeadings(items []sheet.Item) []sheet.Item {
 // findTemplate resolves a template name: a path to a file, or a name in
 // the library (with or without .sheaf).
 func findTemplate(name, library string) (string, error) {
-	if fi, err := os.Stat(name); err == nil && fi.Mode().IsRegular() {
-		return name, nil
+	if fi, err := os.Stat(name); err == nil {
+		if fi.Mode().IsRegular() {
+			return name, nil
+		}
+		if !fi.IsDir() {
+			return "", &inputError{&userfile.NotRegularError{Path: name, Mode: fi.Mode()}}
+		}
 	}
 	lib := library
 	if lib == "" {

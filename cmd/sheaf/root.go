@@ -1,24 +1,123 @@
 package main
 
 import (
+	"context"
 	"errors"
 	"fmt"
 	"io"
+	"os"
+	"os/signal"
 	"runtime/debug"
+	"strings"
+	"sync/atomic"
+	"syscall"
+	"time"
 
 	"github.com/spf13/cobra"
 
+	"github.com/sheafcalc/sheaf/engine"
 	"github.com/sheafcalc/sheaf/engine/diag"
+	"github.com/sheafcalc/sheaf/engine/export/jsonout"
+	"github.com/sheafcalc/sheaf/internal/atomicfile"
 	"github.com/sheafcalc/sheaf/internal/plural"
 )
 
-// Exit codes scripts can rely on.
+// Exit codes scripts can rely on (the table in exitTable, README and every
+// command's help).
 const (
-	exitOK       = 0 // everything ran and every design check passed
-	exitChecks   = 1 // a design check failed (or a diff flipped a check to fail)
-	exitInput    = 2 // the input is wrong: sheet errors, bad flags, bad files
+	exitOK       = 0 // every design check passed and every cell was computed
+	exitChecks   = 1 // a design check failed or cannot be assessed (or a diff flipped a check to fail)
+	exitInput    = 2 // the input is wrong: sheet errors, a cell that could not be computed, bad flags, arguments or files, an unknown command
 	exitInternal = 3 // a fault in Sheaf itself
 )
+
+// exitTable closes the help of every command: one table for all of them.
+// Each command adds what its codes mean for it above it.
+const exitTable = `
+Exit status (the same for every command):
+  0  every design check passes and every cell was computed
+  1  a design check fails or cannot be assessed
+  2  the input is wrong: a sheet error, a cell that could not be computed
+     (unless --draft), a bad flag, argument or file, an unknown command
+  3  a fault of Sheaf itself (please report it with the sheet)
+When both 1 and 2 apply, the status is 2.`
+
+// draftUsage is the help of the --draft flag of the commands that evaluate.
+const draftUsage = "accept a draft: cells that cannot be computed are still reported, but exit 0 (or 1 for checks) instead of 2"
+
+// resultsError is the error of an evaluation that ran: exit 2 when a cell
+// could not be computed (unless draft), else 1 when a check fails or is
+// not assessed, else nil. It writes the reason for a non-zero status to
+// stderr, so that a CI log says why it stopped.
+func resultsError(a *app, res *engine.Results, draft bool) error {
+	err := resultsErrorQuiet(res, draft)
+	if exitCode(err) == exitInput {
+		fmt.Fprintf(a.stderr, "sheaf: %v\n", err)
+	}
+	return err
+}
+
+// resultsErrorQuiet is resultsError without the line on stderr.
+func resultsErrorQuiet(res *engine.Results, draft bool) error {
+	if n := res.Uncomputed(); n > 0 && !draft {
+		err := fmt.Errorf("%s could not be computed: the calculation is not complete (--draft accepts it)", plural.Count(n, "cell"))
+		return &reportedError{err, exitInput}
+	}
+	if n := res.Failed(); n > 0 {
+		return &reportedError{&checksFailedError{n}, exitChecks}
+	}
+	return nil
+}
+
+// jsonFailure writes, for a command run with --json, the JSON document of
+// an error that came before any results (a sheet that does not load, a bad
+// --set, flag or file) on stdout, so that a JSON consumer always gets a
+// document; the exit status stays what the error gives. Errors whose
+// output was already written pass through.
+func jsonFailure(a *app, schema, path string, err error) error {
+	var rep *reportedError
+	if err == nil || errors.As(err, &rep) {
+		return err
+	}
+	code := exitCode(err)
+	var problems []jsonout.Problem
+	var se *sheetError
+	if errors.As(err, &se) {
+		for _, d := range se.list {
+			problems = append(problems, jsonout.NewProblem(jsonout.KindSheet, d))
+		}
+	} else {
+		kind := jsonout.KindInput
+		if code == exitInternal {
+			kind = "internal"
+		}
+		problems = append(problems, jsonout.Problem{Kind: kind, Severity: "error", File: path, Pos: path, Message: err.Error()})
+	}
+	if werr := jsonout.Encode(a.stdout, jsonout.Failure(schema, code, problems)); werr != nil {
+		return werr
+	}
+	fmt.Fprintf(a.stderr, "sheaf: %v (the JSON on stdout has the details)\n", err)
+	return &reportedError{err, code}
+}
+
+// inputArgs makes the argument check of a command an input error (exit 2)
+// that says what the command takes.
+func inputArgs(cmd *cobra.Command) {
+	check := cmd.Args
+	if check == nil {
+		return
+	}
+	cmd.Args = func(c *cobra.Command, args []string) error {
+		if err := check(c, args); err != nil {
+			var in *inputError
+			if errors.As(err, &in) {
+				return err
+			}
+			return userErrorf("%s: %v; usage: %s", c.Name(), err, c.UseLine())
+		}
+		return nil
+	}
+}
 
 // version is set at build time with -ldflags "-X main.version=..."; otherwise
 // the module version from the build info is used.
@@ -29,6 +128,9 @@ type app struct {
 	stdin  io.Reader
 	stdout io.Writer
 	stderr io.Writer
+	// beforeReplace, when not nil, is called by fmt just before it checks
+	// that a file is unchanged and replaces it (tests edit the file there).
+	beforeReplace func(path string)
 }
 
 // checksFailedError reports that evaluation succeeded but design checks failed.
@@ -110,22 +212,58 @@ combinations come from the local code and licensed practice.`,
 	root.SetFlagErrorFunc(func(_ *cobra.Command, err error) error {
 		return &inputError{err}
 	})
+	// With no command, sheaf prints its help; a word that is no command is
+	// wrong input (exit 2), with the nearest command as a hint.
+	root.Args = func(c *cobra.Command, args []string) error {
+		if len(args) == 0 {
+			return nil
+		}
+		msg := fmt.Sprintf("unknown command %q", args[0])
+		var names []string
+		for _, sub := range c.Commands() {
+			names = append(names, sub.Name())
+		}
+		if sug := diag.Nearest(args[0], names); sug != "" {
+			msg += fmt.Sprintf("; did you mean %q?", sug)
+		}
+		return userErrorf("%s; see sheaf --help for the commands", msg)
+	}
+	root.RunE = func(c *cobra.Command, _ []string) error { return c.Help() }
 	root.AddCommand(
 		newUnitsCmd(a),
 		newRunCmd(a),
 		newCheckCmd(a),
 		newFuncsCmd(a),
 		newExportCmd(a),
+		newReportCmd(a),
 		newBatchCmd(a),
 		newDiffCmd(a),
 		newFmtCmd(a),
 		newWatchCmd(a),
 		newNewCmd(a),
 	)
+	for _, c := range root.Commands() {
+		inputArgs(c)
+		if c.ValidArgsFunction == nil && c.Name() != "units" && c.Name() != "funcs" {
+			c.ValidArgsFunction = completeSheets
+		}
+		if c.Long != "" && !strings.Contains(c.Long, exitTable) {
+			c.Long += "\n" + exitTable
+		}
+	}
+	root.Long += "\n" + exitTable
 	return root
 }
 
 // Main runs the command line and returns the process exit code.
+//
+// SIGINT and SIGTERM stop the command: the temporary files of the writes
+// under way are removed at once (atomicfile.Abort), so the files they were
+// to replace stay as they were, and the command's context is cancelled. A
+// command that then ends with an error (it was interrupted) exits with
+// 128 + the signal number, as a shell reports it, after a message saying
+// what was kept; one that ends cleanly (watch stops on Ctrl-C) exits as
+// usual. A command that does not end within a grace period is ended.
 func Main(args []string, stdin io.Reader, stdout, stderr io.Writer) (code int) {
 	defer func() {
 		if r := recover(); r != nil {
@@ -133,15 +271,93 @@ func Main(args []string, stdin io.Reader, stdout, stderr io.Writer) (code int) {
 			code = exitInternal
 		}
 	}()
+	ctx, cancel := context.WithCancel(context.Background())
+	defer cancel()
+	sigs := make(chan os.Signal, 1)
+	signal.Notify(sigs, os.Interrupt, syscall.SIGTERM)
+	defer signal.Stop(sigs)
+	done := make(chan struct{})
+	defer close(done)
+	var caught atomic.Pointer[interrupt]
+	go func() {
+		select {
+		case sig := <-sigs:
+			in := &interrupt{sig: sig, removed: atomicfile.Abort()}
+			caught.Store(in)
+			cancel()
+			select {
+			case <-done:
+			case <-time.After(interruptGrace):
+				fmt.Fprintln(stderr, in.message())
+				os.Exit(in.code())
+			}
+		case <-done:
+		}
+	}()
+
 	a := &app{stdin: stdin, stdout: stdout, stderr: stderr}
-	root := newRootCmd(a)
+	code = execute(ctx, newRootCmd(a), args, stderr)
+	if in := caught.Load(); in != nil && code != exitOK {
+		fmt.Fprintln(stderr, in.message())
+		return in.code()
+	}
+	return code
+}
+
+// execute runs root with args and returns the exit code: the errors of
+// the commands map to codes in exitCode, and a panic (a fault of Sheaf) is
+// exit 3 with the stack on stderr.
+func execute(ctx context.Context, root *cobra.Command, args []string, stderr io.Writer) (code int) {
+	defer func() {
+		if r := recover(); r != nil {
+			fmt.Fprintf(stderr, "sheaf: internal error: %v\n%s\nplease report this with the sheet that caused it\n", r, debug.Stack())
+			code = exitInternal
+		}
+	}()
 	root.SetArgs(args)
-	err := root.Execute()
+	err := root.ExecuteContext(ctx)
+	if err != nil && ctx.Err() != nil {
+		return exitInput // interrupted: Main says so with the signal's code
+	}
 	if err != nil {
-		var rep *reportedError
-		if !errors.As(err, &rep) {
+		var (
+			rep *reportedError
+			se  *sheetError
+		)
+		switch {
+		case errors.As(err, &rep):
+		case errors.As(err, &se):
+			se.render(stderr)
+		default:
 			fmt.Fprintf(stderr, "sheaf: %v\n", err)
 		}
 	}
 	return exitCode(err)
+}
+
+// interruptGrace is how long an interrupted command may take to stop on
+// its own before Main ends the process.
+const interruptGrace = 2 * time.Second
+
+// interrupt is a SIGINT or SIGTERM that stopped a command.
+type interrupt struct {
+	sig     os.Signal
+	removed int // temporary files removed
+}
+
+func (in *interrupt) message() string {
+	name := "SIGINT"
+	if in.sig == syscall.SIGTERM {
+		name = "SIGTERM"
+	}
+	return fmt.Sprintf("sheaf: stopped by %s: no file was left half-written (%s removed); files not yet replaced are as they were", name, plural.Count(in.removed, "temporary file"))
+}
+
+// code is the exit status a shell gives a process the signal ended: 130
+// for SIGINT, 143 for SIGTERM.
+func (in *interrupt) code() int {
+	if s, ok := in.sig.(syscall.Signal); ok {
+		return 128 + int(s)
+	}
+	return 128 + int(syscall.SIGINT)
 }

@@ -7,6 +7,7 @@ import (
 	"github.com/sheafcalc/sheaf/engine"
 	"github.com/sheafcalc/sheaf/engine/diag"
 	"github.com/sheafcalc/sheaf/internal/plural"
+	"github.com/sheafcalc/sheaf/internal/userfile"
 )
 
 // reportProblems renders the diagnostics of the file name, with their
@@ -24,4 +25,15 @@ func sourcesFor(list diag.List, name string, src []byte) diag.Sources {
 	srcs := engine.ReadSources(list)
 	srcs[name] = src
 	return srcs
+}
+
+// readUserFile reads a sheet or table a user named: a regular file of at
+// most limit bytes (internal/userfile), never a FIFO or a device. Its
+// errors are input errors.
+func readUserFile(path string, limit int64) ([]byte, error) {
+	src, err := userfile.ReadFile(path, limit)
+	if err != nil {
+		return nil, &inputError{err}
+	}
+	return src, nil
 }

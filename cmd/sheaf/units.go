@@ -46,6 +46,9 @@ Temperatures are differences only: 1 degC = 1 K, 1 degF = 5/9 K.`,
 	}
 	cmd.Flags().StringVar(&o.dim, "dim", "", "show only units of this quantity or unit's dimension")
 	cmd.Flags().StringVar(&o.system, "system", "both", "show metric, us or both")
+	_ = cmd.RegisterFlagCompletionFunc("system", func(*cobra.Command, []string, string) ([]string, cobra.ShellCompDirective) {
+		return []string{"metric\tSI units", "us\tUS customary units", "both\tmetric and US customary"}, cobra.ShellCompDirectiveNoFileComp
+	})
 	return cmd
 }
 

@@ -265,3 +265,44 @@ func TestXLSX(t *testing.T) {
 		t.Errorf("P of case 1 is %q, want 30", rows[1][1])
 	}
 }
+
+// TestFiniteStaysFinite: a finite result beyond the range of float64 in
+// its display unit (2.36e304 m² is 2.36e310 mm²) is written with its
+// figures, in the CSV and in the workbook, never as +Inf (issue 15).
+func TestFiniteStaysFinite(t *testing.T) {
+	src := "title: big\nL [m] = 1 m\nA [mm^2] = L * 2.36e304 m\n"
+	s, err := engine.Compile("big.sheaf", []byte(src))
+	if err != nil {
+		t.Fatal(err)
+	}
+	cs, err := batch.Read("big.csv", []byte("L [m]\n1\n2\n"), s)
+	if err != nil {
+		t.Fatal(err)
+	}
+	out, err := batch.Run(context.Background(), s, cs, batch.Options{Pick: []string{"A"}})
+	if err != nil {
+		t.Fatal(err)
+	}
+	var b bytes.Buffer
+	if err := out.WriteCSV(&b, 3); err != nil {
+		t.Fatal(err)
+	}
+	for _, want := range []string{"\n1,1,2.36e310,", "\n2,2,4.72e310,"} {
+		if !strings.Contains(b.String(), want) || strings.Contains(b.String(), "Inf") {
+			t.Errorf("CSV lacks %q or shows Inf:\n%s", want, b.String())
+		}
+	}
+	b.Reset()
+	if err := out.WriteXLSX(&b); err != nil {
+		t.Fatal(err)
+	}
+	f, err := excelize.OpenReader(&b)
+	if err != nil {
+		t.Fatal(err)
+	}
+	defer f.Close()
+	rows, _ := f.GetRows("cases")
+	if len(rows) != 3 || len(rows[1]) < 3 || rows[1][2] != "2.36e310" {
+		t.Errorf("workbook rows %q, want A of case 1 as 2.36e310", rows)
+	}
+}

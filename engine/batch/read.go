@@ -12,6 +12,7 @@ import (
 	"github.com/sheafcalc/sheaf/engine/diag"
 	"github.com/sheafcalc/sheaf/engine/units"
 	"github.com/sheafcalc/sheaf/funcs"
+	"github.com/sheafcalc/sheaf/internal/plural"
 )
 
 // Column is one column of a case table: the input it sets and the unit its
@@ -39,6 +40,43 @@ type Cases struct {
 	Src     []byte
 	Columns []Column
 	Cases   []Case
+	// Sep is the field separator: ',' or, detected from the table, ';'
+	// (the form spreadsheets write in locales with a decimal comma).
+	// DecimalComma is set with ';': a comma in a number is its decimal
+	// mark (`12,5` is 12.5).
+	Sep          rune
+	DecimalComma bool
+}
+
+// detectSep returns ';' when the table's first row that is not a comment
+// or blank holds a semicolon and no comma, or holds neither and a later
+// row holds a semicolon; ',' otherwise (RFC 4180).
+func detectSep(src []byte) rune {
+	first := true
+	for _, ln := range strings.Split(string(src), "\n") {
+		t := strings.TrimSpace(ln)
+		if t == "" || strings.HasPrefix(t, "#") {
+			continue
+		}
+		semi, comma := strings.Contains(t, ";"), strings.Contains(t, ",")
+		if first {
+			first = false
+			switch {
+			case semi && !comma:
+				return ';'
+			case semi || comma:
+				return ','
+			}
+			continue // a one-column header: the rows tell
+		}
+		if semi {
+			return ';'
+		}
+		if comma {
+			return ','
+		}
+	}
+	return ','
 }
 
 // Bad returns the problems of the rows that could not be read, in file
@@ -66,7 +104,10 @@ func Read(file string, src []byte, s *engine.Sheet) (*Cases, error) {
 	r.FieldsPerRecord = -1
 	r.TrimLeadingSpace = true
 	r.ReuseRecord = false
-	out := &Cases{File: file, Src: src}
+	out := &Cases{File: file, Src: src, Sep: detectSep(src)}
+	if out.Sep == ';' {
+		r.Comma, out.DecimalComma = ';', true
+	}
 	header, err := r.Read()
 	if err == io.EOF {
 		return nil, diag.List{{Range: diag.Range{Start: diag.Pos{File: file, Line: 1, Col: 1}},
@@ -128,14 +169,14 @@ func (c *Cases) readRow(s *engine.Sheet, r *csv.Reader, cs *Case) {
 	if len(cs.Raw) != len(c.Columns) {
 		line, col := r.FieldPos(0)
 		cs.Err = &diag.Diagnostic{Range: diag.Range{Start: diag.Pos{File: c.File, Line: line, Col: col}},
-			Summary: fmt.Sprintf("case %d has %d values, the header has %d columns", cs.N, len(cs.Raw), len(c.Columns)),
+			Summary: fmt.Sprintf("case %d has %s, the header has %s", cs.N, plural.Count(len(cs.Raw), "value"), plural.Count(len(c.Columns), "column")),
 			Detail:  "this row was skipped; the other rows were evaluated",
-			Hint:    "give one value per column, separated by commas"}
+			Hint:    "give one value per column, separated by " + c.sepName()}
 		return
 	}
 	vals := make([]funcs.Value, len(c.Columns))
 	for i, text := range cs.Raw {
-		v, err := Value(s, &c.Columns[i], text)
+		v, err := c.value(s, &c.Columns[i], text)
 		if err != nil {
 			line, col := r.FieldPos(i)
 			pos := diag.Pos{File: c.File, Line: line, Col: col}
@@ -148,6 +189,28 @@ func (c *Cases) readRow(s *engine.Sheet, r *csv.Reader, cs *Case) {
 		vals[i] = v
 	}
 	cs.Values = vals
+}
+
+// sepName names the separator for hints.
+func (c *Cases) sepName() string {
+	if c.Sep == ';' {
+		return "semicolons"
+	}
+	return "commas"
+}
+
+// value reads one field: with a decimal comma, `12,5 kN` is 12.5 kN; a
+// field with both a comma and a point is refused, since either could be
+// the thousands separator (`1.250,5` or `1,250.5`) and a guess could be
+// off by a thousand.
+func (c *Cases) value(s *engine.Sheet, col *Column, text string) (funcs.Value, error) {
+	if c.DecimalComma && strings.Contains(text, ",") {
+		if strings.Contains(text, ".") {
+			return nil, fmt.Errorf("%q has both a comma and a point; in a table separated by semicolons the comma is the decimal mark: write it without thousands separators, e.g. `1250,5`", text)
+		}
+		text = strings.ReplaceAll(text, ",", ".")
+	}
+	return Value(s, col, text)
 }
 
 // readHeader reads one header field `name [unit]` or `name`.

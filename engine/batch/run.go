@@ -32,6 +32,9 @@ type Row struct {
 	Picks   []float64 // SI; NaN when the cell could not be computed
 	Utils   []float64 // one per check; NaN when not assessed
 	Problem string    // the first run-time problem of the case, if any
+	// Uncomputed is set when a cell of the case could not be computed (a
+	// check that is not assessed is not an uncomputed cell).
+	Uncomputed bool
 	// Sheets with actions: the combination the picked cells that depend on
 	// actions show, and each check's governing combination.
 	Shown     string
@@ -179,7 +182,8 @@ func (w *worker) run(r *Row) {
 			r.Governing[k] = w.st.Governing(c)
 		}
 	}
-	if unknown {
+	r.Uncomputed = w.st.Uncomputed() > 0
+	if unknown || r.Uncomputed {
 		// Rare: build the full results once to say why.
 		if p := w.st.Results().Problems; len(p) > 0 {
 			r.Problem = p[0].Summary
@@ -205,7 +209,22 @@ func same(a, b funcs.Value) bool {
 // numbers that the design checks compare (the cells each check's demand and
 // capacity read directly), in reading order. These are what an engineer
 // scans a case table for; the utilisation of each check is always output.
+// A sheet without checks gives every derived number instead: its results
+// are all there is to read.
 func DefaultPick(s *engine.Sheet) []*engine.Cell {
+	hasCheck := false
+	for _, c := range s.Cells() {
+		hasCheck = hasCheck || c.Kind == engine.Check
+	}
+	if !hasCheck {
+		var out []*engine.Cell
+		for _, c := range s.Cells() {
+			if c.Kind == engine.Derived && c.Type != nil && c.Type.Kind == funcs.Number {
+				out = append(out, c)
+			}
+		}
+		return out
+	}
 	seen := map[int]bool{}
 	for _, c := range s.Cells() {
 		if c.Kind != engine.Check {

@@ -22,9 +22,11 @@ type CheckSummary struct {
 
 // Summary is the tally of a batch run.
 type Summary struct {
-	Cases  int // rows in the table
-	Bad    int // rows that could not be read
-	Checks []CheckSummary
+	Cases int // rows in the table
+	Bad   int // rows that could not be read
+	// Uncomputed counts the cases with a cell that could not be computed.
+	Uncomputed int
+	Checks     []CheckSummary
 }
 
 // Failing reports whether any case failed a check or could not assess one.
@@ -50,6 +52,9 @@ func (o *Outcome) Summarize() *Summary {
 			s.Bad++
 			continue
 		}
+		if r.Uncomputed {
+			s.Uncomputed++
+		}
 		for k, u := range r.Utils {
 			cs := &s.Checks[k]
 			switch {
@@ -73,9 +78,26 @@ func (o *Outcome) Summarize() *Summary {
 func (s *Summary) Write(w io.Writer, file string) error {
 	var b strings.Builder
 	good := s.Cases - s.Bad
+	if good == 0 {
+		// Nothing was evaluated: no check line may read as "ok".
+		if s.Cases == 0 {
+			b.WriteString("no case evaluated: the table has a header but no rows\n")
+		} else {
+			rows := fmt.Sprintf("all %d rows of %s are bad", s.Cases, file)
+			if s.Cases == 1 {
+				rows = fmt.Sprintf("the only row of %s is bad", file)
+			}
+			fmt.Fprintf(&b, "no case evaluated: %s (see above); no check was assessed\n", rows)
+		}
+		_, err := io.WriteString(w, b.String())
+		return err
+	}
 	b.WriteString(plural.Count(good, "case") + " evaluated")
 	if s.Bad > 0 {
 		b.WriteString(", " + plural.Count(s.Bad, "bad row") + " skipped")
+	}
+	if s.Uncomputed > 0 {
+		b.WriteString(", " + plural.Count(s.Uncomputed, "case") + " with cells that could not be computed")
 	}
 	b.WriteString("\n")
 	width := 0

@@ -1,6 +1,7 @@
 package batch
 
 import (
+	"context"
 	"encoding/csv"
 	"fmt"
 	"io"
@@ -44,14 +45,22 @@ func title(name string, u units.Unit) string {
 
 // cell is one output field: a number (in its display unit) or a text.
 type cell struct {
-	num   float64
-	text  string
-	isNum bool
+	num    float64 // si/factor
+	si     float64
+	factor float64 // of the unit num is in; 1 for plain numbers
+	text   string
+	isNum  bool
+}
+
+// formatted writes a number cell as the CSV and a too-large workbook entry
+// carry it: never +Inf for a finite value (2.36e304 m² in mm² is 2.36e310).
+func (c cell) formatted(sig int) string {
+	return units.Format(c.si, units.Unit{Factor: c.factor}, sig)
 }
 
 // fields lays out row r like Header. Unknown numbers are empty.
 func (o *Outcome) fields(r *Row, dst []cell) []cell {
-	dst = append(dst[:0], cell{num: float64(r.Case.N), isNum: true})
+	dst = append(dst[:0], number(float64(r.Case.N), 1))
 	for j, c := range o.Cases.Columns {
 		switch {
 		case r.Case.Values == nil:
@@ -62,21 +71,21 @@ func (o *Outcome) fields(r *Row, dst []cell) []cell {
 			}
 		default:
 			if x, ok := r.Case.Values[j].(float64); ok {
-				dst = append(dst, number(x/c.Unit.Factor))
+				dst = append(dst, number(x, c.Unit.Factor))
 			} else {
 				dst = append(dst, cell{text: r.Case.Raw[j]})
 			}
 		}
 	}
 	for k, x := range r.Picks {
-		dst = append(dst, number(x/o.PickUnit(k).Factor))
+		dst = append(dst, number(x, o.PickUnit(k).Factor))
 	}
 	combos := o.Sheet.Combos() != nil
 	if combos {
 		dst = append(dst, cell{text: r.Shown})
 	}
 	for k, u := range r.Utils {
-		dst = append(dst, number(u), cell{text: r.Verdict(k)})
+		dst = append(dst, number(u, 1), cell{text: r.Verdict(k)})
 		if combos {
 			g := ""
 			if k < len(r.Governing) {
@@ -92,18 +101,83 @@ func (o *Outcome) fields(r *Row, dst []cell) []cell {
 	return append(dst, cell{text: problem})
 }
 
-func number(x float64) cell {
-	if math.IsNaN(x) {
+// number is the cell of the SI value si shown in a unit of the given factor.
+func number(si, factor float64) cell {
+	if math.IsNaN(si) {
 		return cell{}
 	}
-	return cell{num: x, isNum: true}
+	return cell{num: si / factor, si: si, factor: factor, isNum: true}
+}
+
+// Inert makes a text field of CSV output safe to open in a spreadsheet
+// program: a field that starts with `=`, `+`, `-`, `@`, a tab or a carriage
+// return would be read there as a formula (a bad row's raw text such as
+// `=HYPERLINK(...)` would become a live link, or worse), so it gets a
+// leading single quote, which such programs show as text. A field that is a
+// plain decimal number (`-12.5`, `+3e4`) is left alone: numbers stay
+// numbers. Source: OWASP, "CSV Injection" (the characters and the quote
+// prefix).
+func Inert(s string) string {
+	if s == "" {
+		return s
+	}
+	switch s[0] {
+	case '=', '+', '-', '@', '\t', '\r':
+		if plainNumber(s) {
+			return s
+		}
+		return "'" + s
+	}
+	return s
+}
+
+// plainNumber reports whether s is a decimal number with an optional sign
+// and exponent, nothing else: digits, at most one point, then e or E with
+// an optional sign and digits.
+func plainNumber(s string) bool {
+	i := 0
+	if i < len(s) && (s[i] == '+' || s[i] == '-') {
+		i++
+	}
+	digits := 0
+	for ; i < len(s) && s[i] >= '0' && s[i] <= '9'; i++ {
+		digits++
+	}
+	if i < len(s) && s[i] == '.' {
+		i++
+		for ; i < len(s) && s[i] >= '0' && s[i] <= '9'; i++ {
+			digits++
+		}
+	}
+	if digits == 0 {
+		return false
+	}
+	if i < len(s) && (s[i] == 'e' || s[i] == 'E') {
+		i++
+		if i < len(s) && (s[i] == '+' || s[i] == '-') {
+			i++
+		}
+		exp := 0
+		for ; i < len(s) && s[i] >= '0' && s[i] <= '9'; i++ {
+			exp++
+		}
+		if exp == 0 {
+			return false
+		}
+	}
+	return i == len(s)
 }
 
 // WriteCSV writes the outcome as CSV, numbers with sig significant figures
-// in plain or e-notation (units.FormatNumber), rows in case order.
+// in plain or e-notation (units.FormatNumber), rows in case order. Every
+// text field passes through Inert.
 func (o *Outcome) WriteCSV(w io.Writer, sig int) error {
 	cw := csv.NewWriter(w)
-	if err := cw.Write(o.Header()); err != nil {
+	hdr := o.Header()
+	for i, h := range hdr {
+		hdr[i] = Inert(h)
+	}
+	if err := cw.Write(hdr); err != nil {
 		return err
 	}
 	var fs []cell
@@ -113,9 +187,9 @@ func (o *Outcome) WriteCSV(w io.Writer, sig int) error {
 		rec = rec[:0]
 		for _, f := range fs {
 			if f.isNum {
-				rec = append(rec, units.FormatNumber(f.num, sig))
+				rec = append(rec, f.formatted(sig))
 			} else {
-				rec = append(rec, f.text)
+				rec = append(rec, Inert(f.text))
 			}
 		}
 		if err := cw.Write(rec); err != nil {
@@ -131,6 +205,13 @@ func (o *Outcome) WriteCSV(w io.Writer, sig int) error {
 // chart them. The file's properties carry no timestamp that changes from
 // run to run beyond what the library writes.
 func (o *Outcome) WriteXLSX(w io.Writer) error {
+	return o.WriteXLSXContext(context.Background(), w)
+}
+
+// WriteXLSXContext is WriteXLSX that stops with ctx's error when ctx ends
+// (an interrupted command), checked every few hundred rows: a workbook of
+// many cases takes seconds to build.
+func (o *Outcome) WriteXLSXContext(ctx context.Context, w io.Writer) error {
 	f := excelize.NewFile()
 	defer f.Close()
 	const name = "cases"
@@ -158,10 +239,15 @@ func (o *Outcome) WriteXLSX(w io.Writer) error {
 	}
 	var fs []cell
 	for i := range o.Rows {
+		if i%256 == 0 && ctx.Err() != nil {
+			return ctx.Err()
+		}
 		fs = o.fields(&o.Rows[i], fs)
 		row = row[:0]
 		for _, c := range fs {
 			switch {
+			case c.isNum && math.IsInf(c.num, 0) && !math.IsInf(c.si, 0):
+				row = append(row, c.formatted(15)) // beyond a spreadsheet number: text (15 figures, as a spreadsheet keeps), not +Inf
 			case c.isNum:
 				row = append(row, c.num)
 			case c.text == "":

@@ -62,13 +62,13 @@ var Builtins = []BuiltinInfo{
 	{BExp, "exp", "exp(x)", "x is a plain number; the result is a plain number"},
 	{BLn, "ln", "ln(x)", "x is a plain number; normalise first, e.g. ln(t / (1 s))"},
 	{BLog10, "log10", "log10(x)", "x is a plain number"},
-	{BSin, "sin", "sin(angle)", "an angle (plain number in radians; write 30 deg for degrees)"},
-	{BCos, "cos", "cos(angle)", "an angle (plain number in radians; write 30 deg for degrees)"},
-	{BTan, "tan", "tan(angle)", "an angle (plain number in radians; write 30 deg for degrees)"},
-	{BAsin, "asin", "asin(x)", "x is a plain number; the result is an angle in radians"},
-	{BAcos, "acos", "acos(x)", "x is a plain number; the result is an angle in radians"},
-	{BAtan, "atan", "atan(x)", "x is a plain number; the result is an angle in radians"},
-	{BAtan2, "atan2", "atan2(y, x)", "y and x of one dimension; the result is an angle in radians"},
+	{BSin, "sin", "sin(angle)", "an angle such as 30 deg or 0.5 rad, not a plain number; the result is a plain number"},
+	{BCos, "cos", "cos(angle)", "an angle such as 30 deg or 0.5 rad, not a plain number; the result is a plain number"},
+	{BTan, "tan", "tan(angle)", "an angle such as 30 deg or 0.5 rad, not a plain number; the result is a plain number"},
+	{BAsin, "asin", "asin(x)", "x is a plain number; the result is an angle"},
+	{BAcos, "acos", "acos(x)", "x is a plain number; the result is an angle"},
+	{BAtan, "atan", "atan(x)", "x is a plain number; the result is an angle"},
+	{BAtan2, "atan2", "atan2(y, x)", "y and x of one dimension; the result is an angle"},
 	{BHypot, "hypot", "hypot(a, b, ...)", "all arguments of one dimension; the result has it"},
 	{BRound, "round", "round(x, step) or round(x)", "x and step of one dimension; round(x) needs a plain number"},
 	{BFloor, "floor", "floor(x)", "x is a plain number"},
@@ -102,7 +102,7 @@ type Constant struct {
 // IsReserved reports whether name may not be used for a cell.
 func IsReserved(name string) bool {
 	switch name {
-	case "check", "table", "use", "from", "true", "false", "and", "or", "not", "nil", "let", "in", "if", "else":
+	case "check", "table", "use", "from", "action", "factor", "true", "false", "and", "or", "not", "nil", "let", "in", "if", "else":
 		return true
 	}
 	_, c := Constants[name]
@@ -110,7 +110,13 @@ func IsReserved(name string) bool {
 	return c || b
 }
 
-var numNone = funcs.Num(units.None)
+var (
+	numNone = funcs.Num(units.None)
+	// angleDim is the dimension of a plane angle, which the checker keeps
+	// apart from plain numbers (SPEC.md §3): sin takes one, atan gives one.
+	angleDim = units.Base(units.Angle)
+	numAngle = funcs.Num(angleDim)
+)
 
 // builtinType applies the dimension rule of b to the argument nodes. It
 // returns the result type or a problem (summary, hint) and the index of the
@@ -144,6 +150,21 @@ func (t *typer) builtinType(b BuiltinInfo, args []*Node) (*funcs.Type, *argProbl
 				"divide by a unit to normalise, e.g. " + b.Name + "(x / (1 " + t.unitOf(args[i].Type.Dim) + "))"}
 		}
 		return nil
+	}
+	angle := func(i int) *argProblem {
+		if p := num(i); p != nil {
+			return p
+		}
+		switch d := args[i].Type.Dim; {
+		case d == angleDim:
+			return nil
+		case d.IsNone():
+			return &argProblem{i, b.Name + " needs an angle, got a plain number",
+				"write 30 deg or x * 1 rad"}
+		default:
+			return &argProblem{i, fmt.Sprintf("%s needs an angle, got %s", b.Name, t.describeDim(d)),
+				"check the formula: an angle is written 30 deg or 0.5 rad, or comes from atan2(y, x) or a cell shown in [deg]"}
+		}
 	}
 	list := func(i int) *argProblem {
 		if args[i].Type.Kind != funcs.List || args[i].Type.Elem.Kind != funcs.Number {
@@ -205,7 +226,7 @@ func (t *typer) builtinType(b BuiltinInfo, args []*Node) (*funcs.Type, *argProbl
 			return nil, p
 		}
 		return t.powType(args[0], args[1], b.Name)
-	case BExp, BLn, BLog10, BSin, BCos, BTan, BAsin, BAcos, BAtan, BFloor, BCeil:
+	case BExp, BLn, BLog10, BFloor, BCeil:
 		if p := arity(1, 1); p != nil {
 			return nil, p
 		}
@@ -213,6 +234,22 @@ func (t *typer) builtinType(b BuiltinInfo, args []*Node) (*funcs.Type, *argProbl
 			return nil, p
 		}
 		return numNone, nil
+	case BSin, BCos, BTan:
+		if p := arity(1, 1); p != nil {
+			return nil, p
+		}
+		if p := angle(0); p != nil {
+			return nil, p
+		}
+		return numNone, nil
+	case BAsin, BAcos, BAtan:
+		if p := arity(1, 1); p != nil {
+			return nil, p
+		}
+		if p := plain(0); p != nil {
+			return nil, p
+		}
+		return numAngle, nil
 	case BAtan2:
 		if p := arity(2, 2); p != nil {
 			return nil, p
@@ -220,14 +257,18 @@ func (t *typer) builtinType(b BuiltinInfo, args []*Node) (*funcs.Type, *argProbl
 		if _, p := same(0); p != nil {
 			return nil, p
 		}
-		return numNone, nil
+		return numAngle, nil
 	case BRound:
 		if p := arity(1, 2); p != nil {
 			return nil, p
 		}
 		if n == 1 {
 			if p := plain(0); p != nil {
-				p.hint = "round to a step of the same unit: round(x, 5 mm)"
+				if args[0].Type.Kind == funcs.Number {
+					// round(30.4 deg) would round a number of radians: a step in
+					// the unit says what is rounded.
+					p.hint = "round to a step of the same unit, e.g. round(x, 1 " + t.unitOf(args[0].Type.Dim) + ")"
+				}
 				return nil, p
 			}
 			return numNone, nil
@@ -294,13 +335,81 @@ func (t *typer) powType(x, e *Node, what string) (*funcs.Type, *argProblem) {
 	for den := 1; den <= 12; den++ {
 		num := v * float64(den)
 		if math.Abs(num-math.Round(num)) < 1e-9 && math.Abs(num) < 1000 {
-			if d, ok := x.Type.Dim.Pow(int(math.Round(num)), den); ok {
+			n := int(math.Round(num))
+			if d, ok := x.Type.Dim.Pow(n, den); ok {
 				return funcs.Num(d), nil
+			}
+			if powOverflows(x.Type.Dim, n, den) {
+				return nil, &argProblem{1, fmt.Sprintf("%s to the power %g is beyond the range of dimension exponents", t.describeDim(x.Type.Dim), v),
+					t.overflowHint(x.Type.Dim)}
 			}
 			break
 		}
 	}
 	return nil, &argProblem{1, fmt.Sprintf("%s to the power %g has no dimension Sheaf can write", t.describeDim(x.Type.Dim), v), "use whole or half powers, or normalise the base"}
+}
+
+// powOverflows reports whether d^(num/den) fails only because an exponent
+// would leave the range of a units.Dim (the power is otherwise exact).
+func powOverflows(d units.Dim, num, den int) bool {
+	over := false
+	for _, e := range d {
+		p := int(e) * num
+		if p%den != 0 {
+			return false
+		}
+		if p/den > units.MaxExp2 || p/den < -units.MaxExp2 {
+			over = true
+		}
+	}
+	return over
+}
+
+// overflowDetail explains the limit behind an overflow message.
+const overflowDetail = "Sheaf keeps every dimension exponent between -63 and 63; an expression beyond them cannot be a physical quantity of a design calculation"
+
+// overflowHint is the hint of an exponent overflow of a quantity of dimension d.
+func (t *typer) overflowHint(d units.Dim) string {
+	if u := t.unitOf(d); parses(u) {
+		return "normalise first, e.g. (x / (1 " + u + "))^n"
+	}
+	return "normalise the base to a plain number before raising it to a power"
+}
+
+// parses reports whether a unit symbol can be written in a sheet (a
+// coherent symbol such as m^-32 is beyond the exponents a unit may carry).
+func parses(sym string) bool {
+	_, err := units.Parse(sym)
+	return err == nil
+}
+
+// angleArgHint is the start of the hint for a plain number passed where an
+// angle is wanted ("write 90 deg ...; "), and "" for any other mismatch.
+func angleArgHint(want, got *funcs.Type) string {
+	if want.Kind == funcs.Number && want.Dim == angleDim && got.Kind == funcs.Number && got.Dim.IsNone() {
+		return "write the angle with its unit, as in 90 deg, or x * 1 rad for a number of radians; "
+	}
+	return ""
+}
+
+// dimOverflow is the problem of a product or quotient (op "*" or "/") of
+// dimensions a and b whose result d left the range of a units.Dim
+// (units.Overflow); nil when d is a dimension. The typer reports it at the
+// operator's expression: an overflow is never wrapped into a wrong dimension
+// (issue 15), e.g. (m^-32)·(m^-32) shown as m^-64 or as a plain number.
+func (t *typer) dimOverflow(d units.Dim, op string, a, b units.Dim) *argProblem {
+	if d.Valid() {
+		return nil
+	}
+	verb := "multiplying"
+	if op == "/" {
+		verb = "dividing"
+	}
+	hint := "normalise a factor to a plain number first, dividing it by its unit"
+	if u := t.unitOf(a); parses(u) {
+		hint = "normalise a factor to a plain number first, e.g. x / (1 " + u + ")"
+	}
+	return &argProblem{-1, fmt.Sprintf("%s %s by %s gives a dimension exponent out of range", verb, t.describeDim(a), t.describeDim(b)), hint}
 }
 
 // fold evaluates a constant plain-number expression.

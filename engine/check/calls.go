@@ -134,7 +134,7 @@ func (t *typer) pluginCall(n int32, def *funcs.Def, argNodes []int32) *Node {
 		}
 		args[i], types[i] = x, x.Type
 		if p != nil && !p.Type.Accepts(x.Type) {
-			t.fail(a, fmt.Sprintf("%s of %s must be %s, got %s", p.Name, def.Name, t.describeType(p.Type), t.describeType(x.Type)), p.Doc, "see `sheaf funcs "+def.Name+"`")
+			t.fail(a, fmt.Sprintf("%s of %s must be %s, got %s", p.Name, def.Name, t.describeType(p.Type), t.describeType(x.Type)), p.Doc, angleArgHint(p.Type, x.Type)+"see `sheaf funcs "+def.Name+"`")
 			ok = false
 		}
 	}

@@ -21,6 +21,9 @@ type Options struct {
 	MaxBytes  int          // size of a template file; 0 means sheet.DefaultMaxBytes
 	System    units.System // preferred units in messages; Neutral means the sheet's own
 	HasSystem bool
+	// Loader reads the templates the sheet uses; nil means the files on
+	// disk beside the sheet (NewFileLoader of the sheet's name).
+	Loader Loader
 }
 
 // DefaultMaxCells is the default limit on the number of cells of a sheet.
@@ -61,11 +64,13 @@ func Sheet(f *sheet.File, opt Options) (*Program, diag.List) {
 		c.errs.Sort()
 		return c.prog, c.errs
 	}
+	c.confusableNames()
 	c.parseAll()
 	c.applyOverrides()
 	c.resolve()
 	c.order()
 	c.typeAll()
+	c.budget()
 	c.errs.Sort()
 	return c.prog, c.errs
 }
@@ -282,10 +287,21 @@ func (c *checker) table(cell *Cell, t *sheet.Table) {
 		ok = false
 	}
 	val := &funcs.TableValue{Type: ty, Cols: make([][]float64, len(t.Columns))}
-	for _, row := range t.Rows {
+	for r, row := range t.Rows {
 		for i, lit := range row {
 			if i >= len(val.Cols) {
 				break
+			}
+			if lit.Expr {
+				f, ferrs := formula.Parse(sheet.Expr{Text: lit.Text, Range: lit.Range}, formula.Options{MaxDepth: c.opt.MaxDepth})
+				c.errs = append(c.errs, ferrs...)
+				if f == nil || ferrs.HasErrors() {
+					ok = false
+					continue
+				}
+				cell.Entries = append(cell.Entries, Entry{Row: r, Col: i, Formula: f})
+				val.Cols[i] = append(val.Cols[i], 0) // set at evaluation
+				continue
 			}
 			v, err := strconv.ParseFloat(strings.ReplaceAll(lit.Text, "_", ""), 64)
 			if err != nil {
@@ -298,6 +314,39 @@ func (c *checker) table(cell *Cell, t *sheet.Table) {
 	}
 	if ok {
 		cell.Type, cell.Table = ty, val
+	}
+}
+
+// typeEntries types the expression entries of table cell, each against
+// the dimension of its column; the table is left untyped when one fails
+// (or when a cell it reads failed, silently).
+func (c *checker) typeEntries(cell *Cell, sys units.System) {
+	for _, j := range cell.DepIdx {
+		if c.typeOf(j) == nil {
+			cell.Type = nil // reported where it failed
+			return
+		}
+	}
+	for k := range cell.Entries {
+		e := &cell.Entries[k]
+		t := &typer{c: c, f: e.Formula, cell: cell, system: sys, errs: &c.errs}
+		n := t.expr(e.Formula.Root)
+		if n == nil {
+			cell.Type = nil
+			continue
+		}
+		col := cell.Type.Fields[e.Col]
+		if n.Type.Kind != funcs.Number || n.Type.Dim != col.Type.Dim {
+			c.errs.Errorf(e.Formula.Source.Range, "an entry of column `"+col.Name+"` must be "+article(t.describeDim(col.Type.Dim))+", as its header says",
+				"write the entry in the unit of its column's dimension, or correct the formula",
+				"table entry is %s, column `%s` is %s", article(t.describeType(n.Type)), col.Name, article(t.describeDim(col.Type.Dim)))
+			cell.Type = nil
+			continue
+		}
+		e.Node = n
+	}
+	if cell.Type == nil {
+		cell.Table = nil
 	}
 }
 
@@ -354,27 +403,36 @@ func (c *checker) resolve() {
 func (c *checker) resolveCell(i int, seen []int32) {
 	p := c.prog
 	cell := p.Cells[i]
-	if cell.Formula == nil {
-		return
+	if cell.Formula != nil {
+		c.resolveRefs(i, cell.Formula, seen)
 	}
-	for _, r := range cell.Formula.Refs {
-		if isParam(cell, cell.Formula.Text(r)) {
+	for _, e := range cell.Entries {
+		c.resolveRefs(i, e.Formula, seen)
+	}
+	if cell.Kind == Derived && len(cell.DepIdx) == 0 {
+		cell.Kind = Input
+	}
+}
+
+// resolveRefs adds the cells formula f of cell i reads to its dependencies.
+func (c *checker) resolveRefs(i int, f *formula.Formula, seen []int32) {
+	p := c.prog
+	cell := p.Cells[i]
+	for _, r := range f.Refs {
+		if isParam(cell, f.Text(r)) {
 			continue
 		}
-		j, ok := c.ref(cell, r)
+		j, ok := c.ref(cell, f, r)
 		if !ok || seen[j] == int32(i+1) {
 			continue
 		}
 		seen[j] = int32(i + 1)
 		if cell.DepIdx == nil {
-			cell.DepIdx = make([]int, 0, len(cell.Formula.Refs))
-			cell.Deps = make([]string, 0, len(cell.Formula.Refs))
+			cell.DepIdx = make([]int, 0, len(f.Refs))
+			cell.Deps = make([]string, 0, len(f.Refs))
 		}
 		cell.DepIdx = append(cell.DepIdx, j)
 		cell.Deps = append(cell.Deps, p.Cells[j].Name)
-	}
-	if cell.Kind == Derived && len(cell.DepIdx) == 0 {
-		cell.Kind = Input
 	}
 }
 
@@ -391,6 +449,11 @@ func isParam(cell *Cell, name string) bool {
 // come in a fixed order (cells in reading order, then built-ins, constants
 // and plugin functions), since diag.Nearest breaks ties by order.
 func (c *checker) suggest(name string) string {
+	if len(c.errs) >= diag.MaxShown {
+		// Past the problems a user is shown, a suggestion is never read:
+		// skipping it keeps a sheet of thousands of mistakes linear.
+		return ""
+	}
 	if c.names == nil {
 		for _, cell := range c.prog.Cells {
 			c.names = append(c.names, cell.Name)
@@ -436,6 +499,9 @@ func (c *checker) typeAll() {
 func (c *checker) typeOne(i int, sys units.System) {
 	cell := c.prog.Cells[i]
 	if cell.Kind == Table {
+		if len(cell.Entries) > 0 && cell.Type != nil {
+			c.typeEntries(cell, sys)
+		}
 		return // typed when read
 	}
 	if cell.Formula == nil || cell.Formula.Root < 0 {
@@ -554,10 +620,13 @@ func (c *checker) fitsUnit(t *typer, cell *Cell, body *Node) bool {
 		if cell.Unit.Quantity != "" {
 			what = cell.Unit.Quantity
 		}
+		hint := "write the unit of the result, e.g. [" + t.unitOf(body.Type.Dim) + "], or correct the formula"
+		if body.Type.Dim.IsNone() {
+			hint = plainNumberHint(cell.Unit, body)
+		}
 		t.errs.Errorf(cell.Formula.Source.Range,
 			"the unit in brackets sets how the value is shown and must have the dimension of the expression",
-			"write the unit of the result, e.g. ["+t.unitOf(body.Type.Dim)+"], or correct the formula",
-			"display unit %s is %s but the expression is %s", cell.Unit.Symbol, article(what), t.describeDim(body.Type.Dim))
+			hint, "display unit %s is %s but the expression is %s", cell.Unit.Symbol, article(what), t.describeDim(body.Type.Dim))
 		return false
 	}
 	return true

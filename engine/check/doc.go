@@ -5,6 +5,12 @@
 // Problems of the whole file are collected at once, each with a range, a
 // detail sentence and a hint.
 //
+// A plane angle is a dimension of its own (units.Angle), not a plain number:
+// sin, cos and tan take one, asin, acos, atan and atan2 give one, and a
+// plain number in a cell shown in degrees is refused (builtins.go). A product
+// or quotient whose dimension exponent overflows (units.Overflow) is an error
+// at that expression, never a wrapped dimension.
+//
 // One mistake gives one message, yet a second, independent mistake is not
 // hidden by the first: a cell that fails but declares its dimension (a
 // display unit `P [kN] = ...`, or a user function's result unit) stands in
@@ -13,8 +19,10 @@
 // that failed or were typed from stand-ins stay untyped and never run.
 //
 // A sheet that uses templates (`use rod from "hanger.sheaf"`) is checked
-// as one program: the loader (template.go) finds each template inside the
-// project root, refuses escapes and loops, and reads each file once; the
+// as one program: the checker asks the caller's Loader (template.go) for
+// each template — the files on disk by default (fileloader.go: inside the
+// project root, regular files only), or a git revision — refuses absolute
+// paths and loops, and parses each file once; the
 // template's cells are inlined under qualified names such as `rod.sigma`
 // (use.go), so dependencies, typing and evaluation cross the boundary
 // without a second mechanism. Positions keep their own file, and

@@ -107,9 +107,10 @@ func (n *Node) Range() diag.Range {
 	return n.F.Source.RangeAt(int(n.From), int(n.To))
 }
 
-// Text returns the source text of the node as written ("" when it has none).
+// Text returns the source text of the node as written ("" when it has
+// none), e.g. `N_plRd` or `0.9 * A_s * f_ub / gamma_M2`.
 func (n *Node) Text() string {
-	if n.F == nil || n.From < 0 || int(n.To) > len(n.F.Source.Text) || n.From > n.To {
+	if n.F == nil || n.From < 0 || int(n.To) > len(n.F.Source.Text) || n.From >= n.To {
 		return ""
 	}
 	return n.F.Source.Text[n.From:n.To]

@@ -68,8 +68,10 @@ type Cell struct {
 	Op               string
 	// Function cells: the parameters.
 	Params []Param
-	// Table cells: the value, in SI.
-	Table *funcs.TableValue
+	// Table cells: the value, in SI. An entry written as an expression
+	// holds 0 here; Entries computes it.
+	Table   *funcs.TableValue
+	Entries []Entry
 	// Action is the item of an action cell (`action permanent G = ...`),
 	// nil for every other cell.
 	Action *sheet.Action
@@ -77,6 +79,15 @@ type Cell struct {
 	// default one).
 	LimitState      string
 	LimitStateRange diag.Range
+}
+
+// Entry is a table entry written as an expression of the sheet's cells,
+// such as `(A_p)`: its place in the table, its formula and its typed tree,
+// whose value in SI is the entry.
+type Entry struct {
+	Row, Col int
+	Formula  *formula.Formula
+	Node     *Node
 }
 
 // Param is a parameter of a user function.

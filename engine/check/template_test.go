@@ -1,9 +1,12 @@
 package check
 
 import (
+	"fmt"
 	"os"
 	"path/filepath"
 	"testing"
+
+	"github.com/sheafcalc/sheaf/engine/sheet"
 )
 
 // TestWithin: containment is decided on cleaned absolute paths, by path
@@ -63,5 +66,35 @@ func TestProjectRoot(t *testing.T) {
 		if got := projectRoot(filepath.Join(base, c.start)); got != filepath.Join(base, c.want) {
 			t.Errorf("projectRoot(%s) = %s, want %s", c.start, got, filepath.Join(base, c.want))
 		}
+	}
+}
+
+// TestUseBudget: templates that use the next one twice, 33 levels deep
+// (2^32 cells from 33 files of two lines), are refused at the first use
+// line before any cell is made.
+func TestUseBudget(t *testing.T) {
+	dir := t.TempDir()
+	if err := os.WriteFile(filepath.Join(dir, RootMarker), nil, 0o644); err != nil {
+		t.Fatal(err)
+	}
+	for i := 0; i < 33; i++ {
+		text := "x = 1\n"
+		if i < 32 {
+			next := fmt.Sprintf("t%d.sheaf", i+1)
+			text = fmt.Sprintf("use a from %q\nuse b from %q\n", next, next)
+		}
+		if err := os.WriteFile(filepath.Join(dir, fmt.Sprintf("t%d.sheaf", i)), []byte(text), 0o644); err != nil {
+			t.Fatal(err)
+		}
+	}
+	top := filepath.Join(dir, "t0.sheaf")
+	src, _ := os.ReadFile(top)
+	f, _ := sheet.Parse(top, src)
+	p, errs := Sheet(f, Options{MaxCells: 100_000})
+	if len(errs) == 0 || errs[0].Summary != "template use too large" || errs[0].Range.Start.Line != 1 {
+		t.Fatalf("errors: %v", errs)
+	}
+	if len(p.Cells) > 100_000 {
+		t.Fatalf("%d cells made", len(p.Cells))
 	}
 }

@@ -242,10 +242,15 @@ func (t *typer) binary(n int32) *Node {
 			return t.node(n, OpAdd, a.Type, a, b)
 		}
 		return t.node(n, OpSub, a.Type, a, b)
-	case "*":
-		return t.node(n, OpMul, t.c.arena.num(da.Mul(db)), a, b)
-	case "/":
-		return t.node(n, OpDiv, t.c.arena.num(da.Div(db)), a, b)
+	case "*", "/":
+		d, o := da.Mul(db), OpMul
+		if op == "/" {
+			d, o = da.Div(db), OpDiv
+		}
+		if p := t.dimOverflow(d, op, da, db); p != nil {
+			return t.fail(n, p.summary, overflowDetail, p.hint)
+		}
+		return t.node(n, o, t.c.arena.num(d), a, b)
 	case "^":
 		ty, p := t.powType(a, b, "`^`")
 		if p != nil {

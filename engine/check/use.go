@@ -1,7 +1,9 @@
 package check
 
 import (
+	"fmt"
 	"slices"
+	"strconv"
 	"strings"
 
 	"github.com/sheafcalc/sheaf/engine/diag"
@@ -31,6 +33,8 @@ type uses struct {
 	// targets caches, per formula, the cell each member chain `rod.x`
 	// refers to, keyed by the chain's root identifier.
 	targets map[*formula.Formula]map[int32]int
+	// cells caches expandedCells by file.
+	cells map[*sheet.File]int
 }
 
 // alias is a name given by `use NAME from ...`.
@@ -73,8 +77,8 @@ func (u *uses) aliasPos(name string) diag.Pos {
 // and inlines its cells.
 func (c *checker) useTemplate(from *sheet.File, u *sheet.Use, scope string, depth int) {
 	if c.use == nil {
-		c.use = &uses{ld: newLoader(c.prog.File, c.opt.MaxBytes), aliases: map[string]*alias{},
-			replaced: map[int]*replaced{}, targets: map[*formula.Formula]map[int32]int{}}
+		c.use = &uses{ld: newLoader(c.prog.File, c.opt), aliases: map[string]*alias{},
+			replaced: map[int]*replaced{}, targets: map[*formula.Formula]map[int32]int{}, cells: map[*sheet.File]int{}}
 	}
 	name := scope + u.Name.Name
 	if IsReserved(u.Name.Name) {
@@ -99,6 +103,19 @@ func (c *checker) useTemplate(from *sheet.File, u *sheet.Use, scope string, dept
 		return
 	}
 	defer c.use.ld.done()
+	// Count the cells the use brings in, its own templates' included,
+	// before making any: a few small files that use each other twice at
+	// every level would otherwise make millions of cells first.
+	if n := c.expandedCells(f); len(c.prog.Cells)+n > c.opt.MaxCells {
+		a.failed = true
+		what := countText(n)
+		if n > c.opt.MaxCells {
+			what = "more than " + countText(c.opt.MaxCells) // the count stops there
+		}
+		c.errs.Errorf(u.Range, fmt.Sprintf("using %s here brings in %s cells (its own templates' included); a sheet may hold at most %s", f.Name, what, countText(c.opt.MaxCells)),
+			"use the inner templates once each, or split the calculation into sheets", "template use too large")
+		return
+	}
 	a.file = f.Name
 	if !slices.Contains(c.prog.Files, f) {
 		c.prog.Files = append(c.prog.Files, f)
@@ -129,28 +146,27 @@ func (t *typer) scope() string {
 // ref returns the cell a formula's name refers to: a cell of its scope, or
 // for the root of a chain `rod.x`, the template's cell `rod.x`. n is the
 // KName node of the reference in cell's formula.
-func (c *checker) ref(cell *Cell, n int32) (int, bool) {
-	name := cell.Formula.Text(n)
+func (c *checker) ref(cell *Cell, f *formula.Formula, n int32) (int, bool) {
+	name := f.Text(n)
 	if i, ok := c.local(cell, name); ok {
 		return i, true
 	}
 	if c.use == nil || !c.use.isAlias(cell.Scope+name) {
 		return 0, false
 	}
-	m, ok := c.use.targets[cell.Formula]
+	m, ok := c.use.targets[f]
 	if !ok {
-		m = c.memberTargets(cell)
-		c.use.targets[cell.Formula] = m
+		m = c.memberTargets(cell, f)
+		c.use.targets[f] = m
 	}
 	i, ok := m[n]
 	return i, ok
 }
 
-// memberTargets finds the member chains of cell's formula that name a
+// memberTargets finds the member chains of formula f of cell that name a
 // template's cell, keyed by the chain's root name node.
-func (c *checker) memberTargets(cell *Cell) map[int32]int {
+func (c *checker) memberTargets(cell *Cell, f *formula.Formula) map[int32]int {
 	m := map[int32]int{}
-	f := cell.Formula
 	for k := range f.Nodes {
 		nd := &f.Nodes[k]
 		if nd.Kind != formula.KField {
@@ -286,7 +302,7 @@ func (c *checker) firstCell(prefix string) string {
 
 // suggestIn returns the known name nearest to name in scope, or "".
 func (c *checker) suggestIn(scope, name string) string {
-	if scope == "" {
+	if scope == "" || len(c.errs) >= diag.MaxShown {
 		return c.suggest(name)
 	}
 	names := c.localNames(scope)
@@ -399,7 +415,7 @@ func (c *checker) templateDeps(cell *Cell) []string {
 		if isParam(cell, cell.Formula.Text(r)) {
 			continue
 		}
-		if j, ok := c.ref(cell, r); ok {
+		if j, ok := c.ref(cell, cell.Formula, r); ok {
 			n := strings.TrimPrefix(c.prog.Cells[j].Name, cell.Scope)
 			if !slices.Contains(out, n) {
 				out = append(out, n)
@@ -443,4 +459,42 @@ func (c *checker) fitsOverride(t *typer, cell *Cell, body *Node) bool {
 	t.errs.Errorf(cell.Formula.Source.Range, "a use block replaces an input with a value of the same kind, so that the template's formulas keep their units",
 		hint, "`%s` of template `%s` is %s, but this value is %s", local, written, article(t.describeType(want.Type)), article(t.describeType(body.Type)))
 	return false
+}
+
+// expandedCells returns the number of cells template f brings in when it
+// is used, counting its own uses of templates (each file counted once and
+// remembered). A file that cannot be read counts for none: the expansion
+// itself reports it.
+func (c *checker) expandedCells(f *sheet.File) int {
+	if n, ok := c.use.cells[f]; ok {
+		return n
+	}
+	c.use.cells[f] = 0 // a loop: reported by the expansion
+	n := 0
+	var scratch diag.List
+	for _, it := range f.Items {
+		switch it := it.(type) {
+		case *sheet.Cell, *sheet.FuncDef, *sheet.Check, *sheet.Table:
+			n++
+		case *sheet.Use:
+			if g := c.use.ld.open(f, it, &scratch); g != nil {
+				n += c.expandedCells(g)
+				c.use.ld.done()
+			}
+		}
+		if n > c.opt.MaxCells {
+			break // enough to refuse; stops the count growing past int
+		}
+	}
+	c.use.cells[f] = n
+	return n
+}
+
+// countText writes a large count as a person reads it: 12,345,678.
+func countText(n int) string {
+	s := strconv.Itoa(n)
+	for i := len(s) - 3; i > 0; i -= 3 {
+		s = s[:i] + "," + s[i:]
+	}
+	return s
 }

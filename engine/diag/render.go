@@ -21,17 +21,29 @@ type Sources map[string][]byte
 // followed by a blank line. Files missing from src get no snippet.
 func Render(w io.Writer, l List, src Sources) error {
 	var b strings.Builder
-	for _, d := range l {
-		b.WriteString(d.Error())
+	lines := map[string][]int{} // line starts of each file, made on first use
+	for k, d := range l {
+		if k == MaxShown {
+			fmt.Fprintf(&b, "... and %d more problems not shown; correct the ones above and check again\n\n", len(l)-k)
+			break
+		}
+		// Messages quote what the user wrote; a control character or a
+		// direction control in it is shown as U+FFFD, never sent raw.
+		b.WriteString(printable(d.Error()))
 		b.WriteByte('\n')
 		if d.Detail != "" {
-			b.WriteString("    " + d.Detail + "\n")
+			b.WriteString("    " + printable(d.Detail) + "\n")
 		}
 		if text, ok := src[d.Range.Start.File]; ok && d.Range.Start.IsValid() {
-			writeSnippet(&b, text, d.Range)
+			starts, made := lines[d.Range.Start.File]
+			if !made {
+				starts = lineStarts(text)
+				lines[d.Range.Start.File] = starts
+			}
+			writeSnippet(&b, text, starts, d.Range)
 		}
 		if d.Hint != "" {
-			b.WriteString("    hint: " + d.Hint + "\n")
+			b.WriteString("    hint: " + printable(d.Hint) + "\n")
 		}
 		b.WriteByte('\n')
 	}
@@ -39,12 +51,29 @@ func Render(w io.Writer, l List, src Sources) error {
 	return err
 }
 
+// MaxShown is the number of problems Render shows; it says how many more
+// there are. A file with thousands of mistakes is rarely read past the
+// first screens, and rendering stays linear in the size of the file.
+const MaxShown = 100
+
+// lineStarts returns the byte offset at which each line of text starts.
+func lineStarts(text []byte) []int {
+	starts := []int{0}
+	for i, c := range text {
+		if c == '\n' {
+			starts = append(starts, i+1)
+		}
+	}
+	return starts
+}
+
 // writeSnippet writes the line holding r.Start with carets under the span
 // (clipped to that line; at least one caret). A line that is empty or
 // missing (a position at the end of the file) gets no snippet: there is
-// nothing to point at.
-func writeSnippet(b *strings.Builder, text []byte, r Range) {
-	line, ok := lineText(text, r.Start.Line)
+// nothing to point at. A long line is cut to a window around the span,
+// with "…" where text was left out.
+func writeSnippet(b *strings.Builder, text []byte, starts []int, r Range) {
+	line, ok := lineText(text, starts, r.Start.Line)
 	if !ok || line == "" {
 		return
 	}
@@ -59,26 +88,43 @@ func writeSnippet(b *strings.Builder, text []byte, r Range) {
 		width = n - r.Start.Col + 1
 	}
 	width = max(width, 1)
+	col := max(r.Start.Col-1, 0) // runes before the caret
+	if n > maxSnippet {
+		rs := []rune(line)
+		width = min(width, maxSnippet/2)
+		from := max(0, min(col-maxSnippet/4, n-maxSnippet))
+		to := min(n, from+maxSnippet)
+		cut := string(rs[from:to])
+		col -= from
+		if from > 0 {
+			cut = "…" + cut
+			col++
+		}
+		if to < n {
+			cut += "…"
+		}
+		line = cut
+		width = max(1, min(width, utf8.RuneCountInString(cut)-col))
+	}
 	num := fmt.Sprintf("%4d | ", r.Start.Line)
 	b.WriteString(num + printable(line) + "\n")
-	b.WriteString(strings.Repeat(" ", len(num)-2) + "| " + strings.Repeat(" ", max(r.Start.Col-1, 0)) + strings.Repeat("^", width) + "\n")
+	b.WriteString(strings.Repeat(" ", len(num)-2) + "| " + strings.Repeat(" ", col) + strings.Repeat("^", width) + "\n")
 }
+
+// maxSnippet is the most runes of a source line a snippet shows.
+const maxSnippet = 120
 
 // lineText returns line n (1-based) of text without its line break, and
 // false when text has no such line.
-func lineText(text []byte, n int) (string, bool) {
-	s := string(text)
-	for i := 1; i < n; i++ {
-		j := strings.IndexByte(s, '\n')
-		if j < 0 {
-			return "", false
-		}
-		s = s[j+1:]
+func lineText(text []byte, starts []int, n int) (string, bool) {
+	if n < 1 || n > len(starts) {
+		return "", false
 	}
-	if j := strings.IndexByte(s, '\n'); j >= 0 {
-		s = s[:j]
+	end := len(text)
+	if n < len(starts) {
+		end = starts[n] - 1 // before the line break
 	}
-	return strings.TrimSuffix(s, "\r"), true
+	return strings.TrimSuffix(string(text[starts[n-1]:end]), "\r"), true
 }
 
 // printable makes a source line safe to print on a terminal: a tab becomes
@@ -89,9 +135,34 @@ func printable(line string) string {
 		switch {
 		case r == '\t':
 			return ' '
-		case r < 0x20 || r == 0x7f || (r >= 0x80 && r < 0xa0):
+		case r < 0x20 || r == 0x7f || (r >= 0x80 && r < 0xa0) || bidiControls[r] != "":
 			return utf8.RuneError
 		}
 		return r
 	}, line)
+}
+
+// bidiControls are the Unicode characters that reorder displayed text
+// (Unicode Standard Annex #9; the "Trojan Source" class of attacks, CVE-2021-42574).
+// A sheet refuses them anywhere: a description, a reference or a comment
+// that shows one thing and holds another misleads a checker.
+var bidiControls = map[rune]string{
+	'\u061C': "ARABIC LETTER MARK",
+	'\u200E': "LEFT-TO-RIGHT MARK",
+	'\u200F': "RIGHT-TO-LEFT MARK",
+	'\u202A': "LEFT-TO-RIGHT EMBEDDING",
+	'\u202B': "RIGHT-TO-LEFT EMBEDDING",
+	'\u202C': "POP DIRECTIONAL FORMATTING",
+	'\u202D': "LEFT-TO-RIGHT OVERRIDE",
+	'\u202E': "RIGHT-TO-LEFT OVERRIDE",
+	'\u2066': "LEFT-TO-RIGHT ISOLATE",
+	'\u2067': "RIGHT-TO-LEFT ISOLATE",
+	'\u2068': "FIRST STRONG ISOLATE",
+	'\u2069': "POP DIRECTIONAL ISOLATE",
+}
+
+// BidiControl reports whether r reorders displayed text, and its name.
+func BidiControl(r rune) (name string, ok bool) {
+	name, ok = bidiControls[r]
+	return name, ok
 }

@@ -5,6 +5,7 @@ import (
 	"path/filepath"
 	"strings"
 	"testing"
+	"unicode/utf8"
 
 	"github.com/sheafcalc/sheaf/internal/golden"
 )
@@ -92,5 +93,43 @@ func TestRenderList(t *testing.T) {
 		"\n"
 	if got := b.String(); got != want {
 		t.Errorf("got\n%s\nwant\n%s", got, want)
+	}
+}
+
+// TestRenderLimits: a long line is shown as a window around the caret, and
+// a flood of problems is cut after MaxShown with a count of the rest.
+func TestRenderLimits(t *testing.T) {
+	line := "x = " + strings.Repeat("a + ", 2000) + "bad"
+	src := []byte(line + "\n")
+	col := len(line) - 2
+	var b strings.Builder
+	d := &Diagnostic{Range: Range{Start: Pos{File: "f", Line: 1, Col: col, Offset: col - 1}, End: Pos{File: "f", Line: 1, Col: col + 3, Offset: col + 2}}, Summary: "undefined name `bad`"}
+	if err := Render(&b, List{d}, Sources{"f": src}); err != nil {
+		t.Fatal(err)
+	}
+	out := b.String()
+	lines := strings.Split(out, "\n")
+	if len(lines) < 3 || utf8.RuneCountInString(lines[1]) > maxSnippet+10 || !strings.Contains(lines[1], "| …") || !strings.HasSuffix(lines[1], "bad") {
+		t.Fatalf("snippet not cut around the caret:\n%s", out)
+	}
+	// The caret sits under `bad`.
+	if i, j := strings.Index(lines[2], "^"), utf8.RuneCountInString(lines[1])-3; utf8.RuneCountInString(lines[2][:i]) != j {
+		t.Errorf("caret at %d, want %d:\n%s", i, j, out)
+	}
+	var many List
+	var text strings.Builder
+	for i := 1; i <= 250; i++ {
+		text.WriteString("y = nope\n")
+		many = append(many, &Diagnostic{Range: Range{Start: Pos{File: "f", Line: i, Col: 5}, End: Pos{File: "f", Line: i, Col: 9}}, Summary: "undefined name `nope`"})
+	}
+	b.Reset()
+	if err := Render(&b, many, Sources{"f": []byte(text.String())}); err != nil {
+		t.Fatal(err)
+	}
+	if got := strings.Count(b.String(), "undefined name"); got != MaxShown {
+		t.Errorf("%d problems shown, want %d", got, MaxShown)
+	}
+	if !strings.Contains(b.String(), "and 150 more problems") {
+		t.Errorf("no count of the rest:\n%s", b.String()[len(b.String())-200:])
 	}
 }

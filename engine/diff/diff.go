@@ -7,6 +7,7 @@ import (
 
 	"github.com/sheafcalc/sheaf/engine"
 	"github.com/sheafcalc/sheaf/engine/export/text"
+	"github.com/sheafcalc/sheaf/engine/units"
 	"github.com/sheafcalc/sheaf/funcs"
 )
 
@@ -21,25 +22,39 @@ type Options struct {
 	RelTol float64
 }
 
-// Change is one value or text that differs.
+// Change is one value or text that differs. Old and New are texts (a
+// header value, a formula, or a value as the listing shows it); a number
+// also comes as numbers with their units: in SI (OldSI, NewSI in SIUnit)
+// and in each version's display unit.
 type Change struct {
-	Name  string   `json:"name"`
-	Kind  string   `json:"kind,omitempty"`
-	Old   string   `json:"old"`
-	New   string   `json:"new"`
-	OldSI *float64 `json:"old_si,omitempty"`
-	NewSI *float64 `json:"new_si,omitempty"`
+	Name     string   `json:"name"`
+	Kind     string   `json:"kind,omitempty"`
+	Old      string   `json:"old"`
+	New      string   `json:"new"`
+	OldSI    *float64 `json:"old_si,omitempty"`
+	NewSI    *float64 `json:"new_si,omitempty"`
+	SIUnit   string   `json:"si_unit,omitempty"`
+	OldValue *float64 `json:"old_value,omitempty"`
+	OldUnit  string   `json:"old_unit,omitempty"`
+	NewValue *float64 `json:"new_value,omitempty"`
+	NewUnit  string   `json:"new_unit,omitempty"`
 	// Rel is (new-old)/|old| for numbers with a non-zero old value.
 	Rel *float64 `json:"rel,omitempty"`
 }
 
-// Cell is a cell present in one version only.
+// Cell is a cell present in one version only. Unit is the display unit as
+// written ("" when none was), Value the text the listing shows; a number is
+// also given as Number in NumberUnit (its display unit) and SI in SIUnit.
 type Cell struct {
-	Name  string `json:"name"`
-	Kind  string `json:"kind"`
-	Unit  string `json:"unit,omitempty"`
-	Expr  string `json:"expr,omitempty"`
-	Value string `json:"value"`
+	Name       string   `json:"name"`
+	Kind       string   `json:"kind"`
+	Unit       string   `json:"unit,omitempty"`
+	Expr       string   `json:"expr,omitempty"`
+	Value      string   `json:"value"`
+	Number     *float64 `json:"number,omitempty"`
+	NumberUnit string   `json:"number_unit,omitempty"`
+	SI         *float64 `json:"si,omitempty"`
+	SIUnit     string   `json:"si_unit,omitempty"`
 }
 
 // CheckChange is a design check whose verdict or utilisation changed.
@@ -54,8 +69,14 @@ type CheckChange struct {
 	FlippedToFail bool `json:"flipped_to_fail"`
 }
 
+// Schema is the version of the JSON of a report (its "schema" key; see
+// schema/sheaf.schema.json).
+const Schema = "sheaf.diff/1"
+
 // Report is the difference between two results.
 type Report struct {
+	Schema   string        `json:"schema"`
+	ExitCode int           `json:"exit_code"` // set by the command that writes it
 	Old      string        `json:"old"`
 	New      string        `json:"new"`
 	RelTol   float64       `json:"rel_tol"`
@@ -81,7 +102,7 @@ func Compare(oldName string, old *engine.Results, newName string, cur *engine.Re
 	if !(tol > 0) {
 		tol = DefaultRelTol
 	}
-	r := &Report{Old: oldName, New: newName, RelTol: tol,
+	r := &Report{Schema: Schema, Old: oldName, New: newName, RelTol: tol,
 		Header: []Change{}, Inputs: []Change{}, Formulas: []Change{}, Added: []Cell{}, Removed: []Cell{}, Results: []Change{}, Checks: []CheckChange{}}
 	r.header(old.Meta, cur.Meta)
 	oldBy := make(map[string]*engine.CellResult, len(old.Cells))
@@ -267,6 +288,17 @@ func sameContent(a, b funcs.Value) bool {
 
 func valueChange(oc, nc *engine.CellResult) Change {
 	c := Change{Name: nc.Cell.Name, Kind: nc.Cell.Kind.String(), Old: oc.Text, New: nc.Text, OldSI: num(oc), NewSI: num(nc)}
+	if c.OldSI != nil {
+		c.OldValue, c.OldUnit = display(*c.OldSI, oc.Unit)
+		c.SIUnit = units.SISymbol(oc.Cell.Type.Dim)
+	}
+	if c.NewSI != nil {
+		c.NewValue, c.NewUnit = display(*c.NewSI, nc.Unit)
+		c.SIUnit = units.SISymbol(nc.Cell.Type.Dim)
+	}
+	if c.OldSI != nil && c.NewSI != nil && !sameDim(oc, nc) {
+		c.SIUnit = "" // the two SI values are in different units: see each display unit
+	}
 	if c.OldSI != nil && c.NewSI != nil && *c.OldSI != 0 && sameDim(oc, nc) {
 		rel := (*c.NewSI - *c.OldSI) / math.Abs(*c.OldSI)
 		c.Rel = &rel
@@ -297,8 +329,31 @@ func cellOf(c *engine.CellResult) Cell {
 	}
 	if c.Cell.Kind == engine.Check {
 		out.Value = checkText(verdict(c), num(c))
+		return out
+	}
+	if x := num(c); x != nil && c.Cell.Type != nil {
+		out.SI, out.SIUnit = x, units.SISymbol(c.Cell.Type.Dim)
+		out.Number, out.NumberUnit = display(*x, c.Unit)
 	}
 	return out
+}
+
+// display is an SI value in display unit u, with the unit's symbol ("1"
+// for a plain number).
+func display(si float64, u units.Unit) (*float64, string) {
+	f := u.Factor
+	if f == 0 {
+		f = 1
+	}
+	v := si / f
+	if math.IsNaN(v) || math.IsInf(v, 0) {
+		return nil, ""
+	}
+	sym := u.Symbol
+	if sym == "" {
+		sym = "1"
+	}
+	return &v, sym
 }
 
 // checkText writes a utilisation and verdict as the run listing does:

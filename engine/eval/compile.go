@@ -2,9 +2,12 @@ package eval
 
 import (
 	"math"
+	"slices"
+	"strconv"
 
 	"github.com/sheafcalc/sheaf/engine/check"
 	"github.com/sheafcalc/sheaf/engine/diag"
+	"github.com/sheafcalc/sheaf/engine/units"
 	"github.com/sheafcalc/sheaf/funcs"
 	"github.com/sheafcalc/sheaf/internal/plural"
 )
@@ -90,6 +93,9 @@ func (m *Machine) compileCell(c *check.Cell) {
 		m.demand[c.Index] = m.numOf(c.Demand)
 		m.capacity[c.Index] = m.numOf(c.Capacity)
 	case check.Table:
+		if len(c.Entries) > 0 {
+			m.val[c.Index] = m.tableOf(c)
+		}
 	default:
 		if c.Body == nil {
 			return
@@ -251,7 +257,16 @@ func arith(n *check.Node) numFn {
 func index(f *Frame, at *check.Node, i float64, n int) (int, bool) {
 	k := int(i)
 	if float64(k) != i || k < 0 || k >= n {
-		f.fail(at, "index out of range", "the list has "+plural.Count(n, "element")+", numbered from 0")
+		what := "index " + units.FormatNumber(i, 6) + " is out of range"
+		if float64(k) != i && !math.IsNaN(i) && !math.IsInf(i, 0) {
+			what = "index " + units.FormatNumber(i, 6) + " is not a whole number"
+		}
+		if n == 0 {
+			f.fail(at, what+": the list is empty", "a list needs an element before it can be indexed")
+		} else {
+			f.fail(at, what+": the list has "+plural.Count(n, "element")+", numbered from 0 to "+strconv.Itoa(n-1),
+				"lists are numbered from 0: the first element is [0], the last ["+strconv.Itoa(n-1)+"]")
+		}
 		return 0, false
 	}
 	return k, true
@@ -462,4 +477,32 @@ func Value(n *check.Node) (funcs.Value, *Failure) {
 		v = m.valOf(n)(f)
 	}
 	return v, f.Fail
+}
+
+// tableOf compiles a table with entries written as expressions: each run
+// copies the written table and fills in the entries' values.
+func (m *Machine) tableOf(c *check.Cell) valFn {
+	fns := make([]numFn, len(c.Entries))
+	for k, e := range c.Entries {
+		fns[k] = m.numOf(e.Node)
+	}
+	written := c.Table
+	return func(f *Frame) funcs.Value {
+		t := &funcs.TableValue{Type: written.Type, Cols: make([][]float64, len(written.Cols))}
+		for i, col := range written.Cols {
+			t.Cols[i] = slices.Clone(col)
+		}
+		for k, e := range c.Entries {
+			v := fns[k](f)
+			if f.Fail != nil {
+				return nil
+			}
+			if !isFinite(v) {
+				f.Fail = &Failure{Node: e.Node, Msg: "a table entry is not a finite number with these inputs", Hint: "check the inputs of the entry"}
+				return nil
+			}
+			t.Cols[e.Col][e.Row] = v
+		}
+		return t
+	}
 }

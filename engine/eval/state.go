@@ -2,6 +2,7 @@ package eval
 
 import (
 	"math"
+	"math/bits"
 	"slices"
 
 	"github.com/sheafcalc/sheaf/engine/check"
@@ -23,10 +24,12 @@ type State struct {
 	// states never write either) and are copied on the first write.
 	ownProblem, ownOver bool
 	dirty               []int
-	mark                []uint32
-	gen                 uint32
-	done                bool
-	last                []int
+	// stale has one bit per position of Program.Order: the cells an
+	// incremental Eval must run. Reading the bits in order gives them in
+	// evaluation order without a sort; Eval leaves every bit clear.
+	stale []uint64
+	done  bool
+	last  []int
 	// lastShared is set while last is Program.Order itself, which must
 	// not be appended to.
 	lastShared bool
@@ -134,32 +137,47 @@ func (s *State) Eval() []int {
 	if len(s.dirty) == 0 {
 		return s.last
 	}
-	s.gen++
-	if s.gen == 0 { // wrapped: clear the marks once every 4 billion runs
-		clear(s.mark)
-		s.gen = 1
+	pos := s.M.topoPos
+	if s.stale == nil {
+		s.stale = make([]uint64, (len(p.Order)+63)/64)
 	}
-	g := s.gen
-	if s.mark == nil {
-		s.mark = make([]uint32, len(p.Cells))
+	stale := s.stale
+	mark := func(i int) bool {
+		k := pos[i]
+		w, b := k>>6, uint64(1)<<(k&63)
+		if stale[w]&b != 0 {
+			return false
+		}
+		stale[w] |= b
+		return true
 	}
+	// The cells downstream of the dirty ones, breadth first, in s.last
+	// as a work list; then s.last is rebuilt from the bits, in order.
 	for _, i := range s.dirty {
-		if s.mark[i] != g {
-			s.mark[i] = g
+		if mark(i) {
 			s.last = append(s.last, i)
 		}
 	}
 	s.dirty = s.dirty[:0]
 	for k := 0; k < len(s.last); k++ {
 		for _, u := range p.Users[s.last[k]] {
-			if s.mark[u] != g {
-				s.mark[u] = g
+			if mark(u) {
 				s.last = append(s.last, u)
 			}
 		}
 	}
-	pos := s.M.topoPos
-	slices.SortFunc(s.last, func(a, b int) int { return int(pos[a]) - int(pos[b]) })
+	n := len(s.last)
+	s.last = s.last[:0]
+	for w, word := range stale {
+		for word != 0 {
+			s.last = append(s.last, p.Order[w<<6+bits.TrailingZeros64(word)])
+			word &= word - 1
+		}
+		stale[w] = 0
+		if len(s.last) == n {
+			break
+		}
+	}
 	for _, i := range s.last {
 		s.run(i)
 	}
@@ -245,7 +263,18 @@ func (s *State) run(i int) {
 		s.Known[i] = true
 		return
 	case check.Table:
-		if !s.over[i] {
+		if s.over[i] {
+			s.Known[i] = true
+			return
+		}
+		if fn := s.M.val[i]; fn != nil {
+			v := fn(f)
+			if f.Fail != nil {
+				s.failed(c, f.Fail)
+				return
+			}
+			f.Val[i] = v
+		} else {
 			f.Val[i] = c.Table
 		}
 		s.Known[i] = true
@@ -254,15 +283,13 @@ func (s *State) run(i int) {
 		d := s.M.demand[i](f)
 		cp := s.M.capacity[i](f)
 		if f.Fail != nil {
+			s.Demand[i], s.Capacity[i] = nan, nan // not computed (see Unassessed)
 			s.failed(c, f.Fail)
 			return
 		}
 		s.Demand[i], s.Capacity[i] = d, cp
-		if !(cp > 0) || math.IsInf(cp, 0) || !isFinite(d) {
-			s.setProblem(i, &diag.Diagnostic{Range: c.Formula.Source.Range,
-				Summary: "check `" + c.Name + "` cannot be assessed: the capacity must be a positive finite number",
-				Detail:  "utilisation is demand / capacity; with these inputs the capacity is not positive",
-				Hint:    "check the inputs of the capacity side"})
+		if p := Assess(c, d, cp); p != nil {
+			s.setProblem(i, p)
 			return
 		}
 		f.Num[i] = d / cp
@@ -286,6 +313,17 @@ func (s *State) run(i int) {
 		f.Val[i] = v
 		s.Known[i] = true
 	}
+}
+
+// Unassessed reports whether cell i is a design check whose two sides were
+// computed but which cannot be assessed (Assess refused them): a verdict
+// that is missing, not a cell that failed to compute.
+func (s *State) Unassessed(i int) bool {
+	c := s.M.P.Cells[i]
+	if c.Kind != check.Check || s.Known[i] || s.Problem[i] == nil || s.Demand == nil {
+		return false
+	}
+	return !math.IsNaN(s.Demand[i]) && !math.IsNaN(s.Capacity[i])
 }
 
 func isFinite(x float64) bool { return !math.IsNaN(x) && !math.IsInf(x, 0) }
@@ -324,6 +362,12 @@ func (s *State) setProblem(i int, d *diag.Diagnostic) {
 	}
 	s.Problem[i] = d
 }
+
+// SetProblem records d (nil: none) as the problem of cell i, for a caller
+// that puts together a state from others: the engine shows each check of a
+// sheet with actions at its governing combination, with the reason it is
+// not assessed there.
+func (s *State) SetProblem(i int, d *diag.Diagnostic) { s.setProblem(i, d) }
 
 // ownOverrides gives the state its own list of overrides before it
 // writes one (it starts with the machine's shared empty list).

@@ -28,7 +28,7 @@ func randomSheet(rng *rand.Rand, inputs, derived int) string {
 		"0.75 * %[1]s - 0.25 * %[2]s",
 		"hypot(%[1]s, %[3]s)",
 		"max(%[1]s, %[2]s) - min(%[1]s, %[3]s)",
-		"sin(%[1]s) * %[2]s",
+		"sin(%[1]s * 1 rad) * %[2]s",
 		"%[1]s > %[2]s ? %[1]s : %[3]s + 1",
 		"%[1]s * 1.5",
 	}

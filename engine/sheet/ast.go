@@ -142,10 +142,13 @@ type Column struct {
 	Unit *UnitSpec
 }
 
-// Literal is one table entry as written.
+// Literal is one table entry as written: a plain number in the unit of
+// its column, or (Expr set) a bracketed expression of the sheet's cells,
+// such as `(A_p)` or `(2 * A_p)`.
 type Literal struct {
 	Text  string
 	Range diag.Range
+	Expr  bool
 }
 
 // Table is "table name -- ..." followed by an indented header row and

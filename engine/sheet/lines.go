@@ -82,6 +82,14 @@ func (p *parser) scanLine(ln *line) {
 			ln.bad, ln.blank = true, true
 			return
 		}
+		if name, ok := diag.BidiControl(r); ok {
+			p.errorf(p.pos(j), p.pos(j+size),
+				fmt.Sprintf("U+%04X %s changes the order in which the text around it is shown, so a line can read differently from what Sheaf reads", r, name),
+				"delete the character (it may have come from a copy and paste); write right-to-left text without direction controls",
+				"direction control U+%04X in the sheet", r)
+			ln.bad, ln.blank = true, true
+			return
+		}
 		if unicode.IsControl(r) || r == '\uFEFF' {
 			p.errorf(p.pos(j), p.pos(j+size),
 				fmt.Sprintf("a sheet holds printable text, spaces, tabs and line breaks; U+%04X is none of these", r),

@@ -10,10 +10,15 @@ import (
 //	table  = "table" name [ annotation ] newline header { row } .
 //	header = indent column { column } newline .
 //	column = name [ unit-spec ] .
-//	row    = indent number { number } newline .
+//	row    = indent entry { entry } newline .
+//	entry  = number | "(" expression ")" .
 //
-// Entries are plain numbers in the unit of their column; they are separated
-// by spaces or tabs. A blank line or a line in column 1 ends the table.
+// Entries are plain numbers in the unit of their column, or an expression
+// of the sheet's cells in brackets (`(A_p)`, `(2 * A_p)`), whose dimension
+// the checker holds to the column's unit; they are separated by spaces or
+// tabs. A bare word is never an entry, so a unit written in a row (`1.5 m`)
+// stays an error rather than becoming a cell named m. A blank line or a
+// line in column 1 ends the table.
 func (p *parser) parseTable(i, j int) Item {
 	ln := p.lines[i]
 	t := p.text
@@ -105,21 +110,45 @@ func (p *parser) tableRow(li, n int) ([]Literal, bool) {
 	t := p.text
 	row := make([]Literal, 0, n)
 	for k := ln.start + ln.indent; k < ln.end; {
-		e := k
-		for e < ln.end && t[e] != ' ' && t[e] != '\t' {
-			e++
+		e, expr := k, false
+		switch c := t[k]; {
+		case c == '(':
+			// A bracketed expression: to its matching bracket on this line.
+			depth := 0
+			for e < ln.end {
+				switch t[e] {
+				case '(':
+					depth++
+				case ')':
+					depth--
+				}
+				e++
+				if depth == 0 {
+					break
+				}
+			}
+			if depth != 0 {
+				p.errAt(p.rng(li, k, ln.end), "an entry in brackets is an expression of the sheet's cells, closed on the same line",
+					"close it with `)`, as in `(2 * A_p)`", "unclosed `(` in a table row")
+				return nil, false
+			}
+			expr = true
+		default:
+			for e < ln.end && t[e] != ' ' && t[e] != '\t' {
+				e++
+			}
 		}
 		s := t[k:e]
-		if !isNumber(s) {
+		if !expr && !isNumber(s) {
 			hint := "write the unit once in the column header, e.g. `L [m]`, and plain numbers in the rows"
 			if s == "-" || s == "+" {
 				hint = "write 0, or leave the row out"
 			}
-			p.errAt(p.rng(li, k, e), "table rows hold plain numbers such as `2.5`, `-40` or `2.1e5`, separated by spaces",
+			p.errAt(p.rng(li, k, e), "table rows hold plain numbers such as `2.5`, `-40` or `2.1e5`, or expressions of cells in brackets such as `(A_p)` or `(2 * A_p)`, separated by spaces",
 				hint, "`%s` is not a number", clip(s))
 			return nil, false
 		}
-		row = append(row, Literal{Text: s, Range: p.rng(li, k, e)})
+		row = append(row, Literal{Text: s, Range: p.rng(li, k, e), Expr: expr})
 		k = skipSpace(t, e, ln.end)
 	}
 	if len(row) != n {

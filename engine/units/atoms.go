@@ -2,9 +2,10 @@ package units
 
 import "math"
 
-// dimOf builds a Dim from whole exponents of L, M, T, I, Θ, N, J.
+// dimOf builds a Dim from whole exponents of L, M, T, I, Θ, N, J (no angle;
+// dAngle is the dimension of a plane angle).
 func dimOf(l, m, t, i, th, n, j int8) Dim {
-	return Dim{2 * l, 2 * m, 2 * t, 2 * i, 2 * th, 2 * n, 2 * j}
+	return Dim{2 * l, 2 * m, 2 * t, 2 * i, 2 * th, 2 * n, 2 * j, 0}
 }
 
 // Exact definitions the customary units rest on.
@@ -46,6 +47,7 @@ var (
 	dLineLoad = dimOf(0, 1, -2, 0, 0, 0, 0)
 	dWeightD  = dimOf(-2, 1, -2, 0, 0, 0, 0)
 	dFreq     = dimOf(0, 0, -1, 0, 0, 0, 0)
+	dAngle    = Base(Angle)
 )
 
 // atoms is every unit name the parser resolves. Order does not matter here;
@@ -64,7 +66,9 @@ var atoms = []atom{
 	{sym: "J", dim: dEnergy, factor: 1, system: Metric, prefixable: true},
 	{sym: "W", dim: dPower, factor: 1, system: Metric, prefixable: true},
 	{sym: "Hz", dim: dFreq, factor: 1, system: Neutral, prefixable: true},
-	{sym: "rad", dim: None, factor: 1, system: Neutral, prefixable: true},
+	// Plane angle is a dimension of its own in Sheaf (see dim.go); the radian
+	// is its coherent unit.
+	{sym: "rad", dim: dAngle, factor: 1, system: Neutral, prefixable: true},
 
 	// Metric units outside the SI that structural practice keeps.
 	{sym: "t", aliases: []string{"tonne"}, dim: dMass, factor: 1000, system: Metric},
@@ -73,7 +77,11 @@ var atoms = []atom{
 	// Temperature intervals only: 1 degC of difference is 1 K, 1 degF is 5/9 K.
 	{sym: "degC", aliases: []string{"°C", "℃"}, dim: dTemp, factor: 1, system: Metric},
 	{sym: "degF", aliases: []string{"°F", "℉"}, dim: dTemp, factor: 5.0 / 9.0, system: US},
-	{sym: "deg", aliases: []string{"°"}, dim: None, factor: math.Pi / 180, system: Neutral},
+	// Source: SI Brochure (BIPM 2019) Table 8: 1° = (π/180) rad.
+	{sym: "deg", aliases: []string{"°"}, dim: dAngle, factor: math.Pi / 180, system: Neutral},
+	// Source: 400 gon make a full turn, so 1 gon = (π/200) rad; NIST SP 811
+	// (2008) App. B.8 prints 1.570 796 E-02 rad for the gon (from memory).
+	{sym: "gon", dim: dAngle, factor: math.Pi / 200, system: Neutral},
 	{sym: "%", aliases: []string{"percent"}, dim: None, factor: 0.01, system: Neutral},
 	{sym: "‰", aliases: []string{"permille"}, dim: None, factor: 0.001, system: Neutral},
 	{sym: "µε", aliases: []string{"με", "uε", "ue", "microstrain"}, dim: None, factor: 1e-6, system: Neutral},

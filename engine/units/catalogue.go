@@ -1,6 +1,9 @@
 package units
 
-import "fmt"
+import (
+	"fmt"
+	"sync"
+)
 
 // entry is one line of the catalogue listing: a symbol as Parse reads it, the
 // quantity it is listed under and, for compound symbols, the system.
@@ -10,7 +13,7 @@ type entry struct {
 }
 
 // listing is the order of `sheaf units`: by quantity, metric before US,
-// small before large. Every symbol here must parse; init panics otherwise,
+// small before large. Every symbol here must parse; build panics otherwise,
 // so a typo cannot ship.
 var listing = []entry{
 	{"µm", "length"}, {"mm", "length"}, {"cm", "length"}, {"m", "length"}, {"km", "length"},
@@ -40,7 +43,7 @@ var listing = []entry{
 	{"W", "power"}, {"kW", "power"},
 	{"Hz", "frequency"},
 	{"1", "dimensionless"}, {"%", "dimensionless"}, {"‰", "dimensionless"}, {"µε", "strain"},
-	{"rad", "angle"}, {"deg", "angle"},
+	{"rad", "angle"}, {"deg", "angle"}, {"gon", "angle"},
 	{"A", "electric current"}, {"mol", "amount of substance"}, {"cd", "luminous intensity"},
 }
 
@@ -52,8 +55,9 @@ var quantities = []struct {
 }{
 	{"dimensionless", None},
 	{"strain", None},
-	{"angle", None},
 	{"ratio", None},
+	{"angle", dAngle},
+	{"plane angle", dAngle},
 	{"length", dLength},
 	{"displacement", dLength},
 	{"area", dimOf(2, 0, 0, 0, 0, 0, 0)},
@@ -91,55 +95,73 @@ var quantities = []struct {
 	{"luminous intensity", dLuminous},
 }
 
-var (
+// tables are the catalogue and every index built from it.
+type tables struct {
 	catalogue      []Unit          // in listing order
 	catalogueIndex map[string]Unit // canonical symbol -> entry
 	quantityIndex  map[string]Dim  // quantity name -> dimension
 	defaultQty     map[Dim]string  // dimension -> default quantity name
 	suggestions    []string        // spellings offered by "did you mean"
 	quantityNames  []string        // quantity names in listing order, for "did you mean"
-)
+	preferred      map[System]map[Dim]Unit
+}
 
-func init() {
-	quantityIndex = make(map[string]Dim, len(quantities))
-	defaultQty = make(map[Dim]string, len(quantities))
+// tab returns the tables, built once on first use in one ordered step
+// (build). The package has no init function: whatever calls Parse first,
+// even a package-level variable of another file or package, finds the
+// tables whole, and no order of files or of initialisation can change what
+// Parse returns.
+var tab = sync.OnceValue(build)
+
+// build makes the tables in order: quantity names, then the catalogue
+// (each symbol parsed without the tables, its quantity from the listing),
+// then the spellings "did you mean" offers, then the preferred display
+// units, parsed against the tables made so far. It panics on a listing
+// that does not parse, so a typo cannot ship.
+func build() *tables {
+	t := &tables{
+		quantityIndex: make(map[string]Dim, len(quantities)),
+		defaultQty:    make(map[Dim]string, len(quantities)),
+	}
 	for _, q := range quantities {
-		quantityNames = append(quantityNames, q.name)
-		quantityIndex[q.name] = q.dim
-		if _, seen := defaultQty[q.dim]; !seen {
-			defaultQty[q.dim] = q.name
+		t.quantityNames = append(t.quantityNames, q.name)
+		t.quantityIndex[q.name] = q.dim
+		if _, seen := t.defaultQty[q.dim]; !seen {
+			t.defaultQty[q.dim] = q.name
 		}
 	}
-	catalogueIndex = make(map[string]Unit, len(listing))
-	catalogue = make([]Unit, 0, len(listing))
+	t.catalogueIndex = make(map[string]Unit, len(listing))
+	t.catalogue = make([]Unit, 0, len(listing))
 	for _, e := range listing {
-		u, err := Parse(e.sym)
+		u, err := parse(e.sym, nil)
 		if err != nil {
 			panic(fmt.Sprintf("units: catalogue symbol %q: %v", e.sym, err))
 		}
 		if u.Symbol != e.sym {
 			panic(fmt.Sprintf("units: catalogue symbol %q normalises to %q", e.sym, u.Symbol))
 		}
-		if d, ok := quantityIndex[e.quantity]; !ok || d != u.Dim {
+		if d, ok := t.quantityIndex[e.quantity]; !ok || d != u.Dim {
 			panic(fmt.Sprintf("units: catalogue symbol %q is not a %s", e.sym, e.quantity))
 		}
 		u.Quantity = e.quantity
-		catalogue = append(catalogue, u)
-		catalogueIndex[u.Symbol] = u
-		suggestions = append(suggestions, u.Symbol)
+		t.catalogue = append(t.catalogue, u)
+		t.catalogueIndex[u.Symbol] = u
+		t.suggestions = append(t.suggestions, u.Symbol)
 	}
 	for _, a := range atoms {
-		if _, listed := catalogueIndex[a.sym]; !listed {
+		if _, listed := t.catalogueIndex[a.sym]; !listed {
 			panic(fmt.Sprintf("units: atom %q is missing from the listing", a.sym))
 		}
-		suggestions = append(suggestions, a.aliases...)
+		t.suggestions = append(t.suggestions, a.aliases...)
 	}
+	t.preferred = buildPreferred(t)
+	return t
 }
 
 // Catalogue returns the listed units in listing order (by quantity, metric
 // before US). The slice is a copy; callers may keep or sort it.
 func Catalogue() []Unit {
-	return append([]Unit(nil), catalogue...)
+	return append([]Unit(nil), tab().catalogue...)
 }
 
 // Lookup finds a unit by a single name: a catalogue symbol ("kN", "N/mm^2",
@@ -147,15 +169,16 @@ func Catalogue() []Unit {
 // prefixable unit ("nm", "GN", "daN"). It does not read general expressions;
 // use Parse for those.
 func Lookup(symbol string) (Unit, bool) {
-	if u, ok := catalogueIndex[symbol]; ok {
+	t := tab()
+	if u, ok := t.catalogueIndex[symbol]; ok {
 		return u, true
 	}
 	sym, a, f, ok, _ := resolveName(symbol)
 	if !ok {
 		return Unit{}, false
 	}
-	if u, ok := catalogueIndex[sym]; ok {
+	if u, ok := t.catalogueIndex[sym]; ok {
 		return u, true
 	}
-	return Unit{Symbol: sym, Dim: a.dim, Factor: f, Quantity: defaultQty[a.dim], System: a.system}, true
+	return Unit{Symbol: sym, Dim: a.dim, Factor: f, Quantity: t.defaultQty[a.dim], System: a.system}, true
 }

@@ -92,6 +92,15 @@ func TestConversions(t *testing.T) {
 		// Source: SI Brochure (BIPM 2019) Table 8: 1° = (π/180) rad.
 		{"degree", "deg", "rad", math.Pi / 180, exact},
 		{"degree sign", "°", "rad", math.Pi / 180, exact},
+		{"radian in degrees", "rad", "deg", 180 / math.Pi, exact},
+		{"milliradian", "mrad", "rad", 1e-3, exact},
+		// Source: NIST SP 811 (2008), App. B.8, degree (°) 1.745 329 E-02 rad.
+		{"degree printed", "deg", "rad", 1.745329e-2, printed},
+		// Source: 400 gon make a full turn (ISO 80000-3, from memory): 1 gon = (π/200) rad = 0.9°.
+		{"gon", "gon", "rad", math.Pi / 200, exact},
+		{"gon in degrees", "gon", "deg", 0.9, exact},
+		// Source: NIST SP 811 (2008), App. B.8, gon 1.570 796 E-02 rad (from memory).
+		{"gon printed", "gon", "rad", 1.570796e-2, printed},
 		// Source: SI Brochure (BIPM 2019) §2.3.4 and Table 7: 1 Pa = 1 N/m², prefixes.
 		{"N/mm2 is MPa", "N/mm²", "MPa", 1, exact},
 		{"GPa in MPa", "GPa", "MPa", 1000, exact},

@@ -6,12 +6,15 @@
 //
 // # Dimensions
 //
-// A Dim is the exponents of the seven SI base dimensions in a fixed array of
-// int8, stored doubled. Products, quotients and powers are array arithmetic
-// that allocates nothing, which matters because the checker combines
-// dimensions at every node of every expression. Doubling makes half
-// exponents exact, so √MPa inside an empirical formula has a dimension
-// (L^(-1/2)·M^(1/2)·T^-1) rather than an error; finer fractions are rejected.
+// A Dim is the exponents of the seven SI base dimensions and of plane angle
+// in a fixed array of int8, stored doubled. Products, quotients and powers
+// are array arithmetic that allocates nothing, which matters because the
+// checker combines dimensions at every node of every expression. Doubling
+// makes half exponents exact, so √MPa inside an empirical formula has a
+// dimension (L^(-1/2)·M^(1/2)·T^-1) rather than an error; finer fractions
+// are rejected. Exponents are checked, never wrapped: a product whose
+// exponent would pass 63 (126 doubled) is Overflow, which the checker
+// reports at the expression.
 //
 // # What the catalogue leaves out, and why
 //
@@ -21,9 +24,14 @@
 // as temperature intervals only: 1 degC = 1 K and 1 degF = 5/9 K. A
 // temperature reading must be written as a difference from a stated datum.
 //
-// Angles are plain numbers: rad has factor 1 and deg is π/180. Percent (%),
-// per mille (‰, also "permille") and microstrain (µε, also "ue", "uε",
-// "microstrain") are plain numbers with factors 0.01, 0.001 and 1e-6.
+// Plane angle is a dimension of its own, although the SI counts the radian
+// as one: rad has factor 1, deg (also °) π/180 and gon π/200, and none of
+// them is a plain number. A plain number in a cell shown in degrees, or the
+// sine of one, is then an error at check time instead of 35 rad shown as
+// 2005°; a formula that needs the number of radians divides by `1 rad`.
+// Percent (%), per mille (‰, also "permille") and microstrain (µε, also
+// "ue", "uε", "microstrain") are plain numbers with factors 0.01, 0.001 and
+// 1e-6.
 //
 // Mass density and weight density are different quantities. `pcf` is the
 // weight density lbf/ft³ (the "unit weight" of US practice, comparable with

@@ -24,15 +24,16 @@ func (e *Error) Error() string {
 }
 
 // suggest returns the known spelling nearest to name, or "" when nothing is
-// close: diag.Nearest over every spelling in listing order, except that a
+// close or t is nil (while the tables are being built): diag.Nearest over every spelling in listing order, except that a
 // listed product whose operator was left out ("kNm" -> "kN*m") comes before
 // any match but a case-only one ("kn" -> "kN"). diag.Nearest alone would miss
 // the product, since a three-letter name gets one edit and `*` plus a case
 // change may be two.
-func suggest(name string) string {
-	if name == "" {
+func suggest(name string, t *tables) string {
+	if name == "" || t == nil {
 		return ""
 	}
+	suggestions := t.suggestions
 	near := diag.Nearest(name, suggestions)
 	if strings.EqualFold(near, name) {
 		return near

@@ -2,6 +2,7 @@ package units
 
 import (
 	"math"
+	"math/big"
 	"strconv"
 	"strings"
 )
@@ -63,6 +64,41 @@ func appendNumber(b []byte, x float64, sig int) []byte {
 	return strconv.AppendInt(b, int64(exp), 10)
 }
 
+// appendQuotient appends si/factor rounded to sig significant figures.
+func appendQuotient(b []byte, si, factor float64, sig int) []byte {
+	x := si / factor
+	if !isFinite(si) || !isFinite(factor) || factor == 0 || si == 0 ||
+		(isFinite(x) && math.Abs(x) >= minNormal) {
+		return appendNumber(b, x, sig)
+	}
+	// The quotient overflowed or lost precision as a subnormal: divide with
+	// a wider exponent range (big.Float exponents are 32-bit) and a 64-bit
+	// mantissa, then print as appendNumber prints e-notation.
+	q := new(big.Float).SetPrec(64).Quo(big.NewFloat(si), big.NewFloat(factor))
+	sig = min(max(sig, 1), 17)
+	e := q.Text('e', sig-1) // "-2.36e+310"
+	i := strings.LastIndexByte(e, 'e')
+	start := len(b)
+	b = append(b, e[:i]...)
+	b = trimZeros(b, start)
+	b = append(b, 'e')
+	exp := e[i+1:]
+	switch exp[0] {
+	case '-':
+		b = append(b, '-')
+		exp = exp[1:]
+	case '+':
+		exp = exp[1:]
+	}
+	return append(b, strings.TrimLeft(exp, "0")...)
+}
+
+// minNormal is the smallest positive normal float64; below it a quotient has
+// fewer than 53 bits of precision.
+const minNormal = 0x1p-1022
+
+func isFinite(x float64) bool { return !math.IsNaN(x) && !math.IsInf(x, 0) }
+
 // trimZeros drops trailing zeros after a decimal point in b[start:], and the
 // point itself when nothing follows it.
 func trimZeros(b []byte, start int) []byte {
@@ -89,8 +125,13 @@ func Format(si float64, u Unit, sig int) string {
 
 // AppendFormat appends the text Format gives to b, for callers that write
 // many values into one buffer (the results of a large sheet).
+//
+// A finite value stays finite in any unit: when si/u.Factor leaves the range
+// of float64 (2.36e304 m² in mm² is 2.36e310) or falls into its subnormal
+// range, the quotient is taken in extended precision and written in
+// e-notation, never as "+Inf" or "0".
 func AppendFormat(b []byte, si float64, u Unit, sig int) []byte {
-	b = appendNumber(b, si/u.Factor, sig)
+	b = appendQuotient(b, si, u.Factor, sig)
 	if u.Symbol != "" && u.Symbol != "1" {
 		b = append(b, ' ')
 		b = append(b, u.Symbol...)

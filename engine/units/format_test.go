@@ -72,6 +72,23 @@ func TestFormat(t *testing.T) {
 		{1e-3, "‰", 3, "1 ‰"},
 		{0.5, "", 3, "0.5"},
 		{0.5, "1", 3, "0.5"},
+		// Source: SI Brochure (BIPM 2019) Table 8: 1° = (π/180) rad, so
+		// π/6 rad is 30° and the atan(1) of a 1:1 slope is 45°.
+		{math.Pi / 6, "deg", 4, "30 deg"},
+		{math.Atan(1), "deg", 4, "45 deg"},
+		{0.6, "rad", 3, "0.6 rad"},
+		// A finite value stays finite in a smaller unit (issue 15): 2.36e304 m²
+		// is 2.36e310 mm², beyond float64 but not infinite.
+		{2.36e304, "mm^2", 3, "2.36e310 mm^2"},
+		{-1.7e308, "mm", 4, "-1.7e311 mm"},
+		{math.MaxFloat64, "µm", 10, "1.797693135e314 µm"},
+		// A tiny one neither collapses to 0 nor loses its digits as a
+		// subnormal: 5e-320 m is 5e-323 km; 1.234e-300 Pa is 1.234e-309 GPa.
+		{5e-320, "km", 3, "5e-323 km"},
+		{1.234e-300, "GPa", 4, "1.234e-309 GPa"},
+		{math.SmallestNonzeroFloat64, "Pa", 3, "4.94e-324 Pa"},
+		{math.Inf(1), "mm", 3, "+Inf mm"},
+		{math.NaN(), "mm", 3, "NaN mm"},
 	}
 	for _, tc := range tests {
 		u := Unit{Factor: 1}

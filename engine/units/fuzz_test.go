@@ -2,6 +2,9 @@ package units
 
 import (
 	"errors"
+	"math"
+	"math/big"
+	"strings"
 	"testing"
 )
 
@@ -33,6 +36,47 @@ func FuzzParse(f *testing.F) {
 		}
 		if pretty, err := Parse(u.Pretty()); err != nil || pretty.Symbol != u.Symbol {
 			t.Fatalf("Parse(%q).Pretty() = %q parses to %q, %v", text, u.Pretty(), pretty.Symbol, err)
+		}
+	})
+}
+
+// FuzzFormat: a finite SI value in a unit of finite, non-zero factor is
+// written as a finite number (never "+Inf", "-Inf", "NaN" or a lost "0"),
+// and the number read back in extended precision is si/factor to the
+// figures asked for.
+func FuzzFormat(f *testing.F) {
+	f.Add(2.36e304, 1e-6, 3)
+	f.Add(-1.7e308, 1e-3, 17)
+	f.Add(5e-320, 1e3, 3)
+	f.Add(353.677651e6, 1e6, 4)
+	f.Add(math.Pi/6, math.Pi/180, 4)
+	f.Fuzz(func(t *testing.T, si, factor float64, sig int) {
+		if math.IsNaN(si) || math.IsInf(si, 0) || math.IsNaN(factor) || math.IsInf(factor, 0) || factor == 0 {
+			return
+		}
+		s := Format(si, Unit{Factor: factor, Symbol: "u"}, sig)
+		num, ok := strings.CutSuffix(s, " u")
+		if !ok || strings.ContainsAny(num, "IN") {
+			t.Fatalf("Format(%g, factor %g, %d) = %q", si, factor, sig, s)
+		}
+		got, _, err := big.ParseFloat(num, 10, 64, big.ToNearestEven)
+		if err != nil {
+			t.Fatalf("Format(%g, factor %g, %d) = %q does not read back: %v", si, factor, sig, s, err)
+		}
+		want := new(big.Float).SetPrec(64).Quo(big.NewFloat(si), big.NewFloat(factor))
+		if si != 0 && got.Sign() == 0 {
+			t.Fatalf("Format(%g, factor %g, %d) = %q lost the value", si, factor, sig, s)
+		}
+		if want.Sign() == 0 {
+			return
+		}
+		// |got - want| / |want| within half a unit in the last figure kept,
+		// plus the rounding of the float64 quotient (a few ulps) where it
+		// stayed in range.
+		n := min(max(sig, 1), 17)
+		rel, _ := new(big.Float).Quo(new(big.Float).Sub(got, want), want).Float64()
+		if math.Abs(rel) > 0.51*math.Pow(10, float64(1-n))+5e-16 {
+			t.Fatalf("Format(%g, factor %g, %d) = %q, want %s (relative %g)", si, factor, sig, s, want.Text('g', 20), rel)
 		}
 	})
 }

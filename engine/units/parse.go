@@ -28,6 +28,7 @@ type parser struct {
 	text  string
 	pos   int
 	depth int
+	tab   *tables // nil while build parses the catalogue itself
 }
 
 // Parse reads a unit expression and returns the unit with its Symbol
@@ -41,10 +42,17 @@ type parser struct {
 //
 // Errors are *Error values with byte offsets into text.
 func Parse(text string) (Unit, error) {
+	t := tab()
 	// Fast path: a catalogue symbol is already normalised.
-	if u, ok := catalogueIndex[text]; ok {
+	if u, ok := t.catalogueIndex[text]; ok {
 		return u, nil
 	}
+	return parse(text, t)
+}
+
+// parse is Parse against the tables t; with t nil (build reading the
+// catalogue) the unit has no quantity name and errors offer no suggestion.
+func parse(text string, tab *tables) (Unit, error) {
 	if len(text) > maxUnitLen {
 		return Unit{}, &Error{Offset: maxUnitLen, End: len(text),
 			Msg:  fmt.Sprintf("unit text is too long (%d bytes)", len(text)),
@@ -62,7 +70,7 @@ func Parse(text string) (Unit, error) {
 		return Unit{}, &Error{Offset: off, End: off + 1, Msg: "invalid UTF-8 in unit text",
 			Hint: "save the sheet as UTF-8"}
 	}
-	p := parser{text: text}
+	p := parser{text: text, tab: tab}
 	p.skipSpace()
 	if p.pos == len(text) {
 		return Unit{}, &Error{Offset: 0, End: len(text), Msg: "empty unit",
@@ -76,14 +84,18 @@ func Parse(text string) (Unit, error) {
 		return Unit{}, &Error{Offset: p.pos, End: p.pos + 1, Msg: "unexpected `)`",
 			Hint: "there is no `(` for it to close"}
 	}
-	return t.unit(), nil
+	return t.unit(tab), nil
 }
 
 // unit makes the Unit of a finished term, taking the quantity name from the
 // catalogue when the symbol is listed there.
-func (t term) unit() Unit {
-	u := Unit{Symbol: t.sym, Dim: t.dim, Factor: t.factor, Quantity: defaultQty[t.dim], System: t.sys.system()}
-	if e, ok := catalogueIndex[t.sym]; ok {
+func (t term) unit(tab *tables) Unit {
+	u := Unit{Symbol: t.sym, Dim: t.dim, Factor: t.factor, System: t.sys.system()}
+	if tab == nil {
+		return u
+	}
+	u.Quantity = tab.defaultQty[t.dim]
+	if e, ok := tab.catalogueIndex[t.sym]; ok {
 		u.Quantity = e.Quantity
 	}
 	return u
@@ -206,7 +218,7 @@ func (p *parser) factor(after string) (term, error) {
 		name := p.text[p.pos:end]
 		sym, a, f, ok, noPrefix := resolveName(name)
 		if !ok {
-			return t, unknownUnit(name, p.pos, end, noPrefix)
+			return t, unknownUnit(name, p.pos, end, noPrefix, p.tab)
 		}
 		p.pos = end
 		t = term{sym: sym, dim: a.dim, factor: f, sys: sysMask(1) << a.system}
@@ -238,9 +250,9 @@ func (p *parser) factor(after string) (term, error) {
 }
 
 // unknownUnit builds the error for a name that is not a unit.
-func unknownUnit(name string, off, end int, noPrefix *atom) *Error {
+func unknownUnit(name string, off, end int, noPrefix *atom, tab *tables) *Error {
 	e := &Error{Offset: off, End: end, Msg: fmt.Sprintf("unknown unit `%s`", name)}
-	switch s := suggest(name); {
+	switch s := suggest(name, tab); {
 	case noPrefix != nil:
 		e.Hint = fmt.Sprintf("`%s` takes no SI prefix", noPrefix.sym)
 	case s != "":

@@ -58,7 +58,7 @@ func TestParseNormalises(t *testing.T) {
 		{"uε", "µε", None},
 		{"°C", "degC", dTemp},
 		{"℉", "degF", dTemp},
-		{"°", "deg", None},
+		{"°", "deg", dAngle},
 		{"tonne", "t", dMass},
 		{"kips", "kip", dForce},
 		{"%", "%", None},
@@ -102,6 +102,11 @@ func TestParseSystemAndQuantity(t *testing.T) {
 		{"kN*m^2", Metric, "flexural rigidity"},
 		{"µε", Neutral, "strain"},
 		{"kg*m", Metric, ""}, // no name for this dimension
+		{"deg", Neutral, "angle"},
+		{"°", Neutral, "angle"},
+		{"mrad", Neutral, "angle"},
+		{"gon", Neutral, "angle"},
+		{"%", Neutral, "dimensionless"},
 	}
 	for _, tc := range tests {
 		u, err := Parse(tc.in)

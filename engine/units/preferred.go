@@ -1,6 +1,9 @@
 package units
 
-import "strconv"
+import (
+	"math"
+	"strconv"
+)
 
 // Preferred display units, in order, for each system. The first unit of a
 // dimension wins. These are the units a structural engineer reads without
@@ -10,23 +13,23 @@ var preferredSymbols = map[System][]string{
 	Metric: {
 		"1", "kN", "MPa", "mm", "kN*m", "kN/m", "mm^2", "mm^3", "mm^4",
 		"kN/m^3", "kg/m^3", "kg", "s", "K", "1/K", "kN*m^2",
-		"m/s", "m/s^2", "kW", "Hz",
+		"m/s", "m/s^2", "kW", "Hz", "deg",
 	},
 	US: {
 		"1", "kip", "ksi", "in", "kip*ft", "klf", "in^2", "in^3", "in^4",
 		"pcf", "lb/ft^3", "lb", "s", "degF", "1/degF", "kip*in^2",
-		"ft/s", "ft/s^2", "Hz",
+		"ft/s", "ft/s^2", "Hz", "deg",
 	},
 }
 
-// preferred maps system and dimension to the unit to show.
-var preferred = map[System]map[Dim]Unit{}
-
-func init() {
+// buildPreferred maps system and dimension to the unit to show, parsing
+// the lists against t (whose catalogue is complete), for build.
+func buildPreferred(t *tables) map[System]map[Dim]Unit {
+	preferred := make(map[System]map[Dim]Unit, len(preferredSymbols))
 	for sys, syms := range preferredSymbols {
 		m := make(map[Dim]Unit, len(syms))
 		for _, s := range syms {
-			u, err := Parse(s)
+			u, err := parse(s, t)
 			if err != nil {
 				panic("units: preferred unit " + s + ": " + err.Error())
 			}
@@ -39,6 +42,7 @@ func init() {
 		}
 		preferred[sys] = m
 	}
+	return preferred
 }
 
 // Preferred returns the display unit for dimension d in system s (Neutral
@@ -50,7 +54,7 @@ func Preferred(d Dim, s System) (Unit, bool) {
 	if s == Neutral {
 		s = Metric
 	}
-	if u, ok := preferred[s][d]; ok {
+	if u, ok := tab().preferred[s][d]; ok {
 		return u, true
 	}
 	return Coherent(d), false
@@ -63,16 +67,23 @@ var baseOrder = [...]struct {
 	sym string
 }{
 	{Mass, "kg"}, {Length, "m"}, {Time, "s"}, {Current, "A"},
-	{Temperature, "K"}, {Amount, "mol"}, {Luminous, "cd"},
+	{Temperature, "K"}, {Amount, "mol"}, {Luminous, "cd"}, {Angle, "rad"},
 }
 
 // Coherent returns the coherent SI unit of d (factor 1) written as a product
 // of base units with signed exponents, e.g. "kg*m^-1*s^-2" or "m^(1/2)".
 // Its symbol parses back to the same dimension.
+//
+// Overflow has no unit: its symbol is "?" and its factor NaN, so a value
+// that reached it anyway is never shown as a number in some unit.
 func Coherent(d Dim) Unit {
-	u := Unit{Dim: d, Factor: 1, Quantity: defaultQty[d], System: Neutral}
+	u := Unit{Dim: d, Factor: 1, Quantity: tab().defaultQty[d], System: Neutral}
 	if d.IsNone() {
 		u.Symbol = "1"
+		return u
+	}
+	if !d.Valid() {
+		u.Symbol, u.Factor = "?", math.NaN()
 		return u
 	}
 	var b []byte

@@ -1,6 +1,7 @@
 package units
 
 import (
+	"math"
 	"slices"
 	"testing"
 )
@@ -38,6 +39,11 @@ func TestPreferred(t *testing.T) {
 		{dimOf(1, 1, 0, 0, 0, 0, 0), Metric, "kg*m", false},
 		{dimOf(-1, 1, -2, 0, 0, 0, 0).Mul(dimOf(0, 0, 0, 1, 0, 0, 0)), US, "kg*m^-1*s^-2*A", false},
 		{Dim{1, 0, 0, 0, 0, 0, 0}, Metric, "m^(1/2)", false},
+		// Angles are read in degrees in both practices (common practice).
+		{dAngle, Metric, "deg", true},
+		{dAngle, US, "deg", true},
+		{dAngle.Div(dLength), Metric, "m^-1*rad", false},
+		{dForce.Mul(dLength).Div(dAngle), Metric, "kg*m^2*s^-2*rad^-1", false},
 	}
 	for _, tc := range tests {
 		u, ok := Preferred(tc.dim, tc.sys)
@@ -67,6 +73,11 @@ func TestDimOf(t *testing.T) {
 		{"kN", dForce, ""},
 		{"N/mm^2", dStress, ""},
 		{"kip*ft", dEnergy, ""},
+		{"angle", dAngle, ""},
+		{"plane angle", dAngle, ""},
+		{"deg", dAngle, ""},
+		{"°", dAngle, ""},
+		{"ratio", None, ""},
 		{"stres", None, "unknown quantity or unit `stres`; did you mean `stress`?"},
 		{"kn", None, "unknown unit `kn`; did you mean `kN`?"},
 		{"nothing like it", None, "unknown quantity or unit `nothing like it`; quantities are named like `stress` or `force per length`; units like `kN` or `N/mm^2`"},
@@ -113,5 +124,17 @@ func TestParseSystem(t *testing.T) {
 	}
 	if Metric.String() != "metric" || US.String() != "us" || Neutral.String() != "both" {
 		t.Error("System names changed")
+	}
+}
+
+// TestOverflowHasNoUnit: a value whose dimension overflowed is never shown
+// in a unit with a finite factor.
+func TestOverflowHasNoUnit(t *testing.T) {
+	u, ok := Preferred(Overflow, Metric)
+	if ok || u.Symbol != "?" || !math.IsNaN(u.Factor) {
+		t.Errorf("Preferred(Overflow) = %+v, %v; want symbol ? and a NaN factor", u, ok)
+	}
+	if got := Format(1, u, 3); got != "NaN ?" {
+		t.Errorf("Format(1, Overflow unit) = %q, want %q", got, "NaN ?")
 	}
 }

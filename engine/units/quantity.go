@@ -21,7 +21,7 @@ func Quantities() []string {
 // QuantityDim returns the dimension of a named quantity ("stress",
 // "weight density"). Case, underscores and hyphens do not matter.
 func QuantityDim(name string) (Dim, bool) {
-	d, ok := quantityIndex[normQuantity(name)]
+	d, ok := tab().quantityIndex[normQuantity(name)]
 	return d, ok
 }
 
@@ -45,7 +45,7 @@ func DimOf(quantityOrUnit string) (Dim, error) {
 	}
 	// A word that is not a unit is more likely a misspelt quantity.
 	n := normQuantity(quantityOrUnit)
-	if best := diag.Nearest(n, quantityNames); best != "" {
+	if best := diag.Nearest(n, tab().quantityNames); best != "" {
 		return None, &Error{Offset: 0, End: len(quantityOrUnit),
 			Msg:  fmt.Sprintf("unknown quantity or unit `%s`", quantityOrUnit),
 			Hint: fmt.Sprintf("did you mean `%s`?", best)}

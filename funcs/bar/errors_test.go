@@ -34,14 +34,14 @@ func TestInputErrors(t *testing.T) {
 		{"negative length", "bar", []funcs.Value{table([]string{"L", "A", "E"}, []float64{1, -2}, []float64{1e-3, 1e-3}, []float64{2e11, 2e11})}, "segment 2: L = -2 m must be a positive number"},
 		{"zero modulus", "bar_uniform", []funcs.Value{1.0, 1e-3, 0.0}, "E = 0 Pa"},
 		{"empty table", "bar", []funcs.Value{table([]string{"L", "A", "E"}, []float64{}, []float64{}, []float64{})}, "has no rows"},
-		{"load outside", "solve_bar", []funcs.Value{call(t, "with_point_load", good, 2.5, 1e3), "fixed", "free"}, "point load 1 at x = 2.5 m lies outside the bar"},
+		{"load outside", "solve_bar", []funcs.Value{call(t, "with_point_load", good, 2.5, 1e3), "fixed", "free"}, "point load 1 at x = 2500 mm lies outside the bar (0 … 2000 mm)"},
 		{"unknown support", "solve_bar", []funcs.Value{good, "pinned", "free"}, `unknown support "pinned" at the start`},
 		{"not held", "solve_bar", []funcs.Value{call(t, "with_point_load", good, 1.0, 1e3), "free", "free"}, "not held along its axis"},
 		{"NaN area", "solve_bar", []funcs.Value{call(t, "bar_fn", 2.0, nanFn, 2e11), "fixed", "free"}, "area function A_bad gave no finite value"},
 		{"negative modulus", "solve_bar", []funcs.Value{call(t, "bar_fn", 2.0, 1e-3, negFn), "fixed", "free"}, "modulus function E_neg gave -1"},
 		{"bad spring", "spring_support", []funcs.Value{-5.0}, "must be a positive number"},
 		{"bad gap", "gap_support", []funcs.Value{-1e-3}, "zero or positive"},
-		{"query outside", "bar_N", []funcs.Value{call(t, "solve_bar", good, "fixed", "free"), 3.0}, "x = 3 m lies outside the bar"},
+		{"query outside", "bar_N", []funcs.Value{call(t, "solve_bar", good, "fixed", "free"), 3.0}, "x = 3000 mm lies outside the bar (0 … 2000 mm)"},
 		{"not a bar", "solve_bar", []funcs.Value{"rod", "fixed", "free"}, "expected a bar"},
 	}
 	for _, c := range cases {

@@ -4,6 +4,8 @@ import (
 	"fmt"
 	"math"
 	"sort"
+
+	"github.com/sheafcalc/sheaf/funcs"
 )
 
 // find returns the piece that holds x, taking the piece to the right at a
@@ -58,7 +60,7 @@ func (r *Result) uIn(i int, x float64) (float64, error) {
 func (r *Result) at(x float64) (int, float64, error) {
 	tol := 1e-12 * r.Length
 	if !finite(x) || x < -tol || x > r.Length+tol {
-		return 0, 0, fmt.Errorf("x = %g m lies outside the bar (0 … %g m); hint: positions are measured from the start of the bar", x, r.Length)
+		return 0, 0, fmt.Errorf("x = %s lies outside the bar (0 … %s); hint: positions are measured from the start of the bar", funcs.Length(x), funcs.Length(r.Length))
 	}
 	x = min(max(x, 0), r.Length)
 	return r.find(x), x, nil

@@ -82,7 +82,7 @@ func segmentsFromTable(tv *funcs.TableValue) ([]Segment, error) {
 			s.Shape, s.A1 = Constant, math.Pi*d*d/4
 			s.A2 = s.A1
 			if !finite(d) || d <= 0 {
-				return nil, fmt.Errorf("segment %d: d = %g m must be a positive number", i+1, d)
+				return nil, fmt.Errorf("segment %d: d = %s must be a positive number", i+1, funcs.Length(d))
 			}
 		case col("d1") != nil:
 			s.Shape, s.D1, s.D2 = TaperDiameter, col("d1")[i], col("d2")[i]

@@ -4,6 +4,8 @@ import (
 	"fmt"
 	"math"
 	"slices"
+
+	"github.com/sheafcalc/sheaf/funcs"
 )
 
 // piece is a stretch of one segment between joints and point loads, where
@@ -129,7 +131,7 @@ func (v *solver) build(points []PointLoad) (ps []piece, pEnd, scale, f, g float6
 			return nil, 0, 0, 0, 0, fmt.Errorf("point load %d: x = %g m, P = %g N must be finite numbers", k+1, p.X, p.P)
 		}
 		if p.X < -tol || p.X > v.lt+tol {
-			return nil, 0, 0, 0, 0, fmt.Errorf("point load %d at x = %g m lies outside the bar (0 … %g m); hint: positions are measured from the start of the bar", k+1, p.X, v.lt)
+			return nil, 0, 0, 0, 0, fmt.Errorf("point load %d at x = %s lies outside the bar (0 … %s); hint: positions are measured from the start of the bar", k+1, funcs.Length(p.X), funcs.Length(v.lt))
 		}
 		pts[k].X = min(max(p.X, 0), v.lt)
 		scale += math.Abs(p.P)
@@ -217,6 +219,7 @@ type Result struct {
 	Length         float64
 
 	v      *solver
+	layout funcs.BarLayout // what a drawing shows of the bar (see Layout)
 	pieces []piece
 	r0, u0 float64
 	pEnd   float64
@@ -241,7 +244,7 @@ func Solve(b *Bar, start, end Support) (*Result, error) {
 		return nil, err
 	}
 	nTot := ps[len(ps)-1].nc - pEnd // R_L when R₀ = 0
-	res := &Result{v: v, pieces: ps, pEnd: pEnd, Length: v.lt}
+	res := &Result{v: v, pieces: ps, pEnd: pEnd, Length: v.lt, layout: layoutOf(b, start, end)}
 	if err := res.solveEnds(start, end, fTot, gTot, nTot, scale); err != nil {
 		return nil, err
 	}
@@ -264,7 +267,7 @@ func checkSupport(which string, s Support) error {
 		return nil
 	case Gap:
 		if !finite(s.Gap) || s.Gap < 0 {
-			return fmt.Errorf("the gap at the %s is %g m; it must be zero or positive (the clearance to the stop)", which, s.Gap)
+			return fmt.Errorf("the gap at the %s is %s; it must be zero or positive (the clearance to the stop)", which, funcs.Length(s.Gap))
 		}
 		if !finite(s.K) || s.K < 0 {
 			return fmt.Errorf("the stop behind the gap at the %s has stiffness %g N/m; give a positive number, or 0 for a rigid stop", which, s.K)

@@ -90,7 +90,7 @@ func New(parts []*Part) (*Composite, error) {
 	for i := range parts {
 		for j := i + 1; j < len(parts); j++ {
 			if _, err := section.Join(parts[i].Shape, parts[j].Shape); err != nil {
-				return nil, fmt.Errorf("parts %d and %d overlap; a core inside a tube is the tube's hole, e.g. circle(d − 2t) with chs(d, t) (%v)", i+1, j+1, err)
+				return nil, fmt.Errorf("parts[%d] and parts[%d] overlap; a core inside a tube is the tube's hole, e.g. circle(d − 2t) with chs(d, t) (%v)", i, j, err)
 			}
 		}
 	}
@@ -105,7 +105,7 @@ func New(parts []*Part) (*Composite, error) {
 	var sy, sz, syy, szz, syz float64
 	for i, p := range parts {
 		if err := p.Prepare(c.Y0, c.Z0); err != nil {
-			return nil, fmt.Errorf("part %d: %w", i+1, err)
+			return nil, fmt.Errorf("parts[%d]: %w", i, err)
 		}
 		c.A += p.A
 		c.EA += p.EA
@@ -142,7 +142,7 @@ func (c *Composite) Response(n, dT float64) (*Axial, error) {
 	thermal := 0.0
 	for i, p := range c.Parts {
 		if dT != 0 && !p.HasAlpha {
-			return nil, fmt.Errorf("part %d has no alpha; give alpha (1/K) in its material to apply a temperature change", i+1)
+			return nil, fmt.Errorf("parts[%d] has no alpha; give alpha (1/K) in its material to apply a temperature change", i)
 		}
 		thermal += p.Alpha * p.EA * dT
 	}

@@ -3,6 +3,7 @@ package plastic
 import (
 	"fmt"
 	"math"
+	"strings"
 
 	"github.com/sheafcalc/sheaf/funcs"
 	"github.com/sheafcalc/sheaf/funcs/composite"
@@ -37,7 +38,7 @@ func NewSection(c *composite.Composite) (*Section, error) {
 	for i, p := range c.Parts {
 		l, err := lawOf(p)
 		if err != nil {
-			return nil, fmt.Errorf("part %d: %w", i+1, err)
+			return nil, fmt.Errorf("parts[%d]: %w", i, err)
 		}
 		s.Laws = append(s.Laws, l)
 	}
@@ -71,11 +72,11 @@ func (s *Section) Force(eps, dT float64) (float64, error) {
 		}
 		lo, hi := l.Limits()
 		if em < lo || em > hi {
-			return math.NaN(), &StrainRangeError{Part: i + 1, Eps: em, Lo: lo, Hi: hi, Kind: l.Kind()}
+			return math.NaN(), &StrainRangeError{Part: i, Eps: em, Lo: lo, Hi: hi, Kind: l.Kind()}
 		}
 		sig := l.Stress(em)
 		if math.IsNaN(sig) || math.IsInf(sig, 0) {
-			return math.NaN(), fmt.Errorf("the %s of part %d has no finite stress at strain %g", l.Kind(), i+1, em)
+			return math.NaN(), fmt.Errorf("the %s law of parts[%d] has no finite stress at strain %.6g", l.Kind(), i, em)
 		}
 		n += sig * p.A
 	}
@@ -84,7 +85,7 @@ func (s *Section) Force(eps, dT float64) (float64, error) {
 
 // StrainRangeError reports a strain outside the range of a part's law.
 type StrainRangeError struct {
-	Part        int
+	Part        int // index into the parts list, from 0 as in a sheet
 	Eps, Lo, Hi float64
 	Kind        string
 }
@@ -93,9 +94,9 @@ type StrainRangeError struct {
 // for the section.
 func (e *StrainRangeError) Error() string {
 	if e.Eps < e.Lo {
-		return fmt.Sprintf("strain %.6g in part %d is beyond the crushing strain %.6g of its %s law; the section has failed there", e.Eps, e.Part, e.Lo, e.Kind)
+		return fmt.Sprintf("strain %.6g in parts[%d] is beyond the crushing strain %.6g of its %s law; the section has failed there", e.Eps, e.Part, e.Lo, e.Kind)
 	}
-	return fmt.Sprintf("strain %.6g in part %d is beyond the limit %.6g of its %s law", e.Eps, e.Part, e.Hi, e.Kind)
+	return fmt.Sprintf("strain %.6g in parts[%d] is beyond the limit %.6g of its %s law", e.Eps, e.Part, e.Hi, e.Kind)
 }
 
 // maxStrain bounds the search for a strain: 100 % is far beyond any
@@ -184,11 +185,11 @@ func (s *Section) SquashLoad(coef float64) (float64, error) {
 	n := 0.0
 	for i, l := range s.Laws {
 		if l == nil {
-			return 0, fmt.Errorf("part %d is a graded elastic part without a plateau; the squash load needs a plastic law in every part", i+1)
+			return 0, fmt.Errorf("parts[%d] is a graded elastic part without a plateau; the squash load needs a plastic law in every part", i)
 		}
 		f, ok := l.Squash(coef)
 		if !ok {
-			return 0, fmt.Errorf("part %d has a %s law without a compressive plateau; give it law_epp or law_parabola_rect, or use strain_for_force", i+1, l.Kind())
+			return 0, fmt.Errorf("parts[%d] has %s %s law without a compressive plateau; give it law_epp or law_parabola_rect, or use strain_for_force", i, article(l.Kind()), l.Kind())
 		}
 		n += f * s.C.Parts[i].A
 	}
@@ -217,4 +218,13 @@ func (s *Section) Curve(lo, hi float64, n int) (eps, force []float64, err error)
 		eps[i], force[i] = e, v
 	}
 	return eps, force, nil
+}
+
+// article is "an" before a vowel sound, else "a" ("an elastic law", "a
+// parabola–rectangle law").
+func article(word string) string {
+	if word != "" && strings.ContainsRune("aeiouAEIOU", rune(word[0])) {
+		return "an"
+	}
+	return "a"
 }

@@ -223,7 +223,7 @@ func init() {
 			{Name: "s", Type: ParamType, Doc: "the section to move"},
 			length("dy", "shift along y, m"),
 			length("dz", "shift along z, m"),
-			{Name: "rot_deg", Type: funcs.Num(units.None), Optional: true, Doc: "rotation about the origin in degrees, counter-clockwise from y towards z, applied before the shift; default 0"},
+			{Name: "rot", Type: funcs.Num(Rot), Optional: true, Doc: "rotation about the origin, an angle such as 90 deg or 0.5 rad (not a plain number), counter-clockwise from y towards z, applied before the shift; default 0 deg"},
 		},
 		Result: sec,
 		Call: func(a []funcs.Value) (funcs.Value, error) {
@@ -231,22 +231,23 @@ func init() {
 			if err != nil {
 				return nil, err
 			}
-			rot := 0.0
+			rot := 0.0 // rad: the checker has made the argument an angle, held in SI
 			if len(a) > 3 && a[3] != nil {
 				rot = num(a[3])
 			}
 			dy, dz := num(a[1]), num(a[2])
 			for _, v := range []float64{dy, dz, rot} {
 				if math.IsNaN(v) || math.IsInf(v, 0) {
-					return nil, fmt.Errorf("place needs finite shifts and angle, got dy = %g m, dz = %g m, rot_deg = %g", dy, dz, rot)
+					return nil, fmt.Errorf("place needs finite shifts and angle, got dy = %g m, dz = %g m, rot = %g rad", dy, dz, rot)
 				}
 			}
-			return Record(s.Transform(dy, dz, rot*math.Pi/180)), nil
+			return Record(s.Transform(dy, dz, rot)), nil
 		},
-		Summary: "section rotated about the origin by rot_deg, then shifted by (dy, dz)",
-		Doc: "A copy of s rotated counter-clockwise by rot_deg degrees about the origin and then moved by " +
-			"(dy, dz). Area and principal moments do not change; the centroid moves with the shape; I_y, I_z " +
-			"and I_yz follow the tensor rotation. Circles stay exact.",
+		Summary: "section rotated about the origin by the angle rot, then shifted by (dy, dz)",
+		Doc: "A copy of s rotated counter-clockwise by rot about the origin and then moved by (dy, dz). rot is " +
+			"an angle quantity (90 deg, 0.5 rad); a plain number is refused, so 90 cannot be read as radians. " +
+			"Area and principal moments do not change; the centroid moves with the shape; I_y, I_z and I_yz " +
+			"follow the tensor rotation. Circles stay exact.",
 		Formula: "y' = y·cos θ − z·sin θ + dy; z' = y·sin θ + z·cos θ + dz",
 		Source:  srcMech,
 	})
@@ -263,7 +264,11 @@ func init() {
 		if err != nil {
 			return nil, err
 		}
-		return funcs.Num(d.Mul(L2)), nil
+		r := d.Mul(L2)
+		if !r.Valid() {
+			return nil, fmt.Errorf("f times m² has a dimension exponent out of range (f is %s)", d)
+		}
+		return funcs.Num(r), nil
 	}
 	integralParams := []funcs.Param{
 		{Name: "s", Type: ParamType, Doc: "the section"},

@@ -19,7 +19,8 @@ func TestRegisteredCalls(t *testing.T) {
 	}
 	// Source: Gere & Goodno App. E, rectangle I_y = bh³/12.
 	r := call(t, "rect", 0.3, 0.5)
-	moved := call(t, "place", r, 0.1, 0.2, 90.0).(*funcs.RecordValue)
+	// The rotation is an angle held in SI (radians): 90° is π/2.
+	moved := call(t, "place", r, 0.1, 0.2, math.Pi/2).(*funcs.RecordValue)
 	if relErr(moved.Num("I_z", 0), 0.3*0.5*0.5*0.5/12) > 1e-12 || relErr(moved.Num("y_c", 0), 0.1) > 1e-12 {
 		t.Errorf("placed rect %v", moved.Fields)
 	}

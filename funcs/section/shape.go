@@ -4,6 +4,8 @@ import (
 	"errors"
 	"fmt"
 	"math"
+
+	"github.com/sheafcalc/sheaf/funcs"
 )
 
 // MaxVertices bounds the vertices of one polygon ring: the self-intersection
@@ -279,7 +281,7 @@ func Join(a, b *Shape) (*Shape, error) {
 		}
 		for _, p := range r.boundarySamples() {
 			if a.Density(p[0], p[1]) > 0.5 {
-				return nil, fmt.Errorf("the shapes overlap at y = %.6g m, z = %.6g m; joined parts must touch at most along an edge", p[0], p[1])
+				return nil, fmt.Errorf("the shapes overlap at y = %s, z = %s; joined parts must touch at most along an edge", funcs.Length(p[0]), funcs.Length(p[1]))
 			}
 		}
 	}
@@ -289,7 +291,7 @@ func Join(a, b *Shape) (*Shape, error) {
 		}
 		for _, p := range r.boundarySamples() {
 			if b.Density(p[0], p[1]) > 0.5 {
-				return nil, fmt.Errorf("the shapes overlap at y = %.6g m, z = %.6g m; joined parts must touch at most along an edge", p[0], p[1])
+				return nil, fmt.Errorf("the shapes overlap at y = %s, z = %s; joined parts must touch at most along an edge", funcs.Length(p[0]), funcs.Length(p[1]))
 			}
 		}
 	}

@@ -1,14 +1,17 @@
 package section
 
 import (
+	"errors"
 	"fmt"
 	"math"
+
+	"github.com/sheafcalc/sheaf/funcs"
 )
 
 // positive reports a dimension that must be a positive finite length.
 func positive(name string, v float64) error {
 	if !(v > 0) || math.IsInf(v, 0) {
-		return fmt.Errorf("%s must be a positive length, got %g m", name, v)
+		return fmt.Errorf("%s must be a positive length, got %s", name, funcs.Length(v))
 	}
 	return nil
 }
@@ -35,7 +38,11 @@ func CHS(d, t float64) (*Shape, error) {
 		return nil, err
 	}
 	if t > d/2 {
-		return nil, fmt.Errorf("wall thickness t = %g m is more than half the diameter d = %g m", t, d)
+		msg := fmt.Sprintf("wall thickness t = %s is more than half the diameter d = %s", funcs.Length(t), funcs.Length(d))
+		if t > d {
+			msg += "; hint: the arguments look swapped: chs(d, t) takes the outside diameter first, then the wall thickness"
+		}
+		return nil, errors.New(msg)
 	}
 	return &Shape{Regions: []Region{{Sign: 1, Ann: &Annulus{Rin: d/2 - t, Rout: d / 2}}}}, nil
 }
@@ -66,7 +73,7 @@ func RHS(b, h, t float64) (*Shape, error) {
 		return nil, err
 	}
 	if 2*t >= math.Min(b, h) {
-		return nil, fmt.Errorf("wall thickness t = %g m leaves no hole in a %g m × %g m tube; t must be less than half the smaller side", t, b, h)
+		return nil, fmt.Errorf("wall thickness t = %s leaves no hole in a %s × %s tube; t must be less than half the smaller side", funcs.Length(t), funcs.Length(b), funcs.Length(h))
 	}
 	return &Shape{Regions: []Region{
 		{Sign: 1, Ring: rectRing(-b/2, -h/2, b/2, h/2)},
@@ -88,10 +95,10 @@ func ISection(h, b, tw, tf float64) (*Shape, error) {
 		}
 	}
 	if tw >= b {
-		return nil, fmt.Errorf("web thickness t_w = %g m must be less than the flange width b = %g m", tw, b)
+		return nil, fmt.Errorf("web thickness t_w = %s must be less than the flange width b = %s", funcs.Length(tw), funcs.Length(b))
 	}
 	if 2*tf >= h {
-		return nil, fmt.Errorf("two flanges of t_f = %g m do not fit in the depth h = %g m", tf, h)
+		return nil, fmt.Errorf("two flanges of t_f = %s do not fit in the depth h = %s", funcs.Length(tf), funcs.Length(h))
 	}
 	y1, y2 := b/2, tw/2
 	z1, z2 := h/2, h/2-tf
@@ -115,7 +122,7 @@ func Angle(h, b, t float64) (*Shape, error) {
 		}
 	}
 	if t >= math.Min(h, b) {
-		return nil, fmt.Errorf("thickness t = %g m must be less than both legs (h = %g m, b = %g m)", t, h, b)
+		return nil, fmt.Errorf("thickness t = %s must be less than both legs (h = %s, b = %s)", funcs.Length(t), funcs.Length(h), funcs.Length(b))
 	}
 	ring := &Ring{Y: []float64{0, b, b, t, t, 0}, Z: []float64{0, 0, t, t, h, h}}
 	return &Shape{Regions: []Region{{Sign: 1, Ring: ring}}}, nil

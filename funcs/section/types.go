@@ -10,6 +10,9 @@ var (
 	L  = units.Base(units.Length)
 	L2 = L.Mul(L)
 	L4 = L2.Mul(L2)
+	// Rot is the dimension of a rotation: a plane angle, which Sheaf keeps
+	// apart from plain numbers.
+	Rot = units.Base(units.Angle)
 )
 
 // Type is the record type "section": the properties of a shape, with the

@@ -8,6 +8,7 @@ import (
 	"path/filepath"
 	"regexp"
 	"slices"
+	"strings"
 	"testing"
 
 	"github.com/sheafcalc/sheaf/engine"
@@ -122,8 +123,13 @@ func TestJSONRoundTrip(t *testing.T) {
 			continue
 		}
 		if !c.Known {
-			if j.DemandSI != nil || j.CapacitySI != nil || j.Utilisation != nil {
+			// A check not assessed with both sides computed shows them
+			// (and why it is not assessed); one whose sides failed has none.
+			if j.Utilisation != nil || (c.Problem == nil && (j.DemandSI != nil || j.CapacitySI != nil)) {
 				t.Errorf("%s is not assessed but has numbers: %+v", j.Name, j)
+			}
+			if c.Problem != nil && (!same(j.DemandSI, c.Demand) || !same(j.CapacitySI, c.Capacity) || j.NotAssessed != c.Problem.Summary || j.Verdict != "not assessed") {
+				t.Errorf("%s: %+v, want demand %g capacity %g and the reason", j.Name, j, c.Demand, c.Capacity)
 			}
 			continue
 		}
@@ -136,7 +142,7 @@ func TestJSONRoundTrip(t *testing.T) {
 		t.Errorf("%d problems, want %d", len(d.Problems), len(r.Problems))
 	}
 	for i, p := range d.Problems {
-		if want := r.Problems[i]; p.Pos != want.Range.Start.String() || p.Summary != want.Summary {
+		if want := r.Problems[i]; p.Pos != want.Range.Start.String() || p.Message != want.Summary {
 			t.Errorf("problem %d: %+v, want %v", i, p, want)
 		}
 	}
@@ -216,5 +222,37 @@ func TestJSONNumbers(t *testing.T) {
 	}
 	if d.Failed != 1 || len(d.Problems) != 2 || d.Caution != jsonout.Caution {
 		t.Errorf("failed %d, problems %v, caution %q", d.Failed, d.Problems, d.Caution)
+	}
+}
+
+// TestJSONChecksCannotPassByAccident: a tension check under a compressive
+// demand is not assessed, with its reason and both sides, never a negative
+// utilisation that passes; a min() capacity names the term that governs.
+func TestJSONChecksCannotPassByAccident(t *testing.T) {
+	src := "N [kN] = -8.798 kN\nN_pl [kN] = 50 kN\nN_b [kN] = 32 kN\nN_Rd [kN] = min(N_pl, N_b)\n" +
+		"check tension: N <= 28 kN\ncheck strut: -N <= N_Rd\n"
+	s, err := engine.Compile("t.sheaf", []byte(src))
+	if err != nil {
+		t.Fatal(err)
+	}
+	var b bytes.Buffer
+	if err := jsonout.Write(&b, s.Run(nil)); err != nil {
+		t.Fatal(err)
+	}
+	var d jsonout.Document
+	if err := json.Unmarshal(b.Bytes(), &d); err != nil {
+		t.Fatal(err)
+	}
+	ten, strut := d.Checks[0], d.Checks[1]
+	if ten.Pass || ten.Utilisation != nil || ten.Verdict != "not assessed" || ten.Demand == nil || *ten.Demand != -8.798 ||
+		!strings.Contains(ten.NotAssessed, "demand is compression; this check is written for tension") {
+		t.Errorf("tension: %+v", ten)
+	}
+	// Source: by hand, 8.798 / min(50, 32) = 0.2749375.
+	if !strut.Pass || strut.Governing != "N_b" || strut.Utilisation == nil || math.Abs(*strut.Utilisation-8.798/32) > 1e-12 {
+		t.Errorf("strut: %+v", strut)
+	}
+	if d.ExitCode != 1 || d.Failed != 1 || d.Uncomputed != 0 || len(d.Problems) != 1 || d.Problems[0].Kind != jsonout.KindCheck {
+		t.Errorf("exit %d, failed %d, uncomputed %d, problems %+v", d.ExitCode, d.Failed, d.Uncomputed, d.Problems)
 	}
 }

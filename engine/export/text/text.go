@@ -7,7 +7,9 @@ import (
 	"unicode/utf8"
 
 	"github.com/sheafcalc/sheaf/engine"
+	"github.com/sheafcalc/sheaf/engine/diag"
 	"github.com/sheafcalc/sheaf/engine/units"
+	"github.com/sheafcalc/sheaf/internal/plural"
 )
 
 // Caution is printed at the end of every listing.
@@ -68,10 +70,12 @@ func Write(w io.Writer, r *engine.Results, sigFigs int) error {
 	if r.Combos != nil {
 		writeCombos(&b, r)
 	}
-	if len(r.Problems) > 0 {
+	if r.Uncomputed() > 0 {
 		b.WriteString("\nNot computed\n------------\n")
 		for _, p := range r.Problems {
-			b.WriteString("  " + p.Error() + "\n")
+			if !assessment(r, p) {
+				b.WriteString("  " + p.Error() + "\n")
+			}
 		}
 	}
 	b.WriteString("\n" + summary(r) + "\n\n" + Caution + "\n")
@@ -111,16 +115,11 @@ func writeChecks(b *strings.Builder, r *engine.Results, sig int) {
 	var w [5]int
 	for _, c := range r.Checks {
 		rw := row{name: c.Cell.Name, verdict: Unknown, dem: "-", cap: "-", util: "-"}
-		if !c.Known && c.Combo != nil && c.Combo.Reversed {
-			// The demand and capacity are known; the sign is not that of
-			// the check.
+		if c.Known || c.Problem != nil {
 			rw.dem = units.Format(c.Demand, c.Unit, sig)
 			rw.cap = units.Format(c.Capacity, c.Unit, sig)
-			rw.util = "reversed"
 		}
 		if c.Known {
-			rw.dem = units.Format(c.Demand, c.Unit, sig)
-			rw.cap = units.Format(c.Capacity, c.Unit, sig)
 			rw.util = units.FormatNumber(c.Util*100, 3) + " %"
 			rw.verdict = Pass
 			if !c.Pass {
@@ -128,6 +127,12 @@ func writeChecks(b *strings.Builder, r *engine.Results, sig int) {
 			}
 		}
 		rw.note = annotation(c.Cell.Description, c.Cell.Reference)
+		if c.Governing != "" {
+			rw.note = "  governed by " + c.Governing + rw.note
+		}
+		if c.Problem != nil {
+			rw.note = "  " + Reason(c) + rw.note
+		}
 		rw.combo = checkCombo(r, c)
 		for i, s := range []string{rw.name, rw.dem, rw.cap, rw.util, rw.verdict} {
 			w[i] = max(w[i], utf8.RuneCountInString(s))
@@ -144,7 +149,40 @@ func writeChecks(b *strings.Builder, r *engine.Results, sig int) {
 	}
 }
 
+// Reason is why check c is not assessed, e.g. "demand is compression;
+// this check is written for tension" (its problem's summary without the
+// leading "check `name` not assessed: ").
+func Reason(c engine.CheckResult) string {
+	if c.Problem == nil {
+		return ""
+	}
+	_, after, ok := strings.Cut(c.Problem.Summary, ": ")
+	if !ok {
+		return c.Problem.Summary
+	}
+	return after
+}
+
+// assessment reports whether p is the reason a check of r is not
+// assessed (shown in the check's row, not under "Not computed").
+func assessment(r *engine.Results, p *diag.Diagnostic) bool {
+	for _, c := range r.Checks {
+		if c.Problem == p {
+			return true
+		}
+	}
+	return false
+}
+
 func summary(r *engine.Results) string {
+	s := checksSummary(r)
+	if n := r.Uncomputed(); n > 0 {
+		s = plural.Count(n, "cell") + " could not be computed (see above): the calculation is not complete.\n" + s
+	}
+	return s
+}
+
+func checksSummary(r *engine.Results) string {
 	n, failed := len(r.Checks), r.Failed()
 	switch {
 	case n == 0:

@@ -1,6 +1,7 @@
 package xlsxout
 
 import (
+	"math"
 	"strconv"
 	"strings"
 
@@ -8,6 +9,7 @@ import (
 
 	"github.com/sheafcalc/sheaf/engine"
 	"github.com/sheafcalc/sheaf/engine/check"
+	"github.com/sheafcalc/sheaf/engine/units"
 	"github.com/sheafcalc/sheaf/funcs"
 	"github.com/sheafcalc/sheaf/internal/plural"
 )
@@ -43,6 +45,21 @@ func (x *exporter) text(s string, c class) excelize.Cell {
 
 func (x *exporter) number(v float64, c class, sig int) excelize.Cell {
 	return excelize.Cell{StyleID: x.st.id(c, numFormat(v, sig)), Value: v}
+}
+
+// noteTooLarge explains a value written as text because it is finite in SI
+// but beyond the range of a spreadsheet number in its display unit.
+const noteTooLarge = "too large for a spreadsheet number in this unit: written as text"
+
+// beyondRange reports whether the finite SI value si overflows when divided
+// by the display unit's factor; text is then the value in that unit as
+// Sheaf writes it ("2.36e310"), so the cell never shows +Inf for a finite
+// value.
+func (x *exporter) beyondRange(si, factor float64) (text string, over bool) {
+	if math.IsInf(si, 0) || math.IsNaN(si) || !math.IsInf(si/factor, 0) {
+		return "", false
+	}
+	return units.Format(si, units.Unit{Factor: factor}, x.sig), true
 }
 
 func (x *exporter) writeCalc() error {
@@ -177,6 +194,10 @@ func (x *exporter) valueCell(c *check.Cell, v funcs.Value, input bool, body *che
 	}
 	num, isNum := v.(float64)
 	if isNum {
+		if s, over := x.beyondRange(num, factor); over {
+			x.stats.ValueOnly++
+			return x.text(s, clsValueOnly), noteTooLarge
+		}
 		num /= factor
 	}
 	if input {
@@ -233,6 +254,11 @@ func (x *exporter) fieldRow(r *calcRow) [calcCols]excelize.Cell {
 			}
 			value = excelize.Cell{StyleID: x.st.id(clsValueOnly, fmtStr), Value: v}
 			note = noteValueOnly + "a field of a result only Sheaf computes"
+			if f, ok := r.val.(float64); ok {
+				if s, over := x.beyondRange(f, r.unit.Factor); over {
+					value, note = x.text(s, clsValueOnly), noteTooLarge
+				}
+			}
 		} else {
 			value, note = x.valueCell(nil, r.val, r.input, body, r.unit.Factor)
 		}

@@ -83,6 +83,9 @@ func (x *exporter) writeData() error {
 		for i := 0; i < b.t.Rows(); i++ {
 			for j, col := range b.t.Cols {
 				cells[j] = excelize.Cell{StyleID: ids[j], Value: col[i] / b.units[j].Factor}
+				if s, over := x.beyondRange(col[i], b.units[j].Factor); over {
+					cells[j].Value = s // never +Inf for a finite entry
+				}
 			}
 			if b.input {
 				x.stats.Inputs += len(cells)

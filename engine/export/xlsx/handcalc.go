@@ -116,7 +116,7 @@ func (x *exporter) pathValue(p string) (string, bool) {
 // format writes an SI value in unit u with the export's significant
 // figures and the typographic unit symbol: "121 MPa", "157 mm²", "0.9".
 func (x *exporter) format(si float64, u units.Unit) string {
-	s := units.FormatNumber(si/u.Factor, x.sig)
+	s := units.Format(si, units.Unit{Factor: u.Factor}, x.sig) // finite stays finite
 	if p := u.Pretty(); p != "" && p != "1" {
 		s += " " + p
 	}

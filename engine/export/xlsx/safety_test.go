@@ -211,3 +211,45 @@ func TestStyles(t *testing.T) {
 	}
 	_ = engine.DefaultSigFigs
 }
+
+// TestNoInfForFiniteValues: a finite SI value beyond the range of a
+// spreadsheet number in its display unit (2.36e304 m² is 2.36e310 mm²) is
+// written as its text, never as +Inf (issue 15); values in range stay numbers.
+func TestNoInfForFiniteValues(t *testing.T) {
+	s := compile(t, "big.sheaf", "title: big\nA [mm^2] = 2.36e304 m^2\nB [m^2] = 2.36e304 m^2\nC [mm] = -1.5e306 m\n"+
+		"table T\n  L [m]  F [kN]\n  1e306  1\n\ncheck c: 1e306 m <= 2e306 m\n")
+	f := build(t, s, s.NewState().Eval())
+	tests := []struct {
+		cell, value, note string
+		number            bool
+	}{
+		{"A", "2.36e310", noteTooLarge, false},
+		{"B", "2.36E+304", "", true},
+		{"C", "-1.5e309", noteTooLarge, false},
+	}
+	for _, tc := range tests {
+		ref := nameCell(t, f, tc.cell)
+		got, _ := f.GetCellValue(TabCalc, ref)
+		ty, _ := f.GetCellType(TabCalc, ref)
+		note, _ := f.GetCellValue(TabCalc, "H"+ref[1:])
+		isText := ty == excelize.CellTypeSharedString || ty == excelize.CellTypeInlineString
+		if strings.Contains(got, "Inf") || isText == tc.number || !strings.Contains(note, tc.note) {
+			t.Errorf("%s: value %q (type %v), note %q; want %q, a number: %v, note %q", tc.cell, got, ty, note, tc.value, tc.number, tc.note)
+		}
+		if !tc.number && got != tc.value {
+			t.Errorf("%s = %q, want %q", tc.cell, got, tc.value)
+		}
+	}
+	// The Data tab and the Summary tab: no cell reads Inf.
+	for _, tab := range f.GetSheetList() {
+		rows, _ := f.GetRows(tab)
+		for i, row := range rows {
+			for j, v := range row {
+				if strings.Contains(v, "Inf") {
+					ref, _ := excelize.CoordinatesToCellName(j+1, i+1)
+					t.Errorf("%s!%s = %q", tab, ref, v)
+				}
+			}
+		}
+	}
+}

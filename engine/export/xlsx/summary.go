@@ -143,6 +143,9 @@ func (x *exporter) checkSummary(ch *checkRow) []any {
 		if !ch.known {
 			return x.text("", clsText)
 		}
+		if s, over := x.beyondRange(si, ch.unit.Factor); over {
+			return x.text(s, clsValueOnly) // never +Inf for a finite side
+		}
 		f, err := x.tr.cellFormula(n, ch.unit.Factor)
 		if err != nil {
 			return x.number(v, clsValueOnly, x.sig)

@@ -64,6 +64,12 @@ func num(x float64) term {
 func (t *translator) path(n *check.Node) string {
 	switch n.Op {
 	case check.OpCell:
+		if c := t.cells[n.Index]; c.Kind == check.Table && len(c.Entries) > 0 {
+			// Its entries follow cells of the sheet; the Data tab holds
+			// their values of this run, so a formula over it would not
+			// follow an edited input: only Sheaf computes it.
+			return ""
+		}
 		return t.cells[n.Index].Name
 	case check.OpField, check.OpColumn:
 		p := t.path(n.Args[0])

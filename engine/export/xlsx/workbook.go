@@ -229,7 +229,7 @@ func (x *exporter) layout() {
 		case *funcs.RecordValue:
 			row = x.layoutRecord(c, c.Name, v, c.Kind == engine.Input, c.Body, row)
 		case *funcs.TableValue:
-			x.addTable(c.Name, c.Description, v, x.tableUnits(c, v), c.Kind == engine.Table)
+			x.addTable(c.Name, c.Description, v, x.tableUnits(c, v), c.Kind == engine.Table && len(c.Entries) == 0)
 		}
 	}
 	// The Data tab follows the order the tables were met.

@@ -1,0 +1,55 @@
+package check
+
+import (
+	"fmt"
+	"math"
+)
+
+// MaxEvalSteps bounds the work one evaluation of a cell may take, counted
+// in typed nodes with every call of a user function expanded. Functions
+// that call the one before them twice, thirty times over, are a few lines
+// of text and a billion steps: they are refused before anything runs.
+const MaxEvalSteps = 10_000_000
+
+// budget reports every cell whose evaluation would take more than
+// MaxEvalSteps steps, at the first such cell of a chain of calls only (one
+// mistake, one message).
+func (c *checker) budget() {
+	p := c.prog
+	cost := make([]float64, len(p.Cells)) // steps of one evaluation; +Inf: over budget, reported
+	var size func(n *Node) float64
+	size = func(n *Node) float64 {
+		if n == nil {
+			return 0
+		}
+		s := 1.0
+		for _, a := range n.Args {
+			s += size(a)
+		}
+		if n.Op == OpUser || n.Op == OpFuncRef {
+			s += cost[n.Index]
+		}
+		return s
+	}
+	for _, i := range p.Order {
+		cell := p.Cells[i]
+		if cell.Type == nil {
+			continue
+		}
+		s := size(cell.Body) + size(cell.Demand) + size(cell.Capacity)
+		for _, e := range cell.Entries {
+			s += size(e.Node)
+		}
+		if math.IsInf(s, 1) {
+			cost[i] = s // a callee was reported
+			continue
+		}
+		cost[i] = s
+		if s > MaxEvalSteps {
+			cost[i] = math.Inf(1)
+			c.errs.Errorf(cell.Formula.Source.Range, fmt.Sprintf("one evaluation of `%s` takes about %.3g steps, counting every call of the sheet's functions it makes; the limit is %d", cell.Name, s, MaxEvalSteps),
+				"a function that calls another twice doubles the work at every level: compute the inner value once in a cell of its own and call with it",
+				"`%s` is too costly to evaluate", cell.Name)
+		}
+	}
+}
