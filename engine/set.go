@@ -75,7 +75,7 @@ func (st *State) SetText(name, text string) error {
 		return fmt.Errorf("`%s` must be %s, but %q is not", name, s.describe(want), text)
 	}
 	if !fits(ft, v) {
-		return fmt.Errorf("a value for `%s` must be %s", name, s.describe(want))
+		return fmt.Errorf("a value for `%s` must be %s, got %s", name, s.describe(want), describeFound(v))
 	}
 	nr := &funcs.RecordValue{Type: r.Type, Fields: slices.Clone(r.Fields)}
 	nr.Fields[k] = v

@@ -80,7 +80,7 @@ func Compile(name string, src []byte, opts ...Option) (*Sheet, error) {
 	if n := bytes.Count(src, []byte{'\n'}); n > cfg.maxLines || (n == cfg.maxLines && len(src) > 0 && src[len(src)-1] != '\n') {
 		return nil, diag.List{{Range: diag.Range{Start: diag.Pos{File: name}},
 			Summary: fmt.Sprintf("sheet has too many lines: more than %d", cfg.maxLines),
-			Detail:  "a sheet is written by a person; nothing of it was read",
+			Detail:  "a sheet is written by a person; it was refused before parsing",
 			Hint:    "split it into sheets that use one another, or raise the limit (sheaf: --max-lines N; Go: engine.WithMaxLines)"}}
 	}
 	f, errs := sheet.Parse(name, src, sheet.MaxBytes(cfg.maxBytes), sheet.MaxLines(cfg.maxLines))
@@ -113,7 +113,7 @@ func Compile(name string, src []byte, opts ...Option) (*Sheet, error) {
 func tooLarge(name string, size int64, limit int) diag.List {
 	return diag.List{{Range: diag.Range{Start: diag.Pos{File: name}},
 		Summary: fmt.Sprintf("sheet is too large: %d bytes, the limit is %d", size, limit),
-		Detail:  "a sheet is written by a person; nothing of it was read",
+		Detail:  "a sheet is written by a person; it was refused before parsing",
 		Hint:    "split it into sheets that use one another, or raise the limit (sheaf: --max-bytes N; Go: engine.WithMaxBytes)"}}
 }
 

@@ -46,7 +46,7 @@ func (st *State) Set(name string, v funcs.Value) error {
 		v = float64(x)
 	}
 	if !fits(c.Type, v) {
-		return fmt.Errorf("a value for `%s` must be %s", name, st.sheet.describe(c))
+		return fmt.Errorf("a value for `%s` must be %s, got %s", name, st.sheet.describe(c), describeFound(v))
 	}
 	st.st.Set(c.Index, v)
 	return nil
@@ -175,6 +175,42 @@ func (s *Sheet) settable(name string) (*Cell, error) {
 	return nil, fmt.Errorf("`%s` is computed from %s; only inputs can be set", name, strings.Join(deps, ", "))
 }
 
+// describeFound says what a run-time value is, for a message that names
+// what was found: "a number", "a record with fields E, f_y", "a list of 3".
+func describeFound(v funcs.Value) string {
+	switch v := v.(type) {
+	case float64:
+		return "a number"
+	case bool:
+		return "a yes/no value"
+	case string:
+		return "text"
+	case []float64, []funcs.Value:
+		return describeValue(v, DefaultSigFigs)
+	case *funcs.RecordValue:
+		if v.Type == nil {
+			return "a record"
+		}
+		names := make([]string, len(v.Type.Fields))
+		for i, f := range v.Type.Fields {
+			names[i] = f.Name
+		}
+		return "a record with fields " + strings.Join(names, ", ")
+	case *funcs.TableValue:
+		if v.Type == nil {
+			return "a table"
+		}
+		names := make([]string, len(v.Type.Fields))
+		for i, f := range v.Type.Fields {
+			names[i] = f.Name
+		}
+		return "a table with columns " + strings.Join(names, ", ")
+	case nil:
+		return "nothing"
+	}
+	return fmt.Sprintf("a %T", v)
+}
+
 // describe says what a value for input c must be, e.g. "a force (kN)".
 func (s *Sheet) describe(c *Cell) string {
 	if c.Type.Kind == funcs.Number {
@@ -234,7 +270,7 @@ func (s *Sheet) ParseInput(name, text string) (funcs.Value, error) {
 		return nil, fmt.Errorf("cannot compute %q for `%s`: %s", text, name, fail.Msg)
 	}
 	if !fits(c.Type, v) {
-		return nil, fmt.Errorf("a value for `%s` must be %s", name, s.describe(c))
+		return nil, fmt.Errorf("a value for `%s` must be %s, got %s", name, s.describe(c), describeFound(v))
 	}
 	return v, nil
 }

@@ -16,3 +16,9 @@ func Quantity(si float64, d units.Dim) string {
 	}
 	return units.Format(si, u, 4)
 }
+
+// Dimensions the messages of the families name most.
+var (
+	Force  = units.Base(units.Length).Mul(units.Base(units.Mass)).Div(units.Base(units.Time).Mul(units.Base(units.Time)))
+	Stress = Force.Div(units.Base(units.Length).Mul(units.Base(units.Length)))
+)

@@ -101,6 +101,7 @@ func TestExitCodes(t *testing.T) {
 		{"run bad set", []string{"run", fx + "ok.sheaf", "--set", "P=3 m"}, "", 2, "", "must be a force", false},
 		{"run stdin", []string{"run", "-"}, string(okSrc), 0, "The design check is ok.", "", false},
 		{"run over max-bytes", []string{"run", "--max-bytes", "10", fx + "ok.sheaf"}, "", 2, "", "too large", false},
+		{"run stdin over max-bytes", []string{"run", "--max-bytes", "10", "-"}, string(okSrc), 2, "", "larger than the limit of 10 bytes", false},
 		{"run over max-lines", []string{"run", "--max-lines", "2", fx + "ok.sheaf"}, "", 2, "", "too many lines", false},
 		{"run bad system", []string{"run", "--system", "mars", fx + "ok.sheaf"}, "", 2, "", "unknown unit system", false},
 
@@ -111,6 +112,9 @@ func TestExitCodes(t *testing.T) {
 		{"run json uncomputed draft", []string{"run", "--json", "--draft", fx + "uncomputed.sheaf"}, "", 0, `"kind": "runtime"`, "", true},
 		{"run json sheet error", []string{"run", "--json", fx + "broken.sheaf"}, "", 2, `"kind": "sheet"`, "", true},
 		{"run json missing file", []string{"run", "--json", fx + "nosuch.sheaf"}, "", 2, `"kind": "input"`, "", true},
+		{"run json bad flag", []string{"run", "--json", "--frob", fx + "ok.sheaf"}, "", 2, "unknown flag", "", true},
+		{"run json no file", []string{"run", "--json"}, "", 2, "accepts 1 arg", "", true},
+		{"batch json one argument", []string{"batch", fx + "ok.sheaf", "--json"}, "", 2, "accepts 2 arg", "", true},
 		{"run json bad set", []string{"run", "--json", fx + "ok.sheaf", "--set", "P=3 m"}, "", 2, "must be a force", "", true},
 
 		{"check ok", []string{"check", fx + "ok.sheaf"}, "", 0, "ok: 2 cells, 1 checks", "", false},
@@ -166,6 +170,9 @@ func TestExitCodes(t *testing.T) {
 		{"new exists", []string{"new", fx + "ok.sheaf", fx + "fails.sheaf"}, "", 2, "", "exists", false},
 		{"new missing template", []string{"new", fx + "nosuch.sheaf", "{tmp}/x.sheaf"}, "", 2, "", "", false},
 
+		{"completion", []string{"completion", "bash"}, "", 0, "bash completion", "", false},
+		{"completion of an unknown shell", []string{"completion", "tcsh"}, "", 2, "", `unknown command "tcsh" for "sheaf completion"`, false},
+		{"help of an unknown command", []string{"help", "frob"}, "", 2, "", `unknown command "frob"`, false},
 		{"watch missing file", []string{"watch", fx + "nosuch.sheaf"}, "", 2, "", "no such file", false},
 		{"watch no file", []string{"watch"}, "", 2, "", "accepts 1 arg", false},
 	}
@@ -270,5 +277,25 @@ func TestCompletion(t *testing.T) {
 				}
 			}
 		})
+	}
+}
+
+// TestWatchExitsZeroOnInterrupt: watch, the one command that runs until
+// stopped, exits 0 when interrupted (Ctrl-C), through the built binary.
+func TestWatchExitsZeroOnInterrupt(t *testing.T) {
+	cmd := exec.Command(binary, "watch", "testdata/exit/ok.sheaf")
+	var out, errb syncBuffer
+	cmd.Stdout, cmd.Stderr = &out, &errb
+	if err := cmd.Start(); err != nil {
+		t.Fatal(err)
+	}
+	waitFor(t, &out, "watching testdata/exit/ok.sheaf")
+	if err := cmd.Process.Signal(os.Interrupt); err != nil {
+		t.Fatal(err)
+	}
+	err := cmd.Wait()
+	var ee *exec.ExitError
+	if errors.As(err, &ee) || err != nil {
+		t.Fatalf("watch after Ctrl-C: %v\n%s", err, errb.String())
 	}
 }

@@ -92,6 +92,10 @@ func loadSheet(a *app, path string, f *sheetFlags) (*engine.Sheet, error) {
 		if src, err = readStdin(a.stdin, f.maxBytes); err != nil {
 			return nil, err
 		}
+		if len(src) > f.maxBytes {
+			// Only the limit and one byte were read: the size is unknown.
+			return nil, userErrorf("the sheet on stdin is larger than the limit of %d bytes; nothing of it was read; split it into sheets that use one another, or raise the limit with --max-bytes", f.maxBytes)
+		}
 		s, err = engine.Compile(name, src, opts...)
 	} else {
 		s, err = engine.Load(path, opts...)

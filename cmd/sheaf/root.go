@@ -8,6 +8,7 @@ import (
 	"os"
 	"os/signal"
 	"runtime/debug"
+	"slices"
 	"strings"
 	"sync/atomic"
 	"syscall"
@@ -16,7 +17,9 @@ import (
 	"github.com/spf13/cobra"
 
 	"github.com/sheafcalc/sheaf/engine"
+	"github.com/sheafcalc/sheaf/engine/batch"
 	"github.com/sheafcalc/sheaf/engine/diag"
+	"github.com/sheafcalc/sheaf/engine/diff"
 	"github.com/sheafcalc/sheaf/engine/export/jsonout"
 	"github.com/sheafcalc/sheaf/internal/atomicfile"
 	"github.com/sheafcalc/sheaf/internal/plural"
@@ -102,7 +105,7 @@ func jsonFailure(a *app, schema, path string, err error) error {
 
 // inputArgs makes the argument check of a command an input error (exit 2)
 // that says what the command takes.
-func inputArgs(cmd *cobra.Command) {
+func inputArgs(a *app, cmd *cobra.Command) {
 	check := cmd.Args
 	if check == nil {
 		return
@@ -111,12 +114,51 @@ func inputArgs(cmd *cobra.Command) {
 		if err := check(c, args); err != nil {
 			var in *inputError
 			if errors.As(err, &in) {
-				return err
+				return jsonEarly(a, c, err)
 			}
-			return userErrorf("%s: %v; usage: %s", c.Name(), err, c.UseLine())
+			return jsonEarly(a, c, userErrorf("%s: %v; usage: %s", c.Name(), err, c.UseLine()))
 		}
 		return nil
 	}
+}
+
+// unknownCommand refuses the first argument of a command that takes none
+// but subcommands (sheaf, sheaf completion) as an unknown command (exit 2),
+// with the nearest one as a hint.
+func unknownCommand(c *cobra.Command, args []string) error {
+	if len(args) == 0 {
+		return nil
+	}
+	msg := fmt.Sprintf("unknown command %q", args[0])
+	if c.HasParent() {
+		msg = fmt.Sprintf("unknown command %q for %q", args[0], c.CommandPath())
+	}
+	var names []string
+	for _, sub := range c.Commands() {
+		names = append(names, sub.Name())
+	}
+	if sug := diag.Nearest(args[0], names); sug != "" {
+		msg += fmt.Sprintf("; did you mean %q?", sug)
+	}
+	return userErrorf("%s; see %s --help for the commands", msg, c.CommandPath())
+}
+
+// jsonSchemas names the JSON document of each command that has --json.
+var jsonSchemas = map[string]string{
+	"run": jsonout.Schema, "check": checkSchema, "diff": diff.Schema, "batch": batch.Schema, "funcs": funcsSchema,
+}
+
+// jsonEarly turns an error found before a command runs (a bad flag or a
+// wrong number of arguments) into the JSON failure document on stdout
+// when the command line asks for --json, so that even then a JSON
+// consumer gets a document. The command line is read as written: the
+// flags may not have been parsed up to --json when the error came.
+func jsonEarly(a *app, c *cobra.Command, err error) error {
+	schema, ok := jsonSchemas[c.Name()]
+	if !ok || !slices.ContainsFunc(a.args, func(s string) bool { return s == "--json" || s == "--json=true" }) {
+		return err
+	}
+	return jsonFailure(a, schema, "", err)
 }
 
 // version is set at build time with -ldflags "-X main.version=..."; otherwise
@@ -131,6 +173,7 @@ type app struct {
 	// beforeReplace, when not nil, is called by fmt just before it checks
 	// that a file is unchanged and replaces it (tests edit the file there).
 	beforeReplace func(path string)
+	args          []string // the command line, for errors found before a command runs (jsonEarly)
 }
 
 // checksFailedError reports that evaluation succeeded but design checks failed.
@@ -209,25 +252,12 @@ combinations come from the local code and licensed practice.`,
 	root.SetIn(a.stdin)
 	root.SetOut(a.stdout)
 	root.SetErr(a.stderr)
-	root.SetFlagErrorFunc(func(_ *cobra.Command, err error) error {
-		return &inputError{err}
+	root.SetFlagErrorFunc(func(c *cobra.Command, err error) error {
+		return jsonEarly(a, c, &inputError{err})
 	})
 	// With no command, sheaf prints its help; a word that is no command is
 	// wrong input (exit 2), with the nearest command as a hint.
-	root.Args = func(c *cobra.Command, args []string) error {
-		if len(args) == 0 {
-			return nil
-		}
-		msg := fmt.Sprintf("unknown command %q", args[0])
-		var names []string
-		for _, sub := range c.Commands() {
-			names = append(names, sub.Name())
-		}
-		if sug := diag.Nearest(args[0], names); sug != "" {
-			msg += fmt.Sprintf("; did you mean %q?", sug)
-		}
-		return userErrorf("%s; see sheaf --help for the commands", msg)
-	}
+	root.Args = unknownCommand
 	root.RunE = func(c *cobra.Command, _ []string) error { return c.Help() }
 	root.AddCommand(
 		newUnitsCmd(a),
@@ -242,9 +272,30 @@ combinations come from the local code and licensed practice.`,
 		newWatchCmd(a),
 		newNewCmd(a),
 	)
+	// cobra adds help and completion when it runs; adding them now gives
+	// them the exit table too.
+	root.InitDefaultHelpCmd()
+	root.InitDefaultCompletionCmd()
 	for _, c := range root.Commands() {
-		inputArgs(c)
-		if c.ValidArgsFunction == nil && c.Name() != "units" && c.Name() != "funcs" {
+		switch c.Name() {
+		case "completion": // `sheaf completion tcsh`: an unknown shell
+			c.Args = unknownCommand
+			c.RunE = func(c *cobra.Command, _ []string) error { return c.Help() }
+		case "help": // `sheaf help frob`: an unknown topic
+			show := c.Run
+			c.Run = nil
+			c.RunE = func(c *cobra.Command, args []string) error {
+				if found, _, err := root.Find(args); err != nil || (len(args) > 0 && found == root) {
+					return unknownCommand(root, args)
+				}
+				show(c, args)
+				return nil
+			}
+		}
+	}
+	for _, c := range root.Commands() {
+		inputArgs(a, c)
+		if c.ValidArgsFunction == nil && !slices.Contains([]string{"units", "funcs", "help", "completion"}, c.Name()) {
 			c.ValidArgsFunction = completeSheets
 		}
 		if c.Long != "" && !strings.Contains(c.Long, exitTable) {
@@ -295,7 +346,7 @@ func Main(args []string, stdin io.Reader, stdout, stderr io.Writer) (code int) {
 		}
 	}()
 
-	a := &app{stdin: stdin, stdout: stdout, stderr: stderr}
+	a := &app{stdin: stdin, stdout: stdout, stderr: stderr, args: args}
 	code = execute(ctx, newRootCmd(a), args, stderr)
 	if in := caught.Load(); in != nil && code != exitOK {
 		fmt.Fprintln(stderr, in.message())

@@ -34,6 +34,8 @@ func TestJSONSchema(t *testing.T) {
 		{"run", "--json", fx + "broken.sheaf"},
 		{"run", "--json", fx + "nosuch.sheaf"},
 		{"run", "--json", fx + "ok.sheaf", "--set", "P=3 m"},
+		{"run", "--json", "--frob", fx + "ok.sheaf"},
+		{"diff", "--json", fx + "ok.sheaf"},
 		{"check", "--json", fx + "ok.sheaf"},
 		{"check", "--json", fx + "broken.sheaf"},
 		{"diff", "--json", fx + "ok.sheaf", fx + "fails.sheaf"},

@@ -20,6 +20,13 @@ import (
 func Assess(c *check.Cell, d, cp float64) *diag.Diagnostic {
 	r := c.Formula.Source.Range
 	switch {
+	case cp < 0 && d <= 0 && isFinite(cp) && isFinite(d):
+		// Both sides negative: a check written in the sign convention
+		// (compression negative) rather than on magnitudes.
+		return &diag.Diagnostic{Range: r,
+			Summary: "check `" + c.Name + "` cannot be assessed: the capacity is negative",
+			Detail:  "utilisation is demand / capacity, both positive; here both sides are negative, as compression is in the sign convention",
+			Hint:    "write the check on magnitudes, e.g. `check buckling: -N_Ed <= -N_c` or with the resistance as a positive number"}
 	case !(cp > 0) || math.IsInf(cp, 0):
 		return &diag.Diagnostic{Range: r,
 			Summary: "check `" + c.Name + "` cannot be assessed: the capacity must be a positive finite number",

@@ -23,7 +23,7 @@ func TestUserFunctionVanishesAtEnd(t *testing.T) {
 		want []string
 	}{
 		{"area zero at the end", Segment{L: L, Shape: AreaFunc, AreaFn: cone, E: E},
-			[]string{"area function A_x", "at x = 0.95 m", "must be positive"}},
+			[]string{"area function A_x", "at x = 950 mm", "must be positive"}},
 		{"modulus zero at the start", Segment{L: L, Shape: Constant, A1: 1e-3, A2: 1e-3, EFn: soft},
 			[]string{"modulus function E_x", "at x = 0 m", "must be positive"}},
 	}

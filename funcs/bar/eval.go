@@ -4,6 +4,8 @@ import (
 	"errors"
 	"fmt"
 	"math"
+
+	"github.com/sheafcalc/sheaf/funcs"
 )
 
 // solver holds a validated bar and evaluates its properties and loads along
@@ -16,6 +18,7 @@ type solver struct {
 	b0, b1  float64   // linear distributed load
 	gamma   float64
 	fns     []Fn
+	patches []Patch
 	hasDist bool // any distributed load at all
 	fail    error
 }
@@ -42,10 +45,10 @@ func (v *solver) callUser(f *Fn, what string, x float64, positive bool) float64 
 	y := f.F(x)
 	switch {
 	case !finite(y):
-		v.failf("the %s function %s gave no finite value at x = %g m", what, f.Name, x)
+		v.failf("the %s function %s gave no finite value at x = %s", what, f.Name, funcs.Length(x))
 		return math.NaN()
 	case positive && y <= 0:
-		v.failf("the %s function %s gave %g at x = %g m; it must be positive over the whole bar", what, f.Name, y, x)
+		v.failf("the %s function %s gave %.4g at x = %s; it must be positive over the whole bar", what, f.Name, y, funcs.Length(x))
 		return math.NaN()
 	}
 	return y
@@ -89,9 +92,9 @@ func (v *solver) quadErr(err error, what string, a, c float64) error {
 		return v.fail
 	}
 	if errors.Is(err, errNaN) {
-		return fmt.Errorf("the %s over x = %g … %g m is not a finite number", what, a, c)
+		return fmt.Errorf("the %s over x = %s … %s is not a finite number", what, funcs.Length(a), funcs.Length(c))
 	}
-	return fmt.Errorf("the %s over x = %g … %g m did not converge; hint: the area, modulus or load may vanish or jump inside a segment: split the segment there", what, a, c)
+	return fmt.Errorf("the %s over x = %s … %s did not converge; hint: the area, modulus or load may vanish or jump inside a segment: split the segment there", what, funcs.Length(a), funcs.Length(c))
 }
 
 // areaInt returns ∫_a^x A dξ within segment i.
@@ -120,6 +123,9 @@ func (v *solver) loadInt(i int, a, x float64) (float64, error) {
 		return 0, nil
 	}
 	r := v.b0*(x-a) + (v.b1-v.b0)/(2*v.lt)*(x-a)*(x+a)
+	for k := range v.patches {
+		r += v.patches[k].integral(a, x)
+	}
 	if v.gamma != 0 {
 		ai, err := v.areaInt(i, a, x)
 		if err != nil {

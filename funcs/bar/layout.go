@@ -9,7 +9,7 @@ func (r *Result) Layout() funcs.BarLayout { return r.layout }
 
 func layoutOf(b *Bar, start, end Support) funcs.BarLayout {
 	l := funcs.BarLayout{Gravity: b.Gamma, Start: start.Kind.name(), End: end.Kind.name(),
-		Distributed: b.B0 != 0 || b.B1 != 0 || len(b.LoadFns) > 0 || b.Gamma != 0}
+		Distributed: b.B0 != 0 || b.B1 != 0 || len(b.LoadFns) > 0 || len(b.Patches) > 0 || b.Gamma != 0}
 	for _, p := range b.Points {
 		l.Points = append(l.Points, funcs.PointLoad{X: p.X, P: p.P})
 	}

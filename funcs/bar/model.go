@@ -68,6 +68,29 @@ type Bar struct {
 	Gamma float64
 	// LoadFns are distributed loads b(x) [N/m] given as user functions.
 	LoadFns []Fn
+	// Patches are distributed loads over part of the bar (a soil layer's
+	// skin friction), zero outside their stretch.
+	Patches []Patch
+	// Breaks are positions [m] where a load function may jump (a layer
+	// boundary): the solver ends a piece there, so quadrature never spans
+	// the step.
+	Breaks []float64
+}
+
+// Patch is a distributed load [N/m] varying linearly from B0 at X0 to B1 at
+// X1 (0 ≤ X0 < X1 ≤ L), zero elsewhere; positive in +x.
+type Patch struct{ X0, X1, B0, B1 float64 }
+
+// at returns the load of the patch at x inside it.
+func (p *Patch) at(x float64) float64 { return p.B0 + (p.B1-p.B0)*(x-p.X0)/(p.X1-p.X0) }
+
+// integral returns ∫ b over [a, x] ∩ [X0, X1] (exact: b is linear there).
+func (p *Patch) integral(a, x float64) float64 {
+	lo, hi := math.Max(a, p.X0), math.Min(x, p.X1)
+	if hi <= lo {
+		return 0
+	}
+	return (p.at(lo) + p.at(hi)) / 2 * (hi - lo)
 }
 
 // Length returns the total length of the bar.
@@ -85,6 +108,8 @@ func (b *Bar) Clone() *Bar {
 	c.Segments = append([]Segment(nil), b.Segments...)
 	c.Points = append([]PointLoad(nil), b.Points...)
 	c.LoadFns = append([]Fn(nil), b.LoadFns...)
+	c.Patches = append([]Patch(nil), b.Patches...)
+	c.Breaks = append([]float64(nil), b.Breaks...)
 	return &c
 }
 

@@ -21,6 +21,9 @@ func init() {
 	for _, d := range shortcuts() {
 		funcs.Register(d)
 	}
+	for _, d := range lateralDefs() {
+		funcs.Register(d)
+	}
 }
 
 func p(name string, t *funcs.Type, doc string) funcs.Param {
@@ -146,7 +149,7 @@ func builders() []*funcs.Def {
 				return withBar(args, func(b *Bar) error {
 					for i := range xs {
 						if !finite(xs[i]) || !finite(ps[i]) {
-							return fmt.Errorf("point load row %d: x = %g m, P = %g N must be finite numbers", i+1, xs[i], ps[i])
+							return fmt.Errorf("point load row %d: x = %s, P = %s must be finite numbers", i+1, funcs.Length(xs[i]), funcs.Quantity(ps[i], funcs.Force))
 						}
 						b.Points = append(b.Points, PointLoad{X: xs[i], P: ps[i]})
 					}
@@ -205,23 +208,72 @@ func builders() []*funcs.Def {
 			Source:  srcMech,
 		},
 		{
+			Name: "with_line_load_over", Family: family,
+			Params: []funcs.Param{p("bar", barParam, "the bar"), p("x0", numLength, "start of the loaded stretch [m], ≥ 0"),
+				p("x1", numLength, "end of the loaded stretch [m], > x0 and ≤ L"),
+				p("b0", numPerLen, "load per unit length at x0 [N/m], positive in +x"),
+				{Name: "b1", Type: numPerLen, Optional: true, Doc: "load per unit length at x1 [N/m]; omitted: equal to b0 (uniform)"}},
+			Result: barType,
+			Call: func(args []funcs.Value) (funcs.Value, error) {
+				var v [4]float64
+				for i, n := range []string{"x0", "x1", "b0"} {
+					x, err := numArg(args[i+1], n)
+					if err != nil {
+						return nil, err
+					}
+					v[i] = x
+				}
+				v[3] = v[2]
+				if len(args) > 4 && args[4] != nil {
+					x, err := numArg(args[4], "b1")
+					if err != nil {
+						return nil, err
+					}
+					v[3] = x
+				}
+				if !(v[1] > v[0]) || v[0] < 0 {
+					return nil, fmt.Errorf("the loaded stretch x0 = %g m … x1 = %g m must have 0 ≤ x0 < x1", v[0], v[1])
+				}
+				return withBar(args, func(b *Bar) error {
+					b.Patches = append(b.Patches, Patch{X0: v[0], X1: v[1], B0: v[2], B1: v[3]})
+					return nil
+				})
+			},
+			Summary: "adds a distributed load over part of the bar, linear from x0 to x1",
+			Doc: "Returns the bar with a distributed axial load added over the stretch x0 … x1 only (zero elsewhere), " +
+				"varying linearly from b0 at x0 to b1 at x1: the skin friction of one soil layer along a pile, a " +
+				"load on part of a hanger. The solver ends a piece at x0 and x1 itself, so the segment table need " +
+				"not be split there. Positive b acts in +x; loads added by several calls sum.",
+			Formula: "b(x) = b0 + (b1 − b0)·(x − x0)/(x1 − x0) for x0 ≤ x ≤ x1, else 0",
+			Source:  srcMech,
+		},
+		{
 			Name: "with_line_load_fn", Family: family,
-			Params: []funcs.Param{p("bar", barParam, "the bar"), p("b", lineLoadFn, "user function b(x [m]) [N/m]")},
+			Params: []funcs.Param{p("bar", barParam, "the bar"), p("b", lineLoadFn, "user function b(x [m]) [N/m]"),
+				{Name: "steps", Type: funcs.ListOf(numLength), Optional: true, Doc: "positions [m] where b jumps (layer boundaries), e.g. [6 m, 12 m]"}},
 			Result: barType,
 			Call: func(args []funcs.Value) (funcs.Value, error) {
 				f, err := fnArg(args[1])
 				if err != nil {
 					return nil, err
 				}
+				var steps []float64
+				if len(args) > 2 && args[2] != nil {
+					steps, _ = args[2].([]float64)
+				}
 				return withBar(args, func(b *Bar) error {
 					b.LoadFns = append(b.LoadFns, *f)
+					b.Breaks = append(b.Breaks, steps...)
 					return nil
 				})
 			},
-			Summary: "adds a distributed load given as a function of x",
+			Summary: "adds a distributed load given as a function of x, with the positions where it steps",
 			Doc: "Returns the bar with a distributed axial load b(x) [N/m] added, given as a user function " +
 				"of x [m] from the start; positive in +x. Its integrals are taken by adaptive Gauss–Legendre " +
-				"quadrature; the function must be finite over the bar.",
+				"quadrature; the function must be finite over the bar. A function that jumps (skin friction " +
+				"changing from one soil layer to the next) needs the positions of its jumps in steps: the " +
+				"solver ends a piece at each, so the quadrature never spans a jump; without them a jump " +
+				"inside a piece fails to converge and is reported, never smoothed over.",
 			Formula: "dN/dx + b(x) = 0",
 			Source:  srcMech,
 		},

@@ -24,7 +24,7 @@ func newSolver(b *Bar) (*solver, error) {
 		return nil, fmt.Errorf("the bar has no segments; hint: give a segment table with at least one row")
 	}
 	v := &solver{segs: b.Segments, x0: make([]float64, len(b.Segments)),
-		b0: b.B0, b1: b.B1, gamma: b.Gamma, fns: b.LoadFns}
+		b0: b.B0, b1: b.B1, gamma: b.Gamma, fns: b.LoadFns, patches: b.Patches}
 	for i := range b.Segments {
 		s := &b.Segments[i]
 		v.x0[i] = v.lt
@@ -50,7 +50,21 @@ func newSolver(b *Bar) (*solver, error) {
 			return nil, fmt.Errorf("the distributed load function %s has no body", f.Name)
 		}
 	}
-	v.hasDist = b.B0 != 0 || b.B1 != 0 || b.Gamma != 0 || len(b.LoadFns) > 0
+	tol := 1e-12 * v.lt
+	for k, p := range b.Patches {
+		if !finite(p.X0) || !finite(p.X1) || !finite(p.B0) || !finite(p.B1) {
+			return nil, fmt.Errorf("line load %d over part of the bar: x0 = %g m, x1 = %g m, b0 = %g N/m, b1 = %g N/m must be finite numbers", k+1, p.X0, p.X1, p.B0, p.B1)
+		}
+		if p.X0 < -tol || p.X1 > v.lt+tol || !(p.X1 > p.X0) {
+			return nil, fmt.Errorf("line load %d covers x = %g … %g m; it must lie on the bar (0 … %g m) with x0 < x1", k+1, p.X0, p.X1, v.lt)
+		}
+	}
+	for k, x := range b.Breaks {
+		if !finite(x) || x < -tol || x > v.lt+tol {
+			return nil, fmt.Errorf("step position %d at x = %g m lies outside the bar (0 … %g m)", k+1, x, v.lt)
+		}
+	}
+	v.hasDist = b.B0 != 0 || b.B1 != 0 || b.Gamma != 0 || len(b.LoadFns) > 0 || len(b.Patches) > 0
 	// Gauss–Legendre never evaluates the ends of a segment, so an area or
 	// modulus function that reaches zero there would only show as a
 	// quadrature that does not converge. Probing the ends names the function
@@ -128,7 +142,7 @@ func (v *solver) build(points []PointLoad) (ps []piece, pEnd, scale, f, g float6
 	pts := slices.Clone(points)
 	for k, p := range pts {
 		if !finite(p.X) || !finite(p.P) {
-			return nil, 0, 0, 0, 0, fmt.Errorf("point load %d: x = %g m, P = %g N must be finite numbers", k+1, p.X, p.P)
+			return nil, 0, 0, 0, 0, fmt.Errorf("point load %d: x = %s, P = %s must be finite numbers", k+1, funcs.Length(p.X), funcs.Quantity(p.P, funcs.Force))
 		}
 		if p.X < -tol || p.X > v.lt+tol {
 			return nil, 0, 0, 0, 0, fmt.Errorf("point load %d at x = %s lies outside the bar (0 … %s); hint: positions are measured from the start of the bar", k+1, funcs.Length(p.X), funcs.Length(v.lt))
@@ -204,6 +218,24 @@ func (v *solver) build(points []PointLoad) (ps []piece, pEnd, scale, f, g float6
 	return ps, pEnd, scale, f, g, nil
 }
 
+// withBreaks returns the point loads of b with a load of zero at every step
+// position and at both ends of every patch, so that build ends a piece
+// there: the loads are smooth within each piece, and quadrature never spans
+// a jump.
+func withBreaks(b *Bar) []PointLoad {
+	if len(b.Breaks) == 0 && len(b.Patches) == 0 {
+		return b.Points
+	}
+	pts := slices.Clone(b.Points)
+	for _, x := range b.Breaks {
+		pts = append(pts, PointLoad{X: x})
+	}
+	for _, p := range b.Patches {
+		pts = append(pts, PointLoad{X: p.X0}, PointLoad{X: p.X1})
+	}
+	return pts
+}
+
 // Result is a solved bar. Forces in N, lengths and displacements in m,
 // stresses in Pa; see the package comment for the signs.
 type Result struct {
@@ -239,7 +271,7 @@ func Solve(b *Bar, start, end Support) (*Result, error) {
 	if err != nil {
 		return nil, err
 	}
-	ps, pEnd, scale, fTot, gTot, err := v.build(b.Points)
+	ps, pEnd, scale, fTot, gTot, err := v.build(withBreaks(b))
 	if err != nil {
 		return nil, err
 	}
@@ -358,7 +390,7 @@ func (r *Result) solveEnds(start, end Support, fTot, gTot, nTot, scale float64) 
 		return nil
 	}
 	if singular {
-		return fmt.Errorf("the bar is not held along its axis (start %s, end %s) and its loads do not balance (net %g N); hint: fix one end, or give an end a spring or a stop", start, end, -nTot)
+		return fmt.Errorf("the bar is not held along its axis (start %s, end %s) and its loads do not balance (net %s); hint: fix one end, or give an end a spring or a stop", start, end, funcs.Quantity(-nTot, funcs.Force))
 	}
 	return fmt.Errorf("no consistent state of the gaps was found (start %s, end %s); hint: check the clearances and stop stiffnesses", start, end)
 }

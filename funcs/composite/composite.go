@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"math"
 
+	"github.com/sheafcalc/sheaf/funcs"
 	"github.com/sheafcalc/sheaf/funcs/section"
 )
 
@@ -41,7 +42,7 @@ func (p *Part) Prepare(y0, z0 float64) error {
 	p.A = m.A
 	if p.EField == nil {
 		if !(p.E > 0) || math.IsInf(p.E, 0) {
-			return fmt.Errorf("the modulus E must be positive, got %g Pa", p.E)
+			return fmt.Errorf("the modulus E must be positive, got %s", funcs.Quantity(p.E, funcs.Stress))
 		}
 		p.EA, p.ESy, p.ESz = p.E*m.A, p.E*m.Sy, p.E*m.Sz
 		p.ESyy, p.ESzz, p.ESyz = p.E*m.Syy, p.E*m.Szz, p.E*m.Syz
@@ -66,7 +67,7 @@ func (p *Part) Prepare(y0, z0 float64) error {
 		*out[k] = r.Value
 	}
 	if !(p.EA > 0) {
-		return fmt.Errorf("the modulus field integrates to EA = %g N; it must be positive over the part", p.EA)
+		return fmt.Errorf("the modulus field integrates to EA = %s; it must be positive over the part", funcs.Quantity(p.EA, funcs.Force))
 	}
 	return nil
 }
@@ -137,7 +138,7 @@ type Axial struct {
 // indeterminate and thermal effects in composite bars).
 func (c *Composite) Response(n, dT float64) (*Axial, error) {
 	if math.IsNaN(n) || math.IsInf(n, 0) || math.IsNaN(dT) || math.IsInf(dT, 0) {
-		return nil, fmt.Errorf("the axial force and the temperature change must be finite, got N = %g N, ΔT = %g K", n, dT)
+		return nil, fmt.Errorf("the axial force and the temperature change must be finite, got N = %s, ΔT = %.4g K", funcs.Quantity(n, funcs.Force), dT)
 	}
 	thermal := 0.0
 	for i, p := range c.Parts {

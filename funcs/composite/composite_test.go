@@ -6,7 +6,7 @@ import (
 
 	"github.com/sheafcalc/sheaf/funcs"
 	"github.com/sheafcalc/sheaf/funcs/internal/functest"
-	_ "github.com/sheafcalc/sheaf/funcs/section"
+	"github.com/sheafcalc/sheaf/funcs/section"
 )
 
 var (
@@ -207,5 +207,100 @@ func TestMaterialParamAccepts(t *testing.T) {
 	}
 	if MaterialParam.Accepts(funcs.RecordOf("", funcs.Field{Name: "alpha", Type: funcs.Num(PerK)})) {
 		t.Error("a record without E is accepted")
+	}
+}
+
+// TestCFTResistance: REFERENCES.md C11 without confinement (λ̄ > 0.5), and
+// the confined case at λ̄ = 0.3, e = 0 and e/d = 0.05 with the factors of
+// §6.7.3.2(6) written out.
+// Source: EN 1994-1-1:2004 §6.7.3.2 (from memory); REFERENCES.md C11.
+func TestCFTResistance(t *testing.T) {
+	const d, tw, fyd, fy, fcd, fck = 0.2191, 0.010, 355e6, 355e6, 20e6, 30e6
+	r, err := CFTResistance(d, tw, fyd, fy, fcd, fck, 0.6, 0)
+	if err != nil || math.Abs(r.NplRd-2954.69632e3)/2954.69632e3 > 1e-9 || r.EtaC != 0 {
+		t.Errorf("C11: N_pl,Rd = %.9g N (%v), want 2954.69632 kN", r.NplRd, err)
+	}
+	aa := math.Pi * (d*d - (d-2*tw)*(d-2*tw)) / 4
+	ac := math.Pi * (d - 2*tw) * (d - 2*tw) / 4
+	for _, ed := range []float64{0, 0.05} {
+		ea0 := 0.25 * (3 + 2*0.3)
+		ec0 := 4.9 - 18.5*0.3 + 17*0.09
+		ea, ec := ea0+(1-ea0)*10*ed, ec0*(1-10*ed)
+		want := ea*aa*fyd + ac*fcd*(1+ec*tw/d*fy/fck)
+		r, err := CFTResistance(d, tw, fyd, fy, fcd, fck, 0.3, ed*d)
+		if err != nil || math.Abs(r.NplRd-want)/want > 1e-12 {
+			t.Errorf("e/d = %g: N_pl,Rd = %.9g, want %.9g (%v)", ed, r.NplRd, want, err)
+		}
+	}
+}
+
+// TestEncasedHEB: an HEB 260 (root radius 24 mm) encased in a 450 × 450 mm
+// concrete block, the profile 30 mm above the block's centre, and the same
+// profile partially encased (concrete between the flanges only). EA, the
+// modulus-weighted centroid and EI_y against the hand sum of the steel and
+// the net concrete, with the profile's A and I from its plates plus four
+// fillets (each an r × r square less a quarter circle: area (1 − π/4)r²,
+// centroid r(10 − 3π)/(12 − 3π) from the flange and web faces, second
+// moment r⁴(1 − 5π/16) about the flange face), relative 1e-12.
+// Source: parallel-axis theorem and the quarter-circle properties of Gere &
+// Goodno, Mechanics of Materials, App. E (cases 1 and 10); REFERENCES.md D10
+// for the profile's dimensions (from memory).
+func TestEncasedHEB(t *testing.T) {
+	const h, b, tw, tf, r = 0.260, 0.260, 0.010, 0.0175, 0.024
+	const Es, Ec, dz = 210e9, 33e9, 0.030
+	z2 := h/2 - tf
+	af := (1 - math.Pi/4) * r * r
+	xb := r * (10 - 3*math.Pi) / (12 - 3*math.Pi)
+	As := 2*b*tf + (h-2*tf)*tw + 4*af
+	Is := (b*h*h*h-(b-tw)*math.Pow(h-2*tf, 3))/12 + 4*(r*r*r*r*(1-5*math.Pi/16)-af*xb*xb+af*(z2-xb)*(z2-xb))
+	heb, err := section.RolledI(h, b, tw, tf, r)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if p := heb.Props(); functest.RelErr(p.A, As) > 1e-13 || functest.RelErr(p.Iy, Is) > 1e-12 {
+		t.Fatalf("HEB 260: A = %.15g, I_y = %.15g; hand %.15g, %.15g", p.A, p.Iy, As, Is)
+	}
+	steel := heb.Transform(0, dz, 0)
+	// Fully encased: the block less the whole profile.
+	block, _ := section.Rect(0.45, 0.45)
+	full, err := section.Cut(block, steel)
+	if err != nil {
+		t.Fatal(err)
+	}
+	// Partially encased: the space between the flanges less the web and
+	// fillets (the profile less its flanges).
+	web := h - 2*tf
+	between, _ := section.Rect(b, web)
+	flange, _ := section.Rect(b, tf)
+	core, err := section.CutAll(steel, []*section.Shape{flange.Transform(0, dz+z2+tf/2, 0), flange.Transform(0, dz-z2-tf/2, 0)})
+	if err != nil {
+		t.Fatal(err)
+	}
+	partial, err := section.Cut(between.Transform(0, dz, 0), core)
+	if err != nil {
+		t.Fatal(err)
+	}
+	flangeI := 2 * (b*tf*tf*tf/12 + b*tf*(z2+tf/2)*(z2+tf/2))
+	cases := []struct {
+		name          string
+		conc          *section.Shape
+		Ab, Ib, zb    float64 // the concrete outline: area, own I_y, centroid z
+		inA, inI, inZ float64 // the steel inside that outline
+	}{
+		{"fully encased", full, 0.45 * 0.45, math.Pow(0.45, 4) / 12, 0, As, Is, dz},
+		{"partially encased", partial, b * web, b * web * web * web / 12, dz, As - 2*b*tf, Is - flangeI, dz},
+	}
+	for _, c := range cases {
+		comp, err := New([]*Part{{Shape: steel, E: Es}, {Shape: c.conc, E: Ec}})
+		if err != nil {
+			t.Fatalf("%s: %v", c.name, err)
+		}
+		ea := Es*As + Ec*(c.Ab-c.inA)
+		zE := (Es*As*dz + Ec*(c.Ab*c.zb-c.inA*c.inZ)) / ea
+		eiS := Es * (Is + As*(dz-zE)*(dz-zE))
+		eiC := Ec * (c.Ib + c.Ab*(c.zb-zE)*(c.zb-zE) - c.inI - c.inA*(c.inZ-zE)*(c.inZ-zE))
+		if functest.RelErr(comp.EA, ea) > 1e-12 || functest.RelErr(comp.ZE, zE) > 1e-12 || functest.RelErr(comp.EIy, eiS+eiC) > 1e-12 {
+			t.Errorf("%s: EA %.15g z_E %.15g EI_y %.15g; hand %.15g %.15g %.15g", c.name, comp.EA, comp.ZE, comp.EIy, ea, zE, eiS+eiC)
+		}
 	}
 }

@@ -26,7 +26,7 @@ func material(v funcs.Value, p *Part) error {
 	}
 	p.E = r.Num("E", math.NaN())
 	if !(p.E > 0) || math.IsInf(p.E, 0) {
-		return fmt.Errorf("the material needs a positive modulus E, got %g Pa", p.E)
+		return fmt.Errorf("the material needs a positive modulus E, got %s", funcs.Quantity(p.E, funcs.Stress))
 	}
 	if a, ok := r.Get("alpha").(float64); ok {
 		p.Alpha, p.HasAlpha = a, true
@@ -159,7 +159,7 @@ func init() {
 			}
 			e := num(a[1])
 			if !(e > 0) || math.IsInf(e, 0) {
-				return nil, fmt.Errorf("the reference modulus E_ref must be positive, got %g Pa", e)
+				return nil, fmt.Errorf("the reference modulus E_ref must be positive, got %s", funcs.Quantity(e, funcs.Stress))
 			}
 			return c.EA / e, nil
 		},

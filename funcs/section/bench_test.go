@@ -29,3 +29,34 @@ func BenchmarkIntegrateISection(b *testing.B) {
 		}
 	}
 }
+
+// BenchmarkOverlapEncasedI: the exact overlap test of an HEB 260 with root
+// radii against the 450 mm block cut around it (the check every composite
+// makes for each pair of parts). The shapes only touch: the common area
+// must come out zero (relative 1e-12 of the profile's area).
+func BenchmarkOverlapEncasedI(b *testing.B) {
+	heb := must(RolledI(0.26, 0.26, 0.010, 0.0175, 0.024))
+	block := must(Cut(must(Rect(0.45, 0.45)), heb))
+	b.ReportAllocs()
+	var a float64
+	for b.Loop() {
+		a = IntersectionArea(heb, block)
+	}
+	if math.Abs(a) > 1e-12*heb.Props().A {
+		b.Fatalf("common area %g m², want 0", a)
+	}
+}
+
+// BenchmarkOverlapTubeCore: a CHS and its core, two 512-gons per circle.
+func BenchmarkOverlapTubeCore(b *testing.B) {
+	tube := must(CHS(0.2191, 0.010))
+	core := must(CoreOf(tube))
+	b.ReportAllocs()
+	var a float64
+	for b.Loop() {
+		a = IntersectionArea(tube, core)
+	}
+	if math.Abs(a) > 1e-12*tube.Props().A {
+		b.Fatalf("common area %g m², want 0", a)
+	}
+}

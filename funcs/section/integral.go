@@ -96,6 +96,12 @@ func Integrate(s *Shape, f Field, tol float64) (Result, error) {
 			scale += m
 			continue
 		}
+		if r.Sec != nil {
+			v, m := q.sectorLevel(r.Sec, 0)
+			pieces = append(pieces, piece{reg: r, val: v, mag: m})
+			scale += m
+			continue
+		}
 		y0, y1, _, _ := r.Ring.bbox()
 		mid := (y0 + y1) / 2
 		for e := range r.Ring.Y {
@@ -130,6 +136,8 @@ func Integrate(s *Shape, f Field, tol float64) (Result, error) {
 	for _, p := range pieces {
 		if p.reg.Ann != nil {
 			push(q.annulusCell(p.reg.Ann, p.reg.Sign, 0, p.val))
+		} else if p.reg.Sec != nil {
+			push(q.sectorCell(p.reg.Sec, p.reg.Sign, 0, p.val))
 		} else {
 			push(q.stripCell(p.reg.Ring, p.edge, p.y0, p.reg.Sign, 0, 1, 0, 1, p.val, p.mag, 0))
 		}
@@ -161,6 +169,7 @@ type cell struct {
 	t0, t1    float64
 	u0, u1    float64
 	ann       *Annulus
+	sec       *Sector
 	level     int
 	fine, err float64
 	sub       [4]float64 // strip: values and magnitudes of the four children
@@ -203,6 +212,9 @@ func (q *integrator) annulusCell(a *Annulus, sign float64, k int, coarse float64
 func (q *integrator) split(c *cell) []*cell {
 	if c.ann != nil {
 		return []*cell{q.annulusCell(c.ann, c.sign, c.level, c.fine)}
+	}
+	if c.sec != nil {
+		return []*cell{q.sectorCell(c.sec, c.sign, c.level, c.fine)}
 	}
 	tm, um := (c.t0+c.t1)/2, (c.u0+c.u1)/2
 	boxes := [4][4]float64{{c.t0, tm, c.u0, um}, {tm, c.t1, c.u0, um}, {c.t0, tm, um, c.u1}, {tm, c.t1, um, c.u1}}

@@ -65,6 +65,8 @@ func (s *Shape) MomentsAbout(y0, z0 float64) Moments {
 	for _, r := range s.Regions {
 		if r.Ring != nil {
 			m.add(momentsRing(r.Ring, y0, z0), r.Sign)
+		} else if r.Sec != nil {
+			m.add(momentsSector(r.Sec, y0, z0), r.Sign)
 		} else {
 			m.add(momentsAnnulus(r.Ann, y0, z0), r.Sign)
 		}
@@ -86,6 +88,8 @@ func (s *Shape) BBox() (y0, y1, z0, z1 float64) {
 		var a0, a1, b0, b1 float64
 		if r.Ring != nil {
 			a0, a1, b0, b1 = r.Ring.bbox()
+		} else if r.Sec != nil {
+			a0, a1, b0, b1 = r.Sec.bbox()
 		} else {
 			a0, a1 = r.Ann.Yc-r.Ann.Rout, r.Ann.Yc+r.Ann.Rout
 			b0, b1 = r.Ann.Zc-r.Ann.Rout, r.Ann.Zc+r.Ann.Rout
@@ -110,7 +114,23 @@ type Props struct {
 func (s *Shape) Props() Props {
 	y0, z0 := s.Ref()
 	m := s.MomentsAbout(y0, z0)
-	return propsFrom(m, y0, z0)
+	p := propsFrom(m, y0, z0)
+	// A centroid that rounding alone moved off an axis of a symmetric shape
+	// (the arcs of a rolled profile sum to 1e-18 m, not 0) is put back on
+	// it: an offset below 1e-13 of the shape's size is no information, and
+	// printed as 3.4e-15 mm it reads as one.
+	a0, a1, b0, b1 := s.BBox()
+	size := math.Max(a1-a0, b1-b0)
+	if math.Abs(p.Yc) < 1e-13*size {
+		p.Yc = 0
+	}
+	if math.Abs(p.Zc) < 1e-13*size {
+		p.Zc = 0
+	}
+	if math.Abs(p.Iyz) < 1e-13*math.Sqrt(math.Abs(p.Iy*p.Iz)) {
+		p.Iyz = 0
+	}
+	return p
 }
 
 func propsFrom(m Moments, y0, z0 float64) Props {

@@ -186,9 +186,11 @@ func init() {
 			return wrap(Cut(o, h))
 		},
 		Summary: "outer section with a hole (any section) removed",
-		Doc: "Removes hole from outer, for polygons with holes, plates with a circular opening, or a tube of " +
-			"any outline. The hole must lie inside the material of outer and may not overlap an earlier hole " +
-			"(checked on points along its boundary). Curved holes stay exact.",
+		Doc: "Removes hole from outer, for polygons with holes, plates with a circular opening, a tube of " +
+			"any outline, or the block of concrete around an encased profile (cut(rect(b, h), I)). The hole " +
+			"must lie inside the material of outer and may not overlap an earlier hole: the area it shares " +
+			"with outer, computed by clipping boundary against boundary, must be its whole area (relative " +
+			"1e-9); it may touch outer's edges. Curved holes stay exact in the properties.",
 		Formula: "A = A_outer − A_hole; moments subtract about a common point",
 		Source:  srcMech,
 	})
@@ -212,8 +214,9 @@ func init() {
 		},
 		Summary: "union of two sections of one material that do not overlap",
 		Doc: "Joins two sections of the same material into one (a plate welded to a flange, two angles back " +
-			"to back). They may touch along an edge but not overlap. For parts of different materials build a " +
-			"composite instead.",
+			"to back). They may touch along an edge but not overlap: their common area, computed by clipping " +
+			"boundary against boundary (circles through inscribed 512-gons), must be below 1e-9 of the smaller " +
+			"area. For parts of different materials build a composite instead; join_all takes a list.",
 		Formula: "A = A_a + A_b; moments add about a common point",
 		Source:  srcMech,
 	})
@@ -238,7 +241,7 @@ func init() {
 			dy, dz := num(a[1]), num(a[2])
 			for _, v := range []float64{dy, dz, rot} {
 				if math.IsNaN(v) || math.IsInf(v, 0) {
-					return nil, fmt.Errorf("place needs finite shifts and angle, got dy = %g m, dz = %g m, rot = %g rad", dy, dz, rot)
+					return nil, fmt.Errorf("place needs finite shifts and angle, got dy = %s, dz = %s, rot = %.4g rad", funcs.Length(dy), funcs.Length(dz), rot)
 				}
 			}
 			return Record(s.Transform(dy, dz, rot)), nil

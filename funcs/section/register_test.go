@@ -2,6 +2,7 @@ package section
 
 import (
 	"math"
+	"strings"
 	"testing"
 
 	"github.com/sheafcalc/sheaf/engine/units"
@@ -69,5 +70,42 @@ func TestIntegralValidate(t *testing.T) {
 	}
 	if _, err := d.Validate([]*funcs.Type{Type, funcs.Num(L)}); err == nil {
 		t.Error("a number was accepted as the field")
+	}
+}
+
+// TestRegisteredAssemblies: join_all, cut_all, bars_on_circle, core and
+// rolled_i through the registry, as a sheet calls them.
+// Source: plane geometry (areas add and subtract); Gere & Goodno App. E.
+func TestRegisteredAssemblies(t *testing.T) {
+	sq := func(dy float64) funcs.Value { return call(t, "place", call(t, "rect", 0.1, 0.1), dy, 0.0, nil) }
+	row := call(t, "join_all", []funcs.Value{sq(0), sq(0.1), sq(0.2), sq(0.3)}).(*funcs.RecordValue)
+	if relErr(row.Num("A", 0), 0.04) > 1e-14 || relErr(row.Num("y_c", 0), 0.15) > 1e-14 {
+		t.Errorf("four touching squares: %v", row.Fields)
+	}
+	if _, err := functest.TryCall(t, "join_all", []funcs.Value{sq(0), sq(0.05)}); err == nil || !strings.Contains(err.Error(), "sections 1 and 2 overlap") {
+		t.Errorf("overlapping squares: %v", err)
+	}
+	plate := call(t, "rect", 0.5, 0.5)
+	holes := call(t, "cut_all", plate, []funcs.Value{call(t, "circle", 0.1), call(t, "place", call(t, "circle", 0.1), 0.1, 0.0, nil)}).(*funcs.RecordValue)
+	if relErr(holes.Num("A", 0), 0.25-2*math.Pi*0.0025) > 1e-14 {
+		t.Errorf("two touching holes: A = %g", holes.Num("A", 0))
+	}
+	if _, err := functest.TryCall(t, "cut_all", plate, []funcs.Value{call(t, "circle", 0.1), call(t, "place", call(t, "circle", 0.1), 0.05, 0.0, nil)}); err == nil || !strings.Contains(err.Error(), "hole 2") {
+		t.Errorf("overlapping holes: %v", err)
+	}
+	if _, err := functest.TryCall(t, "bars_on_circle", 2.5, 0.016, 0.3); err == nil {
+		t.Error("2.5 bars must be refused")
+	}
+	core := call(t, "core", call(t, "chs", 0.2191, 0.010)).(*funcs.RecordValue)
+	if relErr(core.Num("A", 0), math.Pi*0.1991*0.1991/4) > 1e-14 {
+		t.Errorf("core of CHS 219.1x10: A = %g", core.Num("A", 0))
+	}
+	if _, err := functest.TryCall(t, "core", plate); err == nil {
+		t.Error("a solid rectangle has no core")
+	}
+	// Source: REFERENCES.md D10, HEB 200 (200×200×9×15, r 18): A ≈ 7808 mm² (from memory).
+	heb := call(t, "rolled_i", 0.2, 0.2, 0.009, 0.015, 0.018).(*funcs.RecordValue)
+	if a := heb.Num("A", 0) * 1e6; math.Abs(a-7808) > 0.5 {
+		t.Errorf("HEB 200 A = %.2f mm², table 7808", a)
 	}
 }

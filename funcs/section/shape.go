@@ -4,8 +4,6 @@ import (
 	"errors"
 	"fmt"
 	"math"
-
-	"github.com/sheafcalc/sheaf/funcs"
 )
 
 // MaxVertices bounds the vertices of one polygon ring: the self-intersection
@@ -23,12 +21,13 @@ type Annulus struct {
 	Yc, Zc, Rin, Rout float64
 }
 
-// Region is one signed piece of a shape: exactly one of Ring and Ann is set.
-// Sign is +1 for material and −1 for a hole cut out of earlier regions.
+// Region is one signed piece of a shape: exactly one of Ring, Ann and Sec is
+// set. Sign is +1 for material and −1 for a hole cut out of earlier regions.
 type Region struct {
 	Sign float64
 	Ring *Ring
 	Ann  *Annulus
+	Sec  *Sector
 }
 
 // Shape is a cross-section as a signed sum of regions. Its density (the sum
@@ -36,6 +35,15 @@ type Region struct {
 // constructors and Cut keep it so.
 type Shape struct {
 	Regions []Region
+	// Core is the void of a hollow section (the inside of a tube), kept by
+	// the tube constructors so that a fill can be made with CoreOf; nil
+	// for other shapes.
+	Core *Shape
+	// Draw, when set, is what a drawing shows instead of Regions: the same
+	// material with its arcs as polylines and no construction edges (a
+	// rolled profile's fillets are squares less quarter circles in Regions,
+	// which would draw as boxes). Properties never read it.
+	Draw []Region
 }
 
 // NewRing checks and normalises a polygon: at least three distinct vertices,
@@ -184,7 +192,7 @@ func (a *Annulus) contains(y, z float64) bool {
 func (s *Shape) Density(y, z float64) float64 {
 	d := 0.0
 	for _, r := range s.Regions {
-		if (r.Ring != nil && r.Ring.contains(y, z)) || (r.Ann != nil && r.Ann.contains(y, z)) {
+		if (r.Ring != nil && r.Ring.contains(y, z)) || (r.Ann != nil && r.Ann.contains(y, z)) || (r.Sec != nil && r.Sec.contains(y, z)) {
 			d += r.Sign
 		}
 	}
@@ -201,99 +209,69 @@ func (s *Shape) Transform(dy, dz, rot float64) *Shape {
 	move := func(y, z float64) (float64, float64) {
 		return cos*y - sin*z + dy, sin*y + cos*z + dz
 	}
-	out := &Shape{Regions: make([]Region, len(s.Regions))}
-	for k, r := range s.Regions {
-		nr := Region{Sign: r.Sign}
-		if r.Ring != nil {
-			ring := &Ring{Y: make([]float64, len(r.Ring.Y)), Z: make([]float64, len(r.Ring.Z))}
-			for i := range r.Ring.Y {
-				ring.Y[i], ring.Z[i] = move(r.Ring.Y[i], r.Ring.Z[i])
+	moveAll := func(regs []Region) []Region {
+		out := make([]Region, len(regs))
+		for k, r := range regs {
+			nr := Region{Sign: r.Sign}
+			if r.Ring != nil {
+				ring := &Ring{Y: make([]float64, len(r.Ring.Y)), Z: make([]float64, len(r.Ring.Z))}
+				for i := range r.Ring.Y {
+					ring.Y[i], ring.Z[i] = move(r.Ring.Y[i], r.Ring.Z[i])
+				}
+				nr.Ring = ring
+			} else if r.Sec != nil {
+				c := *r.Sec
+				c.Yc, c.Zc = move(c.Yc, c.Zc)
+				c.Th0 += rot
+				nr.Sec = &c
+			} else {
+				a := *r.Ann
+				a.Yc, a.Zc = move(a.Yc, a.Zc)
+				nr.Ann = &a
 			}
-			nr.Ring = ring
-		} else {
-			a := *r.Ann
-			a.Yc, a.Zc = move(a.Yc, a.Zc)
-			nr.Ann = &a
+			out[k] = nr
 		}
-		out.Regions[k] = nr
+		return out
+	}
+	out := &Shape{Regions: moveAll(s.Regions)}
+	if s.Draw != nil {
+		out.Draw = moveAll(s.Draw)
+	}
+	if s.Core != nil {
+		out.Core = s.Core.Transform(dy, dz, rot)
 	}
 	return out
 }
 
-// boundarySamples lists points just inside the boundary of the region (moved
-// a hair towards its centre), used to test that a hole lies in the material.
-func (r Region) boundarySamples() [][2]float64 {
-	var pts [][2]float64
-	if r.Ring != nil {
-		m := momentsRing(r.Ring, 0, 0)
-		cy, cz := m.Sy/m.A, m.Sz/m.A
-		n := len(r.Ring.Y)
-		for i := range n {
-			j := (i + 1) % n
-			for _, t := range [...]float64{0, 0.5} {
-				y := r.Ring.Y[i] + t*(r.Ring.Y[j]-r.Ring.Y[i])
-				z := r.Ring.Z[i] + t*(r.Ring.Z[j]-r.Ring.Z[i])
-				pts = append(pts, [2]float64{y + 1e-9*(cy-y), z + 1e-9*(cz-z)})
-			}
-		}
-		return pts
+// drawRegions is what a drawing of s shows.
+func (s *Shape) drawRegions() []Region {
+	if s.Draw != nil {
+		return s.Draw
 	}
-	a := r.Ann
-	for k := range 64 {
-		s, c := math.Sincos(2 * math.Pi * float64(k) / 64)
-		ro := a.Rout * (1 - 1e-9)
-		pts = append(pts, [2]float64{a.Yc + ro*c, a.Zc + ro*s})
-		if a.Rin > 0 {
-			ri := a.Rin * (1 + 1e-9)
-			pts = append(pts, [2]float64{a.Yc + ri*c, a.Zc + ri*s})
-		}
-	}
-	return pts
+	return s.Regions
 }
 
-// Cut returns outer with hole removed. Every region of hole must lie inside
-// the material of outer (holes may not overlap each other or stick out).
-func Cut(outer, hole *Shape) (*Shape, error) {
-	for _, r := range hole.Regions {
-		if r.Sign < 0 {
-			continue
-		}
-		for _, p := range r.boundarySamples() {
-			if outer.Density(p[0], p[1]) < 0.5 {
-				return nil, fmt.Errorf("the hole reaches outside the material at y = %.6g m, z = %.6g m; a hole must lie inside the section and not overlap another hole", p[0], p[1])
-			}
-		}
+// combineDraw is the drawing of the regions of a followed by those of b
+// with their signs multiplied by sign, or nil when neither has a drawing of
+// its own.
+func combineDraw(a, b *Shape, sign float64) []Region {
+	if a.Draw == nil && b.Draw == nil {
+		return nil
 	}
-	out := &Shape{Regions: append([]Region(nil), outer.Regions...)}
-	for _, r := range hole.Regions {
-		r.Sign = -r.Sign
-		out.Regions = append(out.Regions, r)
+	out := append([]Region(nil), a.drawRegions()...)
+	for _, r := range b.drawRegions() {
+		r.Sign *= sign
+		out = append(out, r)
 	}
-	return out, nil
+	return out
 }
 
-// Join returns the union of two shapes that do not overlap (built-up
-// sections: a plate welded on a flange).
-func Join(a, b *Shape) (*Shape, error) {
-	for _, r := range b.Regions {
-		if r.Sign < 0 {
-			continue
-		}
-		for _, p := range r.boundarySamples() {
-			if a.Density(p[0], p[1]) > 0.5 {
-				return nil, fmt.Errorf("the shapes overlap at y = %s, z = %s; joined parts must touch at most along an edge", funcs.Length(p[0]), funcs.Length(p[1]))
-			}
-		}
+// appendArc appends the points of the arc of radius r about (yc, zc) from
+// angle t0 to t1 (either way), both ends included, n segments.
+func appendArc(ys, zs []float64, yc, zc, r, t0, t1 float64, n int) ([]float64, []float64) {
+	for k := range n + 1 {
+		sn, cs := math.Sincos(t0 + (t1-t0)*float64(k)/float64(n))
+		ys, zs = append(ys, yc+r*cs), append(zs, zc+r*sn)
 	}
-	for _, r := range a.Regions {
-		if r.Sign < 0 {
-			continue
-		}
-		for _, p := range r.boundarySamples() {
-			if b.Density(p[0], p[1]) > 0.5 {
-				return nil, fmt.Errorf("the shapes overlap at y = %s, z = %s; joined parts must touch at most along an edge", funcs.Length(p[0]), funcs.Length(p[1]))
-			}
-		}
-	}
-	return &Shape{Regions: append(append([]Region(nil), a.Regions...), b.Regions...)}, nil
+	return ys, zs
 }

@@ -44,7 +44,11 @@ func CHS(d, t float64) (*Shape, error) {
 		}
 		return nil, errors.New(msg)
 	}
-	return &Shape{Regions: []Region{{Sign: 1, Ann: &Annulus{Rin: d/2 - t, Rout: d / 2}}}}, nil
+	s := &Shape{Regions: []Region{{Sign: 1, Ann: &Annulus{Rin: d/2 - t, Rout: d / 2}}}}
+	if t < d/2 {
+		s.Core = &Shape{Regions: []Region{{Sign: 1, Ann: &Annulus{Rout: d/2 - t}}}}
+	}
+	return s, nil
 }
 
 // Rect is a solid rectangle, b wide (along y) and h high (along z), centred
@@ -78,7 +82,7 @@ func RHS(b, h, t float64) (*Shape, error) {
 	return &Shape{Regions: []Region{
 		{Sign: 1, Ring: rectRing(-b/2, -h/2, b/2, h/2)},
 		{Sign: -1, Ring: rectRing(-b/2+t, -h/2+t, b/2-t, h/2-t)},
-	}}, nil
+	}, Core: &Shape{Regions: []Region{{Sign: 1, Ring: rectRing(-b/2+t, -h/2+t, b/2-t, h/2-t)}}}}, nil
 }
 
 // ISection is a doubly symmetric I or H shape of depth h (along z), flange

@@ -43,7 +43,7 @@ func num(v funcs.Value) float64 {
 }
 
 func init() {
-	for _, d := range defs() {
+	for _, d := range append(defs(), codeDefs()...) {
 		funcs.Register(d)
 	}
 }

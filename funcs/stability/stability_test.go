@@ -169,3 +169,88 @@ func ExampleCurve_At() {
 
 	// Output: chi = 0.72
 }
+
+// TestChiCurves: χ recomputed from the 6.3.1.2 formula, written out here
+// step by step, at λ̄ = 0.2, 0.5, 1.0, 1.5, 2.0 for each curve, and the
+// classic anchor values χ(1.0) of curve a = 0.6656 and of curve c = 0.5399
+// that the tables print (rounded to 4 places).
+// Source: EN 1993-1-1:2005 §6.3.1.2 Eq. (6.49), Table 6.1; REFERENCES.md D1
+// (from memory).
+func TestChiCurves(t *testing.T) {
+	alphas := map[string]float64{"a0": 0.13, "a": 0.21, "b": 0.34, "c": 0.49, "d": 0.76}
+	for curve, al := range alphas {
+		for _, l := range []float64{0.2, 0.5, 1.0, 1.5, 2.0} {
+			phi := 0.5 * (1 + al*(l-0.2) + l*l)
+			want := 1 / (phi + math.Sqrt(phi*phi-l*l))
+			if want > 1 {
+				want = 1
+			}
+			got, err := Chi(l, curve)
+			if err != nil {
+				t.Fatal(err)
+			}
+			near(t, fmt.Sprintf("χ(%g, %s)", l, curve), got, want, 1e-14)
+			v, err := call(t, "buckling_reduction", l, curve)
+			if err != nil || v.(float64) != got {
+				t.Errorf("registered buckling_reduction(%g, %s) = %v, %v", l, curve, v, err)
+			}
+		}
+	}
+	for _, c := range []struct {
+		curve string
+		want  float64
+	}{{"a", 0.6656}, {"c", 0.5399}} {
+		got, _ := Chi(1.0, c.curve)
+		if math.Abs(got-c.want) > 0.00005 {
+			t.Errorf("χ(1.0, %s) = %.5f, table %.4f", c.curve, got, c.want)
+		}
+	}
+	if got, _ := Chi(0.2, "d"); got != 1 {
+		t.Errorf("χ(0.2) = %g, want exactly 1", got)
+	}
+	if _, err := Chi(1, "e"); err == nil || !strings.Contains(err.Error(), "a0, a, b, c, d") {
+		t.Errorf("curve e must be refused with the list, got %v", err)
+	}
+}
+
+// TestLambdaBar: (L_cr/i)/λ_1 equals √(A·f_y/N_cr) for the same column.
+// Source: EN 1993-1-1 Eqs. (6.49)/(6.50), algebra (from memory).
+func TestLambdaBar(t *testing.T) {
+	const A, I, L, E, fy = 6569.1e-6, 3.598e-5, 4.2, 210e9, 355e6
+	i := math.Sqrt(I / A)
+	ncr := math.Pi * math.Pi * E * I / (L * L)
+	got, err := LambdaBar(L, i, fy, E)
+	if err != nil {
+		t.Fatal(err)
+	}
+	near(t, "λ̄", got, math.Sqrt(A*fy/ncr), 1e-13)
+}
+
+// TestFcrE3 at L_c/r = 40, 80, 120, 200 for F_y = 50 ksi, E = 29000 ksi,
+// against Eqs. E3-2/E3-3 written out; the limit 4.71√(E/F_y) = 113.4 puts
+// 120 and 200 on the elastic branch.
+// Source: AISC 360-16 §E3 (REFERENCES.md D2, from memory); ksi per NIST SP 811.
+func TestFcrE3(t *testing.T) {
+	const ksi = 6.894757293168361e6
+	fy, e := 50*ksi, 29000*ksi
+	for _, kl := range []float64{40, 80, 120, 200} {
+		fe := math.Pi * math.Pi * e / (kl * kl)
+		want := 0.877 * fe
+		if fy/fe <= 2.25 {
+			want = math.Pow(0.658, fy/fe) * fy
+		}
+		if (kl <= 113) != (fy/fe <= 2.25) {
+			t.Errorf("L_c/r = %g on the wrong branch", kl)
+		}
+		got, err := FcrE3(fy, e, kl)
+		if err != nil {
+			t.Fatal(err)
+		}
+		near(t, fmt.Sprintf("F_cr(%g)", kl), got, want, 1e-14)
+	}
+	// A rounded anchor: φ_c·F_cr = 40.0 ksi at L_c/r = 40 for F_y = 50 ksi
+	// (AISC Manual Table 4-14, from memory).
+	if got, _ := FcrE3(fy, e, 40); math.Abs(0.9*got/ksi-40.0) > 0.05 {
+		t.Errorf("φF_cr(40) = %.2f ksi, the table gives 40.0", 0.9*got/ksi)
+	}
+}

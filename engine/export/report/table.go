@@ -46,10 +46,23 @@ func (d *doc) table(c *engine.Cell, it *sheet.Table) {
 		d.w("</th>")
 	}
 	d.w("</tr></thead><tbody>\n")
-	for _, row := range it.Rows {
+	// An entry written as an expression of cells shows its value of this
+	// run beside it, in the unit of its column.
+	tv, _ := d.res.Cells[c.Index].Value.(*funcs.TableValue)
+	for r, row := range it.Rows {
 		d.w("<tr>")
-		for _, l := range row {
-			d.w("<td class=\"num\">", esc(strings.Replace(l.Text, "-", "−", 1)), "</td>")
+		for i, l := range row {
+			text := l.Text
+			if l.Expr && tv != nil && i < len(tv.Cols) && r < len(tv.Cols[i]) {
+				f := 1.0
+				if col := it.Columns[i]; col.Unit != nil {
+					if u, err := units.Parse(col.Unit.Text); err == nil {
+						f = u.Factor
+					}
+				}
+				text += " = " + units.FormatNumber(tv.Cols[i][r]/f, d.sig)
+			}
+			d.w("<td class=\"num\">", esc(strings.Replace(text, "-", "−", 1)), "</td>")
 		}
 		d.w("</tr>\n")
 	}

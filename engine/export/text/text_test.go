@@ -81,6 +81,8 @@ func TestListingParts(t *testing.T) {
 			[]string{"-31.4 %", text.Pass + "\n"}},
 		{"compression check in tension", "N [kN] = 8 kN\ncheck buckling: -N <= 28 kN\n",
 			[]string{"  buckling  -8 kN of 28 kN  -  " + text.Unknown + "  demand is tension; this check is written for compression"}, nil},
+		{"both sides negative", "N [kN] = -5 kN\nR [kN] = -20 kN\ncheck c: N <= R\n",
+			[]string{"  c  -5 kN of -20 kN  -  " + text.Unknown + "  the capacity is negative"}, []string{"25 %"}},
 		{"negative length", "d [mm] = -2 mm\ncheck sag: d <= 10 mm\n",
 			[]string{text.Unknown + "  demand is negative; this check is written for a positive demand"}, nil},
 		{"governing term of min", "N_pl [kN] = 50 kN\nN_b [kN] = 32 kN\nN_Rd [kN] = min(N_pl, 0.9 * N_b, 60 kN)\nN [kN] = 20 kN\ncheck c: N <= N_Rd\ncheck d: N <= max(N_b, N_pl)\n",
