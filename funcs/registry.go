@@ -35,6 +35,11 @@ type Def struct {
 	// arrive as nil. An error is reported at the calling cell.
 	Call func(args []Value) (Value, error)
 
+	// Spreadsheet, when set, is the function as a spreadsheet formula, for
+	// the workbook exporter (a value it can recompute instead of a value
+	// only Sheaf computes). The checker and the evaluator never read it.
+	Spreadsheet *Spreadsheet
+
 	Summary string // one line for `sheaf funcs`
 	Doc     string // what it computes, arguments with units and ranges, special cases
 	Formula string // the formula in plain text, e.g. "δ = P·L/(E·A)"
@@ -54,6 +59,9 @@ func Register(d *Def) {
 	}
 	if d.Source == "" || d.Doc == "" {
 		panic(fmt.Sprintf("funcs: %s needs a Doc and a Source", d.Name))
+	}
+	if err := d.Spreadsheet.check(d); err != nil {
+		panic(fmt.Sprintf("funcs: %s: spreadsheet form: %v", d.Name, err))
 	}
 	mu.Lock()
 	defer mu.Unlock()

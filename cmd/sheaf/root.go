@@ -228,10 +228,33 @@ func versionString() string {
 	if version != "" {
 		return version
 	}
-	if bi, ok := debug.ReadBuildInfo(); ok && bi.Main.Version != "" && bi.Main.Version != "(devel)" {
+	bi, ok := debug.ReadBuildInfo()
+	if ok && bi.Main.Version != "" && bi.Main.Version != "(devel)" {
 		return bi.Main.Version
 	}
-	return "devel"
+	// A build from a checkout names its commit, so that a workbook or a
+	// listing can be traced to the code that computed it.
+	rev, modified := "", false
+	if ok {
+		for _, s := range bi.Settings {
+			switch s.Key {
+			case "vcs.revision":
+				rev = s.Value
+			case "vcs.modified":
+				modified = s.Value == "true"
+			}
+		}
+	}
+	if len(rev) > 12 {
+		rev = rev[:12]
+	}
+	switch {
+	case rev == "":
+		return "devel"
+	case modified:
+		return "devel (commit " + rev + ", with uncommitted changes)"
+	}
+	return "devel (commit " + rev + ")"
 }
 
 // newRootCmd builds the command tree around injected streams.

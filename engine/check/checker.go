@@ -617,7 +617,7 @@ func (c *checker) fitsUnit(t *typer, cell *Cell, body *Node) bool {
 	}
 	if body.Type.Dim != cell.Unit.Dim {
 		what := t.describeDim(cell.Unit.Dim)
-		if cell.Unit.Quantity != "" {
+		if cell.Unit.Quantity != "" && !cell.Unit.Dim.IsNone() { // not "a dimensionless"
 			what = cell.Unit.Quantity
 		}
 		hint := "write the unit of the result, e.g. [" + t.unitOf(body.Type.Dim) + "], or correct the formula"

@@ -457,10 +457,11 @@ func shortcuts() []*funcs.Def {
 			Call: func(a []funcs.Value) (funcs.Value, error) {
 				return positive(Elongation(f64(a[0]), f64(a[1]), f64(a[2]), f64(a[3])), "E·A", f64(a[2])*f64(a[3]))
 			},
-			Summary: "elongation P·L/(E·A) of a prismatic bar",
-			Doc:     "The change in length δ [m] of a prismatic bar of length L under end forces P (tension positive). Agrees with solve_bar to 1e-10.",
-			Formula: "δ = P·L/(E·A)",
-			Source:  "Gere & Goodno, Mechanics of Materials, §2.2, Eq. δ = PL/EA",
+			Spreadsheet: &funcs.Spreadsheet{Formula: "({P})*({L})/(({E})*({A}))", Valid: "({E})*({A})>0"},
+			Summary:     "elongation P·L/(E·A) of a prismatic bar",
+			Doc:         "The change in length δ [m] of a prismatic bar of length L under end forces P (tension positive). Agrees with solve_bar to 1e-10.",
+			Formula:     "δ = P·L/(E·A)",
+			Source:      "Gere & Goodno, Mechanics of Materials, §2.2, Eq. δ = PL/EA",
 		},
 		{
 			Name: "tapered_rod_elongation", Family: family,
@@ -471,7 +472,8 @@ func shortcuts() []*funcs.Def {
 				e, d1, d2 := f64(a[2]), f64(a[3]), f64(a[4])
 				return positive(TaperedElongation(f64(a[0]), f64(a[1]), e, d1, d2), "E·d1·d2", e*d1*d2)
 			},
-			Summary: "elongation 4PL/(πE·d1·d2) of a tapered solid circular bar",
+			Spreadsheet: &funcs.Spreadsheet{Formula: "4*({P})*({L})/(PI()*({E})*({d1})*({d2}))", Valid: "({E})*({d1})*({d2})>0"},
+			Summary:     "elongation 4PL/(πE·d1·d2) of a tapered solid circular bar",
 			Doc: "The change in length δ [m] of a solid circular bar whose diameter varies linearly from d1 " +
 				"to d2 under end forces P. Exact for the linear taper; the mean-diameter estimate is low " +
 				"(by 11 % for d1/d2 = 2). Agrees with solve_bar to 1e-10.",
@@ -486,10 +488,11 @@ func shortcuts() []*funcs.Def {
 				e := f64(a[2])
 				return positive(SelfWeightElongation(f64(a[0]), f64(a[1]), e), "E", e)
 			},
-			Summary: "elongation γL²/(2E) of a prismatic bar hanging under its own weight",
-			Doc:     "The elongation δ [m] of a prismatic bar of length L hanging from its top under its own weight, γ the weight density; the area cancels. Agrees with solve_bar to 1e-10.",
-			Formula: "δ = γ·L²/(2·E)",
-			Source:  "Timoshenko, Strength of Materials Part I, Art. 2",
+			Spreadsheet: &funcs.Spreadsheet{Formula: "({gamma})*({L})*({L})/(2*({E}))", Valid: "{E}>0"},
+			Summary:     "elongation γL²/(2E) of a prismatic bar hanging under its own weight",
+			Doc:         "The elongation δ [m] of a prismatic bar of length L hanging from its top under its own weight, γ the weight density; the area cancels. Agrees with solve_bar to 1e-10.",
+			Formula:     "δ = γ·L²/(2·E)",
+			Source:      "Timoshenko, Strength of Materials Part I, Art. 2",
 		},
 		{
 			Name: "self_weight_stress", Family: family,
@@ -498,10 +501,11 @@ func shortcuts() []*funcs.Def {
 			Call: func(a []funcs.Value) (funcs.Value, error) {
 				return finiteResult(SelfWeightStress(f64(a[0]), f64(a[1])))
 			},
-			Summary: "largest stress γL of a prismatic bar hanging under its own weight",
-			Doc:     "The stress σ_max [Pa] at the support of a prismatic bar of length L hanging under its own weight.",
-			Formula: "σ_max = γ·L",
-			Source:  "Timoshenko, Strength of Materials Part I, Art. 2",
+			Spreadsheet: &funcs.Spreadsheet{Formula: "({gamma})*({L})"},
+			Summary:     "largest stress γL of a prismatic bar hanging under its own weight",
+			Doc:         "The stress σ_max [Pa] at the support of a prismatic bar of length L hanging under its own weight.",
+			Formula:     "σ_max = γ·L",
+			Source:      "Timoshenko, Strength of Materials Part I, Art. 2",
 		},
 		{
 			Name: "thermal_restraint_stress", Family: family,
@@ -510,10 +514,11 @@ func shortcuts() []*funcs.Def {
 			Call: func(a []funcs.Value) (funcs.Value, error) {
 				return finiteResult(ThermalRestraintStress(f64(a[0]), f64(a[1]), f64(a[2])))
 			},
-			Summary: "stress −E·α·ΔT of a bar held between rigid supports",
-			Doc:     "The stress σ [Pa] in a bar fully restrained between rigid supports when its temperature changes by ΔT; compression (negative) when heated.",
-			Formula: "σ = −E·α·ΔT",
-			Source:  "Gere & Goodno, Mechanics of Materials, §2.5 (thermal effects)",
+			Spreadsheet: &funcs.Spreadsheet{Formula: "-({E})*({alpha})*({dT})"},
+			Summary:     "stress −E·α·ΔT of a bar held between rigid supports",
+			Doc:         "The stress σ [Pa] in a bar fully restrained between rigid supports when its temperature changes by ΔT; compression (negative) when heated.",
+			Formula:     "σ = −E·α·ΔT",
+			Source:      "Gere & Goodno, Mechanics of Materials, §2.5 (thermal effects)",
 		},
 	}
 }

@@ -214,7 +214,8 @@ func init() {
 			}
 			return e, nil
 		},
-		Summary: "secant modulus of concrete E_cm = 22·(f_cm/10)^0.3 GPa, f_cm = f_ck + 8 MPa",
+		Spreadsheet: &funcs.Spreadsheet{Formula: "22E9*((({f_ck})/1E6+8)/10)^0.3", Valid: "AND({f_ck}>0,({f_ck})/1E6<=200)"},
+		Summary:     "secant modulus of concrete E_cm = 22·(f_cm/10)^0.3 GPa, f_cm = f_ck + 8 MPa",
 		Doc: "Secant modulus of elasticity of normal-weight concrete with quartzite aggregates from the mean " +
 			"strength f_cm = f_ck + 8 MPa. The formula is evaluated, not the rounded table values. For limestone or " +
 			"sandstone aggregates the code reduces it (×0.9, ×0.7; basalt ×1.2): apply that factor in the sheet.",

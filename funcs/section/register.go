@@ -77,10 +77,11 @@ func init() {
 	sec := Type
 	funcs.Register(&funcs.Def{
 		Name: "circle", Family: family,
-		Params:  []funcs.Param{length("d", "diameter, m; > 0")},
-		Result:  sec,
-		Call:    func(a []funcs.Value) (funcs.Value, error) { return wrap(Circle(num(a[0]))) },
-		Summary: "solid circle of diameter d, centred at the origin",
+		Params:      []funcs.Param{length("d", "diameter, m; > 0")},
+		Result:      sec,
+		Call:        func(a []funcs.Value) (funcs.Value, error) { return wrap(Circle(num(a[0]))) },
+		Spreadsheet: circleForm,
+		Summary:     "solid circle of diameter d, centred at the origin",
 		Doc: "A solid circular section of diameter d centred at the origin. Its properties are exact " +
 			"(no polygon): A = πd²/4, I_y = I_z = πd⁴/64, i = d/4. Section integrals over it use polar " +
 			"coordinates.",
@@ -89,10 +90,11 @@ func init() {
 	})
 	funcs.Register(&funcs.Def{
 		Name: "chs", Family: family,
-		Params:  []funcs.Param{length("d", "outside diameter, m; > 0"), length("t", "wall thickness, m; 0 < t ≤ d/2")},
-		Result:  sec,
-		Call:    func(a []funcs.Value) (funcs.Value, error) { return wrap(CHS(num(a[0]), num(a[1]))) },
-		Summary: "circular hollow section (tube) d × t, centred at the origin",
+		Params:      []funcs.Param{length("d", "outside diameter, m; > 0"), length("t", "wall thickness, m; 0 < t ≤ d/2")},
+		Result:      sec,
+		Call:        func(a []funcs.Value) (funcs.Value, error) { return wrap(CHS(num(a[0]), num(a[1]))) },
+		Spreadsheet: chsForm,
+		Summary:     "circular hollow section (tube) d × t, centred at the origin",
 		Doc: "A circular tube of outside diameter d and wall thickness t, centred at the origin; " +
 			"t = d/2 gives the solid circle. Exact properties with d_i = d − 2t: A = π(d² − d_i²)/4, " +
 			"I = π(d⁴ − d_i⁴)/64.",
@@ -101,21 +103,23 @@ func init() {
 	})
 	funcs.Register(&funcs.Def{
 		Name: "rect", Family: family,
-		Params:  []funcs.Param{length("b", "width along y, m; > 0"), length("h", "height along z, m; > 0")},
-		Result:  sec,
-		Call:    func(a []funcs.Value) (funcs.Value, error) { return wrap(Rect(num(a[0]), num(a[1]))) },
-		Summary: "solid rectangle b wide, h high, centred at the origin",
-		Doc:     "A solid rectangle b wide (along y) and h high (along z), centred at the origin.",
-		Formula: "A = b·h; I_y = b·h³/12; I_z = h·b³/12",
-		Source:  srcMech,
+		Params:      []funcs.Param{length("b", "width along y, m; > 0"), length("h", "height along z, m; > 0")},
+		Result:      sec,
+		Call:        func(a []funcs.Value) (funcs.Value, error) { return wrap(Rect(num(a[0]), num(a[1]))) },
+		Spreadsheet: rectForm,
+		Summary:     "solid rectangle b wide, h high, centred at the origin",
+		Doc:         "A solid rectangle b wide (along y) and h high (along z), centred at the origin.",
+		Formula:     "A = b·h; I_y = b·h³/12; I_z = h·b³/12",
+		Source:      srcMech,
 	})
 	funcs.Register(&funcs.Def{
 		Name: "rhs", Family: family,
 		Params: []funcs.Param{length("b", "outside width along y, m; > 0"), length("h", "outside height along z, m; > 0"),
 			length("t", "wall thickness, m; 0 < t < min(b, h)/2")},
-		Result:  sec,
-		Call:    func(a []funcs.Value) (funcs.Value, error) { return wrap(RHS(num(a[0]), num(a[1]), num(a[2]))) },
-		Summary: "rectangular hollow section b × h × t (sharp corners), centred at the origin",
+		Result:      sec,
+		Call:        func(a []funcs.Value) (funcs.Value, error) { return wrap(RHS(num(a[0]), num(a[1]), num(a[2]))) },
+		Spreadsheet: rhsForm,
+		Summary:     "rectangular hollow section b × h × t (sharp corners), centred at the origin",
 		Doc: "A rectangular tube b wide and h high with wall t, centred at the origin. Corners are sharp: the " +
 			"corner radii of a rolled or cold-formed tube are ignored, which overstates A slightly; use the " +
 			"catalogue value where it matters.",

@@ -63,7 +63,8 @@ func defs() []*funcs.Def {
 				}
 				return EulerLoad(num(a[0]), num(a[1]), num(a[2]), k)
 			},
-			Summary: "elastic critical load π²EI/(KL)²",
+			Spreadsheet: &funcs.Spreadsheet{Formula: "PI()^2*({E})*({I})/(({K=1})*({L}))^2", Valid: "AND({E}>0,{I}>0,{L}>0,{K=1}>0)"},
+			Summary:     "elastic critical load π²EI/(KL)²",
 			Doc: "The Euler critical load N_cr [N] of an ideal straight elastic column: E the modulus, I the " +
 				"second moment of area about the axis of buckling, L the system length and K the effective-" +
 				"length factor (theoretical values: 1 pinned–pinned, 2 fixed–free, 0.7 fixed–pinned, 0.5 " +
@@ -78,10 +79,11 @@ func defs() []*funcs.Def {
 			Call: func(a []funcs.Value) (funcs.Value, error) {
 				return Slenderness(num(a[0]), num(a[1]), num(a[2]))
 			},
-			Summary: "slenderness ratio K·L/i",
-			Doc:     "The geometric slenderness λ = K·L/i of a compression member: K the effective-length factor, L the system length [m], i the radius of gyration [m].",
-			Formula: "λ = K·L/i",
-			Source:  "Gere & Goodno, Mechanics of Materials, §11.6",
+			Spreadsheet: &funcs.Spreadsheet{Formula: "({K})*({L})/({i})", Valid: "AND({K}>0,{L}>0,{i}>0)"},
+			Summary:     "slenderness ratio K·L/i",
+			Doc:         "The geometric slenderness λ = K·L/i of a compression member: K the effective-length factor, L the system length [m], i the radius of gyration [m].",
+			Formula:     "λ = K·L/i",
+			Source:      "Gere & Goodno, Mechanics of Materials, §11.6",
 		},
 		{
 			Name: "radius_of_gyration", Family: family,
@@ -90,10 +92,11 @@ func defs() []*funcs.Def {
 			Call: func(a []funcs.Value) (funcs.Value, error) {
 				return RadiusOfGyration(num(a[0]), num(a[1]))
 			},
-			Summary: "radius of gyration √(I/A)",
-			Doc:     "The radius of gyration i [m] of a section from its second moment of area I [m⁴] and area A [m²].",
-			Formula: "i = √(I/A)",
-			Source:  "Gere & Goodno, Mechanics of Materials, §12.4",
+			Spreadsheet: &funcs.Spreadsheet{Formula: "SQRT(({I})/({A}))", Valid: "AND({I}>0,{A}>0)"},
+			Summary:     "radius of gyration √(I/A)",
+			Doc:         "The radius of gyration i [m] of a section from its second moment of area I [m⁴] and area A [m²].",
+			Formula:     "i = √(I/A)",
+			Source:      "Gere & Goodno, Mechanics of Materials, §12.4",
 		},
 		{
 			Name: "relative_slenderness", Family: family,
@@ -102,7 +105,8 @@ func defs() []*funcs.Def {
 			Call: func(a []funcs.Value) (funcs.Value, error) {
 				return RelativeSlenderness(num(a[0]), num(a[1]), num(a[2]))
 			},
-			Summary: "non-dimensional slenderness √(A·f_y/N_cr)",
+			Spreadsheet: &funcs.Spreadsheet{Formula: "SQRT(({A})*({f_y})/({N_cr}))", Valid: "AND({A}>0,{f_y}>0,{N_cr}>0)"},
+			Summary:     "non-dimensional slenderness √(A·f_y/N_cr)",
 			Doc: "The non-dimensional slenderness λ̄ = √(A·f_y/N_cr) [1] that buckling curves take, from the " +
 				"area A, the yield strength f_y and the elastic critical load N_cr (e.g. from euler_load). " +
 				"Codes replace A by an effective area for slender sections: pass that area then.",
@@ -116,10 +120,11 @@ func defs() []*funcs.Def {
 			Call: func(a []funcs.Value) (funcs.Value, error) {
 				return EulerStress(num(a[0]), num(a[1]))
 			},
-			Summary: "elastic critical stress π²E/λ²",
-			Doc:     "The Euler critical stress σ_cr [Pa] for the slenderness λ = K·L/i; the column is elastic only while σ_cr is below the proportional limit.",
-			Formula: "σ_cr = π²·E/λ²",
-			Source:  "Gere & Goodno, Mechanics of Materials, §11.6",
+			Spreadsheet: &funcs.Spreadsheet{Formula: "PI()^2*({E})/({lambda})^2", Valid: "AND({E}>0,{lambda}>0)"},
+			Summary:     "elastic critical stress π²E/λ²",
+			Doc:         "The Euler critical stress σ_cr [Pa] for the slenderness λ = K·L/i; the column is elastic only while σ_cr is below the proportional limit.",
+			Formula:     "σ_cr = π²·E/λ²",
+			Source:      "Gere & Goodno, Mechanics of Materials, §11.6",
 		},
 		{
 			Name: "buckling_factor", Family: family,
@@ -139,6 +144,18 @@ func defs() []*funcs.Def {
 					return nil, err
 				}
 				return cv.At(num(a[1]))
+			},
+			Spreadsheet: &funcs.Spreadsheet{
+				// Linear interpolation between the rows around lambda_bar; MATCH gives
+				// an error below the first row, Valid one above the last.
+				Formula: "INDEX({curve.chi},MIN(MATCH({lambda_bar},{curve.lambda},1),ROWS({curve.lambda})-1))+" +
+					"(({lambda_bar})-INDEX({curve.lambda},MIN(MATCH({lambda_bar},{curve.lambda},1),ROWS({curve.lambda})-1)))/" +
+					"(INDEX({curve.lambda},MIN(MATCH({lambda_bar},{curve.lambda},1),ROWS({curve.lambda})-1)+1)-" +
+					"INDEX({curve.lambda},MIN(MATCH({lambda_bar},{curve.lambda},1),ROWS({curve.lambda})-1)))*" +
+					"(INDEX({curve.chi},MIN(MATCH({lambda_bar},{curve.lambda},1),ROWS({curve.lambda})-1)+1)-" +
+					"INDEX({curve.chi},MIN(MATCH({lambda_bar},{curve.lambda},1),ROWS({curve.lambda})-1)))",
+				Valid: "AND(ROWS({curve.lambda})>=2,{lambda_bar}>=INDEX({curve.lambda},1),{lambda_bar}<=MAX({curve.lambda})," +
+					"MIN({curve.lambda})>=0,MIN({curve.chi})>0,MAX({curve.chi})<=1.5,{curve.lambda:increasing})",
 			},
 			Summary: "reduction factor χ from a buckling curve table",
 			Doc: "Reads the reduction factor χ at λ̄ from a buckling curve that the sheet gives as a table of " +

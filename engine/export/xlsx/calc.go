@@ -9,6 +9,7 @@ import (
 
 	"github.com/sheafcalc/sheaf/engine"
 	"github.com/sheafcalc/sheaf/engine/check"
+	"github.com/sheafcalc/sheaf/engine/sheet"
 	"github.com/sheafcalc/sheaf/engine/units"
 	"github.com/sheafcalc/sheaf/funcs"
 	"github.com/sheafcalc/sheaf/internal/plural"
@@ -17,24 +18,33 @@ import (
 // Columns of the Calculation tab.
 const (
 	colValue = "E"
+	colNote  = "H"
 )
 
 // calcCols is the number of columns of the Calculation tab.
 const calcCols = 8
 
 var calcHeader = [calcCols]string{"Name", "Description", "Expression as written", "With values", "Value", "Unit", "Reference", "Note"}
-var calcWidths = [calcCols]float64{16, 34, 30, 46, 13, 9, 26, 30}
+
+// calcWidths fit A4 landscape at about 90 % (text of 11 points prints
+// at about 10): the whole is 160 character widths.
+var calcWidths = [calcCols]float64{17, 27, 24, 32, 12, 8, 20, 20}
 
 // calcMono marks the columns shown in the monospaced expression font.
 var calcMono = [calcCols]bool{2: true, 3: true}
 
 // Notes written beside values.
 const (
-	noteInput     = "input: edit in the unit shown"
+	noteInput     = ""
 	noteTable     = "input table: see the Data tab"
 	noteFunction  = "function: inlined in the formulas that call it"
-	noteValueOnly = "value from Sheaf, not recomputed here: "
-	notePartly    = "recomputes, but inputs reach it only through values from Sheaf: "
+	noteValueOnly = "Sheaf only: "
+	notePartly    = "recomputes, but reads values from Sheaf: "
+	// calcGuide is the one explanation of the colours and notes, in the
+	// title row of the tab.
+	calcGuide = "Amber: inputs, typed in the unit shown. Grey italic: values only Sheaf computes (the note says why); " +
+		"after an edit upstream of one, it and what reads it are marked out of date until Sheaf runs again."
+	noteLocked = "(locked: values only Sheaf computes depend on it; change it in the sheet and run Sheaf)"
 )
 
 // text returns a string cell. Strings are always written as strings, so a
@@ -71,6 +81,9 @@ func (x *exporter) writeCalc() error {
 	if err := x.finishTab(TabCalc, true); err != nil {
 		return err
 	}
+	if err := x.staleColours(); err != nil {
+		return err
+	}
 	sw, err := x.f.NewStreamWriter(TabCalc)
 	if err != nil {
 		return err
@@ -87,7 +100,11 @@ func (x *exporter) writeCalc() error {
 	if title == "" {
 		title = x.s.Name()
 	}
-	if err := sw.SetRow("A1", []any{x.text(title+": calculation", clsTitle)}); err != nil {
+	if err := sw.SetRow("A1", []any{x.text(title+": calculation", clsTitle), nil, nil, nil, x.text(calcGuide, clsText)},
+		excelize.RowOpts{Height: rowHeight([]excelize.Cell{{Value: calcGuide}}, []float64{calcWidths[4] + calcWidths[5] + calcWidths[6] + calcWidths[7]}, nil)}); err != nil {
+		return err
+	}
+	if err := sw.MergeCell("E1", "H1"); err != nil {
 		return err
 	}
 	head := make([]any, len(calcHeader))
@@ -111,6 +128,21 @@ func (x *exporter) writeCalc() error {
 			for j := 1; j < calcCols; j++ {
 				cells[j] = x.text("", clsHeading)
 			}
+		case rowComment:
+			cells[0] = x.text("", clsText)
+			cells[1] = x.text(r.title, clsComment)
+			for j := 2; j < calcCols; j++ {
+				cells[j] = x.text("", clsText)
+			}
+			rr := strconv.Itoa(r.row)
+			h := rowHeight(cells[1:2], []float64{commentWidth}, []bool{true})
+			if err := sw.SetRow("A"+rr, row, excelize.RowOpts{Height: h}); err != nil {
+				return err
+			}
+			if err := sw.MergeCell("B"+rr, "H"+rr); err != nil {
+				return err
+			}
+			continue
 		case rowCell:
 			cells = x.cellRow(r.cr)
 		case rowField:
@@ -120,8 +152,85 @@ func (x *exporter) writeCalc() error {
 			return err
 		}
 	}
-	if err := sw.Flush(); err != nil {
-		return err
+	return sw.Flush()
+}
+
+// commentWidth is the width of the merged columns B:H a comment spans,
+// less a margin.
+const commentWidth = 140
+
+// commentBlock is a paragraph of full-line comments of the sheet: the
+// lines without their "#", and the offset of the first.
+type commentBlock struct {
+	off  int
+	text string
+}
+
+// commentBlocks are the comments of the sheet file in reading order,
+// consecutive lines joined into one block (a blank line or any other item
+// ends a block). Comments of templates stay in the templates.
+func (x *exporter) commentBlocks() []commentBlock {
+	f := x.s.File()
+	if f == nil {
+		return nil
+	}
+	var out []commentBlock
+	open := false
+	for _, it := range f.Items {
+		c, ok := it.(*sheet.Comment)
+		if !ok {
+			open = false
+			continue
+		}
+		line := strings.TrimPrefix(c.Text, " ")
+		if open {
+			out[len(out)-1].text += "\n" + line
+			continue
+		}
+		out = append(out, commentBlock{off: c.Range.Start.Offset, text: line})
+		open = true
+	}
+	// A block of empty comment lines says nothing.
+	kept := out[:0]
+	for _, b := range out {
+		if strings.TrimSpace(b.text) != "" {
+			kept = append(kept, b)
+		}
+	}
+	return kept
+}
+
+// staleColours marks each guarded value and its note by conditional
+// formatting once an input it depends on has changed.
+func (x *exporter) staleColours() error {
+	id := -1
+	for i := range x.rows {
+		r := &x.rows[i]
+		var keys []int32
+		switch r.kind {
+		case rowCell:
+			keys = x.stale[r.cr.Cell.Index]
+		case rowField:
+			keys = x.stale[r.cell]
+		}
+		g := x.guardExpr(keys)
+		if g == "" {
+			continue
+		}
+		if id < 0 {
+			var err error
+			id, err = x.f.NewConditionalStyle(&staleStyle)
+			if err != nil {
+				return err
+			}
+		}
+		rr := strconv.Itoa(r.row)
+		for _, col := range []string{colValue, colNote} {
+			if err := x.f.SetConditionalFormat(TabCalc, col+rr+":"+col+rr,
+				[]excelize.ConditionalFormatOptions{{Type: "formula", Criteria: g, Format: &id}}); err != nil {
+				return err
+			}
+		}
 	}
 	return nil
 }
@@ -160,9 +269,17 @@ func (x *exporter) cellRow(cr *engine.CellResult) [calcCols]excelize.Cell {
 		x.stats.ValueOnly++
 	case c.Kind == engine.Table:
 		value, note = x.text(cr.Text, clsText), noteTable
-		x.stats.Inputs++
+		if x.locked(c.Index) {
+			note = "table on the Data tab, " + noteLocked
+		} else {
+			x.stats.Inputs++
+		}
 	default:
 		value, note = x.valueCell(c, cr.Value, c.Kind == engine.Input, c.Body, cr.Unit.Factor)
+		if _, num := cr.Value.(float64); num && c.Kind == engine.Input {
+			// As written and as typed: no digit hidden.
+			value.StyleID = x.st.id(clsInput, generalFormat)
+		}
 		if reads := x.reads[c.Index]; len(reads) > 0 && note == "" {
 			note = notePartly + strings.Join(reads, ", ")
 		}
@@ -174,8 +291,14 @@ func (x *exporter) cellRow(cr *engine.CellResult) [calcCols]excelize.Cell {
 			switch cr.Value.(type) {
 			case *funcs.RecordValue:
 				note = "record: its fields follow"
+				if x.opaque[c.Index] {
+					note = noteValueOnly + "its fields follow"
+					if c.Body != nil && c.Body.Str() != "" {
+						note = noteValueOnly + "computed with `" + c.Body.Str() + "`; its fields follow"
+					}
+				}
 			case *funcs.TableValue:
-				note = "table: see the Data tab"
+				note = "table: see the " + TabSamples + " tab"
 			}
 		}
 	}
@@ -183,7 +306,7 @@ func (x *exporter) cellRow(cr *engine.CellResult) [calcCols]excelize.Cell {
 		unit = ""
 	}
 	return [calcCols]excelize.Cell{x.text(name, clsKey), x.text(c.Description, clsText), x.text(expr, clsExpr), x.text(calc, clsExpr),
-		value, x.text(unit, clsText), x.text(c.Reference, clsText), x.text(note, clsText)}
+		value, x.text(unit, clsText), x.text(c.Reference, clsText), x.guardedNote(x.stale[c.Index], note)}
 }
 
 // valueCell writes a number or a truth value: editable for an input, a
@@ -245,15 +368,17 @@ func (x *exporter) fieldRow(r *calcRow) [calcCols]excelize.Cell {
 	switch v := r.val.(type) {
 	case float64, bool:
 		body := r.formul
-		if body == nil {
+		if body == nil && r.plugin != nil {
+			value, note = x.pluginFieldCell(r)
+		} else if body == nil {
 			x.stats.ValueOnly++
 			fmtStr := ""
 			if f, ok := v.(float64); ok {
 				v = f / r.unit.Factor
 				fmtStr = numFormat(f/r.unit.Factor, x.sig)
 			}
+			// The record's row says why; the grey says it here.
 			value = excelize.Cell{StyleID: x.st.id(clsValueOnly, fmtStr), Value: v}
-			note = noteValueOnly + "a field of a result only Sheaf computes"
 			if f, ok := r.val.(float64); ok {
 				if s, over := x.beyondRange(f, r.unit.Factor); over {
 					value, note = x.text(s, clsValueOnly), noteTooLarge
@@ -261,6 +386,9 @@ func (x *exporter) fieldRow(r *calcRow) [calcCols]excelize.Cell {
 			}
 		} else {
 			value, note = x.valueCell(nil, r.val, r.input, body, r.unit.Factor)
+			if _, num := v.(float64); num && r.input {
+				value.StyleID = x.st.id(clsInput, generalFormat)
+			}
 		}
 		if _, ok := v.(float64); ok {
 			unit = r.unit.Pretty()
@@ -268,9 +396,11 @@ func (x *exporter) fieldRow(r *calcRow) [calcCols]excelize.Cell {
 	case *funcs.RecordValue:
 		value, note = x.text("record", clsText), "its fields follow"
 	case *funcs.TableValue:
-		value, note = x.text("table, "+plural.Count(v.Rows(), "row"), clsText), "table: see the Data tab"
+		value, note = x.text("table, "+plural.Count(v.Rows(), "row"), clsText), "table: see the "+TabSamples+" tab"
 	case string:
 		value = x.text(v, clsText)
+	case []float64:
+		value = x.text(x.listText(v, r.listUnit), clsText)
 	default:
 		value = x.text("list", clsText)
 	}
@@ -278,7 +408,7 @@ func (x *exporter) fieldRow(r *calcRow) [calcCols]excelize.Cell {
 		unit = ""
 	}
 	return [calcCols]excelize.Cell{x.text(r.path, clsKey), x.text(r.desc, clsText), x.text(r.expr, clsExpr), x.text("", clsExpr),
-		value, x.text(unit, clsText), x.text("", clsText), x.text(note, clsText)}
+		value, x.text(unit, clsText), x.text("", clsText), x.guardedNote(x.stale[r.cell], note)}
 }
 
 func (x *exporter) checkByCell(c *check.Cell) *checkRow {
@@ -288,6 +418,26 @@ func (x *exporter) checkByCell(c *check.Cell) *checkRow {
 		}
 	}
 	return &checkRow{cell: c}
+}
+
+// utilFormat shows a utilisation as a percentage, as Sheaf's listings do
+// (the value stays the ratio, which the formulas use).
+const utilFormat = "0.0%"
+
+// listText writes a list of SI numbers in unit u: "[12, 16, 20] mm".
+func (x *exporter) listText(v []float64, u units.Unit) string {
+	if u.Factor == 0 {
+		u.Factor = 1
+	}
+	parts := make([]string, len(v))
+	for i, e := range v {
+		parts[i] = units.FormatNumber(e/u.Factor, x.sig)
+	}
+	s := "[" + strings.Join(parts, ", ") + "]"
+	if p := u.Pretty(); p != "" && p != "1" {
+		s += " " + p
+	}
+	return s
 }
 
 // Verdict words.
@@ -305,10 +455,10 @@ func (x *exporter) checkValue(ch *checkRow) (excelize.Cell, string) {
 	}
 	t, _ := x.formula(ch.cell.Index)
 	f, err := t.f, t.err
-	cell := excelize.Cell{Value: ch.util, StyleID: x.st.id(clsDerived, "0.000")}
+	cell := excelize.Cell{Value: ch.util, StyleID: x.st.id(clsDerived, utilFormat)}
 	if err != nil {
 		x.stats.ValueOnly++
-		cell.StyleID = x.st.id(clsValueOnly, "0.000")
+		cell.StyleID = x.st.id(clsValueOnly, utilFormat)
 		return cell, noteValueOnly + err.Error()
 	}
 	x.stats.Live++
@@ -320,8 +470,10 @@ func (x *exporter) checkValue(ch *checkRow) (excelize.Cell, string) {
 }
 
 // verdictFormula is the live verdict of a check named n.
+// A utilisation that is an error (an interpolation outside its table
+// after an edit) is not assessed, as in Sheaf.
 func verdictFormula(n string) string {
-	return "IF(" + n + "<=1,\"" + VerdictPass + "\",\"" + VerdictFail + "\")"
+	return "IF(ISERROR(" + n + ")," + quoted(VerdictUnknown) + ",IF(" + n + "<=1," + quoted(VerdictPass) + "," + quoted(VerdictFail) + "))"
 }
 
 func indexOf(c *check.Cell) int {

@@ -19,28 +19,46 @@ type nodeAlias = check.Node
 // header row of "column [unit]", then the entries in display units. The
 // entries of the sheet's own tables are inputs.
 func (x *exporter) writeData() error {
-	if len(x.tables) == 0 {
+	if err := x.writeTables(TabData); err != nil {
+		return err
+	}
+	return x.writeTables(TabSamples)
+}
+
+// writeTables writes the tables of one tab.
+func (x *exporter) writeTables(tab string) error {
+	var blocks []*tableBlock
+	for _, b := range x.tables {
+		if b.tab == tab {
+			blocks = append(blocks, b)
+		}
+	}
+	if len(blocks) == 0 {
 		return nil
 	}
-	if _, err := x.f.NewSheet(TabData); err != nil {
+	if _, err := x.f.NewSheet(tab); err != nil {
 		return err
 	}
 	// Print setup and protection go on before streaming: the stream
 	// writer keeps what the tab had, but drops what is set after it.
-	if err := x.finishTab(TabData, false); err != nil {
+	if err := x.finishTab(tab, false); err != nil {
 		return err
 	}
-	sw, err := x.f.NewStreamWriter(TabData)
+	sw, err := x.f.NewStreamWriter(tab)
 	if err != nil {
 		return err
 	}
 	if err := sw.SetColWidth(1, 16, 14); err != nil {
 		return err
 	}
-	for _, b := range x.tables {
+	for _, b := range blocks {
 		title := b.path
 		if b.desc != "" {
 			title += ": " + b.desc
+		}
+		locked := b.input && x.locked(b.cell)
+		if locked {
+			title += " " + noteLocked
 		}
 		if err := sw.SetRow("A"+strconv.Itoa(b.row), []any{x.text(title, clsHeading)}); err != nil {
 			return err
@@ -60,12 +78,15 @@ func (x *exporter) writeData() error {
 				}
 			}
 			fmts[j] = numFormat(big, x.sig)
+			if j < len(b.written) && b.written[j] != "" {
+				fmts[j] = b.written[j]
+			}
 		}
 		if err := sw.SetRow("A"+strconv.Itoa(b.row+1), head); err != nil {
 			return err
 		}
 		cls := clsData
-		if b.input {
+		if b.input && !locked {
 			cls = clsInput
 		}
 		// The style of a column is the same down the column (made only
@@ -87,7 +108,7 @@ func (x *exporter) writeData() error {
 					cells[j].Value = s // never +Inf for a finite entry
 				}
 			}
-			if b.input {
+			if b.input && !locked {
 				x.stats.Inputs += len(cells)
 			}
 			if err := sw.SetRow("A"+strconv.Itoa(b.firstDataRow()+i), row); err != nil {
@@ -100,6 +121,13 @@ func (x *exporter) writeData() error {
 	}
 	return nil
 }
+
+// Chart fonts: axis numbers in black at a size that prints (the default
+// grey is close to white on paper).
+var (
+	axisFont      = excelize.Font{Color: "000000", Size: 10}
+	axisTitleFont = excelize.Font{Color: "000000", Size: 10, Bold: true}
+)
 
 // chartSpec is one chart: y column against x column of a table.
 type chartSpec struct {
@@ -119,6 +147,12 @@ func chartsOf(b *tableBlock) []chartSpec {
 		}
 		return what
 	}
+	// The title says what is plotted and for which result, in the words
+	// of the sheet (its description), not by internal name.
+	of := b.owner
+	if of == "" {
+		of = b.path
+	}
 	var out []chartSpec
 	switch b.t.Type.Name {
 	case "bar_samples":
@@ -128,20 +162,21 @@ func chartsOf(b *tableBlock) []chartSpec {
 		}
 		for _, s := range [][3]string{{"N", "N(x)", "axial force N"}, {"u", "u(x)", "displacement u"}, {"sigma", "σ(x)", "axial stress σ"}} {
 			if y := col(s[0]); y >= 0 {
-				out = append(out, chartSpec{b, x, y, b.path + ": " + s[1] + ", " + s[2] + " along the bar", label(x, "position x"), label(y, s[2])})
+				out = append(out, chartSpec{b, x, y, s[1] + ", " + s[2] + " along the bar: " + of, label(x, "position x"), label(y, s[2])})
 			}
 		}
 	case "n_eps_curve":
 		e, n := col("eps"), col("N")
 		if e >= 0 && n >= 0 {
-			out = append(out, chartSpec{b, e, n, b.path + ": N(ε), axial force against uniform strain", label(e, "strain ε"), label(n, "axial force N")})
+			out = append(out, chartSpec{b, e, n, "N(ε), axial force against uniform strain: " + of, label(e, "strain ε"), label(n, "axial force N")})
 		}
 	}
 	return out
 }
 
-// chartHeight is the number of rows one chart takes on the Charts tab.
-const chartHeight = 22
+// chartHeight is the number of rows one chart takes on the Charts tab:
+// one chart a printed page (landscape A4), with a page break before each.
+const chartHeight = 26
 
 func (x *exporter) writeCharts() error {
 	var specs []chartSpec
@@ -159,12 +194,12 @@ func (x *exporter) writeCharts() error {
 	for i, s := range specs {
 		colRange := func(j int) string {
 			c, _ := excelize.ColumnNumberToName(j + 1)
-			return dataColumnRef(c, s.b.firstDataRow(), s.b.firstDataRow()+s.b.t.Rows()-1)
+			return dataColumnRef(s.b.tab, c, s.b.firstDataRow(), s.b.firstDataRow()+s.b.t.Rows()-1)
 		}
 		headerRef := func(j int) string {
 			c, _ := excelize.ColumnNumberToName(j + 1)
 			row := strconv.Itoa(s.b.firstDataRow() - 1)
-			return TabData + "!$" + c + "$" + row
+			return s.b.tab + "!$" + c + "$" + row
 		}
 		ch := &excelize.Chart{
 			Type: excelize.Scatter,
@@ -173,13 +208,20 @@ func (x *exporter) writeCharts() error {
 			// type is set.
 			Series: []excelize.ChartSeries{{Name: headerRef(s.yc), Categories: colRange(s.xc), Values: colRange(s.yc),
 				Marker: excelize.ChartMarker{Symbol: "none"}, Line: excelize.LineOptions{Type: excelize.LineSolid, Width: 1.5}}},
-			Title:     excelize.ChartTitle{Paragraph: []excelize.RichTextRun{{Text: s.title}}},
-			Legend:    excelize.ChartLegend{Position: "none"},
-			XAxis:     excelize.ChartAxis{MajorGridLines: true, Title: excelize.ChartTitle{Paragraph: []excelize.RichTextRun{{Text: s.xAxis}}}},
-			YAxis:     excelize.ChartAxis{MajorGridLines: true, Title: excelize.ChartTitle{Paragraph: []excelize.RichTextRun{{Text: s.yAx}}}},
-			Dimension: excelize.ChartDimension{Width: 760, Height: 400},
+			Title:  excelize.ChartTitle{Paragraph: []excelize.RichTextRun{{Text: s.title}}},
+			Legend: excelize.ChartLegend{Position: "none"},
+			XAxis: excelize.ChartAxis{MajorGridLines: true, Font: axisFont,
+				Title: excelize.ChartTitle{Paragraph: []excelize.RichTextRun{{Text: s.xAxis, Font: &axisTitleFont}}}},
+			YAxis: excelize.ChartAxis{MajorGridLines: true, Font: axisFont,
+				Title: excelize.ChartTitle{Paragraph: []excelize.RichTextRun{{Text: s.yAx, Font: &axisTitleFont}}}},
+			Dimension: excelize.ChartDimension{Width: 900, Height: 460},
 		}
 		cell, _ := excelize.CoordinatesToCellName(2, 2+i*chartHeight)
+		if i > 0 {
+			if err := x.f.InsertPageBreak(TabCharts, "A"+strconv.Itoa(1+i*chartHeight)); err != nil {
+				return err
+			}
+		}
 		if err := x.f.AddChart(TabCharts, cell, ch); err != nil {
 			return fmt.Errorf("chart %q: %w", s.title, err)
 		}

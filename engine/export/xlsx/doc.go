@@ -3,19 +3,27 @@
 //
 // # Layout
 //
-// The workbook has up to four tabs, in the order a reader needs them:
+// The workbook has up to six tabs, in the order a reader needs them:
 //
 //   - Summary: the header of the sheet (title, project, basis, author,
-//     checker, date, revision), every design check with its demand,
-//     capacity, utilisation and verdict, the caution, and a short guide to
-//     the colours.
-//   - Calculation: every cell in reading order under its section heading:
-//     name, description, the expression as written, the same expression
-//     with the values substituted (hand-calculation style), the value in
-//     its display unit, the unit, the reference and a note.
-//   - Data: every table (tables of the sheet, bar samples, N–ε curves) in
-//     display units under a unit-bearing header.
-//   - Charts: N(x), u(x) and σ(x) of every bar result, N(ε) of every curve.
+//     checker, date, revision; a placeholder is flagged), every design
+//     check with its demand, capacity, utilisation (as a percentage) and
+//     verdict, the caution, the record (the Sheaf version, the SHA-256 of
+//     the sheet and of each template, a sign-off block) and a short guide.
+//   - Calculation: every cell in reading order under its section heading,
+//     with the sheet's comments in their places: name, description, the
+//     expression as written, the same expression with the values
+//     substituted (hand-calculation style), the value in its display
+//     unit, the unit, the reference and a note.
+//   - Data: the tables of the sheet, in display units under a unit-bearing
+//     header; their entries are inputs unless they are locked (below).
+//   - Samples: the tables Sheaf computed (bar samples, N–ε curves).
+//   - Charts: N(x), u(x) and σ(x) of every bar result, N(ε) of every
+//     curve, one a printed page, titled by the sheet's description.
+//   - Run record: the inputs as Sheaf computed with them (see Guards).
+//
+// Every tab prints on A4 with the column headers of the Calculation tab
+// on each page; TestPrintedWorkbook checks the printed pages.
 //
 // # Live formulas
 //
@@ -27,12 +35,32 @@
 //
 //	sigma [MPa] = N_Ed / A_s   ->   ((N_Ed*1000)/(A_s*1E-06))/1000000
 //
-// Quantity literals become SI numbers, user functions are inlined, and
-// interp over table columns becomes an INDEX/MATCH interpolation over the
-// Data tab. What only Sheaf can compute (plugin functions, records built by
-// them, lists) is written as a value, styled grey and italic, with a note
-// saying why. Every formula cell also carries Sheaf's value, and the
-// workbook asks for a full recalculation on load.
+// Quantity literals become SI numbers, user functions are inlined, interp
+// over table columns becomes an INDEX/MATCH interpolation over the Data
+// tab, and a plugin function with a spreadsheet form in the registry
+// (funcs.Spreadsheet: euler_load, concrete_ecm, buckling_factor, the
+// fields of circle, chs, rect and rhs, …) becomes that form with its
+// arguments in place, divided by its validity condition so that it is an
+// error where the Go function is. What only Sheaf can compute (the other
+// plugin functions, records built by them, lists) is written as a value,
+// styled grey and italic. Every formula cell also carries Sheaf's value,
+// and the workbook asks for a full recalculation on load.
+//
+// # Guards
+//
+// A value only Sheaf computes cannot follow an edit, so the workbook never
+// lets it pass for current. For each such value it knows the inputs it
+// was computed from; the Run record tab keeps their values at the Sheaf
+// run and compares them with the input cells. Once one differs, the value
+// and every formula that reads it are marked out of date (their note reads
+// [NoteStale], by conditional formatting they turn amber), every check that
+// depends on one reads [VerdictRerun] instead of a verdict, the overall line
+// counts those checks, and a banner under the Summary's title names the
+// changed inputs. Tables that feed such values are locked. Verdict colours
+// are conditional formats, so a verdict that flips takes its colour with
+// it. TestRecomputeInAnotherSpreadsheet raises every input of every bundled
+// sheet in turn and checks, in another spreadsheet engine, that each value
+// is Sheaf's or marked out of date and each verdict Sheaf's or VerdictRerun.
 //
 // # Safety
 //

@@ -4,6 +4,8 @@ import (
 	"math"
 	"strings"
 	"testing"
+
+	"github.com/sheafcalc/sheaf/engine/units"
 )
 
 // TestNumFormat: the number format shows sig significant figures, fixed
@@ -53,5 +55,26 @@ func TestOneLine(t *testing.T) {
 		if got := oneLine(s); got != want {
 			t.Errorf("oneLine(%q) = %q, want %q", s, got, want)
 		}
+	}
+}
+
+// TestWithoutSIUnit: a field's description loses the SI unit it names
+// when the value beside it is shown in another unit.
+// Source: the field descriptions of funcs/section (types.go).
+func TestWithoutSIUnit(t *testing.T) {
+	mm2 := units.Unit{Factor: 1e-6, Symbol: "mm^2"}
+	for _, c := range []struct{ doc, want string }{
+		{"area, m²", "area"},
+		{"least radius of gyration √(I_2/A), m (governs flexural buckling)", "least radius of gyration √(I_2/A) (governs flexural buckling)"},
+		{"axial force [N]", "axial force"},
+		{"number of segments", "number of segments"},
+		{"a mass, kg", "a mass, kg"},
+	} {
+		if got := withoutSIUnit(c.doc, mm2); got != c.want {
+			t.Errorf("withoutSIUnit(%q) = %q, want %q", c.doc, got, c.want)
+		}
+	}
+	if got := withoutSIUnit("area, m²", units.Unit{Factor: 1}); got != "area, m²" {
+		t.Errorf("in SI the unit stays: %q", got)
 	}
 }

@@ -152,5 +152,5 @@ func (x *exporter) checkCalc(c *check.Cell, cr *checkRow) string {
 		sub = oneLine(c.Expr)
 	}
 	return sub + "; utilisation " + x.format(cr.demand, cr.unit) + " / " + x.format(cr.capacity, cr.unit) +
-		" = " + units.FormatNumber(cr.util, 3)
+		" = " + units.FormatNumber(cr.util*100, 3) + " %"
 }

@@ -34,9 +34,16 @@ func (x *exporter) finishTab(tab string, landscape bool) error {
 	if m.Revision != "" {
 		right = strings.TrimSpace(right + "  rev. " + m.Revision)
 	}
+	// The left and right parts share the width of the page: each gets
+	// under half of what fits at 9 points (portrait about 100 characters,
+	// landscape about 150), so they never print over each other.
+	half := 46
+	if landscape {
+		half = 70
+	}
 	hf := &excelize.HeaderFooterOptions{
-		OddHeader: "&L" + hfText(title, 110) + "&R" + hfText(right, 100),
-		OddFooter: "&L" + hfText(x.gen, 40) + "&C" + hfText(tab, 20) + "&Rpage &P of &N",
+		OddHeader: "&L&9" + hfText(title, half) + "&R&9" + hfText(right, half),
+		OddFooter: "&L&9" + hfText(x.gen, 40) + "&C&9" + hfText(tab, 20) + "&R&9page &P of &N",
 	}
 	if err := x.f.SetHeaderFooter(tab, hf); err != nil {
 		return err

@@ -168,7 +168,7 @@ func TestStyles(t *testing.T) {
 	for _, c := range []struct {
 		path, class string
 	}{{"L", "input"}, {"P", "input"}, {"steel.E", "input"}, {"stretch_hand", "formula"}, {"u_end", "formula"}, {"foot", "formula"},
-		{"res.u_end", "value"}, {"tube.A", "value"}} {
+		{"res.u_end", "value"}, {"tube.A", "formula"}} {
 		st := style(nameCell(t, f, c.path))
 		locked := st.Protection == nil || st.Protection.Locked
 		switch c.class {
@@ -187,12 +187,14 @@ func TestStyles(t *testing.T) {
 			if !locked || fill(st) != fillValueOnly || st.Font == nil || !st.Font.Italic {
 				t.Errorf("%s: want a locked grey italic value", c.path)
 			}
-			if note, _ := f.GetCellValue(TabCalc, "H"+nameCell(t, f, c.path)[1:]); !strings.HasPrefix(note, noteValueOnly) {
-				t.Errorf("%s: note %q", c.path, note)
+			// The note says why on the record's own row (res), once.
+			rec, _, _ := strings.Cut(c.path, ".")
+			if note, _ := f.GetCellValue(TabCalc, "H"+nameCell(t, f, rec)[1:]); !strings.HasPrefix(note, noteValueOnly) {
+				t.Errorf("%s: note %q", rec, note)
 			}
 		}
 	}
-	for _, tab := range []string{TabSummary, TabCalc, TabData} {
+	for _, tab := range []string{TabSummary, TabCalc, TabSamples, TabCharts, TabRun} {
 		if err := f.UnprotectSheet(tab); err != nil {
 			t.Errorf("%s is not protected: %v", tab, err)
 		}

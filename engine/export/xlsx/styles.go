@@ -26,6 +26,11 @@ const (
 	clsPass                   // verdict: passes
 	clsFail                   // verdict: fails or not assessed
 	clsCaution                // the caution paragraph
+	clsBanner                 // the out-of-date banner of the summary
+	clsVerdict                // a live verdict: coloured by conditional formatting
+	clsSign                   // a blank of the sign-off block: unlocked, underlined
+	clsMono                   // a checksum: monospaced
+	clsComment                // a comment of the sheet on the Calculation tab
 	clsCount                  // the number of classes
 )
 
@@ -35,7 +40,16 @@ const (
 	fillValueOnly = "EDEDED"
 	fillHeader    = "D9E2EC"
 	fontMarked    = "595959"
+	colPass       = "2E7D32"
+	colFail       = "C00000"
+	fillFail      = "FBE3E3"
+	colStale      = "7A4A00"
+	fillStale     = "FFD9A0"
 )
+
+// staleStyle marks a value that is out of date (conditional formatting).
+var staleStyle = excelize.Style{Font: &excelize.Font{Bold: true, Color: colStale},
+	Fill: excelize.Fill{Type: "pattern", Pattern: 1, Color: []string{fillStale}}}
 
 type styleKey struct {
 	cls class
@@ -103,6 +117,20 @@ func (s *styles) make(c class, numFmt string) int {
 		st.Font = &excelize.Font{Bold: true, Color: "2E7D32"}
 	case clsFail:
 		st.Font = &excelize.Font{Bold: true, Color: "C00000"}
+	case clsSign:
+		st.Border = []excelize.Border{{Type: "bottom", Color: "7F7F7F", Style: 1}}
+		locked = false
+	case clsMono:
+		st.Font = &excelize.Font{Family: "Consolas", Size: 9}
+	case clsComment:
+		// Monospaced, as written: hand checks in comments are aligned.
+		st.Font = &excelize.Font{Family: "Consolas", Size: 10, Color: "1F3864"}
+		st.Alignment.WrapText = true
+	case clsVerdict:
+		st.Font = &excelize.Font{Bold: true}
+	case clsBanner:
+		st.Font = &excelize.Font{Bold: true, Color: "C00000"}
+		st.Alignment.WrapText = true
 	}
 	if c == clsCaution {
 		st.Font = &excelize.Font{Italic: true}
@@ -157,3 +185,7 @@ func decimalFormats(n int, suffix string) []string {
 	}
 	return out
 }
+
+// generalFormat shows a number as typed, at the precision it is written
+// with ("1.2", "0.9775"), and never hides a digit a client types.
+const generalFormat = "General"

@@ -84,7 +84,7 @@ func TestCharts(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	data := tabText(t, f, TabData)
+	data := tabText(t, f, TabSamples)
 	for _, want := range []string{"res.samples: N, σ, u along the bar for plots", "x [mm] | N [kN] | sigma [MPa] | u [mm]", "curve: N against strain", "eps | N [kN]"} {
 		if !strings.Contains(data, want) {
 			t.Errorf("Data tab lacks %q:\n%s", want, data)
@@ -117,15 +117,17 @@ func TestCharts(t *testing.T) {
 			t.Errorf("chart %d draws its series without a line", i+1)
 		}
 		for _, m := range regexp.MustCompile(`<tx><strRef><f>([^<]*)</f>`).FindAllStringSubmatch(c, -1) {
-			if !regexp.MustCompile(`^Data!\$[A-Z]+\$[0-9]+$`).MatchString(m[1]) {
+			if !regexp.MustCompile(`^Samples!\$[A-Z]+\$[0-9]+$`).MatchString(m[1]) {
 				t.Errorf("chart %d names its series %q, not a cell reference", i+1, m[1])
 			}
 		}
 	}
 	all := strings.Join(charts, "\n")
 	for _, want := range []string{
-		"res.samples: N(x)", "res.samples: u(x)", "res.samples: σ(x)", "curve: N(ε)",
-		"Data!$A$", "Data!$B$", "Data!$C$", "Data!$D$", "position x [mm]", "strain ε",
+		// Titles in the sheet's words: the description of the result.
+		"N(x), axial force N along the bar: fixed at the top, loaded at the foot", "u(x), displacement u along the bar: fixed at the top",
+		"σ(x), axial stress σ along the bar: fixed", "N(ε), axial force against uniform strain: N against strain",
+		"Samples!$A$", "Samples!$B$", "Samples!$C$", "Samples!$D$", "position x [mm]", "strain ε",
 	} {
 		if !strings.Contains(all, want) {
 			t.Errorf("charts lack %q", want)
@@ -134,7 +136,7 @@ func TestCharts(t *testing.T) {
 	// The plotted numbers are Sheaf's samples in display units: the last
 	// u is the displacement of the foot.
 	// Source: δ = P·L/(E·A) = 25 kN · 3 m / (200 GPa · 400 mm²) = 0.9375 mm (closed form).
-	rows, _ := f.GetRows(TabData)
+	rows, _ := f.GetRows(TabSamples)
 	var last []string
 	for _, row := range rows[2:] {
 		if len(row) == 0 {

@@ -131,6 +131,10 @@ func (t *translator) expr(n *check.Node) (term, error) {
 		if n.Type.Kind != funcs.Number && n.Type.Kind != funcs.Bool {
 			return term{}, fail("its value is a " + n.Type.Kind.String())
 		}
+		if n.Op == check.OpField && n.Args[0].Op == check.OpPlugin {
+			// A field of a call written in place: circle(d).A.
+			return t.pluginField(n.Args[0], n.Args[0].Type.Fields[n.Index].Name)
+		}
 		return t.value(n)
 	case check.OpParam:
 		if len(t.args) == 0 || int(n.Index) >= len(t.args[len(t.args)-1]) {
@@ -190,11 +194,99 @@ func (t *translator) expr(n *check.Node) (term, error) {
 	case check.OpUser:
 		return t.user(n)
 	case check.OpPlugin:
+		if f := n.Def().Spreadsheet; f != nil && f.Formula != "" {
+			return t.plugin(n, f.Formula)
+		}
 		return term{}, fail("uses `"+n.Def().Name+"`", ", which only Sheaf computes")
 	case check.OpIndex:
 		return term{}, fail("picks an element of a list")
 	}
 	return term{}, fail("its value is a " + n.Type.Kind.String())
+}
+
+// plugin translates a call of a plugin by its spreadsheet form (the
+// registry's Spreadsheet) with the call's arguments in place.
+func (t *translator) plugin(n *check.Node, form string) (term, error) {
+	d := n.Def()
+	s, err := spreadsheetFormula(d, form, func(p funcs.Placeholder) (string, error) {
+		if p.Param >= len(n.Args) || n.Args[p.Param] == nil {
+			if p.Default == "" {
+				return "", fail("calls `" + d.Name + "` without an argument its spreadsheet form needs")
+			}
+			return p.Default, nil
+		}
+		a := n.Args[p.Param]
+		if p.Column != "" {
+			path := t.path(a)
+			r, ok := t.refs[path+"."+p.Column]
+			if path == "" || !ok || r.rows == 0 {
+				return "", fail("passes `"+d.Name+"` a table that is not on the Data tab", "")
+			}
+			if r.factor != 1 {
+				return "", fail("passes `" + d.Name + "` a table column that is not shown in SI units")
+			}
+			if p.Increasing {
+				return increasing(r.name, r.rows), nil
+			}
+			return r.name, nil
+		}
+		x, err := t.expr(a)
+		if err != nil {
+			return "", err
+		}
+		return x.s, nil
+	})
+	if err != nil {
+		return term{}, err
+	}
+	return term{s: s, atom: true}, nil
+}
+
+// spreadsheetFormula expands a spreadsheet form of d (its Formula or a
+// field's) with arg, divided by the form's validity condition so that
+// the formula is an error where the call is one; bracketed.
+func spreadsheetFormula(d *funcs.Def, form string, arg func(funcs.Placeholder) (string, error)) (string, error) {
+	s, err := d.ExpandSpreadsheet(form, arg)
+	if err != nil {
+		return "", err
+	}
+	if v := d.Spreadsheet.Valid; v != "" {
+		cond, err := d.ExpandSpreadsheet(v, arg)
+		if err != nil {
+			return "", err
+		}
+		s = "(" + s + ")/IF(" + cond + ",1,0)"
+	}
+	return "(" + s + ")", nil
+}
+
+// increasing is the condition that the column range rng of n rows
+// increases strictly: each entry above the one before it. (A comparison
+// of two ranges in SUMPRODUCT would be shorter, but not every calculator
+// takes arrays there.)
+func increasing(rng string, n int) string {
+	if n < 2 {
+		return "TRUE"
+	}
+	parts := make([]string, n-1)
+	for i := range parts {
+		parts[i] = "INDEX(" + rng + "," + strconv.Itoa(i+2) + ")>INDEX(" + rng + "," + strconv.Itoa(i+1) + ")"
+	}
+	return "AND(" + strings.Join(parts, ",") + ")"
+}
+
+// pluginField translates the field of a plugin call's record result by
+// the field's spreadsheet form, when the registry gives one.
+func (t *translator) pluginField(call *check.Node, field string) (term, error) {
+	d := call.Def()
+	if d == nil || d.Spreadsheet == nil || d.Spreadsheet.Fields[field] == "" {
+		name := "a plugin"
+		if d != nil {
+			name = "`" + d.Name + "`"
+		}
+		return term{}, fail("uses the field "+field+" of "+name, ", which only Sheaf computes")
+	}
+	return t.plugin(call, d.Spreadsheet.Fields[field])
 }
 
 func (t *translator) all(ns []*check.Node) ([]term, error) {
@@ -405,7 +497,10 @@ func (t *translator) cellFormula(body *check.Node, f float64) (string, error) {
 }
 
 // checkFormula returns the utilisation formula of a check: demand over
-// capacity, both in SI.
+// capacity, both in SI. As in Sheaf, a check is assessed only for a
+// positive capacity and a demand of its sense (not negative): otherwise the
+// formula is an error, which the verdict shows as "not assessed", so a
+// demand that changes sign after an edit can never read "passes".
 func (t *translator) checkFormula(c *check.Cell) (string, error) {
 	d, err := t.expr(c.Demand)
 	if err != nil {
@@ -415,7 +510,7 @@ func (t *translator) checkFormula(c *check.Cell) (string, error) {
 	if err != nil {
 		return "", err
 	}
-	s := d.operand() + "/" + k.operand()
+	s := "IF(AND(" + k.operand() + ">0," + d.operand() + ">=0)," + d.operand() + "/" + k.operand() + ",NA())"
 	if len(s) > maxFormulaLen {
 		return "", fail("its formula would be longer than a spreadsheet allows")
 	}

@@ -2,6 +2,7 @@ package xlsxout
 
 import (
 	"fmt"
+	"regexp"
 	"slices"
 	"strconv"
 	"strings"
@@ -20,6 +21,7 @@ const (
 	TabSummary = "Summary"
 	TabCalc    = "Calculation"
 	TabData    = "Data"
+	TabSamples = "Samples"
 	TabCharts  = "Charts"
 )
 
@@ -72,11 +74,37 @@ type exporter struct {
 	opaque   []bool
 	reads    [][]string
 	stats    Stats
+	// templates holds the syntax trees of templates whose tables are
+	// exported (see tableColumns).
+	templates map[string]*sheet.File
+	// liveField marks the fields of records made by a plugin call that the
+	// workbook computes by the plugin's spreadsheet form (tube.A).
+	liveField   map[string]bool
+	staleFields [][]int32 // by record cell: the inputs that make its live fields out of date
+	// Guards (see guard.go): the editable inputs, those of each input
+	// cell, for each cell the inputs that make it out of date, the tables
+	// to lock, the inputs that guard something, the flag of any change.
+	keys      []guardKey
+	inputKeys [][]int32
+	stale     [][]int32
+	lockTable []bool
+	usedKeys  []int
+	anyFlag   string
+	anyRow    int
 }
 
 // Build makes the workbook of sheet s with results r (from s.NewState()
 // after any overrides, then Eval).
 func Build(s *engine.Sheet, r *engine.Results, opt Options) (*excelize.File, Stats, error) {
+	x, err := export(s, r, opt)
+	if err != nil {
+		return nil, x.stats, err
+	}
+	return x.f, x.stats, nil
+}
+
+// export builds the workbook and returns the exporter with its layout.
+func export(s *engine.Sheet, r *engine.Results, opt Options) (*exporter, error) {
 	n := len(r.Cells)
 	x := &exporter{s: s, r: r, sig: opt.SigFigs, gen: opt.Generator, names: newNamer(n), values: make(map[string]valueAt, n)}
 	if x.sig <= 0 {
@@ -89,17 +117,17 @@ func Build(s *engine.Sheet, r *engine.Results, opt Options) (*excelize.File, Sta
 	x.st = &styles{f: x.f, cache: map[styleKey]int{}}
 	x.tr = &translator{refs: make(map[string]ref, n), cells: s.Cells()}
 	x.layout()
-	for _, step := range []func() error{x.writeSummary, x.writeCalc, x.writeData, x.writeCharts, x.finishTabs, x.workbookProps} {
+	for _, step := range []func() error{x.writeSummary, x.writeCalc, x.writeData, x.writeCharts, x.writeRun, x.finishTabs, x.workbookProps} {
 		if err := step(); err != nil {
 			_ = x.f.Close()
-			return nil, x.stats, err
+			return x, err
 		}
 	}
 	if x.st.err != nil {
 		_ = x.f.Close()
-		return nil, x.stats, x.st.err
+		return x, x.st.err
 	}
-	return x.f, x.stats, nil
+	return x, nil
 }
 
 // finishing is a tab waiting for its print setup and protection.
@@ -124,6 +152,7 @@ const (
 	rowHeading rowKind = iota
 	rowCell
 	rowField
+	rowComment // a comment of the sheet, in its place
 )
 
 // calcRow is one row of the Calculation tab.
@@ -133,13 +162,18 @@ type calcRow struct {
 	title string // heading text
 	cr    *engine.CellResult
 	// rowField: the record cell, the field path and value.
-	path   string
-	expr   string
-	val    funcs.Value
-	unit   units.Unit
-	input  bool
-	formul *check.Node // the field's own expression, when written in a record literal
-	desc   string
+	path     string
+	expr     string
+	val      funcs.Value
+	unit     units.Unit
+	input    bool
+	listUnit units.Unit  // rowField of a list of numbers: the unit its elements are shown in
+	formul   *check.Node // the field's own expression, when written in a record literal
+	desc     string
+	cell     int // rowField: the index of the record cell
+	// rowField: the plugin call that made the record, when the field has
+	// a spreadsheet form (see translator.pluginField).
+	plugin *check.Node
 }
 
 // checkRow is a design check as the summary shows it.
@@ -157,8 +191,14 @@ type tableBlock struct {
 	desc  string
 	t     *funcs.TableValue
 	units []units.Unit
-	input bool // a table of the sheet: its entries are editable
-	row   int  // first row (the title)
+	input bool   // a table of the sheet: its entries are editable
+	cell  int    // the index of the table cell; -1 for a table inside a value
+	owner string // the description of the cell the table belongs to
+	tab   string // TabData or TabSamples
+	// written: the number format of each column of a table of the
+	// sheet, which shows its entries as written (generalFormat).
+	written []string
+	row     int // first row (the title)
 }
 
 // firstDataRow is the Data row of a block's first entry.
@@ -190,10 +230,18 @@ func (x *exporter) layout() {
 		}
 	}
 	section = ""
-	x.rows = make([]calcRow, 0, len(x.r.Cells)+headings) // record fields may add more
+	comments := x.commentBlocks()
+	x.rows = make([]calcRow, 0, len(x.r.Cells)+headings+len(comments)) // record fields may add more
 	for i := range x.r.Cells {
 		cr := &x.r.Cells[i]
 		c := cr.Cell
+		if c.Range.Start.File == x.s.Name() {
+			for len(comments) > 0 && comments[0].off < c.Range.Start.Offset {
+				x.rows = append(x.rows, calcRow{kind: rowComment, row: row, title: comments[0].text})
+				row++
+				comments = comments[1:]
+			}
+		}
 		if c.Section != section {
 			section = c.Section
 			if section != "" {
@@ -220,6 +268,7 @@ func (x *exporter) layout() {
 			x.checks = append(x.checks, x.checkOf(c, valueRow))
 		}
 		x.tr.refs[c.Name] = r
+		x.inputKeyOf(i)
 		if cr.Known {
 			if v, ok := cr.Value.(float64); ok {
 				x.values[c.Name] = valueAt{v, units.Unit{Factor: r.factor, Symbol: cr.Unit.Symbol}}
@@ -229,22 +278,32 @@ func (x *exporter) layout() {
 		case *funcs.RecordValue:
 			row = x.layoutRecord(c, c.Name, v, c.Kind == engine.Input, c.Body, row)
 		case *funcs.TableValue:
-			x.addTable(c.Name, c.Description, v, x.tableUnits(c, v), c.Kind == engine.Table && len(c.Entries) == 0)
+			x.addTable(c.Name, c.Description, v, x.tableUnits(c, v), c.Kind == engine.Table && len(c.Entries) == 0, i).setOwner(c.Description)
 		}
 	}
-	// The Data tab follows the order the tables were met.
-	drow := 1
+	for _, b := range comments {
+		x.rows = append(x.rows, calcRow{kind: rowComment, row: row, title: b.text})
+		row++
+	}
+	// The tables of the sheet go on the Data tab, the tables Sheaf
+	// computed (bar samples, curves) on the Samples tab, each in the order
+	// met.
+	drow := map[string]int{TabData: 1, TabSamples: 1}
 	for _, b := range x.tables {
-		b.row = drow
+		b.tab = TabSamples
+		if b.input {
+			b.tab = TabData
+		}
+		b.row = drow[b.tab]
 		n := b.t.Rows()
 		for j, fld := range b.t.Type.Fields {
 			col, _ := excelize.ColumnNumberToName(j + 1)
-			rng := dataColumnRef(col, b.firstDataRow(), b.firstDataRow()+max(n, 1)-1)
+			rng := dataColumnRef(b.tab, col, b.firstDataRow(), b.firstDataRow()+max(n, 1)-1)
 			p := b.path + "." + fld.Name
 			x.tr.refs[p] = ref{name: x.pathName(p), factor: b.units[j].Factor, rows: n}
 			x.dataRanges = append(x.dataRanges, namedRange{x.tr.refs[p].name, rng})
 		}
-		drow += n + 3
+		drow[b.tab] += n + 3
 	}
 	x.markOpaque()
 }
@@ -297,18 +356,18 @@ func (x *exporter) markOpaque() {
 			continue
 		}
 		var reads []string
-		for _, d := range c.DepIdx {
-			if d < 0 || d >= n {
-				continue
-			}
-			if x.opaque[d] {
+		x.walkRefs(func(d int, live bool) {
+			if x.opaque[d] && !live {
 				reads = append(reads, p.Cells[d].Name)
 			}
-			reads = append(reads, x.reads[d]...)
-		}
+			if !live {
+				reads = append(reads, x.reads[d]...)
+			}
+		}, c.Body, c.Demand, c.Capacity)
 		slices.Sort(reads)
 		x.reads[i] = slices.Compact(reads)
 	}
+	x.guardStale()
 }
 
 // calcValueRef is the absolute reference of the value cell in row on the
@@ -319,8 +378,8 @@ func calcValueRef(row int) string {
 
 // dataColumnRef is the absolute reference of rows first to last of column
 // col on the Data tab: Data!$B$4:$B$20.
-func dataColumnRef(col string, first, last int) string {
-	return TabData + "!$" + col + "$" + strconv.Itoa(first) + ":$" + col + "$" + strconv.Itoa(last)
+func dataColumnRef(tab, col string, first, last int) string {
+	return tab + "!$" + col + "$" + strconv.Itoa(first) + ":$" + col + "$" + strconv.Itoa(last)
 }
 
 // namedRange is a defined name of a column range on the Data tab.
@@ -341,19 +400,42 @@ func (x *exporter) layoutRecord(c *check.Cell, path string, v *funcs.RecordValue
 		if lit != nil && lit.Op == check.OpRecord && i < len(lit.Args) && lit.Type != nil && i < len(lit.Type.Fields) && lit.Type.Fields[i].Name == fld.Name {
 			arg = lit.Args[i]
 		}
-		fr := calcRow{kind: rowField, row: row, path: p, val: v.Fields[i], input: input, formul: arg, desc: fld.Doc}
+		fr := calcRow{kind: rowField, row: row, path: p, val: v.Fields[i], input: input, formul: arg, desc: fld.Doc, cell: c.Index}
+		if fld.Type != nil && fld.Type.Kind == funcs.List && fld.Type.Elem != nil {
+			fr.listUnit = x.preferred(fld.Type.Elem.Dim)
+		}
+		if path == c.Name && lit != nil && lit.Op == check.OpPlugin {
+			if f := lit.Def().Spreadsheet; f != nil && f.Fields[fld.Name] != "" {
+				fr.plugin = lit
+				if x.liveField == nil {
+					x.liveField = map[string]bool{}
+				}
+				x.liveField[p] = true
+			}
+		}
 		if arg != nil {
 			fr.expr = x.exprText(c, arg)
 		}
 		switch fv := v.Fields[i].(type) {
 		case float64:
 			fr.unit = x.fieldUnit(c, arg, fld.Type)
+			fr.desc = withoutSIUnit(fld.Doc, fr.unit)
 			x.tr.refs[p] = ref{name: x.pathName(p), factor: fr.unit.Factor}
 			x.values[p] = valueAt{fv, fr.unit}
+			if input && arg != nil {
+				u := fr.unit.Pretty()
+				if u == "1" {
+					u = ""
+				}
+				x.addKey(c.Index, p, fv/fr.unit.Factor, u)
+			}
 			x.rows = append(x.rows, fr)
 			row++
 		case bool:
 			x.tr.refs[p] = ref{name: x.pathName(p), factor: 1, bool: true}
+			if input && arg != nil {
+				x.addKey(c.Index, p, fv, "")
+			}
 			x.rows = append(x.rows, fr)
 			row++
 		case *funcs.RecordValue:
@@ -362,7 +444,7 @@ func (x *exporter) layoutRecord(c *check.Cell, path string, v *funcs.RecordValue
 		case *funcs.TableValue:
 			x.rows = append(x.rows, fr)
 			row++
-			x.addTable(p, fld.Doc, fv, x.tableUnits(nil, fv), false)
+			x.addTable(p, fld.Doc, fv, x.tableUnits(nil, fv), false, -1).setOwner(c.Description)
 		default:
 			x.rows = append(x.rows, fr)
 			row++
@@ -418,11 +500,7 @@ func (x *exporter) tableUnits(c *check.Cell, t *funcs.TableValue) []units.Unit {
 	out := make([]units.Unit, len(t.Type.Fields))
 	var cols []sheet.Column
 	if c != nil && c.Kind == engine.Table {
-		for _, it := range x.s.File().Items {
-			if tb, ok := it.(*sheet.Table); ok && tb.Name.Name == c.Name {
-				cols = tb.Columns
-			}
-		}
+		cols = x.tableColumns(c)
 	}
 	for i, f := range t.Type.Fields {
 		out[i] = x.preferred(f.Type.Dim)
@@ -437,12 +515,80 @@ func (x *exporter) tableUnits(c *check.Cell, t *funcs.TableValue) []units.Unit {
 	return out
 }
 
-func (x *exporter) addTable(path, desc string, t *funcs.TableValue, us []units.Unit, input bool) {
-	if t == nil || t.Type == nil {
-		return
+// tableColumns returns the header of the table item that wrote cell c, in
+// the file it was written in: the sheet, or the template a `use` inlined
+// it from (there its name is the template's own, without the scope).
+//
+// The checked program does not keep the syntax trees of its files, and
+// Sheet.File gives the sheet's own only, so a template's header is read
+// by parsing the template's text again, once per file and only when one
+// of its tables is exported. This is a stopgap until the checked program
+// carries the written unit of each table column (issue 9); before it, a
+// template's table was shown in the preferred unit under a header the
+// template does not have (lengths written in cm shown in mm).
+func (x *exporter) tableColumns(c *check.Cell) []sheet.Column {
+	if tb := x.tableItem(c); tb != nil {
+		return tb.Columns
 	}
-	x.tables = append(x.tables, &tableBlock{path: path, desc: desc, t: t, units: us, input: input})
+	return nil
+}
+
+// tableItem is the table item that wrote table cell c (see tableColumns).
+func (x *exporter) tableItem(c *check.Cell) *sheet.Table {
+	name := strings.TrimPrefix(c.Name, c.Scope)
+	var file *sheet.File
+	if c.Pos.File == x.s.Name() {
+		file = x.s.File()
+	} else {
+		if x.templates == nil {
+			x.templates = map[string]*sheet.File{}
+		}
+		f, done := x.templates[c.Pos.File]
+		if !done {
+			for _, pf := range x.s.Program().Files {
+				if pf != nil && pf.Name == c.Pos.File {
+					f, _ = sheet.Parse(pf.Name, pf.Src)
+					break
+				}
+			}
+			x.templates[c.Pos.File] = f
+		}
+		file = f
+	}
+	if file == nil {
+		return nil
+	}
+	for _, it := range file.Items {
+		if tb, ok := it.(*sheet.Table); ok && tb.Name.Name == name {
+			return tb
+		}
+	}
+	return nil
+}
+
+// setOwner records the description of the cell a table belongs to (a nil
+// block, a table not exported, takes none).
+func (b *tableBlock) setOwner(desc string) {
+	if b != nil {
+		b.owner = desc
+	}
+}
+
+// addTable adds a table to the Data tab; nil when it has no type.
+func (x *exporter) addTable(path, desc string, t *funcs.TableValue, us []units.Unit, input bool, cell int) *tableBlock {
+	if t == nil || t.Type == nil {
+		return nil
+	}
+	b := &tableBlock{path: path, desc: desc, t: t, units: us, input: input, cell: cell}
+	if input {
+		b.written = make([]string, len(t.Type.Fields))
+		for j := range b.written {
+			b.written[j] = generalFormat
+		}
+	}
+	x.tables = append(x.tables, b)
 	x.stats.Tables++
+	return b
 }
 
 func (x *exporter) checkOf(c *check.Cell, row int) *checkRow {
@@ -480,6 +626,7 @@ func (x *exporter) workbookProps() error {
 		}
 		names = append(names, excelize.DefinedName{Name: rf.name, RefersTo: calcValueRef(r.row), Comment: p})
 	}
+	names = append(names, x.guardNames()...)
 	for _, nr := range x.dataRanges {
 		names = append(names, excelize.DefinedName{Name: nr.name, RefersTo: nr.rng})
 	}
@@ -489,6 +636,10 @@ func (x *exporter) workbookProps() error {
 		}
 		return fmt.Errorf("defined name %s: %w", names[i].Name, err)
 	}
+	// The column headers of the Calculation tab print on every page.
+	if err := x.f.SetDefinedName(&excelize.DefinedName{Name: "_xlnm.Print_Titles", RefersTo: TabCalc + "!$2:$2", Scope: TabCalc}); err != nil {
+		return err
+	}
 	full := true
 	if err := x.f.SetCalcProps(&excelize.CalcPropsOptions{FullCalcOnLoad: &full}); err != nil {
 		return err
@@ -496,4 +647,23 @@ func (x *exporter) workbookProps() error {
 	m := x.s.Meta()
 	return x.f.SetDocProps(&excelize.DocProperties{Title: m.Title, Subject: m.Project, Creator: m.Author, Revision: m.Revision,
 		Description: "Calculation sheet " + x.s.Name() + ", exported by " + x.gen})
+}
+
+// siSuffix matches the SI unit a field's description ends with
+// ("area, m²", "force [N]").
+var siSuffix = regexp.MustCompile(`(,\s*|\s*\[)(m|m²|m³|m⁴|Pa|N|N/m|N·m|K|1/K|kg/m³|rad)\]?($|\s*\()`)
+
+// withoutSIUnit drops the SI unit from the end of a field's description
+// when the field is shown in another unit (the Unit column says which):
+// "area, m²" beside a value in mm² would be misread.
+func withoutSIUnit(doc string, u units.Unit) string {
+	if u.Factor == 1 {
+		return doc
+	}
+	return strings.TrimSpace(siSuffix.ReplaceAllStringFunc(doc, func(m string) string {
+		if strings.HasSuffix(m, "(") {
+			return " ("
+		}
+		return ""
+	}))
 }
