@@ -488,3 +488,22 @@ func (st *State) Governing(c *Cell) string {
 	}
 	return ""
 }
+
+// CellCombination returns the name of the combination whose value cell c
+// shows after the last Recompute: for a check, its governing combination;
+// for a cell that depends on actions, the combination named beside it in
+// the listing. It is "" for an action (its characteristic value), for a
+// cell that does not depend on actions and for a sheet without actions.
+func (st *State) CellCombination(c *Cell) string {
+	cs, cm := st.sheet.combos, st.cmb
+	if cs == nil || cm == nil || cm.view == nil || c == nil || c.Index >= len(cm.cellIn) || st.sheet.prog.Cells[c.Index] != c {
+		return ""
+	}
+	if c.Kind == Check {
+		return st.Governing(c)
+	}
+	if c.Action != nil || cm.cellIn[c.Index] < 0 {
+		return ""
+	}
+	return cs.All[cm.cellIn[c.Index]].Name
+}

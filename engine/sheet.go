@@ -88,8 +88,23 @@ func Compile(name string, src []byte, opts ...Option) (*Sheet, error) {
 		errs.Sort()
 		return nil, errs
 	}
-	opt := cfg.checkOptions()
-	prog, cerrs := check.Sheet(f, opt)
+	return compileFile(f, cfg)
+}
+
+// CompileFile checks and compiles a sheet its caller has parsed already
+// (sheet.Parse with the same limits), and keeps f as the sheet's File. A
+// language server parses every edit of a document once for its outline,
+// completion and formatting, even when the edit breaks the sheet;
+// CompileFile lets it check the same tree instead of parsing the text a
+// second time. f must not be changed afterwards. Sheet errors come back as
+// a diag.List, sorted, one per line, f's syntax problems among them.
+func CompileFile(f *sheet.File, opts ...Option) (*Sheet, error) {
+	return compileFile(f, newConfig(opts))
+}
+
+func compileFile(f *sheet.File, cfg config) (*Sheet, error) {
+	errs := append(diag.List(nil), f.Syntax...)
+	prog, cerrs := check.Sheet(f, cfg.checkOptions())
 	errs = append(errs, cerrs...)
 	var combos *Combos
 	if !errs.HasErrors() {
@@ -101,7 +116,7 @@ func Compile(name string, src []byte, opts ...Option) (*Sheet, error) {
 	if errs.HasErrors() {
 		return nil, errs
 	}
-	s := &Sheet{name: name, src: src, prog: prog, mach: eval.Compile(prog), combos: combos, sigFigs: cfg.sigFigs, cfg: cfg}
+	s := &Sheet{name: f.Name, src: f.Src, prog: prog, mach: eval.Compile(prog), combos: combos, sigFigs: cfg.sigFigs, cfg: cfg}
 	s.system = prog.Meta.System
 	if cfg.hasSystem && cfg.system != units.Neutral {
 		s.system = cfg.system
@@ -109,7 +124,8 @@ func Compile(name string, src []byte, opts ...Option) (*Sheet, error) {
 	return s, nil
 }
 
-// tooLarge is the diagnostic of a source over the size limit.
+// tooLarge is the error of a sheet over the size limit, found before it
+// is read or parsed.
 func tooLarge(name string, size int64, limit int) diag.List {
 	return diag.List{{Range: diag.Range{Start: diag.Pos{File: name}},
 		Summary: fmt.Sprintf("sheet is too large: %d bytes, the limit is %d", size, limit),

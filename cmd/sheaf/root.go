@@ -294,6 +294,7 @@ combinations come from the local code and licensed practice.`,
 		newFmtCmd(a),
 		newWatchCmd(a),
 		newNewCmd(a),
+		newLspCmd(a),
 	)
 	// cobra adds help and completion when it runs; adding them now gives
 	// them the exit table too.

@@ -24,6 +24,13 @@ type Machine struct {
 	// plan is p.Order with what the first, full evaluation needs of each
 	// cell, read in one pass over contiguous memory.
 	plan []step
+	// fast[i] is the Number body of cell i when the cell has no other path
+	// (as in plan), else nil; deps[depAt[i]:depAt[i+1]] are its
+	// dependencies. An incremental Eval runs such a cell from these alone,
+	// without reaching for the cell itself.
+	fast  []numFn
+	deps  []int32
+	depAt []int32
 	// needVal is set when some cell keeps its value in Frame.Val; else a
 	// state leaves Val nil.
 	needVal  bool
@@ -79,6 +86,17 @@ func Compile(p *check.Program) *Machine {
 			}
 			m.plan[k].fn = m.num[i]
 		}
+	}
+	m.fast = make([]numFn, len(p.Cells))
+	for _, st := range m.plan {
+		m.fast[st.i] = st.fn
+	}
+	m.depAt = make([]int32, len(p.Cells)+1)
+	for i, c := range p.Cells {
+		for _, j := range c.DepIdx {
+			m.deps = append(m.deps, int32(j))
+		}
+		m.depAt[i+1] = int32(len(m.deps))
 	}
 	return m
 }

@@ -178,8 +178,17 @@ func (s *State) Eval() []int {
 			break
 		}
 	}
+	m, f := s.M, &s.F
 	for _, i := range s.last {
-		s.run(i)
+		if fn := m.fast[i]; fn != nil && !s.over[i] && s.depsKnown(i) {
+			f.Fail, f.Args = nil, nil
+			if v := fn(f); f.Fail == nil && v-v == 0 { // v-v is NaN for NaN and ±Inf
+				s.setProblem(i, nil)
+				f.Num[i], s.Known[i] = v, true
+				continue
+			}
+		}
+		s.run(i) // the general path, which also reports a failure
 	}
 	return s.last
 }
@@ -375,4 +384,15 @@ func (s *State) ownOverrides() {
 	if !s.ownOver {
 		s.over, s.ownOver = slices.Clone(s.over), true
 	}
+}
+
+// depsKnown reports whether every dependency of cell i has a value.
+func (s *State) depsKnown(i int) bool {
+	m := s.M
+	for _, j := range m.deps[m.depAt[i]:m.depAt[i+1]] {
+		if !s.Known[j] {
+			return false
+		}
+	}
+	return true
 }
