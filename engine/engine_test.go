@@ -330,3 +330,32 @@ func TestTableEntriesFromCells(t *testing.T) {
 		}
 	}
 }
+
+// TestRangeCheck: a check between two limits is two checks, one per limit,
+// each demand over capacity; written either way round.
+func TestRangeCheck(t *testing.T) {
+	src := "r = 0.45\ncheck spacing: 0.2 <= r <= 0.9\ncheck down: 1 >= r >= 0.5\n"
+	res := compile(t, src).Run(nil)
+	// Source: utilisation = demand / capacity (common practice); a lower
+	// limit lo reads lo / x, an upper limit hi reads x / hi.
+	want := map[string]struct {
+		util float64
+		pass bool
+	}{
+		"spacing_min": {0.2 / 0.45, true}, "spacing_max": {0.45 / 0.9, true},
+		"down_min": {0.5 / 0.45, false}, "down_max": {0.45 / 1, true},
+	}
+	if len(res.Checks) != len(want) {
+		t.Fatalf("%d checks, want %d", len(res.Checks), len(want))
+	}
+	for _, ch := range res.Checks {
+		w, ok := want[ch.Cell.Name]
+		if !ok {
+			t.Errorf("unexpected check %s", ch.Cell.Name)
+			continue
+		}
+		if !near(ch.Util, w.util, 1e-12) || ch.Pass != w.pass {
+			t.Errorf("%s: utilisation %g pass %v, want %g %v", ch.Cell.Name, ch.Util, ch.Pass, w.util, w.pass)
+		}
+	}
+}

@@ -158,29 +158,73 @@ func (c *checker) collectFile(f *sheet.File, scope string, depth int) {
 		default:
 			continue
 		}
-		cell.Section = section
-		cell.Pos = cell.NameRange.Start
-		if IsReserved(cell.Name) {
-			c.errs.Errorf(cell.NameRange, "built-in names, constants and keywords cannot be redefined", "choose another name, e.g. `"+cell.Name+"_1`", "`%s` is a reserved name", cell.Name)
+		cells := []*Cell{cell}
+		if ck, ok := it.(*sheet.Check); ok {
+			if lo, hi := rangeCheck(ck, cell); lo != nil {
+				cells = []*Cell{lo, hi}
+			}
 		}
-		if scope != "" {
-			cell.Name, cell.Scope = scope+cell.Name, scope
+		for _, cell := range cells {
+			c.addCell(cell, section, scope)
 		}
-		if c.use.isAlias(cell.Name) {
-			c.errs.Errorf(cell.NameRange, "`"+cell.Name+"` names a template use at "+c.use.aliasPos(cell.Name).String()+"; each name names one thing",
-				"rename one of them", "`%s` is defined twice", cell.Name)
-			continue
-		}
-		if j, dup := p.ByName[cell.Name]; dup {
-			first := p.Cells[j]
-			c.errs.Errorf(cell.NameRange, "`"+cell.Name+"` is first defined at "+first.Pos.String()+"; each name names one cell",
-				"rename one of them", "`%s` is defined twice", cell.Name)
-			continue
-		}
-		cell.Index = len(p.Cells)
-		p.ByName[cell.Name] = cell.Index
-		p.Cells = append(p.Cells, cell)
 	}
+}
+
+// addCell registers cell, read in section of the file inlined under scope,
+// and reports a reserved or a duplicate name.
+func (c *checker) addCell(cell *Cell, section, scope string) {
+	p := c.prog
+	cell.Section = section
+	cell.Pos = cell.NameRange.Start
+	if IsReserved(cell.Name) {
+		c.errs.Errorf(cell.NameRange, "built-in names, constants and keywords cannot be redefined", "choose another name, e.g. `"+cell.Name+"_1`", "`%s` is a reserved name", cell.Name)
+	}
+	if scope != "" {
+		cell.Name, cell.Scope = scope+cell.Name, scope
+	}
+	if c.use.isAlias(cell.Name) {
+		c.errs.Errorf(cell.NameRange, "`"+cell.Name+"` names a template use at "+c.use.aliasPos(cell.Name).String()+"; each name names one thing",
+			"rename one of them", "`%s` is defined twice", cell.Name)
+		return
+	}
+	if j, dup := p.ByName[cell.Name]; dup {
+		first := p.Cells[j]
+		c.errs.Errorf(cell.NameRange, "`"+cell.Name+"` is first defined at "+first.Pos.String()+"; each name names one cell",
+			"rename one of them", "`%s` is defined twice", cell.Name)
+		return
+	}
+	cell.Index = len(p.Cells)
+	p.ByName[cell.Name] = cell.Index
+	p.Cells = append(p.Cells, cell)
+}
+
+// rangeCheck splits a check written between two limits,
+// `check name: lo <= x <= hi`, into two checks, name_min (x >= lo) and
+// name_max (x <= hi), each with its own utilisation, so that both limits
+// are reported and the one nearer governs by itself. The formulas of the
+// two are the two halves of the text as written (`lo <= x`, `x <= hi`):
+// positions stay those of the sheet. It returns nils for any other check.
+func rangeCheck(ck *sheet.Check, cell *Cell) (lo, hi *Cell) {
+	f, errs := formula.Parse(ck.Body, formula.Options{Range: true})
+	if f == nil || errs.HasErrors() || f.Nodes[f.Root].Kind != formula.KRange {
+		return nil, nil
+	}
+	r := f.Nodes[f.Root]
+	lower, upper := f.Nodes[r.A], f.Nodes[r.C] // the first and the last term as written
+	x := f.Nodes[r.B]
+	half := func(suffix, limit string, from, to int32) *Cell {
+		body := sheet.Expr{Text: ck.Body.Text[from:to], Range: ck.Body.RangeAt(int(from), int(to))}
+		h := *cell
+		h.Name = cell.Name + suffix
+		h.Expr = body.Text
+		h.Formula = &formula.Formula{Source: body}
+		h.Description = strings.TrimSpace(cell.Description + " (" + limit + ")")
+		return &h
+	}
+	if r.Op == formula.OpGE || r.Op == formula.OpGT { // hi >= x >= lo
+		return half("_min", "lower limit", x.From, upper.To), half("_max", "upper limit", lower.From, x.To)
+	}
+	return half("_min", "lower limit", lower.From, x.To), half("_max", "upper limit", x.From, upper.To)
 }
 
 func newCell(it sheet.Item) *Cell {
@@ -357,6 +401,7 @@ func (c *checker) parseAll() {
 		if cell.Formula == nil {
 			continue
 		}
+		opt.Range = cell.Kind == Check // a check between two limits that did not split says why
 		ok, errs := cell.Formula.ParseSource(opt)
 		c.errs = append(c.errs, errs...)
 		if !ok || errs.HasErrors() {

@@ -24,6 +24,7 @@ const (
 	KList                 // [args]
 	KRecord               // {k: v, ...}: Args(n) alternates KName keys and values
 	KParen                // (A): kept so that spans and printing keep the brackets
+	KRange                // A Op B Op2 C: a check between two limits (Options.Range only)
 )
 
 // Op is the operator of a KUnary or KBinary node.
@@ -67,6 +68,7 @@ type Node struct {
 	Op   Op
 	// Callee marks a KName node that names the function of a call.
 	Callee bool
+	Op2    Op    // the second operator of a KRange
 	From   int32 // byte span of the node in the formula text, children included
 	To     int32
 	// A, B, C are child node indices (-1 when absent). For KNumber and

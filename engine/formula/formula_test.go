@@ -247,3 +247,26 @@ func joinContinued(block string) []string {
 	}
 	return out
 }
+
+// TestRange: with Options.Range the whole expression may lie between two
+// limits; both comparisons point the same way.
+func TestRange(t *testing.T) {
+	for _, c := range []struct{ text, want string }{
+		{"0.2 <= r <= 0.9", "(range <= <= 0.2 r 0.9)"},
+		{"1 >= s / L > 0.5", "(range >= > 1 (/ s L) 0.5)"},
+	} {
+		f, errs := Parse(expr(c.text), Options{Range: true})
+		if errs.HasErrors() {
+			t.Fatalf("%q: %v", c.text, errs)
+		}
+		if got := f.String(); got != c.want {
+			t.Errorf("%q: got %s, want %s", c.text, got, c.want)
+		}
+	}
+	if _, errs := Parse(expr("1 <= a >= 0"), Options{Range: true}); !errs.HasErrors() {
+		t.Error("a range pointing two ways parsed")
+	}
+	if _, errs := Parse(expr("0.2 <= r <= 0.9"), Options{}); !errs.HasErrors() {
+		t.Error("a chained comparison parsed without Options.Range")
+	}
+}

@@ -14,6 +14,10 @@ import (
 type Options struct {
 	MaxDepth int  // bracket and operator nesting; 0 means DefaultMaxDepth
 	MaxNodes uint // syntax tree nodes; 0 means 10,000
+	// Range lets the whole expression be a comparison between two limits,
+	// `lo <= x <= hi` (or with >=), read as a KRange node: the expression
+	// of a range check.
+	Range bool
 }
 
 // DefaultMaxDepth is the default limit on expression nesting.
@@ -93,6 +97,9 @@ func (p *parser) parse() (ok bool) {
 	p.f.Nodes = make([]Node, 0, len(p.lex.src)/3+1)
 	p.next()
 	root := p.expression()
+	if p.opt.Range && p.tok.kind == tOp && isCompare(p.tok.text) && p.f.Nodes[root].Kind == KBinary && p.f.Nodes[root].Op.IsComparison() {
+		root = p.rangeTail(root)
+	}
 	if p.tok.kind != tEOF {
 		p.unexpected()
 	}
@@ -206,11 +213,32 @@ func (p *parser) compare() int32 {
 	}
 	p.next()
 	x = p.binary(op, x, p.sum())
-	if p.tok.kind == tOp && isCompare(p.tok.text) {
+	if p.tok.kind == tOp && isCompare(p.tok.text) && !(p.opt.Range && p.depth == 1) {
 		p.fail(p.tok, "comparisons do not chain",
-			"write each comparison on its own and join them: `a < b and b < c`")
+			"write each comparison on its own and join them: `a < b and b < c`; a check may be written between two limits, `check name: lo <= x <= hi`")
 	}
 	return x
+}
+
+// range = sum ( "<" | "<=" ) sum ( "<" | "<=" ) sum
+//
+//	| sum ( ">" | ">=" ) sum ( ">" | ">=" ) sum .
+//
+// rangeTail reads the second comparison of a range check.
+func (p *parser) rangeTail(first int32) int32 {
+	op1, op2 := p.f.Nodes[first].Op, compareOps[p.tok.text]
+	t := p.tok
+	up := (op1 == OpLE || op1 == OpLT) && (op2 == OpLE || op2 == OpLT)
+	down := (op1 == OpGE || op1 == OpGT) && (op2 == OpGE || op2 == OpGT)
+	if !up && !down {
+		p.fail(t, "a range is written `lo <= x <= hi` or `hi >= x >= lo`",
+			"both comparisons of a range point the same way")
+	}
+	p.next()
+	hi := p.sum()
+	fn := p.f.Nodes[first]
+	_, to := p.span(hi)
+	return p.add(Node{Kind: KRange, Op: op1, Op2: op2, From: fn.From, To: to, A: fn.A, B: fn.B, C: hi})
 }
 
 // sum = product { ( "+" | "-" ) product } .

@@ -33,6 +33,14 @@ func (f *Formula) print(b *strings.Builder, n int32) {
 		b.WriteString(")")
 	case KParen:
 		f.print(b, nd.A)
+	case KRange:
+		b.WriteString("(range " + nd.Op.String() + " " + nd.Op2.String() + " ")
+		f.print(b, nd.A)
+		b.WriteString(" ")
+		f.print(b, nd.B)
+		b.WriteString(" ")
+		f.print(b, nd.C)
+		b.WriteString(")")
 	case KCond:
 		b.WriteString("(? ")
 		f.print(b, nd.A)

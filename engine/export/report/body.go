@@ -75,7 +75,7 @@ func (d *doc) sections() {
 				start("", false)
 			}
 			sub++
-			d.use(it, strconv.Itoa(sec)+"."+strconv.Itoa(sub))
+			d.use(it, "", strconv.Itoa(sec)+"."+strconv.Itoa(sub))
 		}
 	}
 	flush()
@@ -132,14 +132,15 @@ func (d *doc) prose(lines []string) {
 // use writes a template use as a sub-section: where the template comes
 // from, the inputs it replaces, then the template's cells under its own
 // headings.
-func (d *doc) use(u *sheet.Use, no string) {
-	prefix := u.Name.Name + "."
+func (d *doc) use(u *sheet.Use, outer, no string) {
+	prefix := outer + u.Name.Name + "."
+	savedPrefix, savedReplaced := d.usePrefix, d.replaced
 	d.usePrefix = prefix
 	d.replaced = map[string]bool{}
 	for _, o := range u.Overrides {
 		d.replaced[prefix+o.Name.Name] = true
 	}
-	defer func() { d.usePrefix, d.replaced = "", nil }()
+	defer func() { d.usePrefix, d.replaced = savedPrefix, savedReplaced }()
 	path := u.Path
 	d.w("<section class=\"use\">\n<h3><span class=\"no\">", no, "</span>Template use <b>", esc(u.Name.Name), "</b> of <span class=\"file\">", esc(path), "</span></h3>\n")
 	if u.Annot.Description != "" || u.Annot.Reference != "" {
@@ -175,6 +176,11 @@ func (d *doc) use(u *sheet.Use, no string) {
 		}
 		d.w("</tbody></table>\n")
 	}
+	if f := d.templateFile(prefix); f != nil {
+		d.templateItems(f, prefix, no)
+		d.w("</section>\n")
+		return
+	}
 	section := "\x00"
 	for _, c := range d.prog.Cells {
 		if !strings.HasPrefix(c.Name, prefix) {
@@ -194,6 +200,76 @@ func (d *doc) use(u *sheet.Use, no string) {
 		d.cell(c)
 	}
 	d.w("</section>\n")
+}
+
+// templateFile returns the parsed template whose cells a use brought in
+// under prefix: the file their positions name, as the checked program
+// keeps it (nil when none of its cells is found). A replaced input is
+// placed at its override, in the using sheet, so it does not count.
+func (d *doc) templateFile(prefix string) *sheet.File {
+	for _, c := range d.prog.Cells {
+		if strings.HasPrefix(c.Name, prefix) && !strings.Contains(c.Name[len(prefix):], ".") && !d.replaced[c.Name] {
+			for _, f := range d.prog.Files {
+				if f.Name == c.Pos.File {
+					return f
+				}
+			}
+			return nil
+		}
+	}
+	return nil
+}
+
+// templateItems writes the items of template f used under prefix in its
+// reading order, as sections does for the sheet: its headings, its
+// comments as prose, its cells and tables as written, its own uses as
+// sub-sections.
+func (d *doc) templateItems(f *sheet.File, prefix, no string) {
+	var comments []string
+	flush := func() {
+		if len(comments) > 0 {
+			d.prose(comments)
+			comments = comments[:0]
+		}
+	}
+	sub := 0
+	for _, it := range f.Items {
+		switch it := it.(type) {
+		case *sheet.Meta:
+			continue
+		case *sheet.Comment:
+			comments = append(comments, it.Text)
+			continue
+		case *sheet.Blank:
+			if len(comments) > 0 {
+				comments = append(comments, "")
+			}
+			continue
+		}
+		flush()
+		switch it := it.(type) {
+		case *sheet.Heading:
+			d.w("<h4>", esc(strings.TrimSpace(it.Text)), "</h4>\n")
+		case *sheet.Cell:
+			d.templateCell(prefix + it.Name.Name)
+		case *sheet.FuncDef:
+			d.templateCell(prefix + it.Name.Name)
+		case *sheet.Check:
+			d.templateCell(prefix + it.Name.Name)
+		case *sheet.Table:
+			d.table(d.prog.Lookup(prefix+it.Name.Name), it)
+		case *sheet.Use:
+			sub++
+			d.use(it, prefix, no+"."+strconv.Itoa(sub))
+		}
+	}
+	flush()
+}
+
+func (d *doc) templateCell(name string) {
+	if c := d.prog.Lookup(name); c != nil {
+		d.cell(c)
+	}
 }
 
 // math writes one MathML expression inline.
