@@ -324,3 +324,41 @@ check b: D_b <= R
 		}
 	}
 }
+
+// TestRangeCheckWithActions: a check between two limits becomes two checks
+// (name_min, name_max); both keep the limit state written after `in` and
+// are checked in each of its combinations. Our own scenario, EN 1990 6.10
+// characteristic combinations (Eq. 6.14b with ψ0 of Table A1.1: imposed B
+// 0.7, snow 0.5), G = 5 kN, Q = 3 kN, S = 2 kN: G = 5, G + Q = 8,
+// G + Q + 0.5 S = 9, G + S = 7, G + 0.7 Q + S = 9.1 kN. The lower limit
+// 4 kN (utilisation 4/N) governs where N is least, G alone: 80 %; the upper
+// limit 12 kN where N is most, G + 0.7 Q + S: 9.1/12 = 75.83 %.
+func TestRangeCheckWithActions(t *testing.T) {
+	s := compile(t, `combinations: EN 1990 6.10
+action permanent G [kN] = 5 kN
+action imposed B Q [kN] = 3 kN
+action snow S [kN] = 2 kN
+N [kN] = G + Q + S
+check band in characteristic: 4 kN <= N <= 12 kN
+`)
+	r := s.Run(nil)
+	if len(r.Checks) != 2 {
+		t.Fatalf("%d checks, want band_min and band_max", len(r.Checks))
+	}
+	want := map[string]struct {
+		util float64
+		text string
+	}{
+		"band_min": {4.0 / 5, "1.0 G"},
+		"band_max": {9.1 / 12, "1.0 G + 0.7 Q + 1.0 S"},
+	}
+	for _, ch := range r.Checks {
+		w, ok := want[ch.Cell.Name]
+		if !ok || ch.Combo == nil || ch.Combo.State != "characteristic" || !ch.Pass || math.Abs(ch.Util-w.util) > 1e-12 {
+			t.Fatalf("check %s: %+v %+v", ch.Cell.Name, ch, ch.Combo)
+		}
+		if ch.Combo.Text != w.text {
+			t.Errorf("check %s governs in %q, want %q", ch.Cell.Name, ch.Combo.Text, w.text)
+		}
+	}
+}
