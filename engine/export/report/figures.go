@@ -406,6 +406,23 @@ func (d *doc) barFigure(c *engine.Cell, r *funcs.RecordValue, s *funcs.TableValu
 		}
 		d.w(p.draw(q.class))
 	}
+	if lay.Distributed {
+		if bx, bs := lineLoad(x, s.Col("N"), lay.Points); len(bx) >= 2 {
+			qu := d.unitFor(units.Base(units.Mass).Div(units.Base(units.Time).Mul(units.Base(units.Time))))
+			if u, err := units.Parse("kN/m"); err == nil && metric {
+				qu = u
+			}
+			p := &plot{xname: "x", yname: "b", xu: lu.Pretty(), yu: qu.Pretty(), xsi: bx, ysi: bs, ends: true,
+				vertical: vertical, down: lay.Gravity > 0, start: lay.Start, end: lay.End, xfactor: lu.Factor, pu: fu}
+			p.xs = make([]float64, len(bx))
+			p.ys = make([]float64, len(bx))
+			for i := range bx {
+				p.xs[i] = bx[i] / lu.Factor
+				p.ys[i] = bs[i] / qu.Factor
+			}
+			d.w(p.draw("b"))
+		}
+	}
 	d.w("</div>")
 	rs, re := r.Num("R_start", 0), r.Num("R_end", 0)
 	how := "x from its start"
@@ -420,7 +437,9 @@ func (d *doc) barFigure(c *engine.Cell, r *funcs.RecordValue, s *funcs.TableValu
 		supports = "; supports: start " + lay.Start + ", end " + lay.End
 	}
 	d.caption(c, "Axial force N (tension positive), displacement u and stress σ along the bar, "+how+supports+
-		"; reactions on the bar R_start = "+esc(d.formatSI(rs, fu))+", R_end = "+esc(d.formatSI(re, fu))+" (+x positive); point loads on the N diagram; the largest absolute value of each is marked")
+		"; reactions on the bar R_start = "+esc(d.formatSI(rs, fu))+", R_end = "+esc(d.formatSI(re, fu))+" (+x positive); point loads on the N diagram"+
+		map[bool]string{true: "; the load along the length b(x) = −dN/dx (+x positive), from equilibrium of the force diagram", false: ""}[lay.Distributed]+
+		"; the largest absolute value of each is marked")
 	d.w("</figure>\n")
 }
 
@@ -516,4 +535,32 @@ func (d *doc) number(n *check.Node) (float64, bool) {
 		return x, ok && isNum
 	}
 	return 0, false
+}
+
+// lineLoad returns the load per unit length along a bar, b = −dN/dx (the
+// equilibrium of a slice, dN/dx + b = 0), at the middle of each interval of
+// the samples of N: a point load is a jump of N, so an interval that holds
+// one (or has no length) is left out.
+func lineLoad(x, n []float64, points []funcs.PointLoad) (bx, b []float64) {
+	if len(n) != len(x) {
+		return nil, nil
+	}
+	for i := 0; i+1 < len(x); i++ {
+		dx := x[i+1] - x[i]
+		if !(dx > 0) {
+			continue
+		}
+		jump := false
+		for _, p := range points {
+			if p.X >= x[i] && p.X <= x[i+1] {
+				jump = true
+			}
+		}
+		if jump {
+			continue
+		}
+		bx = append(bx, (x[i]+x[i+1])/2)
+		b = append(b, -(n[i+1]-n[i])/dx)
+	}
+	return bx, b
 }
