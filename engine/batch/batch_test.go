@@ -306,3 +306,30 @@ func TestFiniteStaysFinite(t *testing.T) {
 		t.Errorf("workbook rows %q, want A of case 1 as 2.36e310", rows)
 	}
 }
+
+// TestValueRefusesWhatIsNotDecimal: a case-table field is a plain decimal
+// number (as a sheet writes one); strconv.ParseFloat's other forms and an
+// overflow after scaling to SI are refused at the field, never passed on
+// as Inf or NaN.
+func TestValueRefusesWhatIsNotDecimal(t *testing.T) {
+	s, err := engine.Compile("t.sheaf", []byte("L [km] = 2 km\nd [mm] = 20 mm\nx [m] = L + d\n"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	cs, err := batch.Read("t.csv", []byte("\uFEFFL [km], d\n0x1p4, 20 mm\nNaN, 20 mm\nInf, 20 mm\n1_000, 20 mm\n1e306, 20 mm\n2.5, 1e308 km\n1.5e3, 2e1 mm\n"), s)
+	if err != nil {
+		t.Fatalf("read: %v (a byte order mark must not be part of the first column)", err)
+	}
+	for i, want := range []string{"not a decimal number", "not a decimal number", "not a decimal number", "not a decimal number", "out of range", "out of range", ""} {
+		c := cs.Cases[i]
+		if want == "" {
+			if c.Err != nil || c.Values == nil {
+				t.Errorf("case %d: %v", i+1, c.Err)
+			}
+			continue
+		}
+		if c.Err == nil || !strings.Contains(c.Err.Summary, want) {
+			t.Errorf("case %d: problem %v, want %q", i+1, c.Err, want)
+		}
+	}
+}

@@ -99,7 +99,10 @@ func (c *Cases) Bad() diag.List {
 // starting with `#` are comments; blank lines are skipped; spaces after a
 // comma are ignored.
 func Read(file string, src []byte, s *engine.Sheet) (*Cases, error) {
-	r := csv.NewReader(bytes.NewReader(src))
+	// A spreadsheet's "CSV UTF-8" starts with a byte order mark: it is not
+	// part of the first column's name.
+	body := bytes.TrimPrefix(src, []byte("\uFEFF"))
+	r := csv.NewReader(bytes.NewReader(body))
 	r.Comment = '#'
 	r.FieldsPerRecord = -1
 	r.TrimLeadingSpace = true

@@ -86,6 +86,10 @@ func Run(ctx context.Context, s *engine.Sheet, cs *Cases, o Options) (*Outcome, 
 	if workers <= 0 {
 		workers = runtime.GOMAXPROCS(0)
 	}
+	// Each worker holds a clone of the sheet's state: more workers than
+	// cores buys nothing, and more than cases holds clones for nothing
+	// (--workers 20000 once exhausted memory).
+	workers = min(workers, max(4*runtime.GOMAXPROCS(0), 1), max(len(cs.Cases), 1))
 	// Evaluate once with the written inputs; every worker starts from a
 	// clone of it, so its first case recomputes only what that case sets.
 	base := s.NewState()

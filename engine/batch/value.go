@@ -25,13 +25,16 @@ func Value(s *engine.Sheet, col *Column, text string) (funcs.Value, error) {
 		return nil, fmt.Errorf("the value is empty")
 	}
 	isNum := col.Cell.Type != nil && col.Cell.Type.Kind == funcs.Number
-	if x, err := strconv.ParseFloat(text, 64); err == nil && isNum {
+	if isNum && !decimal(text) && looksNumeric(text) {
+		return nil, fmt.Errorf("%q is not a decimal number: write digits, a point and an exponent, as in 2.5 or 1.2e-3 (no hexadecimal, NaN, Inf or digit groups)", text)
+	}
+	if x, err := strconv.ParseFloat(text, 64); err == nil && isNum && decimal(text) {
 		if math.IsNaN(x) || math.IsInf(x, 0) {
-			return nil, fmt.Errorf("%q is not a finite number", text)
+			return nil, fmt.Errorf("%q is out of range: its magnitude must be below about 1.8e308", text)
 		}
 		switch {
 		case col.HasUnit:
-			return x * col.Unit.Factor, nil
+			return finiteSI(text, x*col.Unit.Factor, col.Unit.Symbol)
 		case col.Cell.Type.Dim.IsNone():
 			return x, nil
 		}
@@ -53,11 +56,65 @@ func Value(s *engine.Sheet, col *Column, text string) (funcs.Value, error) {
 					}
 					return nil, fmt.Errorf("`%s` must be %s, but %q is %s", col.Name, describe(s, col.Cell), text, got)
 				}
-				return x * u.Factor, nil
+				return finiteSI(text, x*u.Factor, u.Symbol)
 			}
 		}
 	}
 	return s.ParseInput(col.Name, text)
+}
+
+// finiteSI returns si, the value of text in SI, unless scaling to SI
+// overflowed (`1e308` in a column of km).
+func finiteSI(text string, si float64, unit string) (funcs.Value, error) {
+	if math.IsInf(si, 0) || math.IsNaN(si) {
+		return nil, fmt.Errorf("%q in %s is out of range once converted to SI units", text, unit)
+	}
+	return si, nil
+}
+
+// decimal reports whether text is a plain decimal number, as a sheet
+// writes one: [+-] digits [. digits] [e [+-] digits]. strconv.ParseFloat
+// also reads hexadecimal floats, NaN, Inf and digit groups, which a case
+// table must not slip in.
+func decimal(text string) bool {
+	i := 0
+	if i < len(text) && (text[i] == '+' || text[i] == '-') {
+		i++
+	}
+	digits := 0
+	for i < len(text) && isDigit(text[i]) {
+		i, digits = i+1, digits+1
+	}
+	if i < len(text) && text[i] == '.' {
+		i++
+		for i < len(text) && isDigit(text[i]) {
+			i, digits = i+1, digits+1
+		}
+	}
+	if digits == 0 {
+		return false
+	}
+	if i < len(text) && (text[i] == 'e' || text[i] == 'E') {
+		i++
+		if i < len(text) && (text[i] == '+' || text[i] == '-') {
+			i++
+		}
+		n := 0
+		for i < len(text) && isDigit(text[i]) {
+			i, n = i+1, n+1
+		}
+		if n == 0 {
+			return false
+		}
+	}
+	return i == len(text)
+}
+
+// looksNumeric reports whether strconv.ParseFloat would read text as a
+// number although it is not a plain decimal (0x1p4, NaN, Inf, 1_000).
+func looksNumeric(text string) bool {
+	_, err := strconv.ParseFloat(text, 64)
+	return err == nil || strings.ContainsAny(text, "_")
 }
 
 // splitQuantity splits "45 kN", "45kN" or "2.5e3 N/mm^2" into the number and

@@ -4,6 +4,8 @@ import (
 	"errors"
 	"fmt"
 	"math"
+
+	"github.com/sheafcalc/sheaf/funcs"
 )
 
 // MaxVertices bounds the vertices of one polygon ring: the self-intersection
@@ -46,6 +48,11 @@ type Shape struct {
 	Draw []Region
 }
 
+// MaxCoordinate bounds a vertex's distance from the origin, in metres: far
+// beyond any cross-section, and far below where the fourth powers of the
+// second moments overflow float64 (coordinates near 1e155 gave a NaN area).
+const MaxCoordinate = 1e6
+
 // NewRing checks and normalises a polygon: at least three distinct vertices,
 // finite coordinates, no self-intersection, non-zero area. A closing vertex
 // equal to the first and repeated consecutive vertices are dropped; a
@@ -62,6 +69,9 @@ func NewRing(ys, zs []float64) (*Ring, error) {
 		y, z := ys[i], zs[i]
 		if math.IsNaN(y) || math.IsInf(y, 0) || math.IsNaN(z) || math.IsInf(z, 0) {
 			return nil, fmt.Errorf("vertex %d of the polygon is not a finite point (y = %g, z = %g)", i+1, y, z)
+		}
+		if math.Abs(y) > MaxCoordinate || math.Abs(z) > MaxCoordinate {
+			return nil, fmt.Errorf("vertex %d of the polygon lies %s from the origin; a section's coordinates stay within %s of it", i+1, funcs.Length(max(math.Abs(y), math.Abs(z))), funcs.Length(MaxCoordinate))
 		}
 		n := len(r.Y)
 		if n > 0 && r.Y[n-1] == y && r.Z[n-1] == z {

@@ -191,3 +191,17 @@ func TestPlacement(t *testing.T) {
 		}
 	}
 }
+
+// TestRingRefusesFarCoordinates: a vertex far beyond any cross-section is
+// refused before its powers overflow (a fuzzed polygon near 1e155 m had a
+// NaN area).
+func TestRingRefusesFarCoordinates(t *testing.T) {
+	for _, far := range []float64{1e155, -2e6, 1e300} {
+		if _, err := NewRing([]float64{0, far, 0}, []float64{0, 0, 1}); err == nil {
+			t.Errorf("a vertex at %g m was accepted", far)
+		}
+	}
+	if _, err := NewRing([]float64{0, 0.3, 0}, []float64{0, 0, 0.5}); err != nil {
+		t.Errorf("an ordinary triangle: %v", err)
+	}
+}
