@@ -20,15 +20,23 @@ func (s *Sheet) Files() []string {
 // looks the cell up by name nor boxes the number, so a batch of many cases
 // can read its results without allocating.
 func (st *State) Number(c *Cell) (float64, bool) {
-	if c == nil || c.Index >= len(st.sheet.prog.Cells) || st.sheet.prog.Cells[c.Index] != c || !st.st.Known[c.Index] {
+	e := st.read()
+	if c == nil || c.Index >= len(st.sheet.prog.Cells) || st.sheet.prog.Cells[c.Index] != c || !e.Known[c.Index] {
 		return 0, false
 	}
 	if c.Type != nil && (c.Type.Kind == funcs.Number || c.Kind == Check) {
-		return st.st.F.Num[c.Index], true
+		return e.F.Num[c.Index], true
 	}
 	return 0, false
 }
 
 // Uncomputed returns the number of cells the last evaluation could not
 // compute (as Results.Uncomputed, without building the results).
-func (st *State) Uncomputed() int { return st.st.Uncomputed() }
+func (st *State) Uncomputed() int {
+	if st.cmb != nil && st.cmb.view != nil {
+		// The view's cells, and the cells that failed in a check's
+		// governing combination only (Results lists both).
+		return st.cmb.view.Uncomputed() + len(st.cmb.probs)
+	}
+	return st.st.Uncomputed()
+}

@@ -26,7 +26,7 @@ func TestImportDirection(t *testing.T) {
 	for pkg, deps := range imports {
 		for _, dep := range deps {
 			if !strings.HasPrefix(dep, module) {
-				if strings.Contains(dep, ".") && (pkg == "engine/diag" || pkg == "engine/units" || strings.HasPrefix(pkg, "internal/")) {
+				if strings.Contains(dep, ".") && (pkg == "engine/diag" || pkg == "engine/units" || pkg == "engine/combine" || strings.HasPrefix(pkg, "internal/")) {
 					t.Errorf("%s imports %s; it must use only the standard library", pkg, dep)
 				}
 				continue
@@ -39,7 +39,7 @@ func TestImportDirection(t *testing.T) {
 				t.Errorf("%s imports %s; a family may use only funcs, engine/units and families it builds on", pkg, dep)
 			case pkg == "funcs" && dep != "engine/units":
 				t.Errorf("funcs imports %s; the registry holds types only", dep)
-			case pkg == "engine/diag" || strings.HasPrefix(pkg, "internal/"):
+			case pkg == "engine/diag" || pkg == "engine/combine" || strings.HasPrefix(pkg, "internal/"):
 				t.Errorf("%s imports %s; it must use only the standard library", pkg, dep)
 			case pkg == "engine/units" && dep != "engine/diag":
 				t.Errorf("engine/units imports %s; it may use only engine/diag", dep)

@@ -22,6 +22,10 @@ type Results struct {
 	Cells    []CellResult  // every cell, reading order (checks included)
 	Checks   []CheckResult // the design checks, reading order
 	Problems diag.List     // run-time problems, one per failed cell
+	// Combos says how a sheet with actions was evaluated (nil for a sheet
+	// without): the cells that depend on actions show their values in the
+	// combination Combos.Shown, and each check its governing combination.
+	Combos *ComboSummary
 }
 
 // CellResult is the value of one cell.
@@ -47,11 +51,17 @@ type CheckResult struct {
 	// Problem says why a check whose two sides were computed is not
 	// assessed (a demand of the other sense than the capacity, a capacity
 	// that is not positive); nil otherwise. It is in Results.Problems too.
+	// For a check that depends on actions, it is the reason in its
+	// governing combination, which it names.
 	Problem *diag.Diagnostic
 	// Governing is the term of a min(...) or max(...) capacity that gives
 	// the capacity, as written (e.g. `N_bRd`); "" when the capacity is not
-	// such a choice.
+	// such a choice. For a check that depends on actions, the term in its
+	// governing combination.
 	Governing string
+	// Combo is the outcome over the combinations of its limit state, for a
+	// check that depends on actions (nil for the others).
+	Combo *ComboOutcome
 }
 
 // Failed returns the number of checks that fail or could not be assessed.
@@ -93,7 +103,7 @@ func (r *Results) Cell(name string) *CellResult {
 // sheet then allocates a few blocks instead of a string per cell.
 func (st *State) Results() *Results {
 	s := st.sheet
-	e := st.st
+	e := st.read()
 	n := len(s.prog.Cells)
 	r := &Results{Meta: s.prog.Meta, Cells: make([]CellResult, n)}
 	buf := make([]byte, 0, 12*n)
@@ -123,6 +133,7 @@ func (st *State) Results() *Results {
 	// Sorted by position but not thinned to one per line as diag.List.Sort
 	// does: there is one problem per failed cell already, and the cells of
 	// a template used twice fail on the same line of the template.
+	st.addCombos(r)
 	slices.SortStableFunc(r.Problems, func(a, b *diag.Diagnostic) int {
 		return cmp.Or(a.Range.Start.Compare(b.Range.Start), cmp.Compare(a.Summary, b.Summary))
 	})
@@ -132,7 +143,7 @@ func (st *State) Results() *Results {
 // fill sets the result of cell i but, for a number, its text; it reports
 // whether the text is still to write (units.Format of SI in Unit).
 func (st *State) fill(cr *CellResult, i int) (numText bool) {
-	s, e := st.sheet, st.st
+	s, e := st.sheet, st.read()
 	c := s.prog.Cells[i]
 	*cr = CellResult{Cell: c, Known: e.Known[i], Unit: s.DisplayUnit(c)}
 	if cr.Known {
@@ -157,13 +168,17 @@ func (st *State) fill(cr *CellResult, i int) (numText bool) {
 
 // checkResult is the outcome of check cell i, whose cell result is cr.
 func (st *State) checkResult(cr *CellResult, i int) CheckResult {
-	s, e := st.sheet, st.st
+	s, e := st.sheet, st.read()
 	c := s.prog.Cells[i]
 	ch := CheckResult{Cell: c, Known: cr.Known, Unit: s.checkUnit(c), Demand: e.Demand[i], Capacity: e.Capacity[i], Util: math.NaN()}
 	if cr.Known {
 		ch.Util = cr.SI
 		ch.Pass = ch.Util <= 1
-		if g := e.Governing(i); g != nil {
+		if term, ok := st.comboTerm(i); ok {
+			// The view's cells may show another combination than this
+			// check's governing one: the term was found in its own.
+			ch.Governing = term
+		} else if g := e.Governing(i); g != nil {
 			ch.Governing = g.Text()
 		}
 	} else if e.Unassessed(i) {
@@ -176,6 +191,15 @@ func (st *State) checkResult(cr *CellResult, i int) CheckResult {
 // last evaluation computed, in reading order: only their results can
 // differ from those of the evaluation before.
 func (st *State) Recomputed() []int {
+	if st.sheet.combos != nil {
+		// Every cell: the combinations move values the base state did
+		// not recompute (see Update).
+		idx := make([]int, len(st.sheet.prog.Cells))
+		for i := range idx {
+			idx[i] = i
+		}
+		return idx
+	}
 	idx := slices.Clone(st.lastIdx())
 	slices.Sort(idx)
 	return idx
@@ -189,6 +213,13 @@ func (st *State) Update(r *Results, idx []int) {
 	s := st.sheet
 	if len(r.Cells) != len(s.prog.Cells) || (len(r.Cells) > 0 && r.Cells[0].Cell != s.prog.Cells[0]) {
 		panic("engine: Update of the results of another sheet")
+	}
+	if s.combos != nil {
+		// A change of one input can change the combination every cell
+		// that depends on actions shows, and the governing one of every
+		// check: the results are built again (Recomputed names every cell).
+		*r = *st.Results()
+		return
 	}
 	for _, i := range idx {
 		cr := &r.Cells[i]

@@ -41,6 +41,7 @@ type Sheet struct {
 	src     []byte
 	prog    *check.Program
 	mach    *eval.Machine
+	combos  *Combos // nil when the sheet has no actions
 	system  units.System
 	sigFigs int
 	cfg     config
@@ -105,11 +106,17 @@ func compileFile(f *sheet.File, cfg config) (*Sheet, error) {
 	errs := append(diag.List(nil), f.Syntax...)
 	prog, cerrs := check.Sheet(f, cfg.checkOptions())
 	errs = append(errs, cerrs...)
+	var combos *Combos
+	if !errs.HasErrors() {
+		var xerrs diag.List
+		combos, xerrs = setupCombos(prog)
+		errs = append(errs, xerrs...)
+	}
 	errs.Sort()
 	if errs.HasErrors() {
 		return nil, errs
 	}
-	s := &Sheet{name: f.Name, src: f.Src, prog: prog, mach: eval.Compile(prog), sigFigs: cfg.sigFigs, cfg: cfg}
+	s := &Sheet{name: f.Name, src: f.Src, prog: prog, mach: eval.Compile(prog), combos: combos, sigFigs: cfg.sigFigs, cfg: cfg}
 	s.system = prog.Meta.System
 	if cfg.hasSystem && cfg.system != units.Neutral {
 		s.system = cfg.system

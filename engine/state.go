@@ -20,6 +20,9 @@ import (
 type State struct {
 	sheet *Sheet
 	st    *eval.State
+	// cmb holds the outcome of the combinations of a sheet with actions
+	// (nil otherwise); st is then the base state the inputs are set on.
+	cmb *comboState
 }
 
 // NewState returns a state with all inputs at their written values, not
@@ -91,28 +94,35 @@ func fits(t *funcs.Type, v funcs.Value) bool {
 // Eval evaluates what is stale (everything the first time) and returns
 // the results of every cell.
 func (st *State) Eval() *Results {
-	st.st.Eval()
+	st.Recompute()
 	return st.Results()
 }
 
 // Recompute evaluates what is stale without building Results; for callers
 // that read a few values with Value.
-func (st *State) Recompute() { st.st.Eval() }
+func (st *State) Recompute() {
+	if st.sheet.combos != nil {
+		st.recomputeCombos()
+		return
+	}
+	st.st.Eval()
+}
 
 // Value returns the current SI value of a cell and whether it is known.
 func (st *State) Value(name string) (funcs.Value, bool) {
 	c := st.sheet.Lookup(name)
-	if c == nil || !st.st.Known[c.Index] {
+	if c == nil || !st.read().Known[c.Index] {
 		return nil, false
 	}
 	return st.value(c), true
 }
 
 func (st *State) value(c *Cell) funcs.Value {
+	e := st.read()
 	if c.Type != nil && (c.Type.Kind == funcs.Number || c.Kind == Check) {
-		return st.st.F.Num[c.Index]
+		return e.F.Num[c.Index]
 	}
-	return st.st.F.Val[c.Index]
+	return e.F.Val[c.Index]
 }
 
 // LastEvaluated returns the names of the cells the last Eval computed, in
@@ -130,7 +140,7 @@ func (st *State) lastIdx() []int { return st.st.Last() }
 // Clone returns an independent copy of the state (values, overrides and
 // staleness), for batch workers.
 func (st *State) Clone() *State {
-	return &State{sheet: st.sheet, st: st.st.Clone()}
+	return &State{sheet: st.sheet, st: st.st.Clone(), cmb: st.cmb.clone()}
 }
 
 // settable returns the input cell name or an error saying why it cannot be

@@ -53,6 +53,11 @@ type checkDoc struct {
 	Cells    int               `json:"cells"`
 	Checks   int               `json:"checks"`
 	Problems []jsonout.Problem `json:"problems"`
+	// A sheet with actions: how many, the rules that combine them and the
+	// combinations its checks are checked in.
+	Actions      int    `json:"actions,omitempty"`
+	Combinations int    `json:"combinations,omitempty"`
+	Rules        string `json:"combination_rules,omitempty"`
 }
 
 func runCheck(a *app, o *checkOptions, path string) error {
@@ -68,8 +73,18 @@ func runCheck(a *app, o *checkOptions, path string) error {
 			cells++
 		}
 	}
+	cs := s.Combos()
 	if o.json {
-		return jsonout.Encode(a.stdout, checkDoc{Schema: checkSchema, File: s.Name(), Cells: cells, Checks: checks, Problems: []jsonout.Problem{}})
+		doc := checkDoc{Schema: checkSchema, File: s.Name(), Cells: cells, Checks: checks, Problems: []jsonout.Problem{}}
+		if cs != nil {
+			doc.Actions, doc.Combinations, doc.Rules = len(cs.Actions), len(cs.All), cs.Rules.Name
+		}
+		return jsonout.Encode(a.stdout, doc)
+	}
+	if cs != nil {
+		_, err = fmt.Fprintf(a.stdout, "ok: %d cells, %d checks, %d actions in %d combinations of %s\n",
+			cells, checks, len(cs.Actions), len(cs.All), cs.Rules.Name)
+		return err
 	}
 	_, err = fmt.Fprintf(a.stdout, "ok: %d cells, %d checks\n", cells, checks)
 	return err

@@ -25,6 +25,18 @@ func TestExportEverySheet(t *testing.T) {
 		t.Run(filepath.Base(file), func(t *testing.T) {
 			out := filepath.Join(dir, strings.TrimSuffix(filepath.Base(file), ".sheaf")+".xlsx")
 			stdout, stderr, code := sheaf(t, "export", file, "-o", out)
+			if src, _ := os.ReadFile(file); strings.Contains(string(src), "\naction ") {
+				// A workbook of a sheet with actions would combine the
+				// characteristic values as written: refused until it
+				// carries the combinations.
+				if code != exitInput || !strings.Contains(stderr, "has actions") {
+					t.Errorf("export of a sheet with actions: exit %d, %s", code, stderr)
+				}
+				if _, err := os.Stat(out); err == nil {
+					t.Error("a workbook was written")
+				}
+				return
+			}
 			if code != exitOK && code != exitChecks {
 				t.Fatalf("exit %d: %s", code, stderr)
 			}

@@ -190,3 +190,24 @@ func TestWatchServe(t *testing.T) {
 		t.Fatal("watch did not stop")
 	}
 }
+
+// TestReportRefusesActions: sheaf report of a sheet with actions
+// exits with the input status, says why and how to see the combinations,
+// and writes no file (as export does).
+func TestReportRefusesActions(t *testing.T) {
+	dir := t.TempDir()
+	out := filepath.Join(dir, "canopy.html")
+	var stdout, stderr strings.Builder
+	code := Main([]string{"report", filepath.Join("..", "..", "testdata", "actions", "canopy-hanger.sheaf"), "-o", out}, strings.NewReader(""), &stdout, &stderr)
+	if code != exitInput {
+		t.Fatalf("exit %d, want %d; stderr:\n%s", code, exitInput, stderr.String())
+	}
+	for _, want := range []string{"has actions", "EN 1990 6.10", "governing", "sheaf run --combinations"} {
+		if !strings.Contains(stderr.String(), want) {
+			t.Errorf("stderr %q lacks %q", stderr.String(), want)
+		}
+	}
+	if _, err := os.Stat(out); err == nil {
+		t.Error("a report was written")
+	}
+}

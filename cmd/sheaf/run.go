@@ -11,10 +11,11 @@ import (
 
 // runOptions are the flags of `sheaf run`.
 type runOptions struct {
-	sets  []string
-	json  bool
-	draft bool
-	sheet sheetFlags
+	sets         []string
+	json         bool
+	draft        bool
+	combinations bool // print the table of every combination instead of the listing
+	sheet        sheetFlags
 }
 
 func newRunCmd(a *app) *cobra.Command {
@@ -34,6 +35,11 @@ With --json the results are one JSON document on stdout (schema in
 schema/sheaf.schema.json); every problem, including a sheet that does not
 load or a bad --set, is in it, and the exit status is the same as without.
 
+A sheet with actions is evaluated in every combination of its rules
+(SPEC.md §5a): each check shows its governing combination and how many were
+evaluated, and fails when it fails in any of them. --combinations prints the
+table of all combinations instead of the listing (--json has them too).
+
 Exit status here: 0 when every design check passes and every cell was
 computed, 1 when a check fails or cannot be assessed, 2 when the sheet or a
 --set has errors or a cell could not be computed (with --draft, an
@@ -51,6 +57,7 @@ uncomputed cell does not make it 2).`,
 	cmd.Flags().StringArrayVar(&o.sets, "set", nil, setUsage)
 	_ = cmd.RegisterFlagCompletionFunc("set", completeInputs)
 	cmd.Flags().BoolVar(&o.json, "json", false, "print the results as JSON (every problem included)")
+	cmd.Flags().BoolVar(&o.combinations, "combinations", false, "print the table of every combination of the sheet's actions, with each check's utilisation in it")
 	cmd.Flags().BoolVar(&o.draft, "draft", false, draftUsage)
 	o.sheet.add(cmd, true)
 	return cmd
@@ -63,9 +70,12 @@ func runRun(a *app, o *runOptions, path string) error {
 	}
 	res := st.Eval()
 	rerr := resultsErrorQuiet(res, o.draft)
-	if o.json {
+	switch {
+	case o.json:
 		err = jsonout.WriteExit(a.stdout, res, exitCode(rerr))
-	} else {
+	case o.combinations:
+		err = text.WriteCombinations(a.stdout, res)
+	default:
 		err = text.Write(a.stdout, res, engine.DefaultSigFigs)
 	}
 	if err != nil {

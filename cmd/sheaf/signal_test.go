@@ -46,7 +46,14 @@ func TestInterrupt(t *testing.T) {
 			dir := t.TempDir()
 			var table strings.Builder
 			table.WriteString("P [kN]\n")
-			for i := range 200_000 {
+			// 200,000 cases take about 300 ms to run on a fast machine, so a
+			// signal meant for the running cases gets 1,000,000: it must not
+			// land while the workbook is already being written.
+			rows := 200_000
+			if !tc.writing {
+				rows = 1_000_000
+			}
+			for i := range rows {
 				fmt.Fprintf(&table, "%d\n", 10+i%50)
 			}
 			writeFiles(t, dir, map[string]string{"ok.sheaf": hostileSheet, "cases.csv": table.String()})
@@ -71,7 +78,7 @@ func TestInterrupt(t *testing.T) {
 					}
 				}
 			} else {
-				time.Sleep(300 * time.Millisecond) // the process is past its start; reading 200,000 rows takes longer
+				time.Sleep(300 * time.Millisecond) // the process is past its start; reading and running 1,000,000 rows takes longer
 			}
 			if err := cmd.Process.Signal(tc.sig); err != nil {
 				t.Skipf("the batch ended before the signal: %v", err)

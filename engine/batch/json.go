@@ -46,6 +46,9 @@ type jsonCheck struct {
 	Name        string   `json:"name"`
 	Utilisation *float64 `json:"utilisation"`
 	Verdict     string   `json:"verdict"`
+	// Governing is the combination that governs the check in this case,
+	// for a check of a sheet with actions.
+	Governing string `json:"governing_combination,omitempty"`
 }
 
 type jsonRow struct {
@@ -57,6 +60,9 @@ type jsonRow struct {
 	Inputs     []jsonQuantity `json:"inputs"`
 	Picks      []jsonQuantity `json:"picks"`
 	Checks     []jsonCheck    `json:"checks"`
+	// ShownIn is, for a sheet with actions, the combination whose values
+	// the picked cells that depend on actions show.
+	ShownIn string `json:"shown_in,omitempty"`
 }
 
 type jsonSummary struct {
@@ -131,7 +137,7 @@ func (o *Outcome) WriteJSON(w io.Writer, sheet string, exit int) error {
 	for i := range o.Rows {
 		r := &o.Rows[i]
 		jr := jsonRow{Case: r.Case.N, Line: r.Case.Line, Bad: r.Case.Err != nil, Uncomputed: r.Uncomputed, Problem: r.Problem,
-			Inputs: []jsonQuantity{}, Picks: []jsonQuantity{}, Checks: []jsonCheck{}}
+			Inputs: []jsonQuantity{}, Picks: []jsonQuantity{}, Checks: []jsonCheck{}, ShownIn: r.Shown}
 		if e := r.Case.Err; e != nil {
 			jr.Problem = e.Summary
 			p := e.Range.Start
@@ -154,7 +160,11 @@ func (o *Outcome) WriteJSON(w io.Writer, sheet string, exit int) error {
 			if v == "unknown" {
 				v = "not assessed"
 			}
-			jr.Checks = append(jr.Checks, jsonCheck{Name: c.Name, Utilisation: jnum(r.Utils[k]), Verdict: v})
+			jc := jsonCheck{Name: c.Name, Utilisation: jnum(r.Utils[k]), Verdict: v}
+			if k < len(r.Governing) {
+				jc.Governing = r.Governing[k]
+			}
+			jr.Checks = append(jr.Checks, jc)
 		}
 		d.Rows = append(d.Rows, jr)
 	}

@@ -35,6 +35,10 @@ type Row struct {
 	// Uncomputed is set when a cell of the case could not be computed (a
 	// check that is not assessed is not an uncomputed cell).
 	Uncomputed bool
+	// Sheets with actions: the combination the picked cells that depend on
+	// actions show, and each check's governing combination.
+	Shown     string
+	Governing []string
 }
 
 // Verdict of check k: "pass", "fail", "unknown" (not assessed) or "" for a
@@ -174,6 +178,13 @@ func (w *worker) run(r *Row) {
 			x, unknown = math.NaN(), true
 		}
 		r.Utils[k] = x
+	}
+	if w.out.Sheet.Combos() != nil {
+		r.Shown = w.st.Shown()
+		r.Governing = make([]string, len(w.out.Checks))
+		for k, c := range w.out.Checks {
+			r.Governing[k] = w.st.Governing(c)
+		}
 	}
 	r.Uncomputed = w.st.Uncomputed() > 0
 	if unknown || r.Uncomputed {

@@ -25,8 +25,15 @@ func (o *Outcome) Header() []string {
 	for k, c := range o.Picks {
 		h = append(h, title(c.Name, o.PickUnit(k)))
 	}
+	combos := o.Sheet.Combos() != nil
+	if combos {
+		h = append(h, "cells shown in")
+	}
 	for _, c := range o.Checks {
 		h = append(h, c.Name+" util", c.Name+" verdict")
+		if combos {
+			h = append(h, c.Name+" governs in")
+		}
 	}
 	return append(h, "problem")
 }
@@ -75,8 +82,19 @@ func (o *Outcome) fields(r *Row, dst []cell) []cell {
 	for k, x := range r.Picks {
 		dst = append(dst, number(x, o.PickUnit(k).Factor))
 	}
+	combos := o.Sheet.Combos() != nil
+	if combos {
+		dst = append(dst, cell{text: r.Shown})
+	}
 	for k, u := range r.Utils {
 		dst = append(dst, number(u, 1), cell{text: r.Verdict(k)})
+		if combos {
+			g := ""
+			if k < len(r.Governing) {
+				g = r.Governing[k]
+			}
+			dst = append(dst, cell{text: g})
+		}
 	}
 	problem := r.Problem
 	if r.Case.Err != nil {

@@ -102,7 +102,7 @@ type Constant struct {
 // IsReserved reports whether name may not be used for a cell.
 func IsReserved(name string) bool {
 	switch name {
-	case "check", "table", "use", "from", "true", "false", "and", "or", "not", "nil", "let", "in", "if", "else":
+	case "check", "table", "use", "from", "action", "factor", "true", "false", "and", "or", "not", "nil", "let", "in", "if", "else":
 		return true
 	}
 	_, c := Constants[name]

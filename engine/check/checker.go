@@ -134,6 +134,20 @@ func (c *checker) collectFile(f *sheet.File, scope string, depth int) {
 				cell.Params = append(cell.Params, q)
 			}
 		case *sheet.Check: // whole as newCell made it
+		case *sheet.Action:
+			if scope != "" {
+				c.errs.Errorf(it.Kind.Range, "the template `"+strings.TrimSuffix(scope, ".")+"` has actions; actions of a template do not yet join the using sheet's combinations",
+					"write the actions in the using sheet and pass their effects to the template's inputs", "action `%s` in a template", it.Cell.Name.Name)
+				continue
+			}
+			cell = newCell(&it.Cell)
+			cell.Action = it
+			c.displayUnit(cell, it.Cell.Unit)
+		case *sheet.Factor:
+			if scope == "" {
+				p.Factors = append(p.Factors, it)
+			}
+			continue
 		case *sheet.Table:
 			cell = &Cell{Name: it.Name.Name, Kind: Table, NameRange: it.Name.Range, Range: it.Range,
 				Description: it.Annot.Description, Reference: it.Annot.Reference}
@@ -226,7 +240,7 @@ func newCell(it sheet.Item) *Cell {
 	case *sheet.Check:
 		return &Cell{Name: it.Name.Name, Kind: Check, NameRange: it.Name.Range, Range: it.Range,
 			Expr: it.Body.Text, Description: it.Annot.Description, Reference: it.Annot.Reference,
-			Formula: &formula.Formula{Source: it.Body}}
+			Formula: &formula.Formula{Source: it.Body}, LimitState: it.State.Name, LimitStateRange: it.State.Range}
 	}
 	return nil
 }
@@ -248,6 +262,8 @@ func (c *checker) meta(m *sheet.Meta) {
 		md.Date = m.Value
 	case "revision":
 		md.Revision = m.Value
+	case "combinations":
+		md.Combinations, md.CombinationsPos = m.Value, m.Range
 	case "units":
 		md.Units = m.Value
 		switch m.Value {

@@ -30,6 +30,10 @@ type Meta struct {
 	Title, Project, Basis, Author, Checker, Date, Revision string
 	Units                                                  string       // "metric", "us" or "" as written
 	System                                                 units.System // from Units; Metric when not written
+	// Combinations names the combination rules of the sheet's actions as
+	// written after `combinations:` ("" when none).
+	Combinations    string
+	CombinationsPos diag.Range
 }
 
 // Cell is one named item of a sheet: an input, a derived cell, a check, a
@@ -68,6 +72,13 @@ type Cell struct {
 	// holds 0 here; Entries computes it.
 	Table   *funcs.TableValue
 	Entries []Entry
+	// Action is the item of an action cell (`action permanent G = ...`),
+	// nil for every other cell.
+	Action *sheet.Action
+	// LimitState is the limit state a check names after `in` ("" for the
+	// default one).
+	LimitState      string
+	LimitStateRange diag.Range
 }
 
 // Entry is a table entry written as an expression of the sheet's cells,
@@ -91,10 +102,13 @@ type Program struct {
 	File *sheet.File
 	// Files lists every file the program was built from: File first, then
 	// each template in the order it was first used (once each).
-	Files  []*sheet.File
-	Meta   Meta
-	Cells  []*Cell
-	ByName map[string]int
+	Files []*sheet.File
+	Meta  Meta
+	Cells []*Cell
+	// Factors are the sheet's factor lines (`factor gamma_Q = 1.5`), which
+	// replace factors of its combination rules.
+	Factors []*sheet.Factor
+	ByName  map[string]int
 	// Order lists every cell index in a topological order of the
 	// dependency graph (dependencies first; reading order between equals).
 	Order []int

@@ -372,6 +372,12 @@ func (s *State) setProblem(i int, d *diag.Diagnostic) {
 	s.Problem[i] = d
 }
 
+// SetProblem records d (nil: none) as the problem of cell i, for a caller
+// that puts together a state from others: the engine shows each check of a
+// sheet with actions at its governing combination, with the reason it is
+// not assessed there.
+func (s *State) SetProblem(i int, d *diag.Diagnostic) { s.setProblem(i, d) }
+
 // ownOverrides gives the state its own list of overrides before it
 // writes one (it starts with the machine's shared empty list).
 func (s *State) ownOverrides() {

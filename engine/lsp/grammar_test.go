@@ -376,7 +376,16 @@ func TestGrammar(t *testing.T) {
 				annot(it.Annot)
 			case *sheet.Check:
 				has("check name", it.Name.Range, "entity.name.function.check.sheaf")
+				if it.State.Name != "" {
+					has("limit state", it.State.Range, "constant.language.limit-state.sheaf")
+				}
 				notComment(it.Body.Range)
+				annot(it.Annot)
+			case *sheet.Action:
+				has("action kind", it.Kind.Range, "storage.modifier.action-kind.sheaf")
+				cell(&it.Cell)
+			case *sheet.Factor:
+				has("factor key", it.KeyRange, "variable.parameter.factor.sheaf")
 				annot(it.Annot)
 			case *sheet.Table:
 				has("table name", it.Name.Range, "entity.name.type.table.sheaf")
@@ -413,6 +422,15 @@ func TestGrammarLine(t *testing.T) {
 		{"σ_Ed [MPa] = N_Ed / A_σ  -- stress", "MPa", "entity.name.type.unit.sheaf"},
 		{"σ_Ed [MPa] = N_Ed / A_σ  -- stress", "A_σ", "variable.other.sheaf"},
 		{"θ = 30 °", "30", "constant.numeric.sheaf"},
+		{"combinations: EN 1990 6.10", "combinations", "keyword.other.header.sheaf"},
+		{"action imposed B Q [kN] = 5 kN  -- crowd", "imposed B", "storage.modifier.action-kind.sheaf"},
+		{"action imposed B Q [kN] = 5 kN  -- crowd", "Q", "variable.other.definition.sheaf"},
+		{"action imposed B Q [kN] = 5 kN  -- crowd", "kN", "entity.name.type.unit.sheaf"},
+		{"action permanent favourable G = 4 kN", "G", "variable.other.definition.sheaf"},
+		{"factor psi_0 imposed B = 0.7  -- annex", "psi_0 imposed B", "variable.parameter.factor.sheaf"},
+		{"factor psi_0 imposed B = 0.7  -- annex", "0.7", "constant.numeric.sheaf"},
+		{"check sag in quasi-permanent: d <= 6 mm", "quasi-permanent", "constant.language.limit-state.sheaf"},
+		{"check sag in quasi-permanent: d <= 6 mm", "sag", "entity.name.function.check.sheaf"},
 		{"θ = 30 °", "°", "entity.name.type.unit.sheaf"},
 		{"a = 12e-6 1/K", "1/K", "entity.name.type.unit.sheaf"},
 		{"a = 38kN", "kN", "entity.name.type.unit.sheaf"},

@@ -106,6 +106,16 @@ func encodeHints(hs []inlayHint) rawResult {
 // valueText returns the current value of c as shown beside its line, and
 // a tooltip with more precision.
 func (d *document) valueText(c *engine.Cell) (label, tooltip string) {
+	label, tooltip = d.plainValueText(c)
+	// A sheet with actions: a value that depends on them is that of one
+	// combination, which is named as the listing names it.
+	if m := d.state.CellCombination(c); m != "" {
+		label += " (" + m + ")"
+	}
+	return label, tooltip
+}
+
+func (d *document) plainValueText(c *engine.Cell) (label, tooltip string) {
 	if c.Kind == engine.Check {
 		util, ok := d.state.Number(c)
 		if !ok {

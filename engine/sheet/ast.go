@@ -16,7 +16,7 @@ type File struct {
 }
 
 // Item is one top-level construct: *Meta, *Heading, *Comment, *Blank, *Cell,
-// *FuncDef, *Check, *Table or *Use.
+// *FuncDef, *Check, *Table, *Use, *Action or *Factor.
 type Item interface {
 	Span() diag.Range
 }
@@ -126,7 +126,11 @@ type FuncDef struct {
 // Check is "check name: demand <= capacity -- ... @ ...". Body holds the whole
 // comparison; the checker splits it at its top-level comparison operator.
 type Check struct {
-	Name  Ident
+	Name Ident
+	// State is the limit state written after `in` (`check sag in
+	// frequent: ...`); its Name is "" when none is written (the default,
+	// ultimate limit state).
+	State Ident
 	Body  Expr
 	Annot Annot
 	Range diag.Range

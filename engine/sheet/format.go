@@ -23,7 +23,8 @@ import (
 //     item, keeping their indentation relative to one another;
 //   - table columns right-aligned (numbers line up on their last digit),
 //     two spaces apart, four spaces in;
-//   - use overrides four spaces in, aligned like cells;
+//   - use overrides four spaces in, aligned like cells; runs of actions
+//     and runs of factor lines aligned like cells, each apart;
 //   - comments, names, units, numbers and expression text exactly as
 //     written; one trailing newline; no trailing spaces.
 //
@@ -93,7 +94,39 @@ func Format(f *File) ([]byte, error) {
 				if !ok {
 					break
 				}
-				run = append(run, defRow{head: "check " + c.Name.Name + ":", body: c.Body.Text, annot: annotText(c.Annot), check: true})
+				head := "check " + c.Name.Name
+				if c.State.Name != "" {
+					head += " in " + c.State.Name
+				}
+				run = append(run, defRow{head: head + ":", body: c.Body.Text, annot: annotText(c.Annot), check: true})
+			}
+			pr.start()
+			pr.defs(run, "")
+			i = j
+		case *Action:
+			j := i
+			var run []defRow
+			for ; j < len(items); j++ {
+				a, ok := items[j].(*Action)
+				if !ok {
+					break
+				}
+				r := cellRow(&a.Cell)
+				r.head = "action " + a.Kind.Text() + " " + r.head
+				run = append(run, r)
+			}
+			pr.start()
+			pr.defs(run, "")
+			i = j
+		case *Factor:
+			j := i
+			var run []defRow
+			for ; j < len(items); j++ {
+				f, ok := items[j].(*Factor)
+				if !ok {
+					break
+				}
+				run = append(run, defRow{head: "factor " + f.Key, body: f.Value.Text, annot: annotText(f.Annot)})
 			}
 			pr.start()
 			pr.defs(run, "")

@@ -115,7 +115,11 @@ func summary(f *File) string {
 			}
 			b.WriteString(") [" + unit(x.Unit) + "] = " + expr(x.Body.Text) + " -- " + annot(x.Annot) + "\n")
 		case *Check:
-			b.WriteString("check " + x.Name.Name + ": " + expr(x.Body.Text) + " -- " + annot(x.Annot) + "\n")
+			b.WriteString("check " + x.Name.Name + " in " + x.State.Name + ": " + expr(x.Body.Text) + " -- " + annot(x.Annot) + "\n")
+		case *Action:
+			cell("action "+x.Kind.Text()+" ", &x.Cell)
+		case *Factor:
+			b.WriteString("factor " + x.Key + " = " + x.Value.Text + " -- " + annot(x.Annot) + "\n")
 		case *Table:
 			b.WriteString("table " + x.Name.Name + " -- " + annot(x.Annot) + "\n")
 			for _, c := range x.Columns {

@@ -162,6 +162,13 @@ func (p *parser) parseItem(i int) int {
 			j := p.extent(i, len(p.lines), 0, -1)
 			p.add(p.parseTable(i, j))
 			return j
+		case "action":
+			j := p.extent(i, len(p.lines), 0, headSplit(t, start, end))
+			p.add(p.parseAction(i, j))
+			return j
+		case "factor":
+			p.add(p.parseFactor(i))
+			return p.singleLine(i, "a factor line")
 		default:
 			j := p.extent(i, len(p.lines), 0, -1)
 			p.add(p.parseUse(i, j))
@@ -178,8 +185,15 @@ func (p *parser) parseItem(i int) int {
 	return j
 }
 
-// keyword reports whether word starts a check, table or use item.
-func keyword(word string) bool { return word == "check" || word == "table" || word == "use" }
+// keyword reports whether word starts a check, table, use, action or
+// factor item.
+func keyword(word string) bool {
+	switch word {
+	case "check", "table", "use", "action", "factor":
+		return true
+	}
+	return false
+}
 
 // endHeader notes that the header (meta lines) is over.
 func (p *parser) endHeader() { p.inHeader = false }
@@ -218,7 +232,8 @@ func (p *parser) unexpected(i, at int) {
 
 // expectedItem lists what may start a line.
 const expectedItem = "expected `name = expression`, `name [unit] = expression`, `check name: ...`, " +
-	"`table name`, `use name from \"file\"`, a `#` comment or a `## heading`"
+	"`table name`, `use name from \"file\"`, `action kind name = value`, `factor key = number`, " +
+	"a `#` comment or a `## heading`"
 
 // identEndLoose is identEnd that accepts a leading digit (for hints).
 func identEndLoose(t string, i, end int) int {

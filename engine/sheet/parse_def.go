@@ -10,7 +10,7 @@ import (
 // column or a template: the item keywords, the built-in constants and
 // literals, and the word operators of the expression syntax.
 var reserved = map[string]bool{
-	"check": true, "table": true, "use": true, "from": true,
+	"check": true, "table": true, "use": true, "from": true, "action": true, "factor": true,
 	"pi": true, "g_n": true, "true": true, "false": true,
 	"and": true, "or": true, "not": true, "in": true, "nil": true, "let": true,
 	"matches": true, "contains": true, "startsWith": true, "endsWith": true,
@@ -249,7 +249,7 @@ func (p *parser) params(i, at int) ([]Param, int, bool) {
 
 // parseCheck reads a design check on lines [i, j).
 //
-//	check = "check" name ":" expression [ annotation ] .
+//	check = "check" name [ "in" limit-state ] ":" expression [ annotation ] .
 func (p *parser) parseCheck(i, j int) Item {
 	ln := p.lines[i]
 	t := p.text
@@ -259,6 +259,10 @@ func (p *parser) parseCheck(i, j int) Item {
 		return nil
 	}
 	k = skipSpace(t, k+len(id.Name), ln.end)
+	state, k, sok := p.checkState(i, k)
+	if !sok {
+		return nil
+	}
 	if k >= ln.end || t[k] != ':' {
 		found := "the end of the line"
 		if k < ln.end {
@@ -273,7 +277,7 @@ func (p *parser) parseCheck(i, j int) Item {
 	if !ok || !bok {
 		return nil
 	}
-	return &Check{Name: id, Body: body, Annot: annot,
+	return &Check{Name: id, State: state, Body: body, Annot: annot,
 		Range: diag.Range{Start: p.posIn(i, ln.start), End: p.posIn(j-1, p.lines[j-1].end)}}
 }
 

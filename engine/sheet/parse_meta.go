@@ -8,7 +8,7 @@ import (
 )
 
 // metaKeys are the header keys, in their canonical order of mention.
-var metaKeys = []string{"title", "project", "basis", "author", "checker", "date", "revision", "units"}
+var metaKeys = []string{"title", "project", "basis", "author", "checker", "date", "revision", "units", "combinations"}
 
 func isMetaKey(k string) bool {
 	for _, m := range metaKeys {

@@ -26,7 +26,9 @@ type Document struct {
 	Failed     int       `json:"failed"`     // checks that fail or are not assessed
 	Uncomputed int       `json:"uncomputed"` // cells that could not be computed
 	Problems   []Problem `json:"problems"`
-	Caution    string    `json:"caution"`
+	// Combinations is present for a sheet with actions.
+	Combinations *Combinations `json:"combinations,omitempty"`
+	Caution      string        `json:"caution"`
 }
 
 // Meta is the header of the sheet.
@@ -61,6 +63,12 @@ type Cell struct {
 	Expr        string    `json:"expr,omitempty"`
 	Deps        []string  `json:"deps,omitempty"`
 	Columns     []Column  `json:"columns,omitempty"` // tables
+	// InCombination names the combination whose value a cell that depends
+	// on actions shows (an action itself shows its characteristic value).
+	InCombination string `json:"in_combination,omitempty"`
+	// Action is the kind of an action cell ("permanent", "imposed B", ...),
+	// whose value is its characteristic value.
+	Action string `json:"action,omitempty"`
 }
 
 // Field is a numeric or text field of a record value; a number carries
@@ -102,6 +110,9 @@ type Check struct {
 	Governing   string   `json:"governing,omitempty"` // the term of a min/max capacity that governs, as written
 	Description string   `json:"description,omitempty"`
 	Reference   string   `json:"reference,omitempty"`
+	// Combination is the outcome over the combinations of its limit state,
+	// for a check that depends on actions.
+	Combination *CheckCombination `json:"combination,omitempty"`
 }
 
 // Problem kinds.
@@ -176,6 +187,12 @@ func Build(r *engine.Results, exit int) *Document {
 		jc := Cell{Name: c.Cell.Name, Kind: c.Cell.Kind.String(), Section: c.Cell.Section, Known: c.Known,
 			Unit: c.Unit.Symbol, Text: c.Text, Description: c.Cell.Description, Reference: c.Cell.Reference,
 			Expr: c.Cell.Expr, Deps: c.Cell.Deps}
+		if c.Cell.Action != nil {
+			jc.Action = c.Cell.Action.Kind.Text()
+		}
+		if r.Combos != nil && r.Combos.CellIn[c.Cell.Index] >= 0 {
+			jc.InCombination = r.Combos.All[r.Combos.CellIn[c.Cell.Index]].Name
+		}
 		if t := c.Cell.Type; t != nil {
 			switch {
 			case t.Kind == funcs.Number:
@@ -239,8 +256,10 @@ func Build(r *engine.Results, exit int) *Document {
 		if c.Problem != nil {
 			jc.NotAssessed = c.Problem.Summary
 		}
+		jc.Combination = checkCombo(r, c)
 		d.Checks = append(d.Checks, jc)
 	}
+	d.Combinations = buildCombos(r)
 	for _, p := range r.Problems {
 		kind := KindRuntime
 		for _, c := range r.Checks {

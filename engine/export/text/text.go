@@ -34,6 +34,12 @@ func Write(w io.Writer, r *engine.Results, sigFigs int) error {
 		nameW = max(nameW, utf8.RuneCountInString(c.Cell.Name))
 		valW = max(valW, utf8.RuneCountInString(c.Text))
 	}
+	comboW := 0 // room for " (ULS 2)" after values that depend on actions
+	for _, c := range r.Cells {
+		if m := cellCombo(r, c.Cell); m != "" {
+			comboW = max(comboW, utf8.RuneCountInString(m)+3)
+		}
+	}
 	section := "\x00"
 	for _, c := range r.Cells {
 		if c.Cell.Kind == engine.Check {
@@ -47,12 +53,22 @@ func Write(w io.Writer, r *engine.Results, sigFigs int) error {
 				b.WriteString("\n")
 			}
 		}
-		line := "  " + pad(c.Cell.Name, nameW) + "  " + pad(c.Text, valW)
+		val, w := c.Text, valW
+		if r.Combos != nil {
+			w += comboW
+			if m := cellCombo(r, c.Cell); m != "" {
+				val += " (" + m + ")"
+			}
+		}
+		line := "  " + pad(c.Cell.Name, nameW) + "  " + pad(val, w)
 		line += annotation(c.Cell.Description, c.Cell.Reference)
 		b.WriteString(strings.TrimRight(line, " ") + "\n")
 	}
 	if len(r.Checks) > 0 {
 		writeChecks(&b, r, sigFigs)
+	}
+	if r.Combos != nil {
+		writeCombos(&b, r)
 	}
 	if r.Uncomputed() > 0 {
 		b.WriteString("\nNot computed\n------------\n")
@@ -94,7 +110,7 @@ func annotation(desc, ref string) string {
 
 func writeChecks(b *strings.Builder, r *engine.Results, sig int) {
 	b.WriteString("\nDesign checks\n-------------\n")
-	type row struct{ name, dem, cap, util, verdict, note string }
+	type row struct{ name, dem, cap, util, verdict, note, combo string }
 	var rows []row
 	var w [5]int
 	for _, c := range r.Checks {
@@ -117,6 +133,7 @@ func writeChecks(b *strings.Builder, r *engine.Results, sig int) {
 		if c.Problem != nil {
 			rw.note = "  " + Reason(c) + rw.note
 		}
+		rw.combo = checkCombo(r, c)
 		for i, s := range []string{rw.name, rw.dem, rw.cap, rw.util, rw.verdict} {
 			w[i] = max(w[i], utf8.RuneCountInString(s))
 		}
@@ -126,6 +143,9 @@ func writeChecks(b *strings.Builder, r *engine.Results, sig int) {
 		line := "  " + pad(rw.name, w[0]) + "  " + padLeft(rw.dem, w[1]) + " of " + padLeft(rw.cap, w[2]) +
 			"  " + padLeft(rw.util, w[3]) + "  " + pad(rw.verdict, w[4]) + rw.note
 		b.WriteString(strings.TrimRight(line, " ") + "\n")
+		if rw.combo != "" {
+			b.WriteString("    " + rw.combo + "\n")
+		}
 	}
 }
 

@@ -11,7 +11,9 @@ import (
 // that reads their inputs' flags.
 // Source: ECMA-376 Part 1, 18.3.1.10 cfRule (cellIs and expression rules).
 func TestVerdictColoursFollow(t *testing.T) {
-	s := load(t, "../../../sheets/cft-column.sheaf")
+	// encased-column has a squash load that only Sheaf computes.
+
+	s := load(t, "../../../sheets/encased-column.sheaf")
 	f := build(t, s, s.NewState().Eval())
 	cf, err := f.GetConditionalFormats(TabSummary)
 	if err != nil {
@@ -44,7 +46,7 @@ func TestVerdictColoursFollow(t *testing.T) {
 		}
 	}
 	if guarded == 0 {
-		t.Error("no value of cft-column is guarded, though its squash load is computed by Sheaf only")
+		t.Error("no value of encased-column is guarded, though its squash load is computed by Sheaf only")
 	}
 	if _, err := f.GetRows(TabRun); err != nil {
 		t.Errorf("no %s tab: %v", TabRun, err)

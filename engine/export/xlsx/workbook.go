@@ -1,6 +1,7 @@
 package xlsxout
 
 import (
+	"errors"
 	"fmt"
 	"regexp"
 	"slices"
@@ -103,8 +104,19 @@ func Build(s *engine.Sheet, r *engine.Results, opt Options) (*excelize.File, Sta
 	return x.f, x.stats, nil
 }
 
+// ErrActions is the error of a sheet with actions: its cells hold the
+// values of several combinations (each check its governing one, the
+// actions their characteristic values), and the workbook's live formulas
+// would combine the characteristic values as written, so the numbers would
+// not follow the checks. Refused until the workbook carries the
+// combinations.
+var ErrActions = errors.New("the sheet has actions; the workbook does not yet carry their combinations, so it is not written (sheaf run --combinations gives the table)")
+
 // export builds the workbook and returns the exporter with its layout.
 func export(s *engine.Sheet, r *engine.Results, opt Options) (*exporter, error) {
+	if s.Combos() != nil {
+		return &exporter{}, ErrActions
+	}
 	n := len(r.Cells)
 	x := &exporter{s: s, r: r, sig: opt.SigFigs, gen: opt.Generator, names: newNamer(n), values: make(map[string]valueAt, n)}
 	if x.sig <= 0 {
