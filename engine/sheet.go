@@ -58,8 +58,7 @@ func Load(path string, opts ...Option) (*Sheet, error) {
 	if err != nil {
 		var tl *userfile.TooLargeError
 		if errors.As(err, &tl) {
-			return nil, diag.List{{Range: diag.Range{Start: diag.Pos{File: path}}, Summary: fmt.Sprintf("sheet is too large: %d bytes, the limit is %d", tl.Size, tl.Limit),
-				Detail: "a sheet is written by a person; split it, or raise the limit"}}
+			return nil, tooLarge(path, tl.Size, int(tl.Limit))
 		}
 		return nil, err
 	}
@@ -127,7 +126,7 @@ func compileFile(f *sheet.File, cfg config) (*Sheet, error) {
 // tooLarge is the error of a sheet over the size limit, found before it
 // is read or parsed.
 func tooLarge(name string, size int64, limit int) diag.List {
-	return diag.List{{Range: diag.Range{Start: diag.Pos{File: name}},
+	return diag.List{{Range: diag.Range{Start: diag.Pos{File: name, Line: 1, Col: 1}},
 		Summary: fmt.Sprintf("sheet is too large: %d bytes, the limit is %d", size, limit),
 		Detail:  "a sheet is written by a person; it was refused before parsing",
 		Hint:    "split it into sheets that use one another, or raise the limit (sheaf: --max-bytes N; Go: engine.WithMaxBytes)"}}

@@ -38,7 +38,10 @@ func rowHeight(cells []excelize.Cell, widths []float64, mono []bool) float64 {
 		}
 		lines = max(lines, wrappedLines(text, widths[i]*per))
 	}
-	return float64(lines) * lineHeight
+	// A row may be at most excelize.MaxRowHeight (409 points, the limit of
+	// the format) tall: a longer text is cut off on screen and on paper,
+	// but it stays whole in its cell, and the export never fails over it.
+	return min(float64(lines)*lineHeight, excelize.MaxRowHeight)
 }
 
 // wrappedLines estimates the lines text takes in a column that holds chars

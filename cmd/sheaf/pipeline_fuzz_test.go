@@ -1,0 +1,78 @@
+package main
+
+import (
+	"bytes"
+	"io"
+	"os"
+	"path/filepath"
+	"testing"
+	"time"
+
+	"github.com/sheafcalc/sheaf/engine"
+	"github.com/sheafcalc/sheaf/engine/diff"
+	"github.com/sheafcalc/sheaf/engine/export/jsonout"
+	"github.com/sheafcalc/sheaf/engine/export/report"
+	"github.com/sheafcalc/sheaf/engine/export/text"
+	xlsxout "github.com/sheafcalc/sheaf/engine/export/xlsx"
+	"github.com/sheafcalc/sheaf/engine/sheet"
+)
+
+// FuzzPipeline runs a sheet through everything a user can ask of it:
+// canonical layout, compile, evaluation, the text and JSON listings, a
+// diff with itself, the workbook and the report, with every function
+// family linked in. No input may panic or take longer than the budget;
+// the formatted sheet must compile as the original does and give the same
+// listing; a diff of a run with itself must be empty. Seeds: the bundled
+// sheets and testdata/fuzz/FuzzPipeline.
+func FuzzPipeline(f *testing.F) {
+	files, _ := filepath.Glob("../../sheets/*.sheaf")
+	for _, p := range files {
+		if src, err := os.ReadFile(p); err == nil {
+			f.Add(src)
+		}
+	}
+	f.Fuzz(func(t *testing.T, src []byte) {
+		if len(src) > 16<<10 {
+			return
+		}
+		start := time.Now()
+		opts := []engine.Option{engine.WithMaxCells(500)}
+		s, err := engine.Compile("f.sheaf", src, opts...)
+		pf, _ := sheet.Parse("f.sheaf", src)
+		if pf != nil && len(pf.Syntax) == 0 {
+			out, ferr := sheet.Format(pf)
+			if ferr == nil {
+				s2, err2 := engine.Compile("f.sheaf", out, opts...)
+				if (err == nil) != (err2 == nil) {
+					t.Fatalf("the formatted sheet compiles %v, the original %v\n%s", err2, err, out)
+				}
+				if err == nil {
+					var a, b bytes.Buffer
+					_ = text.Write(&a, s.Run(nil), engine.DefaultSigFigs)
+					_ = text.Write(&b, s2.Run(nil), engine.DefaultSigFigs)
+					if !bytes.Equal(a.Bytes(), b.Bytes()) {
+						t.Fatalf("the formatted sheet lists differently:\n%s\n---\n%s", a.String(), b.String())
+					}
+				}
+			}
+		}
+		if err != nil {
+			return
+		}
+		r := s.Run(nil)
+		_ = text.Write(io.Discard, r, engine.DefaultSigFigs)
+		_ = jsonout.Write(io.Discard, r)
+		if d := diff.Compare("a", r, "b", s.Run(nil), diff.Options{}); !d.Empty() {
+			t.Fatalf("a run differs from itself: %+v", d)
+		}
+		if f, _, err := xlsxout.Build(s, r, xlsxout.Options{}); err == nil {
+			_ = f.Close()
+		}
+		if report.Refusal(s) == "" {
+			_ = report.Render(s, r, report.Options{})
+		}
+		if d := time.Since(start); d > 20*time.Second {
+			t.Fatalf("one input took %s", d)
+		}
+	})
+}
