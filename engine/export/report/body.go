@@ -64,7 +64,9 @@ func (d *doc) sections() {
 		case *sheet.FuncDef:
 			d.itemCell(it.Name.Name, &open, start)
 		case *sheet.Check:
-			d.itemCell(it.Name.Name, &open, start)
+			for _, name := range checkCells(it.Name.Name, d.s.Lookup) {
+				d.itemCell(name, &open, start)
+			}
 		case *sheet.Table:
 			if !open {
 				start("", false)
@@ -255,7 +257,9 @@ func (d *doc) templateItems(f *sheet.File, prefix, no string) {
 		case *sheet.FuncDef:
 			d.templateCell(prefix + it.Name.Name)
 		case *sheet.Check:
-			d.templateCell(prefix + it.Name.Name)
+			for _, name := range checkCells(prefix+it.Name.Name, d.prog.Lookup) {
+				d.templateCell(name)
+			}
 		case *sheet.Table:
 			d.table(d.prog.Lookup(prefix+it.Name.Name), it)
 		case *sheet.Use:
@@ -282,3 +286,18 @@ func (d *doc) math(f func(b *strings.Builder)) {
 }
 
 func anchor(name string) string { return "c-" + esc(name) }
+
+// checkCells names the check cells a check item made: itself, or for a
+// range check (`lo <= x <= hi`) its two halves name_min and name_max.
+func checkCells(name string, lookup func(string) *engine.Cell) []string {
+	if lookup(name) != nil {
+		return []string{name}
+	}
+	var out []string
+	for _, n := range []string{name + "_min", name + "_max"} {
+		if lookup(n) != nil {
+			out = append(out, n)
+		}
+	}
+	return out
+}

@@ -54,3 +54,15 @@ check tension: N_Ed <= N_Rd
 		})
 	}
 }
+
+// TestRangeCheckInBody: a check between two limits is written in the body
+// as its two checks, at the line of the item that made them.
+func TestRangeCheckInBody(t *testing.T) {
+	s, r := compile(t, "range.sheaf", "r = 0.45\ncheck spacing: 0.2 <= r <= 0.9\n")
+	html := Render(s, r, testOptions)
+	for _, id := range []string{`id="c-spacing_min"`, `id="c-spacing_max"`} {
+		if !strings.Contains(html, id) {
+			t.Errorf("the body lacks %s", id)
+		}
+	}
+}
