@@ -333,3 +333,35 @@ func TestValueRefusesWhatIsNotDecimal(t *testing.T) {
 		}
 	}
 }
+
+// TestPercentNeedsItsUnit: a bare number for an input shown in % is
+// refused unless the header gives the unit (5 would be 500 %).
+func TestPercentNeedsItsUnit(t *testing.T) {
+	s, err := engine.Compile("t.sheaf", []byte("share [%] = 5 %\nk = share * 2\n"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, c := range []struct {
+		csv  string
+		want float64 // SI, 0 when refused
+	}{
+		{"share\n7\n", 0},
+		{"share\n7 %\n", 0.07},
+		{"share [%]\n7\n", 0.07},
+	} {
+		cs, err := batch.Read("t.csv", []byte(c.csv), s)
+		if err != nil {
+			t.Fatal(err)
+		}
+		row := cs.Cases[0]
+		switch {
+		case c.want == 0 && row.Err == nil:
+			t.Errorf("%q: accepted %v", c.csv, row.Values)
+		case c.want != 0 && (row.Err != nil || row.Values[0] != c.want):
+			t.Errorf("%q: %v %v, want %g", c.csv, row.Values, row.Err, c.want)
+		}
+	}
+	if _, err := s.ParseInput("share", "7"); err == nil {
+		t.Error("--set share=7 was accepted")
+	}
+}

@@ -674,7 +674,43 @@ func (c *checker) fitsUnit(t *typer, cell *Cell, body *Node) bool {
 			hint, "display unit %s is %s but the expression is %s", cell.Unit.Symbol, article(what), t.describeDim(body.Type.Dim))
 		return false
 	}
+	if v, ok := bareNumber(cell.Formula); ok && cell.Unit.Dim.IsNone() && cell.Unit.Factor != 1 {
+		// `share [%] = 5` would be 500 %: a plain number is a fraction of
+		// one, and the author almost always meant the number in the
+		// bracket's unit. As with angles, the unit is written, not guessed.
+		text := strings.TrimSpace(cell.Formula.Source.Text)
+		t.errs.Errorf(cell.Formula.Source.Range,
+			"a plain number is a fraction of one, so in ["+cell.Unit.Symbol+"] this would show "+formatScaled(v, cell.Unit.Factor)+" "+cell.Unit.Symbol,
+			"write the unit after the number, `"+text+" "+cell.Unit.Symbol+"`; a fraction is written in the unit too ("+formatScaled(v, 1)+" is `"+formatScaled(v, cell.Unit.Factor)+" "+cell.Unit.Symbol+"`)",
+			"a plain number written for [%s] is ambiguous", cell.Unit.Symbol)
+		return false
+	}
 	return true
+}
+
+// bareNumber reports whether formula f is a plain number literal, perhaps
+// signed or in brackets, and its value.
+func bareNumber(f *formula.Formula) (float64, bool) {
+	sign := 1.0
+	for n := f.Root; n >= 0; {
+		nd := f.Nodes[n]
+		switch {
+		case nd.Kind == formula.KNumber:
+			return sign * f.Num(n), true
+		case nd.Kind == formula.KParen, nd.Kind == formula.KUnary && nd.Op == formula.OpPlus:
+			n = nd.A
+		case nd.Kind == formula.KUnary && nd.Op == formula.OpNeg:
+			sign, n = -sign, nd.A
+		default:
+			return 0, false
+		}
+	}
+	return 0, false
+}
+
+// formatScaled writes v in a unit of factor f, shortest form.
+func formatScaled(v, f float64) string {
+	return strconv.FormatFloat(v/f, 'g', 6, 64)
 }
 
 func article(s string) string {
