@@ -32,7 +32,7 @@ type uses struct {
 	replaced map[int]*replaced
 	// targets caches, per formula, the cell each member chain `rod.x`
 	// refers to, keyed by the chain's root identifier.
-	targets map[*formula.Formula]map[int32]int
+	targets map[*formula.Formula][]target
 	// cells caches expandedCells by file.
 	cells map[*sheet.File]int
 }
@@ -78,7 +78,7 @@ func (u *uses) aliasPos(name string) diag.Pos {
 func (c *checker) useTemplate(from *sheet.File, u *sheet.Use, scope string, depth int) {
 	if c.use == nil {
 		c.use = &uses{ld: newLoader(c.prog.File, c.opt), aliases: map[string]*alias{},
-			replaced: map[int]*replaced{}, targets: map[*formula.Formula]map[int32]int{}, cells: map[*sheet.File]int{}}
+			replaced: map[int]*replaced{}, targets: map[*formula.Formula][]target{}, cells: map[*sheet.File]int{}}
 	}
 	name := scope + u.Name.Name
 	if IsReserved(u.Name.Name) {
@@ -154,19 +154,31 @@ func (c *checker) ref(cell *Cell, f *formula.Formula, n int32) (int, bool) {
 	if c.use == nil || !c.use.isAlias(cell.Scope+name) {
 		return 0, false
 	}
-	m, ok := c.use.targets[f]
+	ts, ok := c.use.targets[f]
 	if !ok {
-		m = c.memberTargets(cell, f)
-		c.use.targets[f] = m
+		ts = c.memberTargets(cell, f)
+		c.use.targets[f] = ts
 	}
-	i, ok := m[n]
-	return i, ok
+	for k := len(ts) - 1; k >= 0; k-- { // the longest chain of a root was found last
+		if ts[k].root == n {
+			return ts[k].cell, true
+		}
+	}
+	return 0, false
+}
+
+// target is a member chain `rod.x` of a formula, by its root name node,
+// and the template's cell it names. A formula has a few: a slice beats a
+// map for them.
+type target struct {
+	root int32
+	cell int
 }
 
 // memberTargets finds the member chains of formula f of cell that name a
 // template's cell, keyed by the chain's root name node.
-func (c *checker) memberTargets(cell *Cell, f *formula.Formula) map[int32]int {
-	m := map[int32]int{}
+func (c *checker) memberTargets(cell *Cell, f *formula.Formula) []target {
+	var ts []target
 	for k := range f.Nodes {
 		nd := &f.Nodes[k]
 		if nd.Kind != formula.KField {
@@ -177,10 +189,10 @@ func (c *checker) memberTargets(cell *Cell, f *formula.Formula) map[int32]int {
 			continue
 		}
 		if i, ok := c.prog.ByName[prefix+f.Text(nd.B)]; ok {
-			m[root] = i
+			ts = append(ts, target{root, i})
 		}
 	}
-	return m
+	return ts
 }
 
 // usePath reports whether node n of cell's formula names a template use in

@@ -95,6 +95,10 @@ func (p *parser) parse() (ok bool) {
 	}()
 	// A formula has about one node per three bytes of text.
 	p.f.Nodes = make([]Node, 0, len(p.lex.src)/3+1)
+	// Most formulas hold a few names and numbers: room for them up front
+	// saves the growth of three small slices per formula.
+	p.f.Refs = make([]int32, 0, 4)
+	p.f.Nums = make([]float64, 0, 2)
 	p.next()
 	root := p.expression()
 	if p.opt.Range && p.tok.kind == tOp && isCompare(p.tok.text) && p.f.Nodes[root].Kind == KBinary && p.f.Nodes[root].Op.IsComparison() {
