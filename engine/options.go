@@ -24,6 +24,7 @@ type config struct {
 	maxBytes  int
 	maxLines  int
 	maxCells  int
+	maxSteps  int
 	maxDepth  int
 	system    units.System
 	hasSystem bool
@@ -69,6 +70,18 @@ func WithMaxCells(n int) Option {
 	}
 }
 
+// WithMaxEvalSteps limits the work one evaluation of a cell may take,
+// counted in typed nodes with every call of the sheet's functions expanded
+// (default check.MaxEvalSteps, 10 million); a cell over it is refused at
+// check time.
+func WithMaxEvalSteps(n int) Option {
+	return func(c *config) {
+		if n > 0 {
+			c.maxSteps = n
+		}
+	}
+}
+
 // WithMaxDepth limits the nesting of an expression (default 64).
 func WithMaxDepth(n int) Option {
 	return func(c *config) {
@@ -110,5 +123,5 @@ func WithLoader(l Loader) Option {
 }
 
 func (c config) checkOptions() check.Options {
-	return check.Options{MaxCells: c.maxCells, MaxDepth: c.maxDepth, MaxBytes: c.maxBytes, System: c.system, HasSystem: c.hasSystem, Loader: c.loader}
+	return check.Options{MaxCells: c.maxCells, MaxDepth: c.maxDepth, MaxBytes: c.maxBytes, MaxSteps: c.maxSteps, System: c.system, HasSystem: c.hasSystem, Loader: c.loader}
 }

@@ -1,6 +1,7 @@
 package engine_test
 
 import (
+	"fmt"
 	"strings"
 	"testing"
 
@@ -62,5 +63,24 @@ func TestReset(t *testing.T) {
 	}
 	if err := st.Reset("a"); err == nil || !strings.Contains(err.Error(), "only inputs can be set") {
 		t.Errorf("reset of a derived cell: %v", err)
+	}
+}
+
+// TestMaxEvalSteps: the evaluation budget is an option; a function that
+// doubles its work at each of 12 levels (about 8,000 steps) passes the
+// default and is refused under a budget of 1,000.
+func TestMaxEvalSteps(t *testing.T) {
+	var b strings.Builder
+	b.WriteString("f0(x) = x + 1\n")
+	for i := 1; i <= 12; i++ {
+		fmt.Fprintf(&b, "f%d(x) = f%d(x) + f%d(x)\n", i, i-1, i-1)
+	}
+	b.WriteString("y = f12(2)\n")
+	if _, err := engine.Compile("t.sheaf", []byte(b.String())); err != nil {
+		t.Fatalf("default budget: %v", err)
+	}
+	_, err := engine.Compile("t.sheaf", []byte(b.String()), engine.WithMaxEvalSteps(1000))
+	if err == nil || !strings.Contains(err.Error(), "too costly to evaluate") {
+		t.Fatalf("budget 1000: %v", err)
 	}
 }

@@ -5,7 +5,8 @@ import (
 	"math"
 )
 
-// MaxEvalSteps bounds the work one evaluation of a cell may take, counted
+// MaxEvalSteps is the default bound (Options.MaxSteps) on the work one
+// evaluation of a cell may take, counted
 // in typed nodes with every call of a user function expanded. Functions
 // that call the one before them twice, thirty times over, are a few lines
 // of text and a billion steps: they are refused before anything runs.
@@ -16,6 +17,10 @@ const MaxEvalSteps = 10_000_000
 // mistake, one message).
 func (c *checker) budget() {
 	p := c.prog
+	limit := float64(MaxEvalSteps)
+	if c.opt.MaxSteps > 0 {
+		limit = float64(c.opt.MaxSteps)
+	}
 	cost := make([]float64, len(p.Cells)) // steps of one evaluation; +Inf: over budget, reported
 	var size func(n *Node) float64
 	size = func(n *Node) float64 {
@@ -45,9 +50,9 @@ func (c *checker) budget() {
 			continue
 		}
 		cost[i] = s
-		if s > MaxEvalSteps {
+		if s > limit {
 			cost[i] = math.Inf(1)
-			c.errs.Errorf(cell.Formula.Source.Range, fmt.Sprintf("one evaluation of `%s` takes about %.3g steps, counting every call of the sheet's functions it makes; the limit is %d", cell.Name, s, MaxEvalSteps),
+			c.errs.Errorf(cell.Formula.Source.Range, fmt.Sprintf("one evaluation of `%s` takes about %.3g steps, counting every call of the sheet's functions it makes; the limit is %.0f", cell.Name, s, limit),
 				"a function that calls another twice doubles the work at every level: compute the inner value once in a cell of its own and call with it",
 				"`%s` is too costly to evaluate", cell.Name)
 		}

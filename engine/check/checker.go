@@ -18,6 +18,7 @@ import (
 type Options struct {
 	MaxCells  int          // 0 means DefaultMaxCells
 	MaxDepth  int          // expression nesting; 0 means formula.DefaultMaxDepth
+	MaxSteps  int          // work of one evaluation of a cell; 0 means MaxEvalSteps
 	MaxBytes  int          // size of a template file; 0 means sheet.DefaultMaxBytes
 	System    units.System // preferred units in messages; Neutral means the sheet's own
 	HasSystem bool
