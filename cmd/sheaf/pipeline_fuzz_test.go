@@ -61,49 +61,47 @@ func FuzzPipeline(f *testing.F) {
 // pipeline runs src through every writer; it reports with t.Errorf, as
 // it runs on a goroutine of its own.
 func pipeline(t *testing.T, src []byte) {
-	{
-		opts := []engine.Option{engine.WithMaxCells(500)}
-		s, err := engine.Compile("f.sheaf", src, opts...)
-		pf, _ := sheet.Parse("f.sheaf", src)
-		if pf != nil && len(pf.Syntax) == 0 {
-			out, ferr := sheet.Format(pf)
-			if ferr == nil {
-				s2, err2 := engine.Compile("f.sheaf", out, opts...)
-				if (err == nil) != (err2 == nil) {
-					t.Errorf("the formatted sheet compiles %v, the original %v\n%s", err2, err, out)
+	opts := []engine.Option{engine.WithMaxCells(500)}
+	s, err := engine.Compile("f.sheaf", src, opts...)
+	pf, _ := sheet.Parse("f.sheaf", src)
+	if pf != nil && len(pf.Syntax) == 0 {
+		out, ferr := sheet.Format(pf)
+		if ferr == nil {
+			s2, err2 := engine.Compile("f.sheaf", out, opts...)
+			if (err == nil) != (err2 == nil) {
+				t.Errorf("the formatted sheet compiles %v, the original %v\n%s", err2, err, out)
+				return
+			}
+			if err == nil {
+				var a, b bytes.Buffer
+				_ = text.Write(&a, s.Run(nil), engine.DefaultSigFigs)
+				_ = text.Write(&b, s2.Run(nil), engine.DefaultSigFigs)
+				if !bytes.Equal(a.Bytes(), b.Bytes()) {
+					t.Errorf("the formatted sheet lists differently:\n%s\n---\n%s", a.String(), b.String())
 					return
 				}
-				if err == nil {
-					var a, b bytes.Buffer
-					_ = text.Write(&a, s.Run(nil), engine.DefaultSigFigs)
-					_ = text.Write(&b, s2.Run(nil), engine.DefaultSigFigs)
-					if !bytes.Equal(a.Bytes(), b.Bytes()) {
-						t.Errorf("the formatted sheet lists differently:\n%s\n---\n%s", a.String(), b.String())
-						return
-					}
-				}
 			}
 		}
-		if err != nil {
-			return
+	}
+	if err != nil {
+		return
+	}
+	r := s.Run(nil)
+	_ = text.Write(io.Discard, r, engine.DefaultSigFigs)
+	_ = jsonout.Write(io.Discard, r)
+	if d := diff.Compare("a", r, "b", s.Run(nil), diff.Options{}); !d.Empty() {
+		t.Errorf("a run differs from itself: %+v", d)
+		return
+	}
+	// The workbook and the report cost tens of milliseconds a sheet
+	// (far more under the fuzzer's instrumentation): the small inputs,
+	// which the mutations of the short seeds stay, get them.
+	if len(src) <= 2048 {
+		if f, _, err := xlsxout.Build(s, r, xlsxout.Options{}); err == nil {
+			_ = f.Close()
 		}
-		r := s.Run(nil)
-		_ = text.Write(io.Discard, r, engine.DefaultSigFigs)
-		_ = jsonout.Write(io.Discard, r)
-		if d := diff.Compare("a", r, "b", s.Run(nil), diff.Options{}); !d.Empty() {
-			t.Errorf("a run differs from itself: %+v", d)
-			return
-		}
-		// The workbook and the report cost tens of milliseconds a sheet
-		// (far more under the fuzzer's instrumentation): the small inputs,
-		// which the mutations of the short seeds stay, get them.
-		if len(src) <= 2048 {
-			if f, _, err := xlsxout.Build(s, r, xlsxout.Options{}); err == nil {
-				_ = f.Close()
-			}
-			if report.Refusal(s) == "" {
-				_ = report.Render(s, r, report.Options{})
-			}
+		if report.Refusal(s) == "" {
+			_ = report.Render(s, r, report.Options{})
 		}
 	}
 }

@@ -341,6 +341,7 @@ func TestPercentNeedsItsUnit(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
+	// Source: ISO 80000-1 (2009) 7.1, % = 0.01.
 	for _, c := range []struct {
 		csv  string
 		want float64 // SI, 0 when refused

@@ -114,11 +114,12 @@ func decimal(text string) bool {
 	return i == len(text)
 }
 
-// looksNumeric reports whether strconv.ParseFloat would read text as a
-// number although it is not a plain decimal (0x1p4, NaN, Inf, 1_000).
+// looksNumeric reports whether text reads as a number although it is not a
+// plain decimal: a form strconv.ParseFloat accepts (0x1p4, NaN, Inf) or
+// digits grouped with `_` (1_000).
 func looksNumeric(text string) bool {
 	_, err := strconv.ParseFloat(text, 64)
-	return err == nil || strings.ContainsAny(text, "_")
+	return err == nil || strings.Contains(text, "_") && decimal(strings.ReplaceAll(text, "_", ""))
 }
 
 // splitQuantity splits "45 kN", "45kN" or "2.5e3 N/mm^2" into the number and

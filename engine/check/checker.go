@@ -161,7 +161,7 @@ func (c *checker) collectFile(f *sheet.File, scope string, depth int) {
 		}
 		cells := []*Cell{cell}
 		if ck, ok := it.(*sheet.Check); ok {
-			if lo, hi := rangeCheck(ck, cell); lo != nil {
+			if lo, hi := c.rangeCheck(ck, cell); lo != nil {
 				cells = []*Cell{lo, hi}
 			}
 		}
@@ -205,9 +205,17 @@ func (c *checker) addCell(cell *Cell, section, scope string) {
 // are reported and the one nearer governs by itself. The formulas of the
 // two are the two halves of the text as written (`lo <= x`, `x <= hi`):
 // positions stay those of the sheet. It returns nils for any other check.
-func rangeCheck(ck *sheet.Check, cell *Cell) (lo, hi *Cell) {
-	f, errs := formula.Parse(ck.Body, formula.Options{Range: true})
-	if f == nil || errs.HasErrors() || f.Nodes[f.Root].Kind != formula.KRange {
+func (c *checker) rangeCheck(ck *sheet.Check, cell *Cell) (lo, hi *Cell) {
+	// The check's formula is parsed here, once: parseAll leaves a parsed
+	// formula alone. A check that is not a range keeps it, with its
+	// problems (a range that points two ways says why).
+	ok, errs := cell.Formula.ParseSource(formula.Options{MaxDepth: c.opt.MaxDepth, Range: true})
+	f := cell.Formula
+	if !ok || errs.HasErrors() || f.Nodes[f.Root].Kind != formula.KRange {
+		c.errs = append(c.errs, errs...)
+		if !ok || errs.HasErrors() {
+			cell.Formula = nil
+		}
 		return nil, nil
 	}
 	r := f.Nodes[f.Root]
@@ -399,10 +407,9 @@ func (c *checker) typeEntries(cell *Cell, sys units.System) {
 func (c *checker) parseAll() {
 	opt := formula.Options{MaxDepth: c.opt.MaxDepth}
 	for _, cell := range c.prog.Cells {
-		if cell.Formula == nil {
-			continue
+		if cell.Formula == nil || cell.Formula.Nodes != nil {
+			continue // none, or parsed already (a check: rangeCheck)
 		}
-		opt.Range = cell.Kind == Check // a check between two limits that did not split says why
 		ok, errs := cell.Formula.ParseSource(opt)
 		c.errs = append(c.errs, errs...)
 		if !ok || errs.HasErrors() {

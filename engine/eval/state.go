@@ -272,22 +272,12 @@ func (s *State) run(i int) {
 		s.Known[i] = true
 		return
 	case check.Table:
-		if s.over[i] {
+		if !s.over[i] && s.M.val[i] == nil { // a table of numbers as written
+			f.Val[i] = c.Table
 			s.Known[i] = true
 			return
 		}
-		if fn := s.M.val[i]; fn != nil {
-			v := fn(f)
-			if f.Fail != nil {
-				s.failed(c, f.Fail)
-				return
-			}
-			f.Val[i] = v
-		} else {
-			f.Val[i] = c.Table
-		}
-		s.Known[i] = true
-		return
+		// A table with entries that follow cells takes the general path.
 	case check.Check:
 		d := s.M.demand[i](f)
 		cp := s.M.capacity[i](f)

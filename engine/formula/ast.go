@@ -66,11 +66,9 @@ func (o Op) IsComparison() bool { return o >= OpLT && o <= OpNE }
 type Node struct {
 	Kind Kind
 	Op   Op
-	// Callee marks a KName node that names the function of a call.
-	Callee bool
-	Op2    Op    // the second operator of a KRange
-	From   int32 // byte span of the node in the formula text, children included
-	To     int32
+	Op2  Op    // the second operator of a KRange
+	From int32 // byte span of the node in the formula text, children included
+	To   int32
 	// A, B, C are child node indices (-1 when absent). For KNumber and
 	// KBool A indexes Formula.Nums; for KQuantity Formula.Quantities; for
 	// KCall, KList and KRecord C is the start of the arguments in
@@ -128,12 +126,7 @@ func (f *Formula) Quantity(n int32) *Quantity { return &f.Quantities[f.Nodes[n].
 // QuantityText returns the literal as written, e.g. "38 kN".
 func (f *Formula) QuantityText(q *Quantity) string { return f.Source.Text[q.From:q.To] }
 
-// QuantityRange returns the sheet range of a quantity literal.
-func (f *Formula) QuantityRange(q *Quantity) diag.Range {
-	return f.Source.RangeAt(int(q.From), int(q.To))
-}
-
-// Args returns the arguments of a KCall, KList or KRecord node.
+// ArgList returns the arguments of a KCall, KList or KRecord node.
 func (f *Formula) ArgList(n int32) []int32 {
 	nd := &f.Nodes[n]
 	count := nd.B
@@ -160,6 +153,3 @@ func (f *Formula) Range(n int32) diag.Range {
 
 // RefName returns the name of reference i (an index into Refs).
 func (f *Formula) RefName(i int) string { return f.Text(f.Refs[i]) }
-
-// IsCallee reports whether the KName node n is the callee of a call.
-func (f *Formula) IsCallee(n int32) bool { return f.Nodes[n].Callee }

@@ -32,11 +32,11 @@ const syntaxDetail = "formulas use + - * / ^, comparisons, `a ? b : c`, calls f(
 // the unit errors (the literal's Unit has Factor 0).
 func Parse(e sheet.Expr, opt Options) (*Formula, diag.List) {
 	f := &Formula{Source: e}
-	if ok, errs := f.ParseSource(opt); !ok {
+	ok, errs := f.ParseSource(opt)
+	if !ok {
 		return nil, errs
-	} else {
-		return f, errs
 	}
+	return f, errs
 }
 
 // ParseSource parses f.Source into f itself, for callers that allocated the
@@ -436,7 +436,6 @@ func (p *parser) number() int32 {
 func (p *parser) call() int32 {
 	t := p.tok
 	callee := p.name(true)
-	p.f.Nodes[callee].Callee = true
 	p.next() // (
 	if p.isOp(")") {
 		p.next()

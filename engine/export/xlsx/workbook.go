@@ -75,9 +75,6 @@ type exporter struct {
 	opaque   []bool
 	reads    [][]string
 	stats    Stats
-	// templates holds the syntax trees of templates whose tables are
-	// exported (see tableColumns).
-	templates map[string]*sheet.File
 	// liveField marks the fields of records made by a plugin call that the
 	// workbook computes by the plugin's spreadsheet form (tube.A).
 	liveField   map[string]bool
@@ -530,14 +527,10 @@ func (x *exporter) tableUnits(c *check.Cell, t *funcs.TableValue) []units.Unit {
 // tableColumns returns the header of the table item that wrote cell c, in
 // the file it was written in: the sheet, or the template a `use` inlined
 // it from (there its name is the template's own, without the scope).
-//
-// The checked program does not keep the syntax trees of its files, and
-// Sheet.File gives the sheet's own only, so a template's header is read
-// by parsing the template's text again, once per file and only when one
-// of its tables is exported. This is a stopgap until the checked program
-// carries the written unit of each table column (issue 9); before it, a
-// template's table was shown in the preferred unit under a header the
-// template does not have (lengths written in cm shown in mm).
+// The checked program keeps the parsed files (Program.Files), so the header
+// is read as it was checked; a template's table used to be shown in the
+// preferred unit under a header the template does not have (lengths
+// written in cm shown in mm).
 func (x *exporter) tableColumns(c *check.Cell) []sheet.Column {
 	if tb := x.tableItem(c); tb != nil {
 		return tb.Columns
@@ -549,23 +542,11 @@ func (x *exporter) tableColumns(c *check.Cell) []sheet.Column {
 func (x *exporter) tableItem(c *check.Cell) *sheet.Table {
 	name := strings.TrimPrefix(c.Name, c.Scope)
 	var file *sheet.File
-	if c.Pos.File == x.s.Name() {
-		file = x.s.File()
-	} else {
-		if x.templates == nil {
-			x.templates = map[string]*sheet.File{}
+	for _, pf := range x.s.Program().Files {
+		if pf != nil && pf.Name == c.Pos.File {
+			file = pf
+			break
 		}
-		f, done := x.templates[c.Pos.File]
-		if !done {
-			for _, pf := range x.s.Program().Files {
-				if pf != nil && pf.Name == c.Pos.File {
-					f, _ = sheet.Parse(pf.Name, pf.Src)
-					break
-				}
-			}
-			x.templates[c.Pos.File] = f
-		}
-		file = f
 	}
 	if file == nil {
 		return nil
