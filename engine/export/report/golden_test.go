@@ -19,8 +19,14 @@ var hashRE = regexp.MustCompile(`[0-9a-f]{64}|SHA-256 [0-9a-f]{12}`)
 
 // normaliseHTML puts each block element on a line of its own, so that a
 // golden diff shows the cell that changed.
+// styleRE is the report's style sheet: its @page rule (the running header
+// and footer of the sheet) stays in each page's golden; the rest is the
+// same in every report, and its golden is testdata/golden/style.css.
+var styleRE = regexp.MustCompile(`(?s)<style>(.*?\n\}\n)(.*?)</style>`)
+
 func normaliseHTML(html string) string {
 	html = hashRE.ReplaceAllString(html, "<hash>")
+	html = styleRE.ReplaceAllString(html, "<style>$1(the rest: testdata/golden/style.css)</style>")
 	r := strings.NewReplacer("<div", "\n<div", "<tr", "\n<tr", "<p ", "\n<p ", "<p>", "\n<p>", "<section", "\n<section",
 		"<h2", "\n<h2", "<h3", "\n<h3", "<h4", "\n<h4", "<table", "\n<table", "<figure", "\n<figure", "<svg", "\n<svg", "<path", "\n<path")
 	return r.Replace(html)
@@ -39,6 +45,11 @@ func TestGolden(t *testing.T) {
 			if again := Render(s, s.Run(nil), testOptions); again != got {
 				t.Fatal("two reports of the same sheet differ")
 			}
+			m := styleRE.FindStringSubmatch(got)
+			if m == nil {
+				t.Fatal("the report has no style sheet")
+			}
+			golden.Check(t, filepath.Join("testdata", "golden", "style.css"), []byte(m[2]), *update)
 			golden.Check(t, filepath.Join("testdata", "golden", name+".html"), []byte(normaliseHTML(got)), *update)
 		})
 	}
