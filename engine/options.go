@@ -10,11 +10,12 @@ import (
 // Default limits. A sheet is written by a person; anything beyond these is
 // a mistake or an attack, refused with a diagnostic.
 const (
-	DefaultMaxBytes = sheet.DefaultMaxBytes
-	DefaultMaxLines = sheet.DefaultMaxLines
-	DefaultMaxCells = 200_000
-	DefaultMaxDepth = formula.DefaultMaxDepth
-	DefaultSigFigs  = 4
+	DefaultMaxBytes     = sheet.DefaultMaxBytes
+	DefaultMaxLines     = sheet.DefaultMaxLines
+	DefaultMaxCells     = 200_000
+	DefaultMaxEvalSteps = check.MaxEvalSteps
+	DefaultMaxDepth     = formula.DefaultMaxDepth
+	DefaultSigFigs      = 4
 )
 
 // Option adjusts Load and Compile.

@@ -23,6 +23,8 @@ type sheetFlags struct {
 	system   string
 	maxBytes int
 	maxLines int
+	maxCells int
+	maxSteps int
 	json     bool // problems go to stdout as JSON (commands with --json)
 }
 
@@ -35,6 +37,8 @@ func (f *sheetFlags) add(cmd *cobra.Command, withSystem bool) {
 	}
 	fl.IntVar(&f.maxBytes, "max-bytes", engine.DefaultMaxBytes, "refuse a sheet larger than this many bytes, before reading it")
 	fl.IntVar(&f.maxLines, "max-lines", engine.DefaultMaxLines, "refuse a sheet of more lines than this, before parsing it")
+	fl.IntVar(&f.maxCells, "max-cells", engine.DefaultMaxCells, "refuse a sheet of more cells than this, its templates' cells included, before building them")
+	fl.IntVar(&f.maxSteps, "max-eval-steps", engine.DefaultMaxEvalSteps, "refuse a cell whose one evaluation takes more steps than this, counting every call of the sheet's functions, before anything runs")
 }
 
 // options turns the flags into engine options.
@@ -45,13 +49,21 @@ func (f *sheetFlags) options() ([]engine.Option, error) {
 	if f.maxLines < 0 {
 		return nil, userErrorf("--max-lines %d: give a positive number of lines", f.maxLines)
 	}
+	if f.maxCells < 0 {
+		return nil, userErrorf("--max-cells %d: give a positive number of cells", f.maxCells)
+	}
+	if f.maxSteps < 0 {
+		return nil, userErrorf("--max-eval-steps %d: give a positive number of steps", f.maxSteps)
+	}
 	if f.maxBytes == 0 {
 		f.maxBytes = engine.DefaultMaxBytes
 	}
 	if f.maxLines == 0 {
 		f.maxLines = engine.DefaultMaxLines
 	}
-	opts := []engine.Option{engine.WithMaxBytes(f.maxBytes), engine.WithMaxLines(f.maxLines)}
+	// 0 keeps the default: WithMaxCells and WithMaxEvalSteps ignore a limit that is not positive.
+	opts := []engine.Option{engine.WithMaxBytes(f.maxBytes), engine.WithMaxLines(f.maxLines),
+		engine.WithMaxCells(f.maxCells), engine.WithMaxEvalSteps(f.maxSteps)}
 	if f.system != "" {
 		s, ok := units.ParseSystem(f.system)
 		if !ok || s == units.Neutral {

@@ -53,7 +53,7 @@ func (c *checker) budget() {
 		if s > limit {
 			cost[i] = math.Inf(1)
 			c.errs.Errorf(cell.Formula.Source.Range, fmt.Sprintf("one evaluation of `%s` takes about %.3g steps, counting every call of the sheet's functions it makes; the limit is %.0f", cell.Name, s, limit),
-				"a function that calls another twice doubles the work at every level: compute the inner value once in a cell of its own and call with it",
+				"a function that calls another twice doubles the work at every level: compute the inner value once in a cell of its own and call with it (or raise the limit, --max-eval-steps)",
 				"`%s` is too costly to evaluate", cell.Name)
 		}
 	}

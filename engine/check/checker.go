@@ -12,6 +12,7 @@ import (
 	"github.com/sheafcalc/sheaf/engine/sheet"
 	"github.com/sheafcalc/sheaf/engine/units"
 	"github.com/sheafcalc/sheaf/funcs"
+	"github.com/sheafcalc/sheaf/internal/plural"
 )
 
 // Options limit and steer checking.
@@ -60,8 +61,8 @@ func Sheet(f *sheet.File, opt Options) (*Program, diag.List) {
 	c := &checker{prog: &Program{File: f, Files: []*sheet.File{f}, ByName: make(map[string]int, len(f.Items))}, opt: opt}
 	c.collect()
 	if len(c.prog.Cells) > opt.MaxCells {
-		c.errs.Errorf(c.prog.Cells[opt.MaxCells].Range, fmt.Sprintf("a sheet may hold at most %d cells; this one has %d", opt.MaxCells, len(c.prog.Cells)),
-			"split the calculation into sheets, or raise the limit", "too many cells")
+		c.errs.Errorf(c.prog.Cells[opt.MaxCells].Range, fmt.Sprintf("a sheet may hold at most %s; this one has %s", countText(opt.MaxCells)+" "+plural.Noun(opt.MaxCells, "cell"), countText(len(c.prog.Cells))),
+			"split the calculation into sheets, or raise the limit (--max-cells)", "too many cells")
 		c.errs.Sort()
 		return c.prog, c.errs
 	}

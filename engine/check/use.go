@@ -113,7 +113,7 @@ func (c *checker) useTemplate(from *sheet.File, u *sheet.Use, scope string, dept
 			what = "more than " + countText(c.opt.MaxCells) // the count stops there
 		}
 		c.errs.Errorf(u.Range, fmt.Sprintf("using %s here brings in %s cells (its own templates' included); a sheet may hold at most %s", f.Name, what, countText(c.opt.MaxCells)),
-			"use the inner templates once each, or split the calculation into sheets", "template use too large")
+			"use the inner templates once each, split the calculation into sheets, or raise the limit (--max-cells)", "template use too large")
 		return
 	}
 	a.file = f.Name
