@@ -57,7 +57,7 @@ func TestGolden(t *testing.T) {
 
 // TestContent checks what every report must carry, whatever the sheet.
 func TestContent(t *testing.T) {
-	for _, path := range reported(t) {
+	for _, path := range bundled(t) {
 		t.Run(filepath.Base(path), func(t *testing.T) {
 			s, r := load(t, path)
 			html := Render(s, r, testOptions)
