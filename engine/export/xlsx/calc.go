@@ -305,6 +305,9 @@ func (x *exporter) cellRow(cr *engine.CellResult) [calcCols]excelize.Cell {
 	if unit == "1" {
 		unit = ""
 	}
+	if n := x.actionNote(c); n != "" && note == "" {
+		note = n
+	}
 	return [calcCols]excelize.Cell{x.text(name, clsKey), x.text(c.Description, clsText), x.text(expr, clsExpr), x.text(calc, clsExpr),
 		value, x.text(unit, clsText), x.text(c.Reference, clsText), x.guardedNote(x.stale[c.Index], note)}
 }
@@ -368,7 +371,10 @@ func (x *exporter) fieldRow(r *calcRow) [calcCols]excelize.Cell {
 	switch v := r.val.(type) {
 	case float64, bool:
 		body := r.formul
-		if body == nil && r.plugin != nil {
+		if x.comboDep(r.cell) {
+			body = nil // a field of a value of one combination: from Sheaf
+		}
+		if body == nil && r.plugin != nil && !x.comboDep(r.cell) {
 			value, note = x.pluginFieldCell(r)
 		} else if body == nil {
 			x.stats.ValueOnly++
