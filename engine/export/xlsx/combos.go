@@ -92,6 +92,23 @@ func (x *exporter) layoutCombos() {
 		row++
 	}
 	x.cmb = b
+	// A table Sheaf computed from a value of one combination (the samples
+	// of a bar result) says which, in its title and its charts' titles.
+	for _, tb := range x.tables {
+		head, _, _ := strings.Cut(tb.path, ".")
+		cr := x.r.Cell(head)
+		if cr == nil || tb.input {
+			continue
+		}
+		if m := x.cellCombo(cr.Cell.Index); m >= 0 {
+			in := "in " + cs.All[m].Name + " = " + cs.Text(m)
+			tb.desc = strings.TrimSpace(tb.desc + " (" + in + ")")
+			if tb.owner == "" {
+				tb.owner = tb.path
+			}
+			tb.owner += " (" + in + ")"
+		}
+	}
 }
 
 // factorPath is how the guards name factor key k: as the sheet's factor
@@ -282,7 +299,10 @@ func (x *exporter) writeCombos() error {
 	rules := "Combined by " + cs.Rules.Name + ": " + cs.Rules.Title + ". Each variable action takes its turn as the leading one. " +
 		"Sheaf evaluates every cell that depends on an action in every combination of its checks' limit states; " +
 		"the workbook shows each such value in one combination, named in its note, and does not recompute it."
-	if err := put(3, x.text(rules, clsText)); err != nil {
+	wide := func(row int, c excelize.Cell) error {
+		return sw.SetRow("A"+strconv.Itoa(row), []any{c}, excelize.RowOpts{Height: rowHeight([]excelize.Cell{c}, []float64{summaryWide + 40}, nil)})
+	}
+	if err := wide(3, x.text(rules, clsText)); err != nil {
 		return err
 	}
 	if err := sw.MergeCell("A3", "H3"); err != nil {
@@ -293,7 +313,7 @@ func (x *exporter) writeCombos() error {
 	if err := put(row, x.text("Actions", clsHeading)); err != nil {
 		return err
 	}
-	if err := header(row+1, "Action", "Kind", "Characteristic value", "Description", "Unit"); err != nil {
+	if err := header(row+1, "Action", "Kind", "Description", "Characteristic value", "Unit"); err != nil {
 		return err
 	}
 	for a, c := range cs.Cells {
@@ -313,7 +333,7 @@ func (x *exporter) writeCombos() error {
 		} else {
 			val = x.text("not computed", clsValueOnly)
 		}
-		if err := put(row+2+a, x.text(c.Name, clsKey), x.text(c.Action.Kind.Text(), clsText), val, x.text(c.Description, clsText), x.text(unit, clsText)); err != nil {
+		if err := put(row+2+a, x.text(c.Name, clsKey), x.text(c.Action.Kind.Text(), clsText), x.text(c.Description, clsText), val, x.text(unit, clsText)); err != nil {
 			return err
 		}
 	}
@@ -387,7 +407,7 @@ func (x *exporter) writeCombos() error {
 	note := "A factor may be edited here to see what it touches: every value that depends on actions is then marked out of date and " +
 		"every check that depends on them reads \"" + VerdictRerun + "\". To use another factor, write a factor line in the sheet " +
 		"(factor KEY = value -- @ source) and run Sheaf: only Sheaf recomputes the combinations."
-	if err := put(last, x.text(note, clsText)); err != nil {
+	if err := wide(last, x.text(note, clsText)); err != nil {
 		return err
 	}
 	if err := sw.MergeCell("A"+strconv.Itoa(last), "H"+strconv.Itoa(last)); err != nil {
@@ -432,4 +452,32 @@ func (x *exporter) governsLine(c *check.Cell) string {
 		}
 	}
 	return ""
+}
+
+// readsActions reports whether expression n reads a cell that depends on
+// an action.
+func (x *exporter) readsActions(n *check.Node) bool {
+	cs := x.r.Combos
+	if cs == nil {
+		return false
+	}
+	found := false
+	x.walkRefs(func(d int, _ bool) {
+		if d >= 0 && d < len(cs.Depends) && cs.Depends[d] {
+			found = true
+		}
+	}, n)
+	return found
+}
+
+// guideLines are the lines of the Summary's guide, with the one about
+// combinations for a sheet with actions.
+func (x *exporter) guideLines() []string {
+	if x.cmb == nil {
+		return guide
+	}
+	return append(slices.Clone(guide), "This sheet has actions: Sheaf computed every value that depends on them in each combination of "+
+		x.cmb.cs.Rules.Name+"; each such value is shown in one combination (its note names it), each check in its governing one. "+
+		"The "+TabCombos+" tab lists every combination in words with each check's utilisation and the factors with their sources. "+
+		"A change of an input, a characteristic value or a factor marks them out of date: run Sheaf again for those.")
 }

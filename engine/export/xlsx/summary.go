@@ -176,7 +176,7 @@ func (x *exporter) writeSummary() error {
 	if err := put(x.text("Reading this workbook", clsHeading)); err != nil {
 		return err
 	}
-	for _, g := range guide {
+	for _, g := range x.guideLines() {
 		if err := putWide(x.text(g, clsText)); err != nil {
 			return err
 		}
@@ -254,7 +254,7 @@ func (x *exporter) checkSummary(ch *checkRow) []any {
 		if s, over := x.beyondRange(si, ch.unit.Factor); over {
 			return x.text(s, clsValueOnly) // never +Inf for a finite side
 		}
-		if x.comboDep(c.Index) {
+		if x.comboDep(c.Index) && x.readsActions(n) {
 			return x.number(v, clsValueOnly, x.sig) // of the governing combination
 		}
 		f, err := x.tr.cellFormula(n, ch.unit.Factor)
