@@ -145,7 +145,7 @@ func (d *doc) combinations() {
 	}
 	d.w("</tr></thead>\n<tbody>\n")
 	for m, c := range cs.All {
-		d.w("<tr><td>", esc(c.Name), "</td><td>", esc(cs.Rules.StateLabel(c.State)), "</td><td>", esc(c.Clause), "</td><td class=\"words\">", esc(cs.Text(m)), "</td>")
+		d.w("<tr><td>", esc(c.Name), "</td><td>", esc(cs.Rules.StateLabel(c.State)), "</td><td class=\"clause\">", esc(c.Clause), "</td><td class=\"words\">", esc(cs.Text(m)), "</td>")
 		for _, ch := range checks {
 			u := ch.Combo.Utils[m]
 			switch {

@@ -112,7 +112,7 @@ table.overrides td { border-bottom: .4pt solid var(--rule); padding: .6mm 2mm; }
 .combos th { text-align: left; border-bottom: 1pt solid var(--ink); padding: .6mm 2mm; font-weight: 600; font-size: 8pt; }
 .combos td { border-bottom: .4pt solid var(--rule); padding: .6mm 2mm; vertical-align: top; }
 .combos th.num, .combos td.num { text-align: right; white-space: nowrap; }
-.combos td.words { white-space: nowrap; }
+.combos td.words, .combos td.clause { white-space: nowrap; }
 .combos td.governs { font-weight: 600; background: var(--band); }
 .combos td.fail { color: var(--fail); font-weight: 600; }
 .combos tr { break-inside: avoid; }
