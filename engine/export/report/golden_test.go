@@ -34,8 +34,7 @@ func normaliseHTML(html string) string {
 
 // TestGolden writes the report of every bundled sheet and compares its
 // normalised form with the golden file; it also checks that a second
-// rendering gives the same bytes. The golden of a sheet with actions is
-// the page that says why there is no report.
+// rendering gives the same bytes.
 func TestGolden(t *testing.T) {
 	for _, path := range bundled(t) {
 		name := strings.TrimSuffix(filepath.Base(path), ".sheaf")
