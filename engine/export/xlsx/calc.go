@@ -257,6 +257,9 @@ func (x *exporter) cellRow(cr *engine.CellResult) [calcCols]excelize.Cell {
 		ch := x.checkByCell(c)
 		calc = x.checkCalc(c, ch)
 		value, note = x.checkValue(ch)
+		if note == VerdictUnknown {
+			note = x.unassessedNote(c)
+		}
 	case !cr.Known:
 		value = x.text("not computed", clsValueOnly)
 		note = "not computed"

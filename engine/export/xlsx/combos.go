@@ -221,7 +221,12 @@ func (x *exporter) comboGuard() string {
 	return x.guardExpr(slices.Compact(keys))
 }
 
-var comboWidths = []float64{16, 18, 24, 36, 12, 12, 12, 12}
+var comboWidths = []float64{16, 21, 24, 36, 12, 12, 12, 12}
+
+// utilReversed stands on the Combinations tab for a combination in which a
+// check's demand has the other sense: it is not assessed there, and such a
+// combination governs (SPEC.md §5a).
+const utilReversed = "reversed"
 
 // writeCombos writes the Combinations tab.
 func (x *exporter) writeCombos() error {
@@ -363,7 +368,7 @@ func (x *exporter) writeCombos() error {
 			case math.IsNaN(u):
 				cells = append(cells, x.guardedText(g, VerdictUnknown))
 			case u < 0:
-				cells = append(cells, x.guardedText(g, "reversed: "+VerdictUnknown))
+				cells = append(cells, x.guardedText(g, utilReversed))
 			default:
 				cell := excelize.Cell{StyleID: x.st.id(clsValueOnly, utilFormat), Value: u}
 				if g != "" {
@@ -480,4 +485,16 @@ func (x *exporter) guideLines() []string {
 		x.cmb.cs.Rules.Name+"; each such value is shown in one combination (its note names it), each check in its governing one. "+
 		"The "+TabCombos+" tab lists every combination in words with each check's utilisation and the factors with their sources. "+
 		"A change of an input, a characteristic value or a factor marks them out of date: run Sheaf again for those.")
+}
+
+// unassessedNote is the note of a check that is not assessed: with the
+// reason Sheaf gives (a demand of the other sense, in the combination
+// where it holds), when it gave one.
+func (x *exporter) unassessedNote(c *check.Cell) string {
+	for _, ch := range x.r.Checks {
+		if ch.Cell == c && ch.Problem != nil {
+			return VerdictUnknown + ": " + ch.Problem.Summary
+		}
+	}
+	return VerdictUnknown
 }
