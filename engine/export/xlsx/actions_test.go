@@ -1,6 +1,10 @@
 package xlsxout
 
 import (
+	"path/filepath"
+
+	"github.com/sheafcalc/sheaf/internal/golden"
+
 	"bytes"
 
 	"github.com/xuri/excelize/v2"
@@ -188,3 +192,16 @@ check tension: N_Ed <= N_Rd
 
 // openBook opens workbook bytes.
 func openBook(b []byte) (*excelize.File, error) { return excelize.OpenReader(bytes.NewReader(b)) }
+
+// TestActionsGolden: the Summary, Calculation and Combinations tabs of the
+// bundled canopy sheet, written with actions, as text (formula cells show
+// their cached values).
+func TestActionsGolden(t *testing.T) {
+	s := load(t, "../../../sheets/canopy-hanger.sheaf")
+	f := build(t, s, s.NewState().Eval())
+	var text string
+	for _, tab := range []string{TabSummary, TabCalc, TabCombos} {
+		text += "--- " + tab + "\n" + strings.ReplaceAll(tabText(t, f, tab), s.Name(), filepath.Base(s.Name()))
+	}
+	golden.Check(t, filepath.Join("testdata", "actions-canopy.golden"), []byte(text), *update)
+}
