@@ -83,12 +83,6 @@ func runExport(a *app, o *exportOptions, path string) error {
 	if err != nil {
 		return err
 	}
-	if s.Combos() != nil {
-		// The workbook's live formulas would combine the characteristic
-		// values as written, not in each combination: refuse rather than
-		// deliver numbers that do not follow the checks.
-		return userErrorf("%s has actions; the workbook does not yet carry their combinations, so it is not written (run `sheaf run --combinations` for the table)", path)
-	}
 	for _, in := range s.Files() {
 		if userfile.Same(out, in) {
 			return userErrorf("-o %s would overwrite %s, which this sheet is built from; choose another name", out, in)

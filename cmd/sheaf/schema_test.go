@@ -49,7 +49,7 @@ func TestJSONSchema(t *testing.T) {
 		{"batch", "--json", "sheets/mezzanine-hanger.sheaf", "sheets/mezzanine-hanger-cases.csv"},
 		{"run", "--json", "cmd/sheaf/testdata/combos/uplift.sheaf"},
 		{"check", "--json", "cmd/sheaf/testdata/combos/uplift.sheaf"},
-		{"check", "--json", "testdata/actions/canopy-hanger.sheaf"},
+		{"check", "--json", "sheets/canopy-hanger.sheaf"},
 		{"batch", "--json", "cmd/sheaf/testdata/combos/uplift.sheaf", "cmd/sheaf/testdata/combos/uplift-cases.csv", "--pick", "N_Ed"},
 		{"funcs", "--json"},
 		{"funcs", "--json", "chs"},

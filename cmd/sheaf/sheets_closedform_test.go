@@ -145,9 +145,9 @@ const (
 	relRef   = 1e-7
 )
 
-// TestActionsCanopyHangerClosedForm runs the version of the sheet written with actions
-// (testdata/actions), its combinations against the ones written by hand.
-func TestActionsCanopyHangerClosedForm(t *testing.T) {
+// TestCanopyHangerClosedForm runs the sheet, written with actions, its governing
+// combinations against the ones it wrote by hand before it had actions.
+func TestCanopyHangerClosedForm(t *testing.T) {
 	t.Chdir("../..")
 	cases := []struct {
 		name string
@@ -160,7 +160,7 @@ func TestActionsCanopyHangerClosedForm(t *testing.T) {
 	}
 	for _, c := range cases {
 		t.Run(c.name, func(t *testing.T) {
-			r := runExample(t, "testdata/actions/canopy-hanger.sheaf", c.sets...)
+			r := runExample(t, "sheets/canopy-hanger.sheaf", c.sets...)
 			if c.pass {
 				r.allPass()
 			}
@@ -213,59 +213,11 @@ func TestActionsCanopyHangerClosedForm(t *testing.T) {
 	}
 }
 
-func TestCanopyHangerClosedForm(t *testing.T) {
+// TestCFTColumnClosedForm runs the sheet, written with actions, its governing
+// combinations against the ones it wrote by hand before it had actions.
+func TestCFTColumnClosedForm(t *testing.T) {
 	t.Chdir("../..")
-	cases := []struct {
-		name string
-		sets []string
-		pass bool
-	}{
-		{"as drawn", nil, true},
-		{"longer and thicker rod, less snow", []string{"L=25 m", "d=20 mm", "q_k=0.5 kN/m^2"}, true},
-		{"short rod", []string{"L=0.8 m"}, true},
-	}
-	for _, c := range cases {
-		t.Run(c.name, func(t *testing.T) {
-			r := runExample(t, "sheets/canopy-hanger.sheaf", c.sets...)
-			if c.pass {
-				r.allPass()
-			}
-			L, d := r.v("L"), r.v("d")
-			E, gam := r.f("rod_steel", "E"), r.f("rod_steel", "gamma")
-			gG, gQ := r.v("gamma_G"), r.v("gamma_Q")
-			area := r.v("a_proj") / 2 * r.v("s")
-			A := math.Pi * d * d / 4
-			Pk := (r.v("g_k") + r.v("q_k")) * area
-			PEd := gG*r.v("g_k")*area + gQ*r.v("q_k")*area
-			r.near("A", r.v("A"), A, relExact)
-			// Source: prismatic bar δ = PL/(EA), REFERENCES C1 (Gere & Goodno ch. 2),
-			// plus a bar hanging under its own weight δ = γL²/(2E), REFERENCES C3
-			// (Timoshenko, Strength of Materials I, Art. 2); superposition holds
-			// for a linear bar.
-			want := Pk*L/(E*A) + gam*L*L/(2*E)
-			r.near("delta (solver)", r.v("delta"), want, relExact)
-			r.near("delta_sum (shortcuts)", r.v("delta_sum"), want, relExact)
-			r.near("delta_g", r.v("delta_g"), gam*L*L/(2*E), relExact)
-			// Source: equilibrium of the whole rod: the truss carries the end
-			// pull and the factored weight γ_G·γ·A·L (common practice).
-			R := PEd + gG*gam*A*L
-			r.near("R_top", r.v("R_top"), R, relExact)
-			// Source: σ_max = (P + γAL)/A at the support, REFERENCES C3 (σ = γL)
-			// plus the end pull over the area.
-			r.near("sigma_Ed", r.v("sigma_Ed"), R/A, relExact)
-			r.near("sigma_g", r.v("sigma_g"), gG*gam*L, relExact)
-			if x := r.v("x_sigma"); x != 0 {
-				t.Errorf("largest stress at x = %g m, want at the truss (0)", x)
-			}
-		})
-	}
-}
-
-// TestActionsCFTColumnClosedForm runs the version of the sheet written with actions
-// (testdata/actions), its combinations against the ones written by hand.
-func TestActionsCFTColumnClosedForm(t *testing.T) {
-	t.Chdir("../..")
-	r := runExample(t, "testdata/actions/cft-column.sheaf")
+	r := runExample(t, "sheets/cft-column.sheaf")
 	r.allPass()
 	// The actions G and Q combined by EN 1990 (6.10): 1.35 G + 1.5 Q governs
 	// both resistance checks, as the sheet wrote by hand before (REFERENCES D7).
@@ -278,84 +230,6 @@ func TestActionsCFTColumnClosedForm(t *testing.T) {
 			t.Errorf("%s governs in %q", name, comb)
 		}
 	}
-	d, tw := r.v("d"), r.v("t")
-	di := d - 2*tw
-	Aa := math.Pi * (d*d - di*di) / 4
-	Ac := math.Pi * di * di / 4
-	r.near("A_a", r.v("A_a"), Aa, relExact)
-	r.near("A_c", r.v("A_c"), Ac, relExact)
-	// Source: EN 1992-1-1 Table 3.1, E_cm = 22 (f_cm/10)^0.3 GPa, f_cm = f_ck + 8 MPa
-	// (REFERENCES B4: the formula, not the rounded table).
-	fck := r.v("f_ck")
-	Ecm := 22e9 * math.Pow((fck/1e6+8)/10, 0.3)
-	r.near("E_cm", r.v("E_cm"), Ecm, relExact)
-	Es, as, ac := r.f("steel_a", "E"), r.f("steel_a", "alpha"), r.f("concrete_c", "alpha")
-	EAa, EAc := Es*Aa, Ecm*Ac
-	// Source: composite bar, N_i = N·E_iA_i/ΣEA (Gere & Goodno §2.4; REFERENCES C8a, C8c).
-	Nk := r.v("N_k")
-	r.near("N_a", r.v("N_a"), Nk*EAa/(EAa+EAc), relExact)
-	r.near("N_c", r.v("N_c"), Nk*EAc/(EAa+EAc), relExact)
-	r.near("sigma_a", r.v("sigma_a"), Nk*Es/(EAa+EAc), relExact)
-	r.near("sigma_c", r.v("sigma_c"), Nk*Ecm/(EAa+EAc), relExact)
-	// Source: thermal mismatch F = (α_a − α_c)ΔT/(1/EA_a + 1/EA_c), Gere & Goodno
-	// §2.5 (REFERENCES C8b).
-	dT := r.v("dT")
-	F := (as - ac) * dT / (1/EAa + 1/EAc)
-	r.near("F_th", r.v("F_th"), F, relExact)
-	r.near("sig_th_a", r.v("sig_th_a"), -F/Aa, relExact)
-	r.near("sig_th_c", r.v("sig_th_c"), F/Ac, relExact)
-	// Source: EN 1994-1-1 §6.7.3.2(1) Eq. (6.30), N_pl,Rd = A_a f_yd + η A_c f_cd
-	// (REFERENCES C11; coefficient from memory).
-	fyd, fcd, eta := r.v("f_yd"), r.v("f_cd"), r.v("eta_c")
-	r.near("N_plRd", r.v("N_plRd"), Aa*fyd+eta*Ac*fcd, relExact)
-	// Source: strain compatibility (EN 1994-1-1 §6.7.2(1), from memory) with the
-	// parabola–rectangle law of EN 1992-1-1 Eq. (3.17), n = 2, ε_c2 = 2 ‰, and an
-	// elastic–perfectly plastic tube: the force at the reported strain must be
-	// the design load.
-	e := r.v("eps_Ed") // shortening, positive
-	sa := math.Min(Es*e, fyd)
-	sc := fcd
-	if e < 2e-3 {
-		sc = fcd * (1 - (1-e/2e-3)*(1-e/2e-3))
-	}
-	r.near("N(eps_Ed)", Aa*sa+Ac*sc, r.v("N_Ed"), 1e-8)
-	// Source: Euler load π²EI/L² with EI_eff = E_a I_a + K_e E_cm I_c,
-	// EN 1994-1-1 Eq. (6.40) (from memory); I of a circle and a tube, Gere &
-	// Goodno App. E.
-	Ia := math.Pi * (math.Pow(d, 4) - math.Pow(di, 4)) / 64
-	Ic := math.Pi * math.Pow(di, 4) / 64
-	EI := Es*Ia + r.v("K_e")*Ecm*Ic
-	L := r.v("L")
-	Ncr := math.Pi * math.Pi * EI / (L * L)
-	r.near("N_cr", r.v("N_cr"), Ncr, relExact)
-	lb := math.Sqrt((Aa*r.f("steel_a", "f_y") + eta*Ac*fck) / Ncr)
-	r.near("lambda_bar", r.v("lambda_bar"), lb, relExact)
-	chi := chiEN1993(lb, 0.21) // curve a
-	r.near("N_bRd", r.v("N_bRd"), chi*(Aa*fyd+eta*Ac*fcd), relExact)
-
-	// The sheet at the inputs of the reference cases: CHS 219.1×10 S355 filled
-	// with C30/37 (E_cm = 32836.568 MPa, f_cd = 30/1.5 = 20 MPa), N = 1000 kN.
-	// Section and class are catalogue keys, not inputs: a copy of the sheet
-	// names the other ones.
-	refSheet := catalogueCopy(t, "testdata/actions/cft-column.sheaf", `"CHS 273x10"`, `"CHS 219.1x10"`, `"C35/45"`, `"C30/37"`)
-	ref := runExample(t, refSheet, "G_k=1000 kN", "Q_k=0 kN")
-	// Source: REFERENCES C8c (load sharing, Gere & Goodno §2.4).
-	ref.near("C8c N_steel", ref.v("N_a"), 574.355095e3, relRef)
-	ref.near("C8c N_conc", ref.v("N_c"), 425.644905e3, relRef)
-	ref.near("C8c sigma_s", ref.v("sigma_a"), 87.4332401e6, relRef)
-	ref.near("C8c sigma_c", ref.v("sigma_c"), 13.6714645e6, relRef)
-	// Source: REFERENCES B4, f_ck = 30 MPa (EN 1992-1-1 Table 3.1 formula).
-	ref.near("B4 E_cm", ref.v("E_cm"), 32836.5680e6, relRef)
-	// Source: REFERENCES C11, EN 1994-1-1 §6.7.3.2(1) (coefficient from memory).
-	ref.near("C11 N_plRd", ref.v("N_plRd"), 2954.69632e3, relRef)
-	ref85 := runExample(t, refSheet, "eta_c=0.85")
-	ref85.near("C11 N_plRd with 0.85", ref85.v("N_plRd"), 2861.29486e3, relRef)
-}
-
-func TestCFTColumnClosedForm(t *testing.T) {
-	t.Chdir("../..")
-	r := runExample(t, "sheets/cft-column.sheaf")
-	r.allPass()
 	d, tw := r.v("d"), r.v("t")
 	di := d - 2*tw
 	Aa := math.Pi * (d*d - di*di) / 4
@@ -604,48 +478,6 @@ func TestEncasedColumnClosedForm(t *testing.T) {
 	r.near("N_plRd", r.v("N_plRd"), Aa*355e6+As*500e6/1.15+0.85*Ac*30e6/1.5, relExact)
 }
 
-// TestActionsDuctHangerUSClosedForm: the version of the sheet written with actions (testdata/actions).
-// TestDuctHangerUSClosedForm: the US sheet, written in inches, feet, kip
-// and ksi, against the same mechanics computed here in SI from the NIST
-// factors, and with the rod size given in inches through --set.
-func TestActionsDuctHangerUSClosedForm(t *testing.T) {
-	t.Chdir("../..")
-	// Source: NIST SP 811 (2008) App. B: 1 in = 0.0254 m, 1 ft = 0.3048 m
-	// (exact); 1 kip = 4448.2216152605 N; 1 ksi = 6.894757293168361e6 Pa
-	// (REFERENCES A1, A2, A6, A8).
-	const in, ft, kip, ksi = 0.0254, 0.3048, 4448.2216152605, 6.894757293168361e6
-	for _, c := range []struct {
-		name string
-		sets []string
-		d    float64 // rod diameter, in
-	}{
-		{"as written", nil, 0.75},
-		{"--set in inches", []string{"d=0.625in"}, 0.625},
-		{"--set in inches with a space", []string{"d=0.875 in"}, 0.875},
-	} {
-		t.Run(c.name, func(t *testing.T) {
-			r := runExample(t, "testdata/actions/duct-hanger-us.sheaf", c.sets...)
-			r.allPass()
-			d := c.d * in
-			r.near("d", r.v("d"), d, relExact)
-			Ag := math.Pi * d * d / 4
-			r.near("A_g", r.v("A_g"), Ag, relExact)
-			// Source: AISC 360 D2, φPn = 0.90 Fy Ag (from memory); ASCE/SEI 7 2.3.1, 1.2D + 1.6L (from memory).
-			r.near("phiP_n", r.v("phiP_n"), 0.90*36*ksi*Ag, relExact)
-			r.near("P_u", r.v("P_u"), (1.2*1.2+1.6*0.8)*kip, relExact)
-			// The sheet's actions D and L give 1.4D and 1.2D + 1.6L (REFERENCES
-			// D8); the second governs the tension check, as written by hand before.
-			dem, comb := r.demand("tension")
-			r.near("tension demand", dem, (1.2*1.2+1.6*0.8)*kip, relExact)
-			if comb != "1.2 D + 1.6 L" {
-				t.Errorf("tension governs in %q", comb)
-			}
-			// Source: prismatic bar δ = PL/(EA), Gere & Goodno §2.2 (REFERENCES C1's formula).
-			r.near("delta", r.v("delta"), 2.0*kip*6*ft/(29000*ksi*Ag), relExact)
-		})
-	}
-}
-
 // TestDuctHangerUSClosedForm: the US sheet, written in inches, feet, kip
 // and ksi, against the same mechanics computed here in SI from the NIST
 // factors, and with the rod size given in inches through --set.
@@ -674,6 +506,13 @@ func TestDuctHangerUSClosedForm(t *testing.T) {
 			// Source: AISC 360 D2, φPn = 0.90 Fy Ag (from memory); ASCE/SEI 7 2.3.1, 1.2D + 1.6L (from memory).
 			r.near("phiP_n", r.v("phiP_n"), 0.90*36*ksi*Ag, relExact)
 			r.near("P_u", r.v("P_u"), (1.2*1.2+1.6*0.8)*kip, relExact)
+			// The sheet's actions D and L give 1.4D and 1.2D + 1.6L (REFERENCES
+			// D8); the second governs the tension check, as written by hand before.
+			dem, comb := r.demand("tension")
+			r.near("tension demand", dem, (1.2*1.2+1.6*0.8)*kip, relExact)
+			if comb != "1.2 D + 1.6 L" {
+				t.Errorf("tension governs in %q", comb)
+			}
 			// Source: prismatic bar δ = PL/(EA), Gere & Goodno §2.2 (REFERENCES C1's formula).
 			r.near("delta", r.v("delta"), 2.0*kip*6*ft/(29000*ksi*Ag), relExact)
 		})

@@ -34,8 +34,8 @@ func TestHoverKinds(t *testing.T) {
 		{"plugin", "rod            = bar_uniform(", "bar_uniform", []string{"bar_uniform(", def.Source, "family " + def.Family}},
 		{"field", "f_yd      [MPa] = rod_steel.f_y", "f_y /", []string{"**rod_steel.f_y** = **355 MPa**", "field of rod_steel"}},
 		// k = 1000 (SI prefix); N/m^2 = kg*m^-1*s^-2 (SI Brochure, 9th ed., Table 4).
-		{"unit in brackets", "g_k     [kN/m^2]", "kN/m^2", []string{"1 kN/m^2 = 1000 kg*m^-1*s^-2 (SI)", "area load"}},
-		{"unit after a number", "g_k     [kN/m^2] = 1.1 kN/m^2", "1.1 kN", []string{"1 kN/m^2 = 1000"}},
+		{"unit in brackets", "g_k    [kN/m^2]", "kN/m^2", []string{"1 kN/m^2 = 1000 kg*m^-1*s^-2 (SI)", "area load"}},
+		{"unit after a number", "g_k    [kN/m^2] = 1.1 kN/m^2", "1.1 kN", []string{"1 kN/m^2 = 1000"}},
 		{"builtin", "A         [mm^2] = pi * d^2 / 4", "pi", []string{"3.14159"}},
 	}
 	for _, tt := range tests {

@@ -12,7 +12,7 @@ import (
 // largest returns the bundled sheet with the most bytes.
 func largest(b *testing.B) string {
 	best, size := "", int64(-1)
-	for _, p := range reported(b) {
+	for _, p := range bundled(b) {
 		if fi, err := os.Stat(p); err == nil && fi.Size() > size {
 			best, size = p, fi.Size()
 		}

@@ -61,6 +61,8 @@ func (d *doc) sections() {
 			start(strings.TrimSpace(it.Text), true)
 		case *sheet.Cell:
 			d.itemCell(it.Name.Name, &open, start)
+		case *sheet.Action:
+			d.itemCell(it.Cell.Name.Name, &open, start)
 		case *sheet.FuncDef:
 			d.itemCell(it.Name.Name, &open, start)
 		case *sheet.Check:

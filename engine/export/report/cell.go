@@ -26,6 +26,7 @@ func (d *doc) cell(c *engine.Cell) {
 	if d.replaced[c.Name] {
 		d.w("<span class=\"kindnote\">replaced in this use</span>")
 	}
+	d.comboNote(c)
 	d.w("</div>\n")
 	if c.Reference != "" {
 		d.w("<div class=\"ref\">", esc(c.Reference), "</div>\n")
@@ -64,9 +65,9 @@ func (d *doc) valueLine(c *engine.Cell, cr *engine.CellResult) {
 	})
 	if !lone && !pathOnly(body) {
 		var sb strings.Builder
-		st := &typesetter{d: d, scope: scope, subst: true}
+		st := &typesetter{d: d, scope: scope, subst: true, combo: d.cellCombo(c.Index)}
 		st.expr(&sb, body, 0)
-		if st.substituted > 0 {
+		if st.substituted > 0 && !st.mixed {
 			d.part(func(b *strings.Builder) { b.WriteString("<mo>=</mo>"); b.WriteString(sb.String()) })
 		}
 	}
@@ -169,7 +170,16 @@ func (d *doc) checkLine(c *engine.Cell) {
 		t.expr(b, right, 0)
 	})
 	if ch == nil || !ch.Known {
-		d.w("<span class=\"verdict unknown\">not assessed: a cell it uses was not computed</span>")
+		why := "a cell it uses was not computed"
+		if ch != nil && ch.Combo != nil && ch.Problem != nil {
+			why = ch.Problem.Summary // a demand of the other sense, in its combination
+		}
+		d.w("<span class=\"verdict unknown\">not assessed: ", esc(why), "</span>")
+		if ch != nil {
+			if line := d.checkCombo(ch); line != "" {
+				d.w("<span class=\"kindnote combo\">", esc(line), "</span>")
+			}
+		}
 		return
 	}
 	dem := func(b *strings.Builder) { quantity(b, ch.Demand, ch.Unit, d.sig) }
@@ -187,6 +197,9 @@ func (d *doc) checkLine(c *engine.Cell) {
 	d.w("<span class=\"checkres\">utilisation ")
 	d.utilBar(*ch)
 	d.w(" <span class=\"v ", class, "\">", word, "</span></span>")
+	if line := d.checkCombo(ch); line != "" {
+		d.w("<span class=\"kindnote combo\">", esc(line), "</span>")
+	}
 }
 
 // resultText is a cell's value as plain text.

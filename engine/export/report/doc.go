@@ -7,7 +7,9 @@
 // The document follows the sheet's reading order: a title block with every
 // header field, the Sheaf version and a SHA-256 of the sheet and of each
 // template; the caution; the summary of the design checks with the
-// governing one marked; the numbered sections with the sheet's comments as
+// governing one marked; for a sheet with actions, the actions, every
+// combination with each check's utilisation in it and the factors with their
+// sources (combos.go); the numbered sections with the sheet's comments as
 // prose where they stand; for each cell its symbol, its formula typeset,
 // the formula with the values substituted, the result in its display unit,
 // the description and, set apart in a margin column, the reference; tables

@@ -33,7 +33,11 @@ func (d *doc) figures(c *engine.Cell, v funcs.Value) {
 
 func (d *doc) caption(c *engine.Cell, what string) {
 	d.fig++
-	d.w("<figcaption><b>Figure ", itoa(d.fig), ".</b> ", what, " — <code>", esc(c.Name), "</code></figcaption>")
+	d.w("<figcaption><b>Figure ", itoa(d.fig), ".</b> ", what, " — <code>", esc(c.Name), "</code>")
+	if m := d.cellCombo(c.Index); m >= 0 && c.Kind != engine.Check {
+		d.w(", in ", esc(d.res.Combos.All[m].Name), ": ", esc(d.res.Combos.Text(m)))
+	}
+	d.w("</figcaption>")
 }
 
 // plot is one diagram of a quantity along an axis.

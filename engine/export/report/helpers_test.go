@@ -27,22 +27,6 @@ func bundled(t testing.TB) []string {
 	return files
 }
 
-// reported returns the bundled sheets the report accepts: a sheet with
-// actions is refused (Refusal; TestRefusesActions).
-func reported(t testing.TB) []string {
-	t.Helper()
-	var out []string
-	for _, p := range bundled(t) {
-		if s, _ := load(t, p); Refusal(s) == "" {
-			out = append(out, p)
-		}
-	}
-	if len(out) == 0 {
-		t.Fatal("no bundled sheet the report accepts")
-	}
-	return out
-}
-
 func load(t testing.TB, path string) (*engine.Sheet, *engine.Results) {
 	t.Helper()
 	s, err := engine.Load(path)

@@ -6,6 +6,7 @@ import (
 
 	"github.com/sheafcalc/sheaf/engine"
 	"github.com/sheafcalc/sheaf/engine/check"
+	"github.com/sheafcalc/sheaf/engine/combine"
 	"github.com/sheafcalc/sheaf/engine/units"
 	"github.com/sheafcalc/sheaf/funcs"
 )
@@ -17,6 +18,12 @@ type typesetter struct {
 	fn    *engine.Cell // the user function whose parameters OpParam reads
 	scope string       // prefix dropped from names ("access." in a template use)
 	subst bool
+	// combo is the combination of the cell being written (-1 for none), in
+	// a sheet with actions: an action is put in as its factor in it times
+	// its characteristic value; mixed is set when a value put in is of
+	// another combination (the substituted line is then left out).
+	combo int
+	mixed bool
 	// substituted counts the values put in place: a substituted line that
 	// replaced nothing repeats the formula and is left out.
 	substituted int
@@ -304,6 +311,9 @@ func (t *typesetter) value(b *strings.Builder, n *check.Node) bool {
 	}
 	var x float64
 	var u units.Unit
+	if t.d.res.Combos != nil && t.inOtherCombo(n) {
+		t.mixed = true
+	}
 	switch n.Op {
 	case check.OpCell:
 		cr := &t.d.res.Cells[n.Index]
@@ -311,6 +321,26 @@ func (t *typesetter) value(b *strings.Builder, n *check.Node) bool {
 			return false
 		}
 		x, u = cr.SI, cr.Unit
+		if a := t.d.actionOf(int(n.Index)); a >= 0 {
+			if t.combo < 0 {
+				t.mixed = true
+				return false
+			}
+			t.substituted++
+			f := t.d.res.Combos.All[t.combo].Factors[a]
+			b.WriteString("<mrow>")
+			number(b, combine.FormatFactor(f))
+			b.WriteString("<mo>·</mo>")
+			if x < 0 || math.Signbit(x) {
+				b.WriteString("<mrow><mo>(</mo>")
+				quantity(b, x, u, t.d.sig)
+				b.WriteString("<mo>)</mo></mrow>")
+			} else {
+				quantity(b, x, u, t.d.sig)
+			}
+			b.WriteString("</mrow>")
+			return true
+		}
 	case check.OpField, check.OpIndex:
 		v, ok := t.d.eval(n)
 		if !ok {
@@ -436,4 +466,18 @@ func splitLiteral(s string) (num, unit string) {
 		}
 	}
 	return num, unit
+}
+
+// inOtherCombo reports whether the value n reads (a cell, or a field or
+// element of one) depends on actions and is shown in a combination other
+// than the one of the cell being written.
+func (t *typesetter) inOtherCombo(n *check.Node) bool {
+	for n.Op == check.OpField || n.Op == check.OpIndex || n.Op == check.OpColumn {
+		n = n.Args[0]
+	}
+	if n.Op != check.OpCell {
+		return false
+	}
+	m := t.d.cellCombo(int(n.Index))
+	return m >= 0 && m != t.combo
 }

@@ -37,6 +37,7 @@ func (d *doc) body(title string) {
 	d.caution()
 	d.problems()
 	d.summary()
+	d.combinations()
 	d.sections()
 	d.signOff()
 	d.w("<p class=\"end\">End of calculation. ", esc(engine.Caution), "</p>\n")

@@ -54,7 +54,7 @@ func TestPrintPDF(t *testing.T) {
 		t.Skip("skipped in -short mode: prints every bundled sheet")
 	}
 	dir := t.TempDir()
-	for _, path := range reported(t) {
+	for _, path := range bundled(t) {
 		name := strings.TrimSuffix(filepath.Base(path), ".sheaf")
 		t.Run(name, func(t *testing.T) {
 			s, r := load(t, path)

@@ -75,10 +75,6 @@ func Render(s *engine.Sheet, r *engine.Results, o Options) string {
 		d.sig = engine.DefaultSigFigs
 	}
 	d.hash = Hash(s.Source())
-	if why := Refusal(s); why != "" {
-		d.refused(why)
-		return d.b.String()
-	}
 	d.b.Grow(64 << 10)
 	d.page()
 	return d.b.String()

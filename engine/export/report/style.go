@@ -108,6 +108,16 @@ table.overrides { border-collapse: collapse; font-size: 9pt; margin: 1mm 0 3mm; 
 table.overrides caption { text-align: left; font-size: 8pt; color: var(--mute); }
 table.overrides th { text-align: left; border-bottom: 1pt solid var(--ink); padding: .6mm 2mm; font-weight: 600; font-size: 8.5pt; }
 table.overrides td { border-bottom: .4pt solid var(--rule); padding: .6mm 2mm; }
+.combos table { border-collapse: collapse; font-size: 8.5pt; margin: 1mm 0 3mm; width: 100%; }
+.combos th { text-align: left; border-bottom: 1pt solid var(--ink); padding: .6mm 2mm; font-weight: 600; font-size: 8pt; }
+.combos td { border-bottom: .4pt solid var(--rule); padding: .6mm 2mm; vertical-align: top; }
+.combos th.num, .combos td.num { text-align: right; white-space: nowrap; }
+.combos td.words, .combos td.clause { white-space: nowrap; }
+.combos td.governs { font-weight: 600; background: var(--band); }
+.combos td.fail { color: var(--fail); font-weight: 600; }
+.combos tr { break-inside: avoid; }
+table.checks .combo { font-weight: 400; color: var(--teal); font-size: 7.5pt; }
+.kindnote.combo { display: block; margin-left: 0; }
 section.use { border-left: 2pt solid var(--band); padding-left: 3mm; margin-left: -3mm; }
 .usedesc { margin: 0 0 1mm; } .usedesc .ref { color: var(--mute); font-size: 8pt; }
 figure { margin: 2mm 0; break-inside: avoid; }

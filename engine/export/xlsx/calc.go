@@ -257,6 +257,9 @@ func (x *exporter) cellRow(cr *engine.CellResult) [calcCols]excelize.Cell {
 		ch := x.checkByCell(c)
 		calc = x.checkCalc(c, ch)
 		value, note = x.checkValue(ch)
+		if note == VerdictUnknown {
+			note = x.unassessedNote(c)
+		}
 	case !cr.Known:
 		value = x.text("not computed", clsValueOnly)
 		note = "not computed"
@@ -304,6 +307,9 @@ func (x *exporter) cellRow(cr *engine.CellResult) [calcCols]excelize.Cell {
 	}
 	if unit == "1" {
 		unit = ""
+	}
+	if n := x.actionNote(c); n != "" && note == "" {
+		note = n
 	}
 	return [calcCols]excelize.Cell{x.text(name, clsKey), x.text(c.Description, clsText), x.text(expr, clsExpr), x.text(calc, clsExpr),
 		value, x.text(unit, clsText), x.text(c.Reference, clsText), x.guardedNote(x.stale[c.Index], note)}
@@ -368,7 +374,10 @@ func (x *exporter) fieldRow(r *calcRow) [calcCols]excelize.Cell {
 	switch v := r.val.(type) {
 	case float64, bool:
 		body := r.formul
-		if body == nil && r.plugin != nil {
+		if x.comboDep(r.cell) {
+			body = nil // a field of a value of one combination: from Sheaf
+		}
+		if body == nil && r.plugin != nil && !x.comboDep(r.cell) {
 			value, note = x.pluginFieldCell(r)
 		} else if body == nil {
 			x.stats.ValueOnly++

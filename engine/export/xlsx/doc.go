@@ -3,7 +3,7 @@
 //
 // # Layout
 //
-// The workbook has up to six tabs, in the order a reader needs them:
+// The workbook has up to seven tabs, in the order a reader needs them:
 //
 //   - Summary: the header of the sheet (title, project, basis, author,
 //     checker, date, revision; a placeholder is flagged), every design
@@ -18,6 +18,10 @@
 //   - Data: the tables of the sheet, in display units under a unit-bearing
 //     header; their entries are inputs unless they are locked (below).
 //   - Samples: the tables Sheaf computed (bar samples, N–ε curves).
+//   - Combinations (a sheet with actions, see combos.go): the actions with
+//     their kinds and characteristic values, every combination in words
+//     with the clause it follows and each check's utilisation in it, and
+//     the factors with their sources, editable and guarded.
 //   - Charts: N(x), u(x) and σ(x) of every bar result, N(ε) of every
 //     curve, one a printed page, titled by the sheet's description.
 //   - Run record: the inputs as Sheaf computed with them (see Guards).

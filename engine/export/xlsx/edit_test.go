@@ -23,6 +23,19 @@ type edit struct {
 	cell string
 	val  float64             // the new value in the workbook
 	set  func(*engine.State) // the same change in Sheaf
+	// results, when set, gives Sheaf's results of the change instead of
+	// set (a factor of the combination rules is a line of the sheet).
+	results func() *engine.Results
+}
+
+// result is Sheaf's results of sheet s after edit e.
+func (e edit) result(s *engine.Sheet) *engine.Results {
+	if e.results != nil {
+		return e.results()
+	}
+	st := s.NewState()
+	e.set(st)
+	return st.Eval()
 }
 
 // editsOf lists every edit of the workbook of x: each numeric input cell,
@@ -73,6 +86,7 @@ func editsOf(t *testing.T, x *exporter) []edit {
 				}})
 		}
 	}
+	out = append(out, factorEdits(t, x)...)
 	for _, b := range x.tables {
 		if !b.input || x.locked(b.cell) {
 			continue
@@ -310,26 +324,14 @@ func anyStale(calc, summary [][]string) bool {
 	return false
 }
 
-// everySheet is every bundled sheet the workbook accepts (a sheet with
-// actions is refused: TestRefusesActions), and the fixtures of this
-// package.
+// everySheet is every bundled sheet and the fixtures of this package.
 func everySheet(t *testing.T) []string {
 	t.Helper()
 	all, err := filepath.Glob("../../../sheets/*.sheaf")
 	if err != nil || len(all) == 0 {
 		t.Fatalf("no sheets: %v", err)
 	}
-	var paths []string
-	for _, p := range all {
-		s, err := engine.Load(p)
-		if err != nil {
-			t.Fatalf("%s: %v", p, err)
-		}
-		if s.Combos() == nil {
-			paths = append(paths, p)
-		}
-	}
-	return append(paths, "testdata/ops.sheaf", "testdata/charts.sheaf", "testdata/template-table.sheaf")
+	return append(all, "testdata/ops.sheaf", "testdata/charts.sheaf", "testdata/template-table.sheaf", "testdata/uplift.sheaf")
 }
 
 // editedBook applies e to a fresh export of s with results base and
@@ -377,11 +379,10 @@ func TestEditEveryInputExcelize(t *testing.T) {
 				if err != nil {
 					t.Fatal(err)
 				}
-				st := s.NewState()
-				e.set(st)
-				res := st.Eval()
-				calc, summary := calcTabs(t, f)
+				res := e.result(s)
+				calc, summary, combos := calcTabs(t, f)
 				judge(t, x, e, res, calc, summary, &n)
+				judgeCombos(t, x, e, res, combos, &n)
 				n.edits++
 				_ = f.Close()
 			}
@@ -392,7 +393,7 @@ func TestEditEveryInputExcelize(t *testing.T) {
 
 // calcTabs recomputes the Calculation and Summary tabs with excelize's
 // calculator, as text rows like the other spreadsheet's CSV.
-func calcTabs(t *testing.T, f *excelize.File) (calc, summary [][]string) {
+func calcTabs(t *testing.T, f *excelize.File) (calc, summary, combos [][]string) {
 	t.Helper()
 	tab := func(name string) [][]string {
 		rows, err := f.GetRows(name, raw)
@@ -413,5 +414,8 @@ func calcTabs(t *testing.T, f *excelize.File) (calc, summary [][]string) {
 		}
 		return rows
 	}
-	return tab(TabCalc), tab(TabSummary)
+	if idx, _ := f.GetSheetIndex(TabCombos); idx >= 0 {
+		combos = tab(TabCombos)
+	}
+	return tab(TabCalc), tab(TabSummary), combos
 }

@@ -93,7 +93,11 @@ func (x *exporter) guardStale() {
 	x.lockTable = make([]bool, n)
 	for _, i := range p.Order {
 		c := p.Cells[i]
-		if c.Kind == engine.Input || c.Kind == engine.Table || !x.r.Cells[i].Known && c.Kind != engine.Function {
+		if c.Kind == engine.Input || c.Kind == engine.Table || !x.r.Cells[i].Known && c.Kind != engine.Function && !x.comboDep(i) {
+			continue
+		}
+		if x.comboDep(i) {
+			x.stale[i] = x.comboStale(i, x.upstream(i))
 			continue
 		}
 		if x.opaque[i] {

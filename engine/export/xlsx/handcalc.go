@@ -27,6 +27,7 @@ func (x *exporter) substituted(c *check.Cell, body ...*check.Node) string {
 	src := c.Formula.Source
 	base := src.Range.Start.Offset
 	var spans []span
+	mixed := false // a value of another combination than c's
 	var walk func(n *check.Node, base bool)
 	walk = func(n *check.Node, powBase bool) {
 		if n == nil {
@@ -36,6 +37,10 @@ func (x *exporter) substituted(c *check.Cell, body ...*check.Node) string {
 		case check.OpCell, check.OpField:
 			if n.Type.Kind == funcs.Number {
 				if v, ok := x.pathValue(x.tr.path(n)); ok {
+					if v, ok = x.comboSubst(c, n, v); !ok {
+						mixed = true
+						return
+					}
 					if powBase && !strings.HasPrefix(v, "(") && strings.Contains(v, " ") {
 						v = "(" + v + ")" // (16 mm)^2, not 16 mm^2
 					}
@@ -53,6 +58,9 @@ func (x *exporter) substituted(c *check.Cell, body ...*check.Node) string {
 	}
 	for _, b := range body {
 		walk(b, false)
+	}
+	if mixed {
+		return ""
 	}
 	text := src.Text
 	slices.SortFunc(spans, func(a, b span) int { return cmp.Compare(a.off, b.off) })

@@ -73,13 +73,11 @@ func TestRecomputeInAnotherSpreadsheet(t *testing.T) {
 			t.Fatal(err)
 		}
 		for k, e := range editsOf(t, x) {
-			st := s.NewState()
-			e.set(st)
 			book := filepath.Join(dir, fmt.Sprintf("%s-%03d.xlsx", strings.TrimSuffix(filepath.Base(path), ".sheaf"), k))
 			if err := os.WriteFile(book, editedBook(t, s, base, e), 0o644); err != nil {
 				t.Fatal(err)
 			}
-			jobs = append(jobs, job{filepath.Base(path), x, e, st.Eval(), book})
+			jobs = append(jobs, job{filepath.Base(path), x, e, e.result(s), book})
 		}
 	}
 	books := make([]string, len(jobs))
@@ -100,6 +98,9 @@ func TestRecomputeInAnotherSpreadsheet(t *testing.T) {
 		calc := readCSV(t, base+"-"+TabCalc+".csv")
 		summary := readCSV(t, base+"-"+TabSummary+".csv")
 		judge(t, j.x, j.e, j.res, calc, summary, n)
+		if j.x.cmb != nil {
+			judgeCombos(t, j.x, j.e, j.res, readCSV(t, base+"-"+TabCombos+".csv"), n)
+		}
 		n.edits++
 	}
 	for _, s := range order {

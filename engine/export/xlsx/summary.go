@@ -176,7 +176,7 @@ func (x *exporter) writeSummary() error {
 	if err := put(x.text("Reading this workbook", clsHeading)); err != nil {
 		return err
 	}
-	for _, g := range guide {
+	for _, g := range x.guideLines() {
 		if err := putWide(x.text(g, clsText)); err != nil {
 			return err
 		}
@@ -254,6 +254,9 @@ func (x *exporter) checkSummary(ch *checkRow) []any {
 		if s, over := x.beyondRange(si, ch.unit.Factor); over {
 			return x.text(s, clsValueOnly) // never +Inf for a finite side
 		}
+		if x.comboDep(c.Index) && x.readsActions(n) {
+			return x.number(v, clsValueOnly, x.sig) // of the governing combination
+		}
 		f, err := x.tr.cellFormula(n, ch.unit.Factor)
 		if err != nil {
 			return x.number(v, clsValueOnly, x.sig)
@@ -280,9 +283,17 @@ func (x *exporter) checkSummary(ch *checkRow) []any {
 		verdict = excelize.Cell{StyleID: x.st.id(cls, ""), Formula: f, Value: word}
 	} else {
 		util = x.text("", clsText)
-		verdict = x.text(VerdictUnknown, clsFail)
+		v := x.text(VerdictUnknown, clsFail)
+		if g := x.guardExpr(x.stale[c.Index]); g != "" {
+			v.Formula = "IF(" + g + "," + quoted(VerdictRerun) + "," + quoted(VerdictUnknown) + ")"
+		}
+		verdict = v
 	}
-	return []any{x.text(c.Name, clsKey), x.text(c.Description, clsText), side(c.Demand, ch.demand), side(c.Capacity, ch.capacity),
+	desc := c.Description
+	if line := x.governsLine(c); line != "" {
+		desc = strings.TrimSpace(desc + "\n" + line)
+	}
+	return []any{x.text(c.Name, clsKey), x.text(desc, clsText), side(c.Demand, ch.demand), side(c.Capacity, ch.capacity),
 		x.text(unit, clsText), util, verdict, x.text(c.Reference, clsText)}
 }
 

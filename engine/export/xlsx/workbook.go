@@ -1,7 +1,6 @@
 package xlsxout
 
 import (
-	"errors"
 	"fmt"
 	"regexp"
 	"slices"
@@ -89,6 +88,7 @@ type exporter struct {
 	usedKeys  []int
 	anyFlag   string
 	anyRow    int
+	cmb       *comboBook // a sheet with actions (combos.go); nil otherwise
 }
 
 // Build makes the workbook of sheet s with results r (from s.NewState()
@@ -101,19 +101,8 @@ func Build(s *engine.Sheet, r *engine.Results, opt Options) (*excelize.File, Sta
 	return x.f, x.stats, nil
 }
 
-// ErrActions is the error of a sheet with actions: its cells hold the
-// values of several combinations (each check its governing one, the
-// actions their characteristic values), and the workbook's live formulas
-// would combine the characteristic values as written, so the numbers would
-// not follow the checks. Refused until the workbook carries the
-// combinations.
-var ErrActions = errors.New("the sheet has actions; the workbook does not yet carry their combinations, so it is not written (sheaf run --combinations gives the table)")
-
 // export builds the workbook and returns the exporter with its layout.
 func export(s *engine.Sheet, r *engine.Results, opt Options) (*exporter, error) {
-	if s.Combos() != nil {
-		return &exporter{}, ErrActions
-	}
 	n := len(r.Cells)
 	x := &exporter{s: s, r: r, sig: opt.SigFigs, gen: opt.Generator, names: newNamer(n), values: make(map[string]valueAt, n)}
 	if x.sig <= 0 {
@@ -126,7 +115,7 @@ func export(s *engine.Sheet, r *engine.Results, opt Options) (*exporter, error) 
 	x.st = &styles{f: x.f, cache: map[styleKey]int{}}
 	x.tr = &translator{refs: make(map[string]ref, n), cells: s.Cells()}
 	x.layout()
-	for _, step := range []func() error{x.writeSummary, x.writeCalc, x.writeData, x.writeCharts, x.writeRun, x.finishTabs, x.workbookProps} {
+	for _, step := range []func() error{x.writeSummary, x.writeCalc, x.writeCombos, x.writeData, x.writeCharts, x.writeRun, x.finishTabs, x.workbookProps} {
 		if err := step(); err != nil {
 			_ = x.f.Close()
 			return x, err
@@ -314,6 +303,7 @@ func (x *exporter) layout() {
 		}
 		drow[b.tab] += n + 3
 	}
+	x.layoutCombos()
 	x.markOpaque()
 }
 
@@ -346,6 +336,12 @@ func (x *exporter) markOpaque() {
 	for _, i := range p.Order {
 		c := p.Cells[i]
 		cr := &x.r.Cells[i]
+		if x.comboDep(i) {
+			// A value of one combination: only Sheaf computes the others.
+			x.formulas[i] = translated{"", x.comboReason(i), true}
+			x.opaque[i] = true
+			continue
+		}
 		switch c.Kind {
 		case engine.Derived:
 			switch cr.Value.(type) {
@@ -413,7 +409,7 @@ func (x *exporter) layoutRecord(c *check.Cell, path string, v *funcs.RecordValue
 		if fld.Type != nil && fld.Type.Kind == funcs.List && fld.Type.Elem != nil {
 			fr.listUnit = x.preferred(fld.Type.Elem.Dim)
 		}
-		if path == c.Name && lit != nil && lit.Op == check.OpPlugin {
+		if path == c.Name && lit != nil && lit.Op == check.OpPlugin && !x.comboDep(c.Index) {
 			if f := lit.Def().Spreadsheet; f != nil && f.Fields[fld.Name] != "" {
 				fr.plugin = lit
 				if x.liveField == nil {
@@ -620,6 +616,7 @@ func (x *exporter) workbookProps() error {
 		names = append(names, excelize.DefinedName{Name: rf.name, RefersTo: calcValueRef(r.row), Comment: p})
 	}
 	names = append(names, x.guardNames()...)
+	names = append(names, x.comboNames()...)
 	for _, nr := range x.dataRanges {
 		names = append(names, excelize.DefinedName{Name: nr.name, RefersTo: nr.rng})
 	}
