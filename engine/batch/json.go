@@ -156,11 +156,7 @@ func (o *Outcome) WriteJSON(w io.Writer, sheet string, exit int) error {
 			jr.Picks = append(jr.Picks, quantity(c.Name, r.Picks[k], o.PickUnit(k)))
 		}
 		for k, c := range o.Checks {
-			v := r.Verdict(k)
-			if v == "unknown" {
-				v = "not assessed"
-			}
-			jc := jsonCheck{Name: c.Name, Utilisation: jnum(r.Utils[k]), Verdict: v}
+			jc := jsonCheck{Name: c.Name, Utilisation: jnum(r.Utils[k]), Verdict: r.Verdict(k)}
 			if k < len(r.Governing) {
 				jc.Governing = r.Governing[k]
 			}

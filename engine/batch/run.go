@@ -41,14 +41,14 @@ type Row struct {
 	Governing []string
 }
 
-// Verdict of check k: "pass", "fail", "unknown" (not assessed) or "" for a
-// bad row.
+// Verdict of check k: "pass", "fail", "not assessed" (the words of the
+// listing and of the JSON) or "" for a bad row.
 func (r *Row) Verdict(k int) string {
 	switch {
 	case r.Case.Err != nil:
 		return ""
 	case math.IsNaN(r.Utils[k]):
-		return "unknown"
+		return "not assessed"
 	case r.Utils[k] <= 1:
 		return "pass"
 	}
