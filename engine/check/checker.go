@@ -191,13 +191,36 @@ func (c *checker) addCell(cell *Cell, section, scope string) {
 	}
 	if j, dup := p.ByName[cell.Name]; dup {
 		first := p.Cells[j]
-		c.errs.Errorf(cell.NameRange, "`"+cell.Name+"` is first defined at "+first.Pos.String()+"; each name names one cell",
+		what := "`" + cell.Name + "` is first defined at " + first.Pos.String()
+		switch {
+		case rangeHalf(first) != "":
+			what = "`" + cell.Name + "` is the " + rangeHalf(first) + " limit of the range check `" + cell.Name[:len(cell.Name)-4] + "` at " + first.Pos.String()
+		case rangeHalf(cell) != "":
+			what = "the range check `" + cell.Name[:len(cell.Name)-4] + "` names its " + rangeHalf(cell) + " limit `" + cell.Name + "`, and `" + cell.Name + "` is first defined at " + first.Pos.String()
+		}
+		c.errs.Errorf(cell.NameRange, what+"; each name names one cell",
 			"rename one of them", "`%s` is defined twice", cell.Name)
 		return
 	}
 	cell.Index = len(p.Cells)
 	p.ByName[cell.Name] = cell.Index
 	p.Cells = append(p.Cells, cell)
+}
+
+// rangeHalf is "lower" or "upper" for a half of a range check (its name
+// is the written name and _min or _max), "" for any other cell.
+func rangeHalf(cell *Cell) string {
+	written := int(cell.NameRange.End.Offset - cell.NameRange.Start.Offset)
+	if cell.Kind != Check || len(cell.Name)-len(cell.Scope) != written+4 {
+		return ""
+	}
+	switch {
+	case strings.HasSuffix(cell.Name, "_min"):
+		return "lower"
+	case strings.HasSuffix(cell.Name, "_max"):
+		return "upper"
+	}
+	return ""
 }
 
 // rangeCheck splits a check written between two limits,
