@@ -42,10 +42,10 @@ func (cs *Combos) Text(k int) string { return cs.All[k].Text(cs.Actions) }
 
 // StateOf returns the limit state check c is checked in.
 func StateOf(c *Cell) string {
-	if c.LimitState == "" {
+	if c.LimitState() == "" {
 		return combine.Default
 	}
-	return c.LimitState
+	return c.LimitState()
 }
 
 // setupCombos reads the actions, the rules and the factor lines of prog and
@@ -144,7 +144,11 @@ func setupCombos(prog *check.Program) (*Combos, diag.List) {
 		}
 		st := StateOf(c)
 		if !slices.Contains(rules.States, st) {
-			errs.Errorf(c.LimitStateRange, fmt.Sprintf("%s has combinations for %s", rules.Name, strings.Join(rules.States, ", ")),
+			at := c.NameRange
+			if c.State != nil {
+				at = c.State.Range
+			}
+			errs.Errorf(at, fmt.Sprintf("%s has combinations for %s", rules.Name, strings.Join(rules.States, ", ")),
 				"write one of those after `in`, or leave it out for the ultimate limit state", "no combinations of %s for the limit state `%s`", rules.Name, st)
 			continue
 		}

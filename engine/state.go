@@ -168,7 +168,7 @@ func (s *Sheet) settable(name string) (*Cell, error) {
 	case Function:
 		return nil, fmt.Errorf("`%s` is a function; only inputs can be set", name)
 	}
-	deps := c.Deps
+	deps := s.prog.DepNames(c)
 	if len(deps) > 3 {
 		deps = append(slices.Clone(deps[:3]), "...")
 	}

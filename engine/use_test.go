@@ -142,14 +142,14 @@ func TestUseProgram(t *testing.T) {
 		if cell.Kind != c.kind {
 			t.Errorf("%s: kind %v, want %v", c.name, cell.Kind, c.kind)
 		}
-		if cell.Pos.File != c.file {
-			t.Errorf("%s: at %s, want a position in %s", c.name, cell.Pos, c.file)
+		if cell.Pos().File != c.file {
+			t.Errorf("%s: at %s, want a position in %s", c.name, cell.Pos(), c.file)
 		}
 	}
-	if d := s.Lookup("rod.upper.sigma").Deps; !slices.Equal(d, []string{"rod.upper.P", "rod.upper.A"}) {
+	if d := s.Program().DepNames(s.Lookup("rod.upper.sigma")); !slices.Equal(d, []string{"rod.upper.P", "rod.upper.A"}) {
 		t.Errorf("rod.upper.sigma deps %q", d)
 	}
-	if d := s.Lookup("s_up").Deps; !slices.Equal(d, []string{"rod.upper.sigma"}) {
+	if d := s.Program().DepNames(s.Lookup("s_up")); !slices.Equal(d, []string{"rod.upper.sigma"}) {
 		t.Errorf("s_up deps %q", d)
 	}
 	// An override without an annotation keeps the template's description

@@ -70,7 +70,7 @@ func (t *typer) args(argNodes []int32) []*Node {
 func (t *typer) userCall(n int32, idx int, fn *Cell, fnType *funcs.Type, argNodes []int32) *Node {
 	if len(argNodes) != len(fn.Params) {
 		return t.fail(n, fmt.Sprintf("%s takes %s, got %d", fn.Name, plural.Count(len(fn.Params), "argument"), len(argNodes)),
-			"the function is defined at "+fn.Pos.String(), "write "+fn.Name+"("+paramList(fn)+")")
+			"the function is defined at "+fn.Pos().String(), "write "+fn.Name+"("+paramList(fn)+")")
 	}
 	args := t.args(argNodes)
 	if args == nil {
@@ -80,7 +80,7 @@ func (t *typer) userCall(n int32, idx int, fn *Cell, fnType *funcs.Type, argNode
 		p := fn.Params[i]
 		if !p.Type.Accepts(a.Type) {
 			return t.fail(argNodes[i], fmt.Sprintf("argument %s of %s must be %s, got %s", p.Name, fn.Name, t.describeType(p.Type), t.describeType(a.Type)),
-				"the function is defined at "+fn.Pos.String(), t.argHint(p.Type))
+				"the function is defined at "+fn.Pos().String(), t.argHint(p.Type))
 		}
 	}
 	r := t.node(n, OpUser, fnType.Result, args...)

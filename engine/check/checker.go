@@ -177,7 +177,6 @@ func (c *checker) collectFile(f *sheet.File, scope string, depth int) {
 func (c *checker) addCell(cell *Cell, section, scope string) {
 	p := c.prog
 	cell.Section = section
-	cell.Pos = cell.NameRange.Start
 	if IsReserved(cell.Name) {
 		c.errs.Errorf(cell.NameRange, "built-in names, constants and keywords cannot be redefined", "choose another name, e.g. `"+cell.Name+"_1`", "`%s` is a reserved name", cell.Name)
 	}
@@ -191,12 +190,12 @@ func (c *checker) addCell(cell *Cell, section, scope string) {
 	}
 	if j, dup := p.ByName[cell.Name]; dup {
 		first := p.Cells[j]
-		what := "`" + cell.Name + "` is first defined at " + first.Pos.String()
+		what := "`" + cell.Name + "` is first defined at " + first.Pos().String()
 		switch {
 		case rangeHalf(first) != "":
-			what = "`" + cell.Name + "` is the " + rangeHalf(first) + " limit of the range check `" + cell.Name[:len(cell.Name)-4] + "` at " + first.Pos.String()
+			what = "`" + cell.Name + "` is the " + rangeHalf(first) + " limit of the range check `" + cell.Name[:len(cell.Name)-4] + "` at " + first.Pos().String()
 		case rangeHalf(cell) != "":
-			what = "the range check `" + cell.Name[:len(cell.Name)-4] + "` names its " + rangeHalf(cell) + " limit `" + cell.Name + "`, and `" + cell.Name + "` is first defined at " + first.Pos.String()
+			what = "the range check `" + cell.Name[:len(cell.Name)-4] + "` names its " + rangeHalf(cell) + " limit `" + cell.Name + "`, and `" + cell.Name + "` is first defined at " + first.Pos().String()
 		}
 		c.errs.Errorf(cell.NameRange, what+"; each name names one cell",
 			"rename one of them", "`%s` is defined twice", cell.Name)
@@ -260,6 +259,14 @@ func (c *checker) rangeCheck(ck *sheet.Check, cell *Cell) (lo, hi *Cell) {
 	return half("_min", "lower limit", lower.From, x.To), half("_max", "upper limit", x.From, upper.To)
 }
 
+// limitState is the limit state check ck names, nil for the default one.
+func limitState(ck *sheet.Check) *sheet.Ident {
+	if ck.State.Name == "" {
+		return nil
+	}
+	return &ck.State
+}
+
 func newCell(it sheet.Item) *Cell {
 	switch it := it.(type) {
 	case *sheet.Cell:
@@ -273,7 +280,7 @@ func newCell(it sheet.Item) *Cell {
 	case *sheet.Check:
 		return &Cell{Name: it.Name.Name, Kind: Check, NameRange: it.Name.Range, Range: it.Range,
 			Expr: it.Body.Text, Description: it.Annot.Description, Reference: it.Annot.Reference,
-			Formula: &formula.Formula{Source: it.Body}, LimitState: it.State.Name, LimitStateRange: it.State.Range}
+			Formula: &formula.Formula{Source: it.Body}, State: limitState(it)}
 	}
 	return nil
 }
@@ -506,10 +513,8 @@ func (c *checker) resolveRefs(i int, f *formula.Formula, seen []int32) {
 		seen[j] = int32(i + 1)
 		if cell.DepIdx == nil {
 			cell.DepIdx = make([]int, 0, len(f.Refs))
-			cell.Deps = make([]string, 0, len(f.Refs))
 		}
 		cell.DepIdx = append(cell.DepIdx, j)
-		cell.Deps = append(cell.Deps, p.Cells[j].Name)
 	}
 }
 

@@ -95,7 +95,7 @@ func (c *checker) reportCycle(cyc []int) {
 	for _, i := range cyc {
 		cell := p.Cells[i]
 		names = append(names, "`"+cell.Name+"`")
-		where = append(where, cell.Name+" at "+cell.Pos.String())
+		where = append(where, cell.Name+" at "+cell.Pos().String())
 	}
 	// cyc lists each cell followed by one it depends on... in dependency
 	// direction; say it that way.

@@ -49,11 +49,9 @@ type Cell struct {
 	Unit        units.Unit // display unit; Symbol as written; zero when none
 	HasUnit     bool       // a display unit was written
 	Type        *funcs.Type
-	Pos         diag.Pos   // where the name is
 	Range       diag.Range // the whole item
 	NameRange   diag.Range
-	Deps        []string // names of the cells it uses, in order of first use
-	DepIdx      []int    // the same as indices into Program.Cells
+	DepIdx      []int // the cells it uses, as indices into Program.Cells, in order of first use (Program.DepNames gives their names)
 	Formula     *formula.Formula
 	// Scope is the prefix under which the formula's names are read: "" for
 	// a cell of the sheet itself, "rod." for a cell inlined from
@@ -75,10 +73,30 @@ type Cell struct {
 	// Action is the item of an action cell (`action permanent G = ...`),
 	// nil for every other cell.
 	Action *sheet.Action
-	// LimitState is the limit state a check names after `in` ("" for the
-	// default one).
-	LimitState      string
-	LimitStateRange diag.Range
+	// State is the limit state a check names after `in` (nil for the
+	// default one); LimitState gives its name.
+	State *sheet.Ident
+}
+
+// Pos is where the cell's name is.
+func (c *Cell) Pos() diag.Pos { return c.NameRange.Start }
+
+// LimitState is the limit state a check names after `in` ("" for the
+// default one).
+func (c *Cell) LimitState() string {
+	if c.State == nil {
+		return ""
+	}
+	return c.State.Name
+}
+
+// DepNames returns the names of the cells c uses, in order of first use.
+func (p *Program) DepNames(c *Cell) []string {
+	names := make([]string, len(c.DepIdx))
+	for k, j := range c.DepIdx {
+		names[k] = p.Cells[j].Name
+	}
+	return names
 }
 
 // Entry is a table entry written as an expression of the sheet's cells,

@@ -164,9 +164,9 @@ func (t *typer) ident(n int32) *Node {
 // map of every cell of a large sheet.
 func (t *typer) depIndex(name string) (int, bool) {
 	if t.cell != nil && t.cell.Scope == "" {
-		for k, d := range t.cell.Deps {
-			if d == name {
-				return t.cell.DepIdx[k], true
+		for _, j := range t.cell.DepIdx {
+			if t.c.prog.Cells[j].Name == name {
+				return j, true
 			}
 		}
 	}

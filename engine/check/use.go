@@ -86,7 +86,7 @@ func (c *checker) useTemplate(from *sheet.File, u *sheet.Use, scope string, dept
 		return
 	}
 	if j, dup := c.prog.ByName[name]; dup {
-		c.errs.Errorf(u.Name.Range, "`"+name+"` is first defined at "+c.prog.Cells[j].Pos.String()+"; each name names one thing",
+		c.errs.Errorf(u.Name.Range, "`"+name+"` is first defined at "+c.prog.Cells[j].Pos().String()+"; each name names one thing",
 			"rename one of them", "`%s` is defined twice", name)
 		return
 	}
@@ -368,7 +368,7 @@ func (c *checker) applyOverrides() {
 			c.use.replaced[i] = &replaced{orig: cell.Formula, scope: cell.Scope}
 			cell.Expr = o.Expr.Text
 			cell.Scope = b.scope
-			cell.Range, cell.NameRange, cell.Pos = o.Range, o.Name.Range, o.Name.Range.Start
+			cell.Range, cell.NameRange = o.Range, o.Name.Range
 			// The template's description still says what the cell is; its
 			// reference backed the template's value, not this one.
 			cell.Reference = o.Annot.Reference
@@ -401,7 +401,7 @@ func (c *checker) overridable(b *useBlock, written string, cell *Cell, o *sheet.
 		what = "a table"
 	}
 	if what != "" {
-		c.errs.Errorf(o.Name.Range, "`"+local+"` is "+what+" of the template, defined at "+cell.Pos.String()+"; a use block replaces inputs only",
+		c.errs.Errorf(o.Name.Range, "`"+local+"` is "+what+" of the template, defined at "+cell.Pos().String()+"; a use block replaces inputs only",
 			"replace the inputs it is computed from", "`%s` of template `%s` cannot be replaced", local, written)
 		return false
 	}
@@ -409,7 +409,7 @@ func (c *checker) overridable(b *useBlock, written string, cell *Cell, o *sheet.
 		if len(deps) > 3 {
 			deps = append(deps[:3], "...")
 		}
-		c.errs.Errorf(o.Name.Range, "`"+local+"` is computed from "+strings.Join(deps, ", ")+" at "+cell.Pos.String()+"; a use block replaces inputs only",
+		c.errs.Errorf(o.Name.Range, "`"+local+"` is computed from "+strings.Join(deps, ", ")+" at "+cell.Pos().String()+"; a use block replaces inputs only",
 			"replace the inputs it is computed from", "`%s` of template `%s` is derived, not an input", local, written)
 		return false
 	}

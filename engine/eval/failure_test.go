@@ -94,8 +94,8 @@ func TestFailureInFunction(t *testing.T) {
 		if p == nil || st.Known[c.Index] {
 			t.Fatalf("%s: known=%v problem=%v", name, st.Known[c.Index], p)
 		}
-		if p.Range.Start.Line != c.Pos.Line || !strings.Contains(p.Summary, "division by zero") {
-			t.Errorf("%s: problem %v, want division by zero on line %d", name, p, c.Pos.Line)
+		if p.Range.Start.Line != c.Pos().Line || !strings.Contains(p.Summary, "division by zero") {
+			t.Errorf("%s: problem %v, want division by zero on line %d", name, p, c.Pos().Line)
 		}
 		if !strings.Contains(p.Detail, "t.sheaf:2:14") || !strings.Contains(p.Detail, "`inv`") {
 			t.Errorf("%s: detail %q should name `inv` and the divisor at t.sheaf:2:14", name, p.Detail)

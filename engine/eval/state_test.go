@@ -65,11 +65,11 @@ func sameValues(m *eval.Machine, a, b *eval.State) string {
 
 // downstream lists the cells that use any of the changed cells, directly
 // or not, the changed cells included; it follows the names each cell
-// depends on (Cell.Deps), not the evaluator's reverse edges.
+// depends on (Program.DepNames), not the evaluator's reverse edges.
 func downstream(m *eval.Machine, changed []int) map[int]bool {
 	users := map[string][]int{}
 	for _, c := range m.P.Cells {
-		for _, d := range c.Deps {
+		for _, d := range m.P.DepNames(c) {
 			users[d] = append(users[d], c.Index)
 		}
 	}

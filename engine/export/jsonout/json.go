@@ -186,7 +186,7 @@ func Build(r *engine.Results, exit int) *Document {
 	for _, c := range r.Cells {
 		jc := Cell{Name: c.Cell.Name, Kind: c.Cell.Kind.String(), Section: c.Cell.Section, Known: c.Known,
 			Unit: c.Unit.Symbol, Text: c.Text, Description: c.Cell.Description, Reference: c.Cell.Reference,
-			Expr: c.Cell.Expr, Deps: c.Cell.Deps}
+			Expr: c.Cell.Expr, Deps: depNames(r, c.Cell)}
 		if c.Cell.Action != nil {
 			jc.Action = c.Cell.Action.Kind.Text()
 		}
@@ -321,4 +321,14 @@ func Encode(w io.Writer, v any) error {
 	enc.SetIndent("", "  ")
 	enc.SetEscapeHTML(false)
 	return enc.Encode(v)
+}
+
+// depNames are the names of the cells c uses, in order of first use (every
+// cell of the sheet is in r.Cells, in the program's order).
+func depNames(r *engine.Results, c *engine.Cell) []string {
+	names := make([]string, len(c.DepIdx))
+	for k, j := range c.DepIdx {
+		names[k] = r.Cells[j].Cell.Name
+	}
+	return names
 }

@@ -214,7 +214,7 @@ func (d *doc) templateFile(prefix string) *sheet.File {
 	for _, c := range d.prog.Cells {
 		if strings.HasPrefix(c.Name, prefix) && !strings.Contains(c.Name[len(prefix):], ".") && !d.replaced[c.Name] {
 			for _, f := range d.prog.Files {
-				if f.Name == c.Pos.File {
+				if f.Name == c.Pos().File {
 					return f
 				}
 			}

@@ -264,7 +264,7 @@ func (x *exporter) cellRow(cr *engine.CellResult) [calcCols]excelize.Cell {
 		value = x.text("not computed", clsValueOnly)
 		note = "not computed"
 		for _, p := range x.r.Problems {
-			if p.Range.Start.Line == c.Pos.Line && p.Range.Start.File == c.Pos.File {
+			if p.Range.Start.Line == c.Pos().Line && p.Range.Start.File == c.Pos().File {
 				note += ": " + p.Summary
 				break
 			}

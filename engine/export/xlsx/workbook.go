@@ -539,7 +539,7 @@ func (x *exporter) tableItem(c *check.Cell) *sheet.Table {
 	name := strings.TrimPrefix(c.Name, c.Scope)
 	var file *sheet.File
 	for _, pf := range x.s.Program().Files {
-		if pf != nil && pf.Name == c.Pos.File {
+		if pf != nil && pf.Name == c.Pos().File {
 			file = pf
 			break
 		}
