@@ -411,6 +411,7 @@ func (c *checker) typeEntries(cell *Cell, sys units.System) {
 			return
 		}
 	}
+	ty := cell.Type // the columns; every entry is typed, each failure reported
 	for k := range cell.Entries {
 		e := &cell.Entries[k]
 		t := &typer{c: c, f: e.Formula, cell: cell, system: sys, errs: &c.errs}
@@ -419,7 +420,7 @@ func (c *checker) typeEntries(cell *Cell, sys units.System) {
 			cell.Type = nil
 			continue
 		}
-		col := cell.Type.Fields[e.Col]
+		col := ty.Fields[e.Col]
 		if n.Type.Kind != funcs.Number || n.Type.Dim != col.Type.Dim {
 			c.errs.Errorf(e.Formula.Source.Range, "an entry of column `"+col.Name+"` must be "+article(t.describeDim(col.Type.Dim))+", as its header says",
 				"write the entry in the unit of its column's dimension, or correct the formula",
