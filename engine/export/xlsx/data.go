@@ -137,6 +137,20 @@ type chartSpec struct {
 	xAxis, yAx string
 }
 
+// xMin and xMax are the range of the x values of a chart of bar samples
+// in display units (nil for other charts: the axis is scaled to fit).
+func (s chartSpec) xMin() *float64 { return s.xEnd(0) }
+func (s chartSpec) xMax() *float64 { return s.xEnd(1) }
+
+func (s chartSpec) xEnd(last int) *float64 {
+	xs := s.b.t.Cols[s.xc]
+	if s.b.t.Type.Name != "bar_samples" || len(xs) < 2 {
+		return nil
+	}
+	v := xs[last*(len(xs)-1)] / s.b.units[s.xc].Factor
+	return &v
+}
+
 // chartsOf lists the charts of a table by its type name: N(x), u(x) and
 // σ(x) of bar samples, N(ε) of a curve. Other tables are not charted.
 func chartsOf(b *tableBlock) []chartSpec {
@@ -191,6 +205,16 @@ func (x *exporter) writeCharts() error {
 	if _, err := x.f.NewSheet(TabCharts); err != nil {
 		return err
 	}
+	// The cells of the marks go in by a stream writer (which types a
+	// formula's cached text and number rightly), after the charts.
+	cells := map[int]map[int]excelize.Cell{}
+	put := func(col, row int, c excelize.Cell) {
+		if cells[row] == nil {
+			cells[row] = map[int]excelize.Cell{}
+		}
+		cells[row][col] = c
+	}
+	charts := make([]*excelize.Chart, len(specs))
 	for i, s := range specs {
 		colRange := func(j int) string {
 			c, _ := excelize.ColumnNumberToName(j + 1)
@@ -201,21 +225,32 @@ func (x *exporter) writeCharts() error {
 			row := strconv.Itoa(s.b.firstDataRow() - 1)
 			return s.b.tab + "!$" + c + "$" + row
 		}
-		ch := &excelize.Chart{
-			Type: excelize.Scatter,
-			// The series name must be a cell reference: the header of the
-			// plotted column. A scatter series draws no line unless its
-			// type is set.
-			Series: []excelize.ChartSeries{{Name: headerRef(s.yc), Categories: colRange(s.xc), Values: colRange(s.yc),
-				Marker: excelize.ChartMarker{Symbol: "none"}, Line: excelize.LineOptions{Type: excelize.LineSolid, Width: 1.5}}},
+		// The series name must be a cell reference: the header of the
+		// plotted column. A scatter series draws no line unless its type
+		// is set.
+		series := []excelize.ChartSeries{{Name: headerRef(s.yc), Categories: colRange(s.xc), Values: colRange(s.yc),
+			Marker: excelize.ChartMarker{Symbol: "none"}, Line: excelize.LineOptions{Type: excelize.LineSolid, Width: 1.5}}}
+		legend := excelize.ChartLegend{Position: "none"}
+		if marks := x.marksOf(s); len(marks) > 0 {
+			series = append(series, x.writeMarks(s, marks, 2+i*chartHeight, put)...)
+			legend = excelize.ChartLegend{Position: "bottom", Font: &axisFont}
+			x.stats.Marks += len(marks)
+		}
+		charts[i] = &excelize.Chart{
+			Type:   excelize.Scatter,
+			Series: series,
 			Title:  excelize.ChartTitle{Paragraph: []excelize.RichTextRun{{Text: s.title}}},
-			Legend: excelize.ChartLegend{Position: "none"},
-			XAxis: excelize.ChartAxis{MajorGridLines: true, Font: axisFont,
+			Legend: legend,
+			// The x axis spans the samples (a bar from end to end), not a
+			// rounded range beyond them.
+			XAxis: excelize.ChartAxis{MajorGridLines: true, Font: axisFont, Minimum: s.xMin(), Maximum: s.xMax(),
 				Title: excelize.ChartTitle{Paragraph: []excelize.RichTextRun{{Text: s.xAxis, Font: &axisTitleFont}}}},
 			YAxis: excelize.ChartAxis{MajorGridLines: true, Font: axisFont,
 				Title: excelize.ChartTitle{Paragraph: []excelize.RichTextRun{{Text: s.yAx, Font: &axisTitleFont}}}},
 			Dimension: excelize.ChartDimension{Width: 900, Height: 460},
 		}
+	}
+	for i, ch := range charts {
 		cell, _ := excelize.CoordinatesToCellName(2, 2+i*chartHeight)
 		if i > 0 {
 			if err := x.f.InsertPageBreak(TabCharts, "A"+strconv.Itoa(1+i*chartHeight)); err != nil {
@@ -223,12 +258,26 @@ func (x *exporter) writeCharts() error {
 			}
 		}
 		if err := x.f.AddChart(TabCharts, cell, ch); err != nil {
-			return fmt.Errorf("chart %q: %w", s.title, err)
+			return fmt.Errorf("chart %q: %w", specs[i].title, err)
 		}
 		x.stats.Charts++
 	}
 	numericXValues(x.f)
-	x.finish = append(x.finish, finishing{TabCharts, true})
+	// The numbers of the marks lie right of the printed columns.
+	last := len(specs) * chartHeight
+	end, _ := excelize.ColumnNumberToName(chartsPrintWidth)
+	if err := x.f.SetDefinedName(&excelize.DefinedName{Name: "_xlnm.Print_Area", RefersTo: TabCharts + "!$A$1:$" + end + "$" + strconv.Itoa(last), Scope: TabCharts}); err != nil {
+		return err
+	}
+	// Print setup and protection go on before streaming: the stream
+	// writer keeps what the tab had (the charts too), but drops what is
+	// set after it.
+	if err := x.finishTab(TabCharts, true); err != nil {
+		return err
+	}
+	if len(cells) > 0 {
+		return x.streamCells(TabCharts, cells)
+	}
 	return nil
 }
 

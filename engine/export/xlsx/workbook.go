@@ -43,6 +43,7 @@ type Stats struct {
 	ValueOnly int // value cells only Sheaf can compute, written as values
 	Tables    int // tables on the Data tab
 	Charts    int // charts on the Charts tab
+	Marks     int // design checks marked on the charts (a limit line and a design point each)
 }
 
 // valueAt is an SI value and the unit it is shown in.
