@@ -36,6 +36,9 @@ func lateralDefs() []*funcs.Def {
 				"Negative for a bar in tension (it contracts), positive in compression.",
 			Formula: "ε_lat = −ν·ε",
 			Source:  "Gere & Goodno, Mechanics of Materials, §1.6 (Poisson's ratio); Timoshenko, Strength of Materials Part I, §2",
+			// A spreadsheet number is always finite: the range of ν is the
+			// whole condition.
+			Spreadsheet: &funcs.Spreadsheet{Formula: "-({nu})*({eps})", Valid: "AND({nu}>-1,{nu}<=0.5)"},
 		},
 		{
 			Name: "diameter_change", Family: family,
@@ -58,6 +61,8 @@ func lateralDefs() []*funcs.Def {
 				"negative when the bar is stretched. Small strains: d changes to d·(1 − ν·ε).",
 			Formula: "Δd = −ν·ε·d",
 			Source:  "Gere & Goodno, Mechanics of Materials, §1.6 (Poisson's ratio)",
+			// (−ν·ε)·d in the order Go multiplies.
+			Spreadsheet: &funcs.Spreadsheet{Formula: "-({nu})*({eps})*({d})", Valid: "AND({d}>0,{nu}>-1,{nu}<=0.5)"},
 		},
 	}
 }

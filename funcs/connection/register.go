@@ -66,5 +66,10 @@ func init() {
 			"separate checks.",
 		Formula: "F_t,Rd = k_2·f_ub·A_s/γ_M2",
 		Source:  "EN 1993-1-8:2005 Table 3.4 (from memory)",
+		// The default of k_2 is K2 (0.9); the condition is TensionResistance's.
+		Spreadsheet: &funcs.Spreadsheet{
+			Formula: "({k_2=0.9})*({f_ub})*({A_s})/({gamma_M2})",
+			Valid:   "AND({f_ub}>0,{A_s}>0,{gamma_M2}>=1,{k_2=0.9}>0,{k_2=0.9}<=1)",
+		},
 	})
 }

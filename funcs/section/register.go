@@ -134,7 +134,8 @@ func init() {
 		Call: func(a []funcs.Value) (funcs.Value, error) {
 			return wrap(ISection(num(a[0]), num(a[1]), num(a[2]), num(a[3])))
 		},
-		Summary: "doubly symmetric I/H shape from its plate dimensions, centred at the origin",
+		Spreadsheet: iSectionForm,
+		Summary:     "doubly symmetric I/H shape from its plate dimensions, centred at the origin",
 		Doc: "A doubly symmetric I or H section built from two flanges b × t_f and a web t_w × (h − 2t_f), " +
 			"centred at the origin, major axis parallel to y. Root radii are ignored, so A and I are a little " +
 			"below the catalogue values of a rolled profile (by about (4 − π)r² in area).",

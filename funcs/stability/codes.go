@@ -99,8 +99,9 @@ func codeDefs() []*funcs.Def {
 			Doc: "The relative slenderness λ̄ of a class 1, 2 or 3 section in flexural buckling from its buckling length and " +
 				"radius of gyration: λ̄ = (L_cr/i)/λ_1 with λ_1 = π·√(E/f_y) (93.9·ε for E = 210 GPa). It equals " +
 				"√(A·f_y/N_cr) (relative_slenderness). Class 4 sections need the effective area: use relative_slenderness.",
-			Formula: "λ̄ = (L_cr/i)/(π·√(E/f_y))",
-			Source:  "EN 1993-1-1:2005 §6.3.1.3(1), Eq. (6.50) (from memory)",
+			Formula:     "λ̄ = (L_cr/i)/(π·√(E/f_y))",
+			Source:      "EN 1993-1-1:2005 §6.3.1.3(1), Eq. (6.50) (from memory)",
+			Spreadsheet: &funcs.Spreadsheet{Formula: "({L_cr})/({i})/(PI()*SQRT(({E})/({f_y})))", Valid: "AND({L_cr}>0,{i}>0,{f_y}>0,{E}>0)"},
 		},
 		{
 			Name: "fcr_e3", Family: family,
@@ -116,6 +117,13 @@ func codeDefs() []*funcs.Def {
 				"P_n = F_cr·A_g; φ_c = 0.90 (LRFD) or Ω_c = 1.67 (ASD) stay in the sheet.",
 			Formula: "F_e = π²E/(L_c/r)²; F_cr = 0.658^(F_y/F_e)·F_y if L_c/r ≤ 4.71√(E/F_y), else 0.877·F_e",
 			Source:  "AISC 360-16 §E3, Eqs. E3-2, E3-3, E3-4 (from memory)",
+			// F_e = π²·E/(s·s) in both branches. POWER and PI()^2: excelize's
+			// calculator refuses this IF with PI()*PI() or 0.658^(…) inside
+			// once the validity condition divides it.
+			Spreadsheet: &funcs.Spreadsheet{
+				Formula: "IF(({Lc_r})<=4.71*SQRT(({E})/({F_y})),POWER(0.658,({F_y})/(PI()^2*({E})/(({Lc_r})*({Lc_r}))))*({F_y}),0.877*(PI()^2*({E})/(({Lc_r})*({Lc_r}))))",
+				Valid:   "AND({F_y}>0,{E}>0,{Lc_r}>0)",
+			},
 		},
 	}
 }
