@@ -242,10 +242,12 @@ func (x *exporter) writeCharts() error {
 			Title:  excelize.ChartTitle{Paragraph: []excelize.RichTextRun{{Text: s.title}}},
 			Legend: legend,
 			// The x axis spans the samples (a bar from end to end), not a
-			// rounded range beyond them.
-			XAxis: excelize.ChartAxis{MajorGridLines: true, Font: axisFont, Minimum: s.xMin(), Maximum: s.xMax(),
+			// rounded range beyond them. The numbers of both axes print
+			// below and left of the plot even where every value is negative
+			// (a strut, a heated pipe, a curve in compression).
+			XAxis: excelize.ChartAxis{MajorGridLines: true, Font: axisFont, Minimum: s.xMin(), Maximum: s.xMax(), TickLabelPosition: excelize.ChartTickLabelLow,
 				Title: excelize.ChartTitle{Paragraph: []excelize.RichTextRun{{Text: s.xAxis, Font: &axisTitleFont}}}},
-			YAxis: excelize.ChartAxis{MajorGridLines: true, Font: axisFont,
+			YAxis: excelize.ChartAxis{MajorGridLines: true, Font: axisFont, TickLabelPosition: excelize.ChartTickLabelLow,
 				Title: excelize.ChartTitle{Paragraph: []excelize.RichTextRun{{Text: s.yAx, Font: &axisTitleFont}}}},
 			Dimension: excelize.ChartDimension{Width: 900, Height: 460},
 		}

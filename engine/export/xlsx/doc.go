@@ -23,7 +23,10 @@
 //     with the clause it follows and each check's utilisation in it, and
 //     the factors with their sources, editable and guarded.
 //   - Charts: N(x), u(x) and σ(x) of every bar result, N(ε) of every
-//     curve, one a printed page, titled by the sheet's description.
+//     curve, one a printed page, titled by the sheet's description. A
+//     check that compares a sample with a limit is marked on its chart:
+//     the limit as a line, the sample it uses as a point, both in the
+//     legend with value and unit (chartmarks.go).
 //   - Run record: the inputs as Sheaf computed with them (see Guards).
 //
 // Every tab prints on A4 with the column headers of the Calculation tab

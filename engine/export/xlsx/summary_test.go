@@ -118,6 +118,11 @@ func TestCharts(t *testing.T) {
 		if first := serRE.FindString(c); strings.Contains(first, "<a:ln><a:noFill>") {
 			t.Errorf("chart %d draws its samples without a line", i+1)
 		}
+		// The axis numbers print at the low side of the plot, not beside
+		// an axis that crosses through it (all values negative).
+		if strings.Count(c, `<tickLblPos val="low">`) != 2 {
+			t.Errorf("chart %d does not print its axis numbers below and left of the plot", i+1)
+		}
 		for _, m := range regexp.MustCompile(`<tx><strRef><f>([^<]*)</f>`).FindAllStringSubmatch(c, -1) {
 			if !regexp.MustCompile(`^(Samples|Charts)!\$[A-Z]+\$[0-9]+$`).MatchString(m[1]) {
 				t.Errorf("chart %d names its series %q, not a cell reference", i+1, m[1])
