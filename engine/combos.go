@@ -80,9 +80,18 @@ func setupCombos(prog *check.Program) (*Combos, diag.List) {
 		return nil, errs
 	}
 	if rules == nil {
-		errs.Errorf(acts[0].Action.Kind.Range, "a sheet with actions names the rules that combine them in its header",
-			"add a header line `combinations: EN 1990 6.10` (or EN 1990 6.10a/b, ASCE 7 LRFD, ASCE 7 ASD)",
-			"actions without combination rules")
+		at, hint := acts[0].Action.Kind.Range, "add a header line `combinations: EN 1990 6.10` (or EN 1990 6.10a/b, ASCE 7 LRFD, ASCE 7 ASD)"
+		for _, t := range prog.Templates {
+			if t.Combinations != "" {
+				hint = "add the header line `combinations: " + t.Combinations + "` to this sheet, as " + t.File + " has; the using sheet's rules combine its templates' actions"
+				if acts[0].Scope != "" {
+					at = t.Use
+				}
+				break
+			}
+		}
+		errs.Errorf(at, "a sheet with actions names the rules that combine them in its header",
+			hint, "actions without combination rules")
 		return nil, errs
 	}
 	cs := &Combos{Rules: rules, Depends: make([]bool, len(prog.Cells))}
@@ -119,6 +128,7 @@ func setupCombos(prog *check.Program) (*Combos, diag.List) {
 			errs.Errorf(f.KeyRange, err.Error(), hint, "cannot replace factor `%s`", f.Key)
 		}
 	}
+	templateCombos(prog, rules, &errs)
 	// Which cells depend on an action: in dependency order, a cell depends
 	// on one when it is one or uses a cell that does. An action's own value
 	// must not use another action: it would be factored twice.
@@ -221,6 +231,55 @@ func setupCombos(prog *check.Program) (*Combos, diag.List) {
 		return nil, errs
 	}
 	return cs, nil
+}
+
+// templateCombos holds the combination header and the factor lines of the
+// sheet's templates to the using sheet's rules, which govern every action,
+// its templates' included. A template written for another standard (EN 1990
+// against ASCE/SEI 7) is refused: its characteristic values and kinds were
+// chosen for that standard. Within one standard the using sheet's choice
+// governs (6.10 or 6.10a/b, LRFD or ASD). A factor a template replaces
+// must be replaced alike by the using sheet, else the template's national
+// annex would silently not apply.
+func templateCombos(prog *check.Program, rules *combine.Rules, errs *diag.List) {
+	values := map[string]float64{}
+	for _, f := range rules.Factors() {
+		values[f.Key] = f.Value
+	}
+	for _, t := range prog.Templates {
+		alias := strings.TrimSuffix(t.Prefix, ".")
+		if t.Combinations != "" {
+			tr, ok := combine.Lookup(t.Combinations)
+			if ok && standard(tr.Name) != standard(rules.Name) {
+				errs.Errorf(t.Use, fmt.Sprintf("the template `%s` combines its actions by %s (%s), this sheet by %s; the using sheet's rules govern every action, and a template's characteristic values and kinds follow the standard it was written for",
+					alias, tr.Name, t.CombinationsPos.Start, rules.Name),
+					"use a template written for "+standard(rules.Name)+", or make the two `combinations:` lines agree", "template `%s` is written for %s", alias, standard(tr.Name))
+			}
+		}
+		for _, f := range t.Factors {
+			v, err := strconv.ParseFloat(f.Value.Text, 64)
+			if err != nil {
+				continue // reported when the template is checked alone
+			}
+			if have, ok := values[f.Key]; !ok || have != v {
+				now := "has no such factor"
+				if ok {
+					now = "takes " + strconv.FormatFloat(have, 'g', -1, 64)
+				}
+				errs.Errorf(t.Use, fmt.Sprintf("the template `%s` replaces the factor `%s` by %s (%s); a template's factor lines do not apply in the using sheet, whose rules govern, and this sheet %s",
+					alias, f.Key, f.Value.Text, f.KeyRange.Start, now),
+					"write `factor "+f.Key+" = "+f.Value.Text+"` in this sheet if it applies here too", "factor `%s` of template `%s` is not this sheet's", f.Key, alias)
+			}
+		}
+	}
+}
+
+// standard is the standard a rule set follows: "EN 1990", "ASCE 7".
+func standard(name string) string {
+	if f := strings.Fields(name); len(f) >= 2 {
+		return f[0] + " " + f[1]
+	}
+	return name
 }
 
 // reachesCheck returns the checks that depend on cell i.

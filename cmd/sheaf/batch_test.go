@@ -98,7 +98,7 @@ func TestBatchStdin(t *testing.T) {
 
 // TestBatchHangerHandCalc runs the example case table of the mezzanine
 // hanger: its first row is the sheet as written, so it must match the hand
-// calculation in the sheet's closing comment (N_Ed = 17.195 kN,
+// calculation in the sheet's closing comment (N = 17.195 kN in ULS 2,
 // F_tRd = 45.12 kN, delta = 0.8562 mm with A_s = 156.67 mm² from the ISO
 // 898-1 formula; relative 1e-3, the comment rounds).
 func TestBatchHangerHandCalc(t *testing.T) {
@@ -109,7 +109,7 @@ func TestBatchHangerHandCalc(t *testing.T) {
 	}
 	lines := strings.Split(out, "\n")
 	head, row := strings.Split(lines[0], ","), strings.Split(lines[1], ",")
-	want := map[string]float64{"N_Ed [kN]": 17.195, "F_tRd [kN]": 45.121, "delta [mm]": 0.8562}
+	want := map[string]float64{"N [kN]": 17.195, "F_tRd [kN]": 45.121, "delta [mm]": 0.8562}
 	for i, h := range head {
 		w, ok := want[h]
 		if !ok {
@@ -123,6 +123,35 @@ func TestBatchHangerHandCalc(t *testing.T) {
 	}
 	if len(want) > 0 {
 		t.Errorf("columns missing from the output: %v", want)
+	}
+	// N is shown in the tension check's combination, delta in the
+	// elongation check's characteristic one: the column says so for each.
+	for i, h := range head {
+		if h == "cells shown in" && row[i] != "N: ULS 2; delta: SLS-c 2" {
+			t.Errorf("cells shown in %q", row[i])
+		}
+	}
+}
+
+// TestBatchTemplateAction: a case table column varies the characteristic
+// value of a template's action (service.q_k of walkway-pair.sheaf).
+// Source of the expected values: the arithmetic of TestUseRunSet (EN 1990
+// (6.10), Table A1.2(B), ψ0 of Table A1.1, from memory): 29.50 kN with the
+// sheet's 3 kN/m², 35.55 kN with 7 kN/m².
+func TestBatchTemplateAction(t *testing.T) {
+	t.Chdir("../..")
+	var out, errb strings.Builder
+	code := Main([]string{"batch", "--pick", "N_node", "--sig", "10", "sheets/walkway-pair.sheaf", "-"}, strings.NewReader("service.q_k [kN/m^2]\n3\n7\n"), &out, &errb)
+	if code != exitChecks {
+		t.Fatalf("exit %d, want %d (the node fails with 7 kN/m²): %s", code, exitChecks, errb.String())
+	}
+	lines := strings.Split(out.String(), "\n")
+	for k, want := range []float64{29.50, 35.55} {
+		row := strings.Split(lines[k+1], ",")
+		got, err := strconv.ParseFloat(row[2], 64)
+		if err != nil || math.Abs(got-want) > 5e-3 {
+			t.Errorf("case %d: N_node %s kN, want %g kN (hand calculation)", k+1, row[2], want)
+		}
 	}
 }
 

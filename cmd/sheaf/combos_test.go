@@ -111,6 +111,60 @@ func TestEnvelopeOverSeparateRuns(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
+	// Every bundled sheet without actions, in a folder of its own: each
+	// action a cell scaled by an input factor, no combination rules, no
+	// limit states. A template's actions are rewritten alike, and a use
+	// block that replaces one replaces its characteristic value.
+	plainDir := t.TempDir()
+	acts := map[string]map[string]bool{} // per file: the names of its actions
+	for _, path := range files {
+		src, err := os.ReadFile(path)
+		if err != nil {
+			t.Fatal(err)
+		}
+		acts[filepath.Base(path)] = map[string]bool{}
+		for _, line := range strings.Split(string(src), "\n") {
+			if m := actionLine.FindStringSubmatch(line); m != nil {
+				acts[filepath.Base(path)][m[1]] = true
+			}
+		}
+	}
+	for _, path := range files {
+		src, err := os.ReadFile(path)
+		if err != nil {
+			t.Fatal(err)
+		}
+		var out []string
+		var used map[string]bool // the actions of the template of the use block at hand
+		for _, line := range strings.Split(string(src), "\n") {
+			if m := useLine.FindStringSubmatch(line); m != nil {
+				used = acts[m[1]]
+			} else if line == "" || line[0] != ' ' {
+				used = nil
+			}
+			switch {
+			case strings.HasPrefix(line, "combinations:"):
+				continue
+			case strings.HasPrefix(line, "action "):
+				m := actionLine.FindStringSubmatch(line)
+				if m == nil {
+					t.Fatalf("cannot read the action line %q", line)
+				}
+				out = append(out, m[1]+"_char "+m[2]+" = "+m[3]+m[4], "fac_"+m[1]+" = 1", m[1]+" "+m[2]+" = fac_"+m[1]+" * "+m[1]+"_char")
+				continue
+			case strings.HasPrefix(line, "check "):
+				line = checkIn.ReplaceAllString(line, "check $1:")
+			case used != nil:
+				if m := overrideLine.FindStringSubmatch(line); m != nil && used[m[2]] {
+					line = m[1] + m[2] + "_char" + m[3]
+				}
+			}
+			out = append(out, line)
+		}
+		if err := os.WriteFile(filepath.Join(plainDir, filepath.Base(path)), []byte(strings.Join(out, "\n")), 0o644); err != nil {
+			t.Fatal(err)
+		}
+	}
 	tested := 0
 	for _, path := range files {
 		s, err := engine.Load(path)
@@ -123,39 +177,14 @@ func TestEnvelopeOverSeparateRuns(t *testing.T) {
 		}
 		tested++
 		t.Run(filepath.Base(path), func(t *testing.T) {
-			src, err := os.ReadFile(path)
-			if err != nil {
-				t.Fatal(err)
-			}
-			// The same sheet without actions: each action a cell scaled by
-			// an input factor, no combination rules, no limit states.
-			var out []string
-			for _, line := range strings.Split(string(src), "\n") {
-				switch {
-				case strings.HasPrefix(line, "combinations:"):
-					continue
-				case strings.HasPrefix(line, "action "):
-					m := actionLine.FindStringSubmatch(line)
-					if m == nil {
-						t.Fatalf("cannot read the action line %q", line)
-					}
-					out = append(out, "fac_"+m[1]+" = 1", m[1]+" "+m[2]+" = fac_"+m[1]+" * ("+m[3]+")"+m[4])
-					continue
-				case strings.HasPrefix(line, "check "):
-					line = checkIn.ReplaceAllString(line, "check $1:")
-				}
-				out = append(out, line)
-			}
-			plain := filepath.Join(t.TempDir(), filepath.Base(path))
-			if err := os.WriteFile(plain, []byte(strings.Join(out, "\n")), 0o644); err != nil {
-				t.Fatal(err)
-			}
+			plain := filepath.Join(plainDir, filepath.Base(path))
 			r := s.Run(nil)
 			utils := make([]map[string]*float64, len(cs.All)) // per combination: each check's utilisation
 			for m, c := range cs.All {
 				args := []string{"run", "--json", "--draft", plain}
 				for a, act := range cs.Actions {
-					args = append(args, "--set", "fac_"+act.Name+"="+strconv.FormatFloat(c.Factors[a], 'g', -1, 64))
+					dot := strings.LastIndex(act.Name, ".") + 1 // a template's action: access.g_k is access.fac_g_k
+					args = append(args, "--set", act.Name[:dot]+"fac_"+act.Name[dot:]+"="+strconv.FormatFloat(c.Factors[a], 'g', -1, 64))
 				}
 				js, errs, code := sheaf(t, args...)
 				if code != exitOK && code != exitChecks {
@@ -202,10 +231,16 @@ func TestEnvelopeOverSeparateRuns(t *testing.T) {
 			}
 		})
 	}
-	if tested < 3 {
-		t.Errorf("%d bundled sheets with actions; the three converted ones are missing", tested)
+	if tested < 5 {
+		t.Errorf("%d bundled sheets with actions; of the five converted ones some are missing", tested)
 	}
 }
+
+// useLine matches a use line and its template's file name.
+var useLine = regexp.MustCompile(`^use\s+[A-Za-z_][A-Za-z0-9_]*\s+from\s+"(?:[^"]*/)?([^"/]+)"`)
+
+// overrideLine matches a line of a use block: indentation, name, the rest.
+var overrideLine = regexp.MustCompile(`^(\s+)([A-Za-z_][A-Za-z0-9_]*)(\s*(?:\[[^\]]*\])?\s*=.*)$`)
 
 // checkIn matches the limit state of a check line.
 var checkIn = regexp.MustCompile(`^check\s+([A-Za-z_][A-Za-z0-9_]*)\s+in\s+[a-z-]+\s*:`)

@@ -61,7 +61,8 @@ type jsonRow struct {
 	Picks      []jsonQuantity `json:"picks"`
 	Checks     []jsonCheck    `json:"checks"`
 	// ShownIn is, for a sheet with actions, the combination whose values
-	// the picked cells that depend on actions show.
+	// the picked cells that depend on actions show (each cell's, as
+	// "N: ULS 2; delta: SLS-c 2", when they differ).
 	ShownIn string `json:"shown_in,omitempty"`
 }
 

@@ -5,6 +5,8 @@ import (
 	"fmt"
 	"math"
 	"runtime"
+	"slices"
+	"strings"
 	"sync"
 	"sync/atomic"
 
@@ -180,7 +182,7 @@ func (w *worker) run(r *Row) {
 		r.Utils[k] = x
 	}
 	if w.out.Sheet.Combos() != nil {
-		r.Shown = w.st.Shown()
+		r.Shown = shownIn(w.st, w.out.Picks)
 		r.Governing = make([]string, len(w.out.Checks))
 		for k, c := range w.out.Checks {
 			r.Governing[k] = w.st.Governing(c)
@@ -286,4 +288,28 @@ func kindOf(c *engine.Cell) string {
 		return "cell without a value"
 	}
 	return c.Type.Kind.String()
+}
+
+// shownIn names the combination whose values the picked cells that depend
+// on actions show: one name when they all show the same one (the shown
+// combination when none depends on actions), else each cell's ("N: ULS 2;
+// delta: SLS-c 2"), since a cell shows the governing combination of the
+// check it feeds and a serviceability check's cells are not in ULS.
+func shownIn(st *engine.State, picks []*engine.Cell) string {
+	var names, per []string
+	for _, c := range picks {
+		if n := st.CellCombination(c); n != "" {
+			per = append(per, c.Name+": "+n)
+			if !slices.Contains(names, n) {
+				names = append(names, n)
+			}
+		}
+	}
+	switch len(names) {
+	case 0:
+		return st.Shown()
+	case 1:
+		return names[0]
+	}
+	return strings.Join(per, "; ")
 }

@@ -137,11 +137,10 @@ func (c *checker) collectFile(f *sheet.File, scope string, depth int) {
 			}
 		case *sheet.Check: // whole as newCell made it
 		case *sheet.Action:
-			if scope != "" {
-				c.errs.Errorf(it.Kind.Range, "the template `"+strings.TrimSuffix(scope, ".")+"` has actions; actions of a template do not yet join the using sheet's combinations",
-					"write the actions in the using sheet and pass their effects to the template's inputs", "action `%s` in a template", it.Cell.Name.Name)
-				continue
-			}
+			// A template's actions join the using sheet's under their
+			// qualified names (`hanger.G`); the using sheet's rules
+			// combine them (engine.setupCombos holds the template's own
+			// header and factor lines to those).
 			cell = newCell(&it.Cell)
 			cell.Action = it
 			c.displayUnit(cell, it.Cell.Unit)
@@ -149,7 +148,7 @@ func (c *checker) collectFile(f *sheet.File, scope string, depth int) {
 			if scope == "" {
 				p.Factors = append(p.Factors, it)
 			}
-			continue
+			continue // a template's: read by useTemplate
 		case *sheet.Table:
 			cell = &Cell{Name: it.Name.Name, Kind: Table, NameRange: it.Name.Range, Range: it.Range,
 				Description: it.Annot.Description, Reference: it.Annot.Reference}

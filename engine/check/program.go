@@ -126,7 +126,13 @@ type Program struct {
 	// Factors are the sheet's factor lines (`factor gamma_Q = 1.5`), which
 	// replace factors of its combination rules.
 	Factors []*sheet.Factor
-	ByName  map[string]int
+	// Templates lists, per template use, the template's own combination
+	// rules and factor lines (a use whose template has neither is left
+	// out). The using sheet's rules govern; engine.setupCombos refuses a
+	// template written for another standard or with a factor the using
+	// sheet does not repeat.
+	Templates []TemplateCombos
+	ByName    map[string]int
 	// Order lists every cell index in a topological order of the
 	// dependency graph (dependencies first; reading order between equals).
 	Order []int
@@ -140,4 +146,16 @@ func (p *Program) Lookup(name string) *Cell {
 		return p.Cells[i]
 	}
 	return nil
+}
+
+// TemplateCombos is what one template use declares about combinations.
+type TemplateCombos struct {
+	Prefix string     // the qualified name of the use and a dot: "hanger."
+	Use    diag.Range // the use line's path in the file that writes it
+	File   string     // the template's file as positions show it
+	// Combinations is the template's `combinations:` value ("" when none),
+	// at CombinationsPos in the template.
+	Combinations    string
+	CombinationsPos diag.Range
+	Factors         []*sheet.Factor // the template's factor lines
 }

@@ -123,6 +123,20 @@ func (c *checker) useTemplate(from *sheet.File, u *sheet.Use, scope string, dept
 	b := &useBlock{use: u, scope: scope, prefix: name + ".", file: f.Name}
 	c.use.blocks = append(c.use.blocks, b)
 	c.collectFile(f, b.prefix, depth+1)
+	tc := TemplateCombos{Prefix: b.prefix, Use: u.PathRange, File: f.Name}
+	for _, it := range f.Items {
+		switch it := it.(type) {
+		case *sheet.Meta:
+			if it.Key.Name == "combinations" {
+				tc.Combinations, tc.CombinationsPos = it.Value, it.Range
+			}
+		case *sheet.Factor:
+			tc.Factors = append(tc.Factors, it)
+		}
+	}
+	if tc.Combinations != "" || len(tc.Factors) > 0 {
+		c.prog.Templates = append(c.prog.Templates, tc)
+	}
 }
 
 // local returns the cell that name means in the scope of cell (nil cell:

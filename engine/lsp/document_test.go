@@ -77,9 +77,9 @@ func TestFastPathSequence(t *testing.T) {
 		from, to string
 		fast     bool
 	}{
-		{"= 12 mm ", "= 16 mm ", true},                        // a template override
+		{"= 16 mm ", "= 12 mm ", true},                        // a template override
 		{"= 3.6 m ", "= 4.2 m ", true},                        // an input the overrides read
-		{"= 16 mm ", "= 20 mm ", true},                        // again, on a line edited before
+		{"= 12 mm ", "= 20 mm ", true},                        // again, on a line edited before
 		{"F_node [kN] = 35 kN", "F_node [kN] = 3.5 kN", true}, // a check now fails
 		{"dz_lim [mm] = 1 mm", "dz_lim [mm] = 2 * 1 mm", false},
 		{"= 20 mm ", "= 12 mm ", true},

@@ -72,7 +72,7 @@ func TestHoverKinds(t *testing.T) {
 	for _, it := range cl.Items {
 		found[it.Label] = it.Detail
 	}
-	if !strings.Contains(found["N_Ed"], "[kN]") || found["tension"] == "" {
+	if !strings.Contains(found["N"], "[kN]") || found["tension"] == "" {
 		t.Errorf("completion after `access.`: %v", found)
 	}
 	useLine := lineOf(t, psrc, "use access from")

@@ -48,6 +48,8 @@ type comboBook struct {
 	keys    []int32 // the guard key of each factor
 	rows    []int   // the row of each factor on TabCombos
 	checks  []engine.CheckResult
+	// checkKeys are the input keys upstream of the checks (comboStale).
+	checkKeys []int32
 	// Rows of TabCombos.
 	actionsRow, combosRow, factorsRow int
 }
@@ -157,12 +159,26 @@ func (x *exporter) comboReason(i int) error {
 }
 
 // comboStale adds the factor keys to the guard of every value that
-// depends on actions.
+// depends on actions. A cell (not a check) also takes the inputs upstream
+// of every check that depends on actions: the combination it is shown in
+// is the governing one of the check it feeds that governs the most, so an
+// input of another check can move it to another combination (two template
+// uses whose rods meet in one check: editing one rod's diameter changes
+// which combination the other rod's force is shown in).
 func (x *exporter) comboStale(i int, keys []int32) []int32 {
 	if x.cmb == nil || !x.comboDep(i) {
 		return keys
 	}
 	keys = append(slices.Clone(keys), x.cmb.keys...)
+	if x.r.Cells[i].Cell.Kind != engine.Check {
+		if x.cmb.checkKeys == nil {
+			x.cmb.checkKeys = []int32{}
+			for _, ch := range x.cmb.checks {
+				x.cmb.checkKeys = append(x.cmb.checkKeys, x.upstream(ch.Cell.Index)...)
+			}
+		}
+		keys = append(keys, x.cmb.checkKeys...)
+	}
 	slices.Sort(keys)
 	return slices.Compact(keys)
 }
