@@ -13,6 +13,9 @@ type Frame struct {
 	Val   []funcs.Value
 	Args  []float64
 	Stack []float64 // argument stack for calls of user functions
+	// Pins holds the value of each in_combination call (Machine.Pins):
+	// the cell in its named combination, set by the engine.
+	Pins []float64
 	Fail  *Failure
 }
 
