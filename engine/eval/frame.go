@@ -16,7 +16,7 @@ type Frame struct {
 	// Pins holds the value of each in_combination call (Machine.Pins):
 	// the cell in its named combination, set by the engine.
 	Pins []float64
-	Fail  *Failure
+	Fail *Failure
 }
 
 // Failure is a run-time problem at a node: division by zero, a square root
