@@ -31,6 +31,13 @@ type Combos struct {
 	// feeds lists, per cell index, the dependent checks (indices into
 	// checks) that use the cell, directly or through other cells.
 	feeds [][]int
+	// pins are the in_combination calls (combos_pin.go); direct marks
+	// the cells an action reaches other than through one: they take
+	// another value in each combination (Depends without direct: the
+	// same value in every combination, from the characteristic values).
+	pins   []pin
+	direct []bool
+	pinIn  []int // per cell: the one combination its own in_combination calls name, else negative
 }
 
 // Combos returns the combination set-up of the sheet, or nil when the
@@ -56,6 +63,13 @@ func setupCombos(prog *check.Program) (*Combos, diag.List) {
 	for _, c := range prog.Cells {
 		if c.Action != nil {
 			acts = append(acts, c)
+		}
+	}
+	pins := findPins(prog, &errs)
+	if len(acts) == 0 {
+		for _, p := range pins {
+			errs.Errorf(p.node.Range(), "in_combination reads a cell in one combination of the sheet's actions, and the sheet has none",
+				"write the actions (`action permanent G [kN] = ...`), or use the cell alone", "in_combination without actions")
 		}
 	}
 	md := prog.Meta
@@ -147,6 +161,7 @@ func setupCombos(prog *check.Program) (*Combos, diag.List) {
 			cs.Depends[i] = true
 		}
 	}
+	cs.direct = direct(prog, cs.Depends, pins)
 	var states []string
 	for _, c := range prog.Cells {
 		if c.Kind != Check {
@@ -162,8 +177,8 @@ func setupCombos(prog *check.Program) (*Combos, diag.List) {
 				"write one of those after `in`, or leave it out for the ultimate limit state", "no combinations of %s for the limit state `%s`", rules.Name, st)
 			continue
 		}
-		if !cs.Depends[c.Index] {
-			continue
+		if !cs.direct[c.Index] {
+			continue // the same in every combination (or no action at all)
 		}
 		cs.checks = append(cs.checks, c.Index)
 		cs.states = append(cs.states, st)
@@ -227,6 +242,10 @@ func setupCombos(prog *check.Program) (*Combos, diag.List) {
 		}
 		cs.All = append(cs.All, all...)
 	}
+	if errs.HasErrors() {
+		return nil, errs
+	}
+	cs.resolvePins(prog, pins, &errs)
 	if errs.HasErrors() {
 		return nil, errs
 	}

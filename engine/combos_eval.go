@@ -42,6 +42,7 @@ func (st *State) recomputeCombos() {
 	cs := st.sheet.combos
 	base := st.st
 	base.Eval()
+	cs.evalPins(base)
 	cm := st.cmb
 	if cm == nil {
 		cm = &comboState{}
@@ -211,7 +212,13 @@ func (st *State) recomputeCombos() {
 	need := map[int][]int{}
 	for i := range cm.cellIn {
 		cm.cellIn[i] = -1
-		if !cs.Depends[i] || st.sheet.prog.Cells[i].Kind == Check {
+		if !cs.direct[i] || st.sheet.prog.Cells[i].Kind == Check {
+			// A cell that reads actions only through in_combination is
+			// the same in each; one that names a single combination in
+			// its own formula shows that name.
+			if cs.Depends[i] && !cs.direct[i] && cs.pinIn[i] >= 0 && st.sheet.prog.Cells[i].Kind != Check {
+				cm.cellIn[i] = cs.pinIn[i]
+			}
 			continue
 		}
 		m, best := worst, math.Inf(-1)

@@ -41,6 +41,7 @@ const (
 	BSum
 	BMean
 	BLen
+	BInCombo
 )
 
 // BuiltinInfo documents a built-in for messages and `sheaf funcs`.
@@ -77,6 +78,7 @@ var Builtins = []BuiltinInfo{
 	{BSum, "sum", "sum(list)", "the dimension of the list's numbers"},
 	{BMean, "mean", "mean(list)", "the dimension of the list's numbers"},
 	{BLen, "len", "len(list)", "a plain number"},
+	{BInCombo, "in_combination", `in_combination(cell, "SLS-c 2")`, "the cell's value in the one combination named (SPEC.md §5a), the same in every combination; the result has the cell's dimension"},
 }
 
 var builtinByName = func() map[string]BuiltinInfo {
@@ -205,6 +207,22 @@ func (t *typer) builtinType(b BuiltinInfo, args []*Node) (*funcs.Type, *argProbl
 			return nil, p
 		}
 		return same(0)
+	case BInCombo:
+		// The combination itself is resolved by the engine, which knows
+		// the combinations (engine/combos_pin.go).
+		if p := arity(2, 2); p != nil {
+			return nil, p
+		}
+		if args[0].Op != OpCell {
+			return nil, &argProblem{0, "in_combination needs the name of a cell", "write " + b.Sig + ": the cell whose value in that combination a formula needs"}
+		}
+		if p := num(0); p != nil {
+			return nil, p
+		}
+		if args[1].Op != OpString {
+			return nil, &argProblem{1, "in_combination needs the combination as a text in quotes", "write " + b.Sig + "; `sheaf run --combinations` lists the labels"}
+		}
+		return funcs.Num(args[0].Type.Dim), nil
 	case BMin, BMax:
 		if n == 1 {
 			if p := list(0); p != nil {

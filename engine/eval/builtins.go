@@ -26,6 +26,8 @@ func (m *Machine) builtin(n *check.Node) numFn {
 	}
 	isList := len(n.Args) == 1 && n.Args[0].Type.Kind != n.Type.Kind
 	switch n.Builtin {
+	case check.BInCombo:
+		return m.pin(n)
 	case check.BSqrt:
 		return guarded(func(x float64) bool { return x >= 0 }, math.Sqrt, "square root of a negative number")
 	case check.BCbrt:
@@ -195,4 +197,25 @@ func Interp(xs, ys []float64, x float64) (float64, string) {
 	}
 	t := (x - xs[lo]) / (xs[hi] - xs[lo])
 	return ys[lo] + t*(ys[hi]-ys[lo]), ""
+}
+
+// pin compiles in_combination(cell, "label"): the value the engine set in
+// Frame.Pins for this call (the cell evaluated in that combination).
+func (m *Machine) pin(n *check.Node) numFn {
+	k, ok := m.pinSlot[n]
+	if !ok {
+		if m.pinSlot == nil {
+			m.pinSlot = map[*check.Node]int{}
+		}
+		k = len(m.Pins)
+		m.pinSlot[n] = k
+		m.Pins = append(m.Pins, n)
+	}
+	return func(f *Frame) float64 {
+		if k >= len(f.Pins) || math.IsNaN(f.Pins[k]) {
+			f.fail(n, "the cell has no value in the combination "+n.Args[1].Str(), "see the problems of that combination (`sheaf run --combinations`)")
+			return nan
+		}
+		return f.Pins[k]
+	}
 }

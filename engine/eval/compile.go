@@ -39,6 +39,10 @@ type Machine struct {
 	// every state until it writes its own (see State.setProblem).
 	noProblem []*diag.Diagnostic
 	noOver    []bool
+	// Pins lists the in_combination calls; Frame.Pins holds their values
+	// in the same order.
+	Pins    []*check.Node
+	pinSlot map[*check.Node]int
 }
 
 // step is one cell of the full evaluation: fn is its Number body when the

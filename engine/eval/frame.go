@@ -13,7 +13,10 @@ type Frame struct {
 	Val   []funcs.Value
 	Args  []float64
 	Stack []float64 // argument stack for calls of user functions
-	Fail  *Failure
+	// Pins holds the value of each in_combination call (Machine.Pins):
+	// the cell in its named combination, set by the engine.
+	Pins []float64
+	Fail *Failure
 }
 
 // Failure is a run-time problem at a node: division by zero, a square root

@@ -64,7 +64,7 @@ func (m *Machine) NewState() *State {
 func (s *State) Clone() *State {
 	c := &State{
 		M:        s.M,
-		F:        Frame{Num: slices.Clone(s.F.Num), Val: slices.Clone(s.F.Val), Stack: make([]float64, 0, 16)},
+		F:        Frame{Num: slices.Clone(s.F.Num), Val: slices.Clone(s.F.Val), Stack: make([]float64, 0, 16), Pins: slices.Clone(s.F.Pins)},
 		Known:    slices.Clone(s.Known),
 		Demand:   slices.Clone(s.Demand),
 		Capacity: slices.Clone(s.Capacity),
@@ -111,6 +111,10 @@ func (s *State) Reset(i int) {
 	s.over[i] = false
 	s.dirty = append(s.dirty, i)
 }
+
+// Touch marks cell i stale, to be run again by the next Eval (its
+// Frame.Pins changed).
+func (s *State) Touch(i int) { s.dirty = append(s.dirty, i) }
 
 // Overridden reports whether cell i holds a value set with Set.
 func (s *State) Overridden(i int) bool { return s.over[i] }

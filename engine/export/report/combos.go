@@ -141,11 +141,11 @@ func (d *doc) combinations() {
 	}
 	d.w("<table class=\"combinations\">\n<thead><tr><th>Combination</th><th>Limit state</th><th>Follows</th><th>In words</th>")
 	for _, ch := range checks {
-		d.w("<th class=\"num\">", esc(ch.Cell.Name), "</th>")
+		d.w("<th class=\"num\">", strings.ReplaceAll(esc(ch.Cell.Name), ".", ".<wbr>"), "</th>") // access.<wbr>tension wraps after the use's name
 	}
 	d.w("</tr></thead>\n<tbody>\n")
 	for m, c := range cs.All {
-		d.w("<tr><td>", esc(c.Name), "</td><td>", esc(cs.Rules.StateLabel(c.State)), "</td><td class=\"clause\">", esc(c.Clause), "</td><td class=\"words\">", esc(cs.Text(m)), "</td>")
+		d.w("<tr><td>", esc(c.Name), "</td><td>", esc(cs.Rules.StateLabel(c.State)), "</td><td class=\"clause\">", esc(c.Clause), "</td><td class=\"words\">", wordsHTML(cs.Text(m)), "</td>")
 		for _, ch := range checks {
 			u := ch.Combo.Utils[m]
 			switch {
@@ -187,4 +187,19 @@ func (d *doc) combinations() {
 		"named beside it: the governing one of the check it feeds (if several, of the most utilised, the ultimate limit state first); ",
 		"its formula with the values put in writes each action as its factor in that combination times its characteristic value.</p>\n")
 	d.w("</section>\n")
+}
+
+// wordsHTML writes a combination in words so that a long one (the
+// qualified actions of two template uses) wraps between its terms, never
+// inside "1.35 access.g_k": the table of combinations then fits the page
+// with a column per check.
+func wordsHTML(text string) string {
+	terms := strings.Split(text, " + ")
+	for k, t := range terms {
+		if k < len(terms)-1 {
+			t += " +" // the sign stays at the end of its line
+		}
+		terms[k] = "<span class=\"term\">" + esc(t) + "</span>"
+	}
+	return strings.Join(terms, " ")
 }

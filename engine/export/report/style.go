@@ -112,7 +112,10 @@ table.overrides td { border-bottom: .4pt solid var(--rule); padding: .6mm 2mm; }
 .combos th { text-align: left; border-bottom: 1pt solid var(--ink); padding: .6mm 2mm; font-weight: 600; font-size: 8pt; }
 .combos td { border-bottom: .4pt solid var(--rule); padding: .6mm 2mm; vertical-align: top; }
 .combos th.num, .combos td.num { text-align: right; white-space: nowrap; }
-.combos td.words, .combos td.clause { white-space: nowrap; }
+.combos td.clause { white-space: nowrap; }
+.combos .term { white-space: nowrap; }
+.combos thead th.num { white-space: normal; }
+.combos td.num .gov { display: block; width: fit-content; margin: .4mm 0 0 auto; }
 .combos td.governs { font-weight: 600; background: var(--band); }
 .combos td.fail { color: var(--fail); font-weight: 600; }
 .combos tr { break-inside: avoid; }
