@@ -269,10 +269,10 @@ func templateCombos(prog *check.Program, rules *combine.Rules, errs *diag.List) 
 		alias := strings.TrimSuffix(t.Prefix, ".")
 		if t.Combinations != "" {
 			tr, ok := combine.Lookup(t.Combinations)
-			if ok && standard(tr.Name) != standard(rules.Name) {
+			if ok && tr.Standard() != rules.Standard() {
 				errs.Errorf(t.Use, fmt.Sprintf("the template `%s` combines its actions by %s (%s), this sheet by %s; the using sheet's rules govern every action, and a template's characteristic values and kinds follow the standard it was written for",
 					alias, tr.Name, t.CombinationsPos.Start, rules.Name),
-					"use a template written for "+standard(rules.Name)+", or make the two `combinations:` lines agree", "template `%s` is written for %s", alias, standard(tr.Name))
+					"use a template written for "+rules.Standard()+", or make the two `combinations:` lines agree", "template `%s` is written for %s", alias, tr.Standard())
 			}
 		}
 		for _, f := range t.Factors {
@@ -291,14 +291,6 @@ func templateCombos(prog *check.Program, rules *combine.Rules, errs *diag.List) 
 			}
 		}
 	}
-}
-
-// standard is the standard a rule set follows: "EN 1990", "ASCE 7".
-func standard(name string) string {
-	if f := strings.Fields(name); len(f) >= 2 {
-		return f[0] + " " + f[1]
-	}
-	return name
 }
 
 // reachesCheck returns the checks that depend on cell i.

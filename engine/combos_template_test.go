@@ -92,7 +92,7 @@ func TestTemplateRulesAgainstTheSheets(t *testing.T) {
 		line                        int // of the use
 	}{
 		{"another standard", hangerTemplate, "combinations: ASCE 7 LRFD\nuse a from \"hanger.sheaf\"\n",
-			"template `a` is written for EN 1990", "use a template written for ASCE 7", 2},
+			"template `a` is written for EN 1990", "use a template written for ASCE/SEI 7", 2},
 		{"no rules in the using sheet", hangerTemplate, "use a from \"hanger.sheaf\"\n",
 			"actions without combination rules", "add the header line `combinations: EN 1990 6.10` to this sheet", 1},
 		{"a template's factor", withFactor, "combinations: EN 1990 6.10\nuse a from \"hanger.sheaf\"\n",

@@ -302,3 +302,23 @@ func TestRefused(t *testing.T) {
 		t.Errorf("accidental action in ULS: %v", cs)
 	}
 }
+
+// TestStandard: the rule sets of one standard may stand in for each other
+// in a template, those of two may not. Source: the rule sets' own titles
+// (EN 1990:2002 6.4.3.2; ASCE/SEI 7-22 §2.3.1, §2.4.1).
+func TestStandard(t *testing.T) {
+	for _, c := range []struct{ name, want string }{
+		{"EN 1990 6.10", "EN 1990"},
+		{"EN 1990 6.10a/b", "EN 1990"},
+		{"ASCE 7 LRFD", "ASCE/SEI 7"},
+		{"ASCE 7 ASD", "ASCE/SEI 7"},
+	} {
+		r, ok := Lookup(c.name)
+		if !ok {
+			t.Fatalf("no rules %q", c.name)
+		}
+		if got := r.Standard(); got != c.want {
+			t.Errorf("%s: standard %q, want %q", c.name, got, c.want)
+		}
+	}
+}

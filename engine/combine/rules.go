@@ -107,6 +107,16 @@ type Rules struct {
 
 type family uint8
 
+// Standard is the standard the rules follow, "EN 1990" or "ASCE/SEI 7":
+// rules of one standard may replace each other (6.10 for 6.10a/b, LRFD
+// for ASD), rules of two may not.
+func (r *Rules) Standard() string {
+	if r.family == asceLRFD || r.family == asceASD {
+		return "ASCE/SEI 7"
+	}
+	return "EN 1990"
+}
+
 const (
 	en610 family = iota
 	en610ab
