@@ -125,7 +125,7 @@ func setupCombos(prog *check.Program) (*Combos, diag.List) {
 	}
 	for _, f := range prog.Factors {
 		v, err := strconv.ParseFloat(f.Value.Text, 64)
-		src := "sheet line " + strconv.Itoa(f.Range.Start.Line)
+		src := "sheet line " + strconv.Itoa(f.Range.Start().Line)
 		if f.Annot.Reference != "" {
 			src += ", " + f.Annot.Reference
 		} else if f.Annot.Description != "" {
@@ -271,7 +271,7 @@ func templateCombos(prog *check.Program, rules *combine.Rules, errs *diag.List) 
 			tr, ok := combine.Lookup(t.Combinations)
 			if ok && tr.Standard() != rules.Standard() {
 				errs.Errorf(t.Use, fmt.Sprintf("the template `%s` combines its actions by %s (%s), this sheet by %s; the using sheet's rules govern every action, and a template's characteristic values and kinds follow the standard it was written for",
-					alias, tr.Name, t.CombinationsPos.Start, rules.Name),
+					alias, tr.Name, t.CombinationsPos.Start(), rules.Name),
 					"use a template written for "+rules.Standard()+", or make the two `combinations:` lines agree", "template `%s` is written for %s", alias, tr.Standard())
 			}
 		}
@@ -286,7 +286,7 @@ func templateCombos(prog *check.Program, rules *combine.Rules, errs *diag.List) 
 					now = "takes " + strconv.FormatFloat(have, 'g', -1, 64)
 				}
 				errs.Errorf(t.Use, fmt.Sprintf("the template `%s` replaces the factor `%s` by %s (%s); a template's factor lines do not apply in the using sheet, whose rules govern, and this sheet %s",
-					alias, f.Key, f.Value.Text, f.KeyRange.Start, now),
+					alias, f.Key, f.Value.Text, f.KeyRange.Start(), now),
 					"write `factor "+f.Key+" = "+f.Value.Text+"` in this sheet if it applies here too", "factor `%s` of template `%s` is not this sheet's", f.Key, alias)
 			}
 		}

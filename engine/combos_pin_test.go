@@ -98,8 +98,8 @@ func TestInCombinationErrors(t *testing.T) {
 			}
 			for _, d := range l {
 				if strings.Contains(d.Summary, tc.want) {
-					if d.Range.Start.Line < 2 || !strings.Contains(d.Hint, tc.hint) {
-						t.Errorf("at %v, hint %q", d.Range.Start, d.Hint)
+					if d.Range.Start().Line < 2 || !strings.Contains(d.Hint, tc.hint) {
+						t.Errorf("at %v, hint %q", d.Range.Start(), d.Hint)
 					}
 					return
 				}

@@ -110,8 +110,8 @@ func TestTemplateRulesAgainstTheSheets(t *testing.T) {
 			for _, d := range l {
 				if strings.Contains(d.Summary, tc.want) {
 					// At the use line's path, in the using sheet.
-					if d.Range.Start.Line != tc.line || d.Range.Start.File != "calcs/top.sheaf" || !strings.Contains(d.Hint, tc.hint) {
-						t.Errorf("at %v, hint %q", d.Range.Start, d.Hint)
+					if d.Range.Start().Line != tc.line || d.Range.Start().File != "calcs/top.sheaf" || !strings.Contains(d.Hint, tc.hint) {
+						t.Errorf("at %v, hint %q", d.Range.Start(), d.Hint)
 					}
 					return
 				}

@@ -156,7 +156,7 @@ func TestComboErrors(t *testing.T) {
 			}
 			for _, d := range l {
 				if strings.Contains(d.Summary, tc.want) {
-					if d.Range.Start.Line == 0 {
+					if d.Range.Start().Line == 0 {
 						t.Errorf("no position: %v", d)
 					}
 					return

@@ -39,8 +39,8 @@ func FuzzCompile(f *testing.F) {
 				t.Fatalf("not a diagnostic list: %v", err)
 			}
 			for _, d := range l {
-				if d.Range.Start.File != "f.sheaf" || d.Range.End.Offset > len(src) || d.Range.Start.Offset > d.Range.End.Offset {
-					t.Fatalf("problem outside the sheet: %v %v..%v", d, d.Range.Start, d.Range.End)
+				if d.Range.Start().File != "f.sheaf" || d.Range.End().Offset > len(src) || d.Range.Start().Offset > d.Range.End().Offset {
+					t.Fatalf("problem outside the sheet: %v %v..%v", d, d.Range.Start(), d.Range.End())
 				}
 			}
 			if err := diag.Render(io.Discard, l, diag.Sources{"f.sheaf": src}); err != nil {

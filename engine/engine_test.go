@@ -111,7 +111,7 @@ func TestRuntimeFailures(t *testing.T) {
 			if len(r.Problems) != 1 {
 				t.Fatalf("want one problem, got %v", r.Problems)
 			}
-			if !strings.Contains(r.Problems[0].Summary, c.msg) || r.Problems[0].Range.Start.Line != s.Lookup(c.bad).Pos().Line {
+			if !strings.Contains(r.Problems[0].Summary, c.msg) || r.Problems[0].Range.Start().Line != s.Lookup(c.bad).Pos().Line {
 				t.Errorf("problem %v", r.Problems[0])
 			}
 			if r.Cell(c.bad).Known {

@@ -110,8 +110,8 @@ func TestLoadErrorMessages(t *testing.T) {
 		}
 		d := l[0]
 		got := d.Summary + " | " + d.Detail + " | " + d.Hint
-		if got != c.want || d.Range.Start.Line != 1 || d.Range.Start.Col != 13 {
-			t.Errorf("%v at %s:\ngot  %s\nwant %s", c.err.Kind, d.Range.Start, got, c.want)
+		if got != c.want || d.Range.Start().Line != 1 || d.Range.Start().Col != 13 {
+			t.Errorf("%v at %s:\ngot  %s\nwant %s", c.err.Kind, d.Range.Start(), got, c.want)
 		}
 	}
 }

@@ -135,7 +135,7 @@ func (st *State) Results() *Results {
 	// a template used twice fail on the same line of the template.
 	st.addCombos(r)
 	slices.SortStableFunc(r.Problems, func(a, b *diag.Diagnostic) int {
-		return cmp.Or(a.Range.Start.Compare(b.Range.Start), cmp.Compare(a.Summary, b.Summary))
+		return cmp.Or(a.Range.Start().Compare(b.Range.Start()), cmp.Compare(a.Summary, b.Summary))
 	})
 	return r
 }
@@ -241,7 +241,7 @@ func (st *State) Update(r *Results, idx []int) {
 		}
 	}
 	slices.SortStableFunc(r.Problems, func(a, b *diag.Diagnostic) int {
-		return cmp.Or(a.Range.Start.Compare(b.Range.Start), cmp.Compare(a.Summary, b.Summary))
+		return cmp.Or(a.Range.Start().Compare(b.Range.Start()), cmp.Compare(a.Summary, b.Summary))
 	})
 }
 

@@ -85,7 +85,7 @@ func (st *State) SetText(name, text string) error {
 // parseValue reads text as a value of its own (no cell names), in SI,
 // with its static type.
 func (s *Sheet) parseValue(label, text string) (funcs.Value, *funcs.Type, error) {
-	e := sheet.Expr{Text: text, Range: diag.Range{Start: diag.Pos{File: "--set " + label, Line: 1, Col: 1}}}
+	e := sheet.Expr{Text: text, Range: diag.NewSource("--set "+label, text).Span(0, len(text))}
 	f, errs := formula.Parse(e, formula.Options{MaxDepth: s.cfg.maxDepth})
 	if errs.HasErrors() {
 		return nil, nil, fmt.Errorf("cannot read %q for `%s`: %s", text, label, errs[0].Summary)

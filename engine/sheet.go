@@ -77,7 +77,7 @@ func Compile(name string, src []byte, opts ...Option) (*Sheet, error) {
 		return nil, tooLarge(name, int64(len(src)), cfg.maxBytes)
 	}
 	if n := bytes.Count(src, []byte{'\n'}); n > cfg.maxLines || (n == cfg.maxLines && len(src) > 0 && src[len(src)-1] != '\n') {
-		return nil, diag.List{{Range: diag.Range{Start: diag.Pos{File: name}},
+		return nil, diag.List{{Range: diag.FileOnly(name).Whole(),
 			Summary: fmt.Sprintf("sheet has too many lines: more than %d", cfg.maxLines),
 			Detail:  "a sheet is written by a person; it was refused before parsing",
 			Hint:    "split it into sheets that use one another, or raise the limit (sheaf: --max-lines N; Go: engine.WithMaxLines)"}}
@@ -126,7 +126,7 @@ func compileFile(f *sheet.File, cfg config) (*Sheet, error) {
 // tooLarge is the error of a sheet over the size limit, found before it
 // is read or parsed.
 func tooLarge(name string, size int64, limit int) diag.List {
-	return diag.List{{Range: diag.Range{Start: diag.Pos{File: name, Line: 1, Col: 1}},
+	return diag.List{{Range: diag.NewSource(name, "").Span(0, 0),
 		Summary: fmt.Sprintf("sheet is too large: %d bytes, the limit is %d", size, limit),
 		Detail:  "a sheet is written by a person; it was refused before parsing",
 		Hint:    "split it into sheets that use one another, or raise the limit (sheaf: --max-bytes N; Go: engine.WithMaxBytes)"}}
@@ -175,7 +175,7 @@ func (s *Sheet) Sources() diag.Sources {
 func ReadSources(l diag.List) diag.Sources {
 	out := diag.Sources{}
 	for _, d := range l {
-		name := d.Range.Start.File
+		name := d.Range.Start().File
 		if _, done := out[name]; done || name == "" {
 			continue
 		}

@@ -238,7 +238,7 @@ func (s *Sheet) ParseInput(name, text string) (funcs.Value, error) {
 	if err != nil {
 		return nil, err
 	}
-	e := sheet.Expr{Text: text, Range: diag.Range{Start: diag.Pos{File: "--set " + name, Line: 1, Col: 1}}}
+	e := sheet.Expr{Text: text, Range: diag.NewSource("--set "+name, text).Span(0, len(text))}
 	f, errs := formula.Parse(e, formula.Options{MaxDepth: s.cfg.maxDepth})
 	if errs.HasErrors() {
 		return nil, fmt.Errorf("cannot read %q for `%s`: %s", text, name, errs[0].Summary)

@@ -59,7 +59,7 @@ func FuzzUse(f *testing.F) {
 			srcs := engine.ReadSources(l)
 			srcs[top] = []byte(src)
 			for _, d := range l {
-				file := d.Range.Start.File
+				file := d.Range.Start().File
 				if !strings.HasPrefix(file, dir) {
 					t.Errorf("problem outside the project: %s", d.Error())
 				}

@@ -62,7 +62,7 @@ func nextLine(b []byte) []byte {
 // (starting at byte lineStart of the compiled source) and is now nl, or
 // false when more than the value changed.
 func editedValue(c *engine.Cell, ol, nl []byte, lineStart int) (string, bool) {
-	from := c.Formula.Source.Range.Start.Offset - lineStart
+	from := c.Formula.Source.Range.Start().Offset - lineStart
 	to := from + len(c.Formula.Source.Text)
 	if from < 0 || to > len(ol) {
 		return "", false
@@ -92,10 +92,10 @@ func oneLineInputs(s *engine.Sheet) map[int]*engine.Cell {
 	m := map[int]*engine.Cell{}
 	for _, c := range s.Cells() {
 		r := c.Range
-		if c.Kind != engine.Input || c.Scope != "" || r.Start.File != s.Name() || r.Start.Line != r.End.Line || c.Formula == nil {
+		if c.Kind != engine.Input || c.Scope != "" || r.Start().File != s.Name() || r.Start().Line != r.End().Line || c.Formula == nil {
 			continue
 		}
-		m[r.Start.Line] = c
+		m[r.Start().Line] = c
 	}
 	return m
 }

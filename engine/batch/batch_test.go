@@ -176,8 +176,8 @@ func TestBadRowsRest(t *testing.T) {
 		t.Fatalf("%d bad rows, want %d: %v", len(bad), len(wantLines), bad)
 	}
 	for i, d := range bad {
-		if d.Range.Start.Line != wantLines[i] || d.Range.Start.File != cs.File {
-			t.Errorf("bad row %d at %s, want line %d", i, d.Range.Start, wantLines[i])
+		if d.Range.Start().Line != wantLines[i] || d.Range.Start().File != cs.File {
+			t.Errorf("bad row %d at %s, want line %d", i, d.Range.Start(), wantLines[i])
 		}
 	}
 	out, err := batch.Run(context.Background(), s, cs, batch.Options{})

@@ -30,7 +30,7 @@ func FuzzRead(f *testing.F) {
 			if c.Err == nil && len(c.Values) != len(cs.Columns) {
 				t.Fatalf("case %d is good but has %d values for %d columns", c.N, len(c.Values), len(cs.Columns))
 			}
-			if c.Err != nil && !c.Err.Range.Start.IsValid() {
+			if c.Err != nil && !c.Err.Range.Start().IsValid() {
 				t.Fatalf("case %d: problem without a position: %v", c.N, c.Err)
 			}
 		}

@@ -141,7 +141,7 @@ func (o *Outcome) WriteJSON(w io.Writer, sheet string, exit int) error {
 			Inputs: []jsonQuantity{}, Picks: []jsonQuantity{}, Checks: []jsonCheck{}, ShownIn: r.Shown}
 		if e := r.Case.Err; e != nil {
 			jr.Problem = e.Summary
-			p := e.Range.Start
+			p := e.Range.Start()
 			d.Problems = append(d.Problems, jsonIssue{Kind: "input", File: p.File, Line: p.Line, Column: p.Col, Message: e.Summary, Detail: e.Detail, Hint: e.Hint})
 		}
 		for j, c := range o.Cases.Columns {

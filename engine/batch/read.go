@@ -46,6 +46,8 @@ type Cases struct {
 	// mark (`12,5` is 12.5).
 	Sep          rune
 	DecimalComma bool
+
+	text *diag.Source // the table without its byte order mark, which positions point into
 }
 
 // detectSep returns ';' when the table's first row that is not a comment
@@ -108,23 +110,24 @@ func Read(file string, src []byte, s *engine.Sheet) (*Cases, error) {
 	r.TrimLeadingSpace = true
 	r.ReuseRecord = false
 	out := &Cases{File: file, Src: src, Sep: detectSep(src)}
+	text := diag.NewSource(file, string(body))
+	out.text = text
 	if out.Sep == ';' {
 		r.Comma, out.DecimalComma = ';', true
 	}
 	header, err := r.Read()
 	if err == io.EOF {
-		return nil, diag.List{{Range: diag.Range{Start: diag.Pos{File: file, Line: 1, Col: 1}},
+		return nil, diag.List{{Range: text.Span(0, 0),
 			Summary: "the case table is empty", Detail: "a case table starts with a header row naming inputs of the sheet",
 			Hint: "write a header such as `P [kN], d [mm]` and one row per case"}}
 	}
 	if err != nil {
-		return nil, diag.List{csvProblem(file, err)}
+		return nil, diag.List{csvProblem(text, err)}
 	}
 	var errs diag.List
 	seen := map[string]bool{}
 	for i, h := range header {
-		line, col := r.FieldPos(i)
-		pos := diag.Pos{File: file, Line: line, Col: col}
+		pos := fieldAt(text, r, i)
 		c, d := readHeader(s, h, pos)
 		if d != nil {
 			errs = append(errs, d)
@@ -154,7 +157,7 @@ func Read(file string, src []byte, s *engine.Sheet) (*Cases, error) {
 				return nil, err
 			}
 			cs.Line = pe.Line
-			cs.Err = csvProblem(file, err)
+			cs.Err = csvProblem(text, err)
 			out.Cases = append(out.Cases, cs)
 			continue
 		}
@@ -170,8 +173,7 @@ func Read(file string, src []byte, s *engine.Sheet) (*Cases, error) {
 // one.
 func (c *Cases) readRow(s *engine.Sheet, r *csv.Reader, cs *Case) {
 	if len(cs.Raw) != len(c.Columns) {
-		line, col := r.FieldPos(0)
-		cs.Err = &diag.Diagnostic{Range: diag.Range{Start: diag.Pos{File: c.File, Line: line, Col: col}},
+		cs.Err = &diag.Diagnostic{Range: fieldAt(c.text, r, 0),
 			Summary: fmt.Sprintf("case %d has %s, the header has %s", cs.N, plural.Count(len(cs.Raw), "value"), plural.Count(len(c.Columns), "column")),
 			Detail:  "this row was skipped; the other rows were evaluated",
 			Hint:    "give one value per column, separated by " + c.sepName()}
@@ -181,9 +183,7 @@ func (c *Cases) readRow(s *engine.Sheet, r *csv.Reader, cs *Case) {
 	for i, text := range cs.Raw {
 		v, err := c.value(s, &c.Columns[i], text)
 		if err != nil {
-			line, col := r.FieldPos(i)
-			pos := diag.Pos{File: c.File, Line: line, Col: col}
-			cs.Err = &diag.Diagnostic{Range: rangeOf(pos, text),
+			cs.Err = &diag.Diagnostic{Range: rangeOf(fieldAt(c.text, r, i), text),
 				Summary: fmt.Sprintf("case %d, column `%s`: %v", cs.N, c.Columns[i].Name, err),
 				Detail:  "this row was skipped; the other rows were evaluated",
 				Hint:    "write a number, with its unit unless the header gives one: `45 kN`, `45kN`, or `45` under `P [kN]`"}
@@ -217,7 +217,7 @@ func (c *Cases) value(s *engine.Sheet, col *Column, text string) (funcs.Value, e
 }
 
 // readHeader reads one header field `name [unit]` or `name`.
-func readHeader(s *engine.Sheet, h string, pos diag.Pos) (Column, *diag.Diagnostic) {
+func readHeader(s *engine.Sheet, h string, pos diag.Range) (Column, *diag.Diagnostic) {
 	text := strings.TrimSpace(h)
 	name, unit, hasUnit := text, "", false
 	if i := strings.IndexByte(text, '['); i >= 0 {
@@ -245,7 +245,7 @@ func readHeader(s *engine.Sheet, h string, pos diag.Pos) (Column, *diag.Diagnost
 		}
 		return Column{}, d
 	}
-	col := Column{Name: name, Cell: cell, Unit: s.DisplayUnit(cell), Pos: pos}
+	col := Column{Name: name, Cell: cell, Unit: s.DisplayUnit(cell), Pos: pos.Start()}
 	if hasUnit {
 		u, err := units.Parse(unit)
 		if err != nil {
@@ -292,18 +292,29 @@ func describe(s *engine.Sheet, c *engine.Cell) string {
 }
 
 // rangeOf is the range of field text starting at pos (on one line).
-func rangeOf(pos diag.Pos, text string) diag.Range {
-	end := pos
-	end.Col += max(len([]rune(text)), 1)
-	return diag.Range{Start: pos, End: end}
+func rangeOf(pos diag.Range, text string) diag.Range {
+	return pos.Sub(0, max(len(text), 1))
 }
 
-func csvProblem(file string, err error) *diag.Diagnostic {
+// fieldAt is the place where field i of the record r read last starts.
+func fieldAt(src *diag.Source, r *csv.Reader, i int) diag.Range {
+	line, col := r.FieldPos(i)
+	return byteAt(src, line, col)
+}
+
+// byteAt is the place at line:col of src, col a 1-based byte index as the
+// CSV reader counts it.
+func byteAt(src *diag.Source, line, col int) diag.Range {
+	off := min(src.Offset(line, 1)+max(col, 1)-1, len(src.Text))
+	return src.Span(off, off)
+}
+
+func csvProblem(src *diag.Source, err error) *diag.Diagnostic {
 	d := &diag.Diagnostic{Summary: "cannot read the case table: " + err.Error(), Detail: "this row was skipped; the other rows were evaluated",
 		Hint: "a field that holds a comma or a quote is written in double quotes, with quotes doubled"}
 	var pe *csv.ParseError
 	if errors.As(err, &pe) {
-		d.Range.Start = diag.Pos{File: file, Line: pe.Line, Col: max(pe.Column, 1)}
+		d.Range = byteAt(src, pe.Line, pe.Column)
 		d.Summary = "cannot read the case table: " + pe.Err.Error()
 	}
 	return d

@@ -208,7 +208,7 @@ func (c *checker) addCell(cell *Cell, section, scope string) {
 // rangeHalf is "lower" or "upper" for a half of a range check (its name
 // is the written name and _min or _max), "" for any other cell.
 func rangeHalf(cell *Cell) string {
-	written := int(cell.NameRange.End.Offset - cell.NameRange.Start.Offset)
+	written := int(cell.NameRange.End().Offset - cell.NameRange.Start().Offset)
 	if cell.Kind != Check || len(cell.Name)-len(cell.Scope) != written+4 {
 		return ""
 	}

@@ -47,12 +47,12 @@ func TestErrors(t *testing.T) {
 				if d.Severity != diag.Error {
 					continue
 				}
-				if prev, dup := got[d.Range.Start.Line]; dup {
-					t.Errorf("%s:%d: two errors on line %d: %q and %q", path, c.Line, d.Range.Start.Line, prev.Summary, d.Summary)
+				if prev, dup := got[d.Range.Start().Line]; dup {
+					t.Errorf("%s:%d: two errors on line %d: %q and %q", path, c.Line, d.Range.Start().Line, prev.Summary, d.Summary)
 				}
-				got[d.Range.Start.Line] = d
-				if r := d.Range; r.End.Offset < r.Start.Offset || r.End.Offset > len(c.Src) || r.Start.File != "case.sheaf" {
-					t.Errorf("%s: range %v..%v outside the case", d.Summary, r.Start, r.End)
+				got[d.Range.Start().Line] = d
+				if r := d.Range; r.End().Offset < r.Start().Offset || r.End().Offset > len(c.Src) || r.Start().File != "case.sheaf" {
+					t.Errorf("%s: range %v..%v outside the case", d.Summary, r.Start(), r.End())
 				}
 				if d.Summary == "" || strings.HasSuffix(d.Summary, ".") {
 					t.Errorf("summary %q: want text without a final period", d.Summary)

@@ -79,7 +79,7 @@ type Cell struct {
 }
 
 // Pos is where the cell's name is.
-func (c *Cell) Pos() diag.Pos { return c.NameRange.Start }
+func (c *Cell) Pos() diag.Pos { return c.NameRange.Start() }
 
 // LimitState is the limit state a check names after `in` ("" for the
 // default one).

@@ -138,7 +138,7 @@ func TestStandIns(t *testing.T) {
 			errs.Sort()
 			var got []string
 			for _, d := range errs {
-				got = append(got, fmt.Sprintf("%d: %s", d.Range.Start.Line, d.Summary))
+				got = append(got, fmt.Sprintf("%d: %s", d.Range.Start().Line, d.Summary))
 			}
 			if !slices.Equal(got, c.want) {
 				t.Errorf("problems:\n  %s\nwant:\n  %s", strings.Join(got, "\n  "), strings.Join(c.want, "\n  "))

@@ -130,7 +130,7 @@ func newLoader(top *sheet.File, opt Options) *loader {
 // with done. Problems go to errs; the file is nil when it cannot be used.
 func (l *loader) open(from *sheet.File, u *sheet.Use, errs *diag.List) *sheet.File {
 	at := u.PathRange
-	if at.Start.Line == 0 {
+	if at.Start().Line == 0 {
 		at = u.Range
 	}
 	written := u.Path
@@ -256,7 +256,7 @@ func (l *loader) loop(target string, u *sheet.Use) *diag.Diagnostic {
 			next = l.stack[m+i+1].file
 		}
 		names = append(names, filepath.ToSlash(next.Name))
-		where = append(where, e.use.PathRange.Start.String()+" uses "+filepath.ToSlash(next.Name))
+		where = append(where, e.use.PathRange.Start().String()+" uses "+filepath.ToSlash(next.Name))
 	}
 	first := edges[0].use
 	summary := "templates use one another in a loop: " + strings.Join(names, " uses ")

@@ -91,7 +91,7 @@ func TestUseBudget(t *testing.T) {
 	src, _ := os.ReadFile(top)
 	f, _ := sheet.Parse(top, src)
 	p, errs := Sheet(f, Options{MaxCells: 100_000})
-	if len(errs) == 0 || errs[0].Summary != "template use too large" || errs[0].Range.Start.Line != 1 {
+	if len(errs) == 0 || errs[0].Summary != "template use too large" || errs[0].Range.Start().Line != 1 {
 		t.Fatalf("errors: %v", errs)
 	}
 	if len(p.Cells) > 100_000 {

@@ -95,7 +95,7 @@ func (c *checker) useTemplate(from *sheet.File, u *sheet.Use, scope string, dept
 			"use the template twice under two names, e.g. `"+name+"_1`", "`%s` is defined twice", name)
 		return
 	}
-	a := &alias{pos: u.Name.Range.Start}
+	a := &alias{pos: u.Name.Range.Start()}
 	c.use.aliases[name] = a
 	f := c.use.ld.open(from, u, &c.errs)
 	if f == nil {
@@ -356,7 +356,7 @@ func (c *checker) applyOverrides() {
 				c.errs.Errorf(o.Name.Range, "`"+local+"` is first replaced at "+first.String(), "keep one of the two lines", "`%s` is replaced twice in this use", local)
 				continue
 			}
-			seen[local] = o.Name.Range.Start
+			seen[local] = o.Name.Range.Start()
 			f, ferrs := formula.Parse(o.Expr, opt)
 			c.errs = append(c.errs, ferrs...)
 			i, ok := c.prog.ByName[b.prefix+local]

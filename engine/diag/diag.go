@@ -45,11 +45,76 @@ func (p Pos) Compare(q Pos) int {
 	return cmp.Compare(p.Col, q.Col)
 }
 
-// Range is a span of source text; End is exclusive.
+// Range is a span of source text: the bytes [From, To) of Src. It is
+// kept small (a sheet holds several per cell) and turned into line:col
+// only when a message or an editor needs it. The zero Range means "no
+// position"; a Range whose From is negative names a file as a whole.
 type Range struct {
-	Start Pos
-	End   Pos
+	Src      *Source
+	From, To int32
 }
+
+// Start returns the position of the first byte of the span.
+func (r Range) Start() Pos {
+	if r.Src == nil {
+		return Pos{}
+	}
+	if r.From < 0 {
+		return Pos{File: r.Src.Name}
+	}
+	return r.Src.Pos(int(r.From))
+}
+
+// End returns the position just past the span.
+func (r Range) End() Pos {
+	if r.Src == nil {
+		return Pos{}
+	}
+	if r.From < 0 {
+		return Pos{File: r.Src.Name}
+	}
+	return r.Src.Pos(int(r.To))
+}
+
+// IsValid reports whether r names a place in a file.
+func (r Range) IsValid() bool { return r.Src != nil && r.From >= 0 }
+
+// File is the name of the file r is in ("" when none).
+func (r Range) File() string {
+	if r.Src == nil {
+		return ""
+	}
+	return r.Src.Name
+}
+
+// Sub returns the span [from, to) counted from the start of r, as a
+// parser finds a token inside the text r spans.
+func (r Range) Sub(from, to int) Range {
+	if !r.IsValid() {
+		return r
+	}
+	return Range{Src: r.Src, From: r.From + int32(from), To: r.From + int32(to)}
+}
+
+// Through returns the span from the start of r to the end of s (both in
+// the same file).
+func (r Range) Through(s Range) Range {
+	if !r.IsValid() || s.Src != r.Src {
+		return r
+	}
+	return Range{Src: r.Src, From: r.From, To: max(s.To, r.From)}
+}
+
+// Text returns the source text r spans ("" when it has none).
+func (r Range) Text() string {
+	if !r.IsValid() || int(r.To) > len(r.Src.Text) || r.To < r.From {
+		return ""
+	}
+	return r.Src.Text[r.From:r.To]
+}
+
+// Compare orders ranges by the position of their start.
+func (r Range) Compare(s Range) int { return r.Start().Compare(s.Start()) }
 
 // Severity grades a diagnostic.
 type Severity uint8
@@ -81,9 +146,9 @@ type Diagnostic struct {
 // usual case, and the exit code says it).
 func (d *Diagnostic) Error() string {
 	if d.Severity == Warning {
-		return d.Range.Start.String() + ": warning: " + d.Summary
+		return d.Range.Start().String() + ": warning: " + d.Summary
 	}
-	return d.Range.Start.String() + ": " + d.Summary
+	return d.Range.Start().String() + ": " + d.Summary
 }
 
 // List is a set of diagnostics. It implements error so that a whole file's
@@ -113,7 +178,7 @@ func (l List) HasErrors() bool {
 // mistake, one message.
 func (l *List) Sort() {
 	slices.SortStableFunc(*l, func(a, b *Diagnostic) int {
-		if c := a.Range.Start.Compare(b.Range.Start); c != 0 {
+		if c := a.Range.Start().Compare(b.Range.Start()); c != 0 {
 			return c
 		}
 		return cmp.Compare(a.Summary, b.Summary)
@@ -121,7 +186,7 @@ func (l *List) Sort() {
 	out := (*l)[:0]
 	var last Pos
 	for i, d := range *l {
-		p := d.Range.Start
+		p := d.Range.Start()
 		if i > 0 && p.File == last.File && p.Line == last.Line && p.IsValid() {
 			continue
 		}

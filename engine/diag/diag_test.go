@@ -3,6 +3,7 @@ package diag
 import (
 	"errors"
 	"slices"
+	"strings"
 	"testing"
 )
 
@@ -62,7 +63,7 @@ func TestSeverityString(t *testing.T) {
 }
 
 func TestDiagnosticError(t *testing.T) {
-	d := &Diagnostic{Range: Range{Start: Pos{File: "a.sheaf", Line: 4, Col: 5}}, Summary: "undefined name `Q`", Hint: "not in Error()"}
+	d := &Diagnostic{Range: NewSource("a.sheaf", "\n\n\n    Q\n").At(4, 5, 1), Summary: "undefined name `Q`", Hint: "not in Error()"}
 	if got, want := d.Error(), "a.sheaf:4:5: undefined name `Q`"; got != want {
 		t.Errorf("error: %q, want %q", got, want)
 	}
@@ -78,7 +79,7 @@ func p(line, col int, file ...string) Range {
 	if len(file) > 0 {
 		f = file[0]
 	}
-	return Range{Start: Pos{File: f, Line: line, Col: col}}
+	return NewSource(f, strings.Repeat(strings.Repeat(" ", 20)+"\n", 10)).At(line, col, 1)
 }
 
 func TestListSort(t *testing.T) {
@@ -104,7 +105,7 @@ func TestListSort(t *testing.T) {
 			List{{Range: p(1, 1), Summary: "on a line"}, {Summary: "run problem 2"}, {Summary: "run problem 1"}},
 			[]string{"-: run problem 1", "-: run problem 2", "a.sheaf:1:1: on a line"}},
 		{"file-level problems without a line are kept",
-			List{{Range: Range{Start: Pos{File: "a.sheaf"}}, Summary: "too large"}, {Range: Range{Start: Pos{File: "a.sheaf"}}, Summary: "not utf-8"}},
+			List{{Range: FileOnly("a.sheaf").Whole(), Summary: "too large"}, {Range: FileOnly("a.sheaf").Whole(), Summary: "not utf-8"}},
 			[]string{"a.sheaf: not utf-8", "a.sheaf: too large"}},
 	}
 	for _, c := range cases {

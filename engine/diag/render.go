@@ -34,13 +34,13 @@ func Render(w io.Writer, l List, src Sources) error {
 		if d.Detail != "" {
 			b.WriteString("    " + printable(d.Detail) + "\n")
 		}
-		if text, ok := src[d.Range.Start.File]; ok && d.Range.Start.IsValid() {
-			starts, made := lines[d.Range.Start.File]
+		if text, ok := src[d.Range.File()]; ok && d.Range.IsValid() {
+			starts, made := lines[d.Range.File()]
 			if !made {
 				starts = lineStarts(text)
-				lines[d.Range.Start.File] = starts
+				lines[d.Range.File()] = starts
 			}
-			writeSnippet(&b, text, starts, d.Range)
+			writeSnippet(&b, text, starts, d.Range.Start(), d.Range.End())
 		}
 		if d.Hint != "" {
 			b.WriteString("    hint: " + printable(d.Hint) + "\n")
@@ -67,28 +67,28 @@ func lineStarts(text []byte) []int {
 	return starts
 }
 
-// writeSnippet writes the line holding r.Start with carets under the span
+// writeSnippet writes the line holding start with carets under the span
 // (clipped to that line; at least one caret). A line that is empty or
 // missing (a position at the end of the file) gets no snippet: there is
 // nothing to point at. A long line is cut to a window around the span,
 // with "…" where text was left out.
-func writeSnippet(b *strings.Builder, text []byte, starts []int, r Range) {
-	line, ok := lineText(text, starts, r.Start.Line)
+func writeSnippet(b *strings.Builder, text []byte, starts []int, start, end Pos) {
+	line, ok := lineText(text, starts, start.Line)
 	if !ok || line == "" {
 		return
 	}
 	n := utf8.RuneCountInString(line)
 	width := 1
-	if r.End.Line == r.Start.Line && r.End.Col > r.Start.Col {
-		width = r.End.Col - r.Start.Col
-	} else if r.End.Line > r.Start.Line {
-		width = n - r.Start.Col + 1
+	if end.Line == start.Line && end.Col > start.Col {
+		width = end.Col - start.Col
+	} else if end.Line > start.Line {
+		width = n - start.Col + 1
 	}
-	if r.Start.Col-1+width > n && n >= r.Start.Col {
-		width = n - r.Start.Col + 1
+	if start.Col-1+width > n && n >= start.Col {
+		width = n - start.Col + 1
 	}
 	width = max(width, 1)
-	col := max(r.Start.Col-1, 0) // runes before the caret
+	col := max(start.Col-1, 0) // runes before the caret
 	if n > maxSnippet {
 		rs := []rune(line)
 		width = min(width, maxSnippet/2)
@@ -106,7 +106,7 @@ func writeSnippet(b *strings.Builder, text []byte, starts []int, r Range) {
 		line = cut
 		width = max(1, min(width, utf8.RuneCountInString(cut)-col))
 	}
-	num := fmt.Sprintf("%4d | ", r.Start.Line)
+	num := fmt.Sprintf("%4d | ", start.Line)
 	b.WriteString(num + printable(line) + "\n")
 	b.WriteString(strings.Repeat(" ", len(num)-2) + "| " + strings.Repeat(" ", col) + strings.Repeat("^", width) + "\n")
 }

@@ -23,9 +23,11 @@ const renderSrc = "title: render cases\n" +
 	"\n" +
 	"check c: σ_Ed <= f_y"
 
-// at builds a range on one line of case.sheaf from 1-based rune columns.
+var caseSrc = NewSource("case.sheaf", renderSrc)
+
+// at builds a range of case.sheaf from 1-based lines and rune columns.
 func at(line, col, endLine, endCol int) Range {
-	return Range{Start: Pos{File: "case.sheaf", Line: line, Col: col}, End: Pos{File: "case.sheaf", Line: endLine, Col: endCol}}
+	return caseSrc.Span(caseSrc.Offset(line, col), caseSrc.Offset(endLine, endCol))
 }
 
 // TestRender renders one diagnostic per case and compares the whole text
@@ -52,11 +54,10 @@ func TestRender(t *testing.T) {
 		{"a CRLF line is shown without its CR", Diagnostic{Range: at(5, 5, 5, 8), Summary: "span on a CRLF line"}},
 		{"the last line without a line break", Diagnostic{Range: at(7, 1, 7, 6), Summary: "span on the last line"}},
 		{"an empty line at column 1 gets no snippet", Diagnostic{Range: at(6, 1, 6, 1), Summary: "problem on an empty line"}},
-		{"a line past the end of the file gets no snippet", Diagnostic{Range: at(12, 3, 12, 5), Summary: "problem past the end"}},
-		{"a file without source text gets no snippet", Diagnostic{Range: Range{Start: Pos{File: "other.sheaf", Line: 1, Col: 1}}, Summary: "no source",
+		{"a file without source text gets no snippet", Diagnostic{Range: NewSource("other.sheaf", "x = 1").Span(0, 1), Summary: "no source",
 			Hint: "the hint still shows"}},
 		{"no position", Diagnostic{Summary: "no position", Detail: "a problem of the whole run"}},
-		{"a file but no line", Diagnostic{Range: Range{Start: Pos{File: "case.sheaf"}}, Summary: "sheet is too large"}},
+		{"a file but no line", Diagnostic{Range: caseSrc.Whole(), Summary: "sheet is too large"}},
 		{"a warning", Diagnostic{Severity: Warning, Range: at(5, 1, 5, 2), Summary: "unused cell `L`"}},
 	}
 	var b strings.Builder
@@ -103,7 +104,7 @@ func TestRenderLimits(t *testing.T) {
 	src := []byte(line + "\n")
 	col := len(line) - 2
 	var b strings.Builder
-	d := &Diagnostic{Range: Range{Start: Pos{File: "f", Line: 1, Col: col, Offset: col - 1}, End: Pos{File: "f", Line: 1, Col: col + 3, Offset: col + 2}}, Summary: "undefined name `bad`"}
+	d := &Diagnostic{Range: NewSource("f", string(src)).Span(col-1, col+2), Summary: "undefined name `bad`"}
 	if err := Render(&b, List{d}, Sources{"f": src}); err != nil {
 		t.Fatal(err)
 	}
@@ -117,13 +118,13 @@ func TestRenderLimits(t *testing.T) {
 		t.Errorf("caret at %d, want %d:\n%s", i, j, out)
 	}
 	var many List
-	var text strings.Builder
+	text := strings.Repeat("y = nope\n", 250)
+	manySrc := NewSource("f", text)
 	for i := 1; i <= 250; i++ {
-		text.WriteString("y = nope\n")
-		many = append(many, &Diagnostic{Range: Range{Start: Pos{File: "f", Line: i, Col: 5}, End: Pos{File: "f", Line: i, Col: 9}}, Summary: "undefined name `nope`"})
+		many = append(many, &Diagnostic{Range: manySrc.At(i, 5, 4), Summary: "undefined name `nope`"})
 	}
 	b.Reset()
-	if err := Render(&b, many, Sources{"f": []byte(text.String())}); err != nil {
+	if err := Render(&b, many, Sources{"f": []byte(text)}); err != nil {
 		t.Fatal(err)
 	}
 	if got := strings.Count(b.String(), "undefined name"); got != MaxShown {

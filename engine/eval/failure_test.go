@@ -61,7 +61,7 @@ func TestFailureAtNode(t *testing.T) {
 				prefix = "check " + c.cell
 			}
 			ln, col := line(t, src, prefix, c.needle)
-			if s := p.Range.Start; s.File != "t.sheaf" || s.Line != ln || s.Col != col {
+			if s := p.Range.Start(); s.File != "t.sheaf" || s.Line != ln || s.Col != col {
 				t.Errorf("problem at %v, want t.sheaf:%d:%d", s, ln, col)
 			}
 			if !strings.Contains(p.Summary, c.msg) || !strings.Contains(p.Summary, "`"+c.cell+"`") {
@@ -94,7 +94,7 @@ func TestFailureInFunction(t *testing.T) {
 		if p == nil || st.Known[c.Index] {
 			t.Fatalf("%s: known=%v problem=%v", name, st.Known[c.Index], p)
 		}
-		if p.Range.Start.Line != c.Pos().Line || !strings.Contains(p.Summary, "division by zero") {
+		if p.Range.Start().Line != c.Pos().Line || !strings.Contains(p.Summary, "division by zero") {
 			t.Errorf("%s: problem %v, want division by zero on line %d", name, p, c.Pos().Line)
 		}
 		if !strings.Contains(p.Detail, "t.sheaf:2:14") || !strings.Contains(p.Detail, "`inv`") {

@@ -88,7 +88,7 @@ func checkCell(t *testing.T, st *eval.State, cc *check.Cell, want, rel float64, 
 		t.Errorf("%s: unknown without a problem", what)
 		return
 	}
-	if p.Range.Start.File != "t.sheaf" || p.Range.Start.Line != cc.Pos().Line || !strings.Contains(p.Summary, "`"+cc.Name+"`") {
+	if p.Range.Start().File != "t.sheaf" || p.Range.Start().Line != cc.Pos().Line || !strings.Contains(p.Summary, "`"+cc.Name+"`") {
 		t.Errorf("%s: problem %v, want one naming `%s` on line %d", what, p, cc.Name, cc.Pos().Line)
 	}
 }

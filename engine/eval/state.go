@@ -335,14 +335,14 @@ func (s *State) failed(c *check.Cell, fl *Failure) {
 	r := c.Formula.Source.Range
 	detail := "`" + c.Name + "` has no value; cells that use it are skipped"
 	if fl.Node != nil {
-		if nr := fl.Node.Range(); nr.Start.IsValid() {
+		if nr := fl.Node.Range(); nr.Start().IsValid() {
 			if fl.Func == "" {
 				r = nr
 			} else {
 				// The message stays on the cell's line: a function that
 				// fails for several cells would otherwise put all their
 				// messages on its own line, where one per line survives.
-				detail = "it fails inside `" + fl.Func + "`, at " + nr.Start.String() + "; " + detail
+				detail = "it fails inside `" + fl.Func + "`, at " + nr.Start().String() + "; " + detail
 			}
 		}
 	}

@@ -10,8 +10,10 @@ import (
 	"github.com/sheafcalc/sheaf/engine/sheet"
 )
 
+// expr places text at line 3, column 15 (byte 40) of a file f.
 func expr(text string) sheet.Expr {
-	return sheet.Expr{Text: text, Range: diag.Range{Start: diag.Pos{File: "f", Line: 3, Col: 15, Offset: 40}}}
+	pre := strings.Repeat("x", 12) + "\n" + strings.Repeat("y", 12) + "\n" + strings.Repeat(" ", 14)
+	return sheet.Expr{Text: text, Range: diag.NewSource("f", pre+text).Span(len(pre), len(pre)+len(text))}
 }
 
 // TestTrees: the grammar of SPEC.md §4, compared as printed trees.
@@ -129,7 +131,7 @@ func TestErrors(t *testing.T) {
 			want = want[:i]
 		}
 		n++
-		_, errs := Parse(sheet.Expr{Text: text, Range: diag.Range{Start: diag.Pos{File: "f", Line: 1, Col: 1}}}, Options{})
+		_, errs := Parse(sheet.Expr{Text: text, Range: diag.NewSource("f", text).Span(0, len(text))}, Options{})
 		if !errs.HasErrors() {
 			t.Errorf("line %d: %q parsed without error", ln+1, text)
 			continue
@@ -138,8 +140,8 @@ func TestErrors(t *testing.T) {
 		if !strings.HasPrefix(d.Summary, want) {
 			t.Errorf("line %d: %q: got %q, want %q", ln+1, text, d.Summary, want)
 		}
-		if col > 0 && d.Range.Start.Col != col {
-			t.Errorf("line %d: %q: caret at col %d, want %d", ln+1, text, d.Range.Start.Col, col)
+		if col > 0 && d.Range.Start().Col != col {
+			t.Errorf("line %d: %q: caret at col %d, want %d", ln+1, text, d.Range.Start().Col, col)
 		}
 		if d.Hint == "" && d.Detail == "" {
 			t.Errorf("line %d: %q: no detail and no hint", ln+1, text)

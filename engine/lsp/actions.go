@@ -63,7 +63,7 @@ func (d *document) fixFor(p *diag.Diagnostic) *fixData {
 		return &fixData{Title: "Use \"" + want + "\"", Range: r, NewText: want}
 	}
 	if strings.Contains(p.Summary, "but the expression is a plain number") && plainNumber.MatchString(marked) {
-		if c, ok := d.itemAt(p.Range.Start.Line).(*sheet.Cell); ok && c.Unit != nil && strings.TrimSpace(c.Expr.Text) == marked {
+		if c, ok := d.itemAt(p.Range.Start().Line).(*sheet.Cell); ok && c.Unit != nil && strings.TrimSpace(c.Expr.Text) == marked {
 			return &fixData{Title: "Write `" + marked + " " + c.Unit.Text + "`", Range: r, NewText: marked + " " + c.Unit.Text}
 		}
 	}
@@ -106,7 +106,7 @@ func (s *Server) codeActions(params json.RawMessage) (any, *rpcError) {
 // problem ld at its place.
 func (d *document) stillProblem(ld lspDiagnostic) bool {
 	for _, p := range d.errs {
-		if d.own(p.Range.Start) && d.lines.rangeOf(p.Range) == ld.Range && strings.HasPrefix(ld.Message, p.Summary) {
+		if d.own(p.Range.Start()) && d.lines.rangeOf(p.Range) == ld.Range && strings.HasPrefix(ld.Message, p.Summary) {
 			return true
 		}
 	}

@@ -61,7 +61,7 @@ func (d *document) inHeader(li int) bool {
 		case *sheet.Meta, *sheet.Comment, *sheet.Blank:
 			continue
 		}
-		return it.Span().Start.Line-1 >= li
+		return it.Span().Start().Line-1 >= li
 	}
 	return true
 }

@@ -58,7 +58,7 @@ func (d *document) toLSP(l diag.List) map[string][]lspDiagnostic {
 	texts := d.sources(l)
 	out := map[string][]lspDiagnostic{}
 	for _, p := range l {
-		file := p.Range.Start.File
+		file := p.Range.Start().File
 		if file == "" {
 			file = d.path
 		}

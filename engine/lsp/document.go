@@ -61,7 +61,7 @@ func (d *document) check() {
 		if l, ok := err.(diag.List); ok {
 			d.errs = l
 		} else {
-			d.errs = diag.List{{Range: diag.Range{Start: diag.Pos{File: d.path}}, Summary: err.Error()}}
+			d.errs = diag.List{{Range: diag.FileOnly(d.path).Whole(), Summary: err.Error()}}
 		}
 		return
 	}
@@ -129,13 +129,13 @@ func (d *document) lineEdit(src string) bool {
 			byLine = make([]sheet.Item, d.lines.lineCount()+1)
 			for _, it := range d.file.Items {
 				r := it.Span()
-				if r.Start.Line == r.End.Line && r.Start.Line >= 1 && r.Start.Line <= len(byLine) {
-					byLine[r.Start.Line-1] = it
+				if r.Start().Line == r.End().Line && r.Start().Line >= 1 && r.Start().Line <= len(byLine) {
+					byLine[r.Start().Line-1] = it
 				}
 				if u, ok := it.(*sheet.Use); ok {
 					for _, o := range u.Overrides {
-						if o.Range.Start.Line == o.Range.End.Line && o.Range.Start.Line <= len(byLine) {
-							byLine[o.Range.Start.Line-1] = &override{prefix: u.Name.Name + ".", Cell: o}
+						if o.Range.Start().Line == o.Range.End().Line && o.Range.Start().Line <= len(byLine) {
+							byLine[o.Range.Start().Line-1] = &override{prefix: u.Name.Name + ".", Cell: o}
 						}
 					}
 				}
@@ -151,7 +151,7 @@ func (d *document) lineEdit(src string) bool {
 		default:
 			return false
 		}
-		e := byteCol(cur, c.Expr.Range.Start.Col)
+		e := byteCol(cur, c.Expr.Range.Start().Col)
 		if e < 0 || e > len(nw) || cur[:e] != nw[:e] {
 			return false
 		}
@@ -308,15 +308,15 @@ func sameCell(x, y *sheet.Cell) bool {
 	if (x.Unit == nil) != (y.Unit == nil) || (x.Unit != nil && x.Unit.Text != y.Unit.Text) {
 		return false
 	}
-	return sameLines(x.Range, y.Range) && x.Name.Range.Start.Col == y.Name.Range.Start.Col
+	return sameLines(x.Range, y.Range) && x.Name.Range.Start().Col == y.Name.Range.Start().Col
 }
 
 func sameLines(a, b diag.Range) bool {
-	return a.Start.Line == b.Start.Line && a.End.Line == b.End.Line
+	return a.Start().Line == b.Start().Line && a.End().Line == b.End().Line
 }
 
 func spanText(f *sheet.File, r diag.Range) string {
-	from, to := r.Start.Offset, r.End.Offset
+	from, to := r.Start().Offset, r.End().Offset
 	if from < 0 || to > len(f.Src) || from > to {
 		return ""
 	}

@@ -294,13 +294,13 @@ func TestGrammar(t *testing.T) {
 		// has checks that every byte of r (one line) carries scope.
 		has := func(what string, r diag.Range, scope string) {
 			t.Helper()
-			if !r.Start.IsValid() {
+			if !r.Start().IsValid() {
 				return
 			}
-			li := r.Start.Line - 1
-			from := r.Start.Offset - starts[li]
-			to := r.End.Offset - starts[li]
-			if r.End.Line != r.Start.Line {
+			li := r.Start().Line - 1
+			from := r.Start().Offset - starts[li]
+			to := r.End().Offset - starts[li]
+			if r.End().Line != r.Start().Line {
 				to = len(toks[li])
 			}
 			for b := from; b < to && b < len(toks[li]); b++ {
@@ -312,13 +312,13 @@ func TestGrammar(t *testing.T) {
 		}
 		notComment := func(r diag.Range) {
 			t.Helper()
-			for li := r.Start.Line - 1; li < r.End.Line && li < len(lines); li++ {
+			for li := r.Start().Line - 1; li < r.End().Line && li < len(lines); li++ {
 				from, to := 0, len(toks[li])
-				if li == r.Start.Line-1 {
-					from = r.Start.Offset - starts[li]
+				if li == r.Start().Line-1 {
+					from = r.Start().Offset - starts[li]
 				}
-				if li == r.End.Line-1 {
-					to = r.End.Offset - starts[li]
+				if li == r.End().Line-1 {
+					to = r.End().Offset - starts[li]
 				}
 				for b := from; b < to && b < len(toks[li]); b++ {
 					for _, s := range toks[li][b] {
@@ -332,15 +332,15 @@ func TestGrammar(t *testing.T) {
 		}
 		annot := func(a sheet.Annot) {
 			t.Helper()
-			if !a.Range.Start.IsValid() {
+			if !a.Range.Start().IsValid() {
 				return
 			}
 			has("annotation", a.Range, "comment.line.double-dash.sheaf")
 			if a.Reference != "" {
-				li := a.Range.Start.Line - 1
+				li := a.Range.Start().Line - 1
 				ln := lines[li]
 				i := strings.LastIndex(ln, a.Reference)
-				r := diag.Range{Start: diag.Pos{Line: li + 1, Offset: starts[li] + i}, End: diag.Pos{Line: li + 1, Offset: starts[li] + i + len(a.Reference)}}
+				r := a.Range.Src.Span(starts[li]+i, starts[li]+i+len(a.Reference))
 				has("reference", r, "markup.underline.reference.sheaf")
 			}
 		}

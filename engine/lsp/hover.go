@@ -118,8 +118,8 @@ func (s *Server) cellHover(d *document, c *engine.Cell) string {
 	if c.Reference != "" {
 		b.WriteString("\n\nReference: " + c.Reference)
 	}
-	if !d.own(c.NameRange.Start) {
-		b.WriteString("\n\nDefined in " + c.NameRange.Start.String())
+	if !d.own(c.NameRange.Start()) {
+		b.WriteString("\n\nDefined in " + c.NameRange.Start().String())
 	}
 	return b.String()
 }
@@ -145,8 +145,8 @@ func signature(c *engine.Cell) string {
 // replaced by that cell's value in its display unit, from the source the
 // cell was written in; "" when the formula cannot be found there.
 func (s *Server) substituted(d *document, c *engine.Cell) string {
-	t := s.textOf(d, c.Range.Start.File)
-	from, to := t.offsetOfDiag(c.Range.Start), t.offsetOfDiag(c.Range.End)
+	t := s.textOf(d, c.Range.Start().File)
+	from, to := t.offsetOfDiag(c.Range.Start()), t.offsetOfDiag(c.Range.End())
 	if from < 0 || to > len(t.src) || from >= to {
 		return ""
 	}
@@ -191,7 +191,7 @@ func (s *Server) substituted(d *document, c *engine.Cell) string {
 		}
 		if text != "" {
 			r := n.Range()
-			a, b := t.offsetOfDiag(r.Start), t.offsetOfDiag(r.End)
+			a, b := t.offsetOfDiag(r.Start()), t.offsetOfDiag(r.End())
 			if a >= exprFrom && b <= exprTo && a < b {
 				if strings.Contains(text, " ") {
 					text = "(" + text + ")"

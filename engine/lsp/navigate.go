@@ -6,7 +6,6 @@ import (
 	"path/filepath"
 	"slices"
 	"strings"
-	"unicode/utf8"
 
 	"github.com/sheafcalc/sheaf/engine"
 	"github.com/sheafcalc/sheaf/engine/check"
@@ -50,7 +49,7 @@ func (s *Server) textOf(d *document, file string) *text {
 }
 
 func (s *Server) locationOf(d *document, r diag.Range) location {
-	file := r.Start.File
+	file := r.Start().File
 	uri := d.uri
 	if file != d.path {
 		uri = pathToURI(file)
@@ -102,7 +101,7 @@ type occurrence struct {
 func occurrences(s *engine.Sheet, x *engine.Cell, sources func(string) *text) []occurrence {
 	local := x.Name[strings.LastIndexByte(x.Name, '.')+1:]
 	var out []occurrence
-	if x.NameRange.Start.IsValid() {
+	if x.NameRange.Start().IsValid() {
 		out = append(out, occurrence{r: x.NameRange, decl: true})
 	}
 	var walk func(n *check.Node)
@@ -114,11 +113,9 @@ func occurrences(s *engine.Sheet, x *engine.Cell, sources func(string) *text) []
 			r := n.Range()
 			if n.Op != check.OpCell {
 				// A call's range covers its arguments: the name is at its start.
-				r.End = r.Start
-				r.End.Col += utf8.RuneCountInString(n.Str())
-				r.End.Offset += len(n.Str())
+				r.To = min(r.From+int32(len(n.Str())), r.To)
 			}
-			if seg, ok := lastSegment(r, local, sources(r.Start.File)); ok {
+			if seg, ok := lastSegment(r, local, sources(r.Start().File)); ok {
 				out = append(out, occurrence{r: seg})
 			}
 		}
@@ -133,20 +130,20 @@ func occurrences(s *engine.Sheet, x *engine.Cell, sources func(string) *text) []
 			}
 		}
 	}
-	slices.SortFunc(out, func(a, b occurrence) int { return a.r.Start.Compare(b.r.Start) })
-	return slices.CompactFunc(out, func(a, b occurrence) bool { return a.r.Start.Compare(b.r.Start) == 0 })
+	slices.SortFunc(out, func(a, b occurrence) int { return a.r.Compare(b.r) })
+	return slices.CompactFunc(out, func(a, b occurrence) bool { return a.r.Compare(b.r) == 0 })
 }
 
 // lastSegment narrows r, which covers a written name, to its last
 // segment, local; it reports false when the text there is not local (a
 // rename must never replace what it did not find).
 func lastSegment(r diag.Range, local string, t *text) (diag.Range, bool) {
-	if t == nil || r.Start.Line != r.End.Line {
+	if t == nil || r.Start().Line != r.End().Line {
 		return r, false
 	}
-	ln := t.line(r.Start.Line - 1)
-	a := t.fromDiag(r.Start)
-	b := t.fromDiag(r.End)
+	ln := t.line(r.Start().Line - 1)
+	a := t.fromDiag(r.Start())
+	b := t.fromDiag(r.End())
 	from := t.offset(a) - t.starts[a.Line]
 	to := t.offset(b) - t.starts[b.Line]
 	if from < 0 || to > len(ln) || from > to {
@@ -156,10 +153,8 @@ func lastSegment(r diag.Range, local string, t *text) (diag.Range, bool) {
 	if w != local && !strings.HasSuffix(w, "."+local) {
 		return r, false
 	}
-	n := utf8.RuneCountInString(local)
 	out := r
-	out.Start.Col = r.End.Col - n
-	out.Start.Offset = r.End.Offset - len(local)
+	out.From = r.To - int32(len(local))
 	return out, true
 }
 
@@ -203,7 +198,7 @@ func (s *Server) prepareRename(params json.RawMessage) (any, *rpcError) {
 		if seg, ok := lastSegment(t.node.Range(), local, d.lines); ok {
 			r = d.lines.rangeOf(seg)
 		}
-	} else if seg, ok := lastSegment(t.cell.NameRange, local, d.lines); ok && d.own(t.cell.NameRange.Start) {
+	} else if seg, ok := lastSegment(t.cell.NameRange, local, d.lines); ok && d.own(t.cell.NameRange.Start()) {
 		r = d.lines.rangeOf(seg)
 	}
 	return map[string]any{"range": r, "placeholder": local}, nil
@@ -234,11 +229,11 @@ func (s *Server) rename(params json.RawMessage) (any, *rpcError) {
 	if msg := badName(p.NewName); msg != "" {
 		return nil, &rpcError{Code: codeRequestFailed, Message: msg}
 	}
-	defFile := t.cell.NameRange.Start.File
+	defFile := t.cell.NameRange.Start().File
 	local := t.cell.Name[strings.LastIndexByte(t.cell.Name, '.')+1:]
 	// The definition: where the name's own file writes it. An instance
 	// of a template in this sheet (`rod.sigma`) is defined in the template.
-	defAt := t.cell.NameRange.Start
+	defAt := t.cell.NameRange.Start()
 	if strings.Contains(t.cell.Name, ".") && defFile == d.path {
 		// An override in a `use` block: the name is the template's.
 		f, at, ok := s.templateDef(d, t.cell.Name)
@@ -250,11 +245,11 @@ func (s *Server) rename(params json.RawMessage) (any, *rpcError) {
 
 	edits := map[string]map[diag.Pos]diag.Range{} // file -> start -> range
 	add := func(r diag.Range) {
-		f := r.Start.File
+		f := r.Start().File
 		if edits[f] == nil {
 			edits[f] = map[diag.Pos]diag.Range{}
 		}
-		k := r.Start
+		k := r.Start()
 		k.File = ""
 		edits[f][k] = r
 	}
@@ -266,7 +261,7 @@ func (s *Server) rename(params json.RawMessage) (any, *rpcError) {
 		for _, x := range sh.Cells() {
 			// Every instance of the renamed cell: the cell defined at the
 			// same place, under whatever prefix this sheet uses it.
-			if x.NameRange.Start.File != defFile || x.NameRange.Start.Offset != defAt.Offset || x.NameRange.Start.Line != defAt.Line {
+			if x.NameRange.Start().File != defFile || x.NameRange.Start().Offset != defAt.Offset || x.NameRange.Start().Line != defAt.Line {
 				if !overrides(sh, x, defFile, defAt) {
 					continue
 				}
@@ -284,12 +279,12 @@ func (s *Server) rename(params json.RawMessage) (any, *rpcError) {
 				// An edit is only as good as the text it was found in: a
 				// file open with changes not saved differs from what the
 				// other sheets were checked against.
-				if b, ok := built[o.r.Start.File]; !ok || string(b) != src(o.r.Start.File).src {
-					return nil, &rpcError{Code: codeRequestFailed, Message: o.r.Start.File + " differs from what " + sh.Name() + " was checked against (unsaved changes?); save it, then rename"}
+				if b, ok := built[o.r.Start().File]; !ok || string(b) != src(o.r.Start().File).src {
+					return nil, &rpcError{Code: codeRequestFailed, Message: o.r.Start().File + " differs from what " + sh.Name() + " was checked against (unsaved changes?); save it, then rename"}
 				}
-				seg, ok := lastSegment(o.r, local, src(o.r.Start.File))
+				seg, ok := lastSegment(o.r, local, src(o.r.Start().File))
 				if !ok {
-					return nil, &rpcError{Code: codeRequestFailed, Message: "cannot find `" + local + "` written at " + o.r.Start.String() + "; nothing renamed"}
+					return nil, &rpcError{Code: codeRequestFailed, Message: "cannot find `" + local + "` written at " + o.r.Start().String() + "; nothing renamed"}
 				}
 				add(seg)
 			}
@@ -318,7 +313,7 @@ func (s *Server) rename(params json.RawMessage) (any, *rpcError) {
 // overrides reports whether cell x of sh is an override (in a `use` block)
 // of the template input defined at defAt in defFile.
 func overrides(sh *engine.Sheet, x *engine.Cell, defFile string, defAt diag.Pos) bool {
-	if x.NameRange.Start.File == defFile {
+	if x.NameRange.Start().File == defFile {
 		return false
 	}
 	f := sh.File()
@@ -331,7 +326,7 @@ func overrides(sh *engine.Sheet, x *engine.Cell, defFile string, defAt diag.Pos)
 			continue
 		}
 		for _, o := range u.Overrides {
-			if o.Name.Range.Start.Offset == x.NameRange.Start.Offset && u.Name.Name+"."+o.Name.Name == x.Name {
+			if o.Name.Range.Start().Offset == x.NameRange.Start().Offset && u.Name.Name+"."+o.Name.Name == x.Name {
 				return templatePath(sh.Name(), u.Path) == filepath.Clean(defFile)
 			}
 		}
@@ -556,7 +551,7 @@ func (s *Server) templateDef(d *document, name string) (string, diag.Pos, bool) 
 		f, _ := sheet.Parse(path, []byte(t.src))
 		for _, x := range f.Items {
 			if itemName(x) == local {
-				return path, itemNameRange(x).Start, true
+				return path, itemNameRange(x).Start(), true
 			}
 		}
 	}

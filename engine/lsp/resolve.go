@@ -161,7 +161,7 @@ func atOrBefore(a diag.Pos, l, c int) bool { return a.Line < l || (a.Line == l &
 // contains reports whether r holds line l, column c (its end included,
 // so that a cursor just after a name is on it).
 func contains(r diag.Range, l, c int) bool {
-	return r.Start.IsValid() && atOrBefore(r.Start, l, c) && atOrBefore(diag.Pos{Line: l, Col: c}, r.End.Line, r.End.Col)
+	return r.Start().IsValid() && atOrBefore(r.Start(), l, c) && atOrBefore(diag.Pos{Line: l, Col: c}, r.End().Line, r.End().Col)
 }
 
 // cellAt returns the cell of the compiled sheet whose item holds the
@@ -171,7 +171,7 @@ func (d *document) cellAt(l, c int) *engine.Cell {
 		return nil
 	}
 	for _, x := range d.sheet.Cells() {
-		if d.own(x.Range.Start) && contains(x.Range, l, c) {
+		if d.own(x.Range.Start()) && contains(x.Range, l, c) {
 			return x
 		}
 	}
@@ -223,7 +223,7 @@ func unitSpecs(it sheet.Item) []*sheet.UnitSpec {
 func (d *document) itemAt(l int) sheet.Item {
 	for _, it := range d.file.Items {
 		r := it.Span()
-		if r.Start.Line <= l && l <= r.End.Line {
+		if r.Start().Line <= l && l <= r.End().Line {
 			if _, blank := it.(*sheet.Blank); !blank {
 				return it
 			}

@@ -130,10 +130,10 @@ func (t *text) fromDiag(p diag.Pos) position {
 
 // rangeOf converts an engine range.
 func (t *text) rangeOf(r diag.Range) lspRange {
-	s := t.fromDiag(r.Start)
+	s := t.fromDiag(r.Start())
 	e := s
-	if r.End.IsValid() {
-		e = t.fromDiag(r.End)
+	if r.End().IsValid() {
+		e = t.fromDiag(r.End())
 	}
 	return lspRange{Start: s, End: e}
 }

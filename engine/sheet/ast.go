@@ -6,9 +6,12 @@ import "github.com/sheafcalc/sheaf/engine/diag"
 // Item. Nothing is dropped, so the canonical printer can rewrite the file
 // without losing a comment or a blank line.
 type File struct {
-	Name  string // path as given, used in positions
-	Src   []byte
-	Items []Item
+	Name string // path as given, used in positions
+	Src  []byte
+	// Source is the text under Name that every range of the file points
+	// into.
+	Source *diag.Source
+	Items  []Item
 	// Syntax holds the syntax problems Parse found (the same list it
 	// returns). Format refuses a file that has any, so that a broken sheet
 	// is never rewritten.
@@ -49,27 +52,11 @@ type Expr struct {
 	Range diag.Range
 }
 
-// PosAt returns the source position of byte offset off within e.Text.
-func (e Expr) PosAt(off int) diag.Pos {
-	p := e.Range.Start
-	if off > len(e.Text) {
-		off = len(e.Text)
-	}
-	for _, r := range e.Text[:off] {
-		if r == '\n' {
-			p.Line++
-			p.Col = 1
-		} else {
-			p.Col++
-		}
-	}
-	p.Offset += off
-	return p
-}
-
 // RangeAt returns the source range of bytes [from, to) within e.Text.
 func (e Expr) RangeAt(from, to int) diag.Range {
-	return diag.Range{Start: e.PosAt(from), End: e.PosAt(to)}
+	from = min(max(from, 0), len(e.Text))
+	to = min(max(to, from), len(e.Text))
+	return e.Range.Sub(from, to)
 }
 
 // Meta is a header line "key: value" (title, project, basis, author,

@@ -31,7 +31,7 @@ func TestErrors(t *testing.T) {
 			}
 			got := map[int]*diag.Diagnostic{}
 			for _, d := range errs {
-				got[d.Range.Start.Line] = d
+				got[d.Range.Start().Line] = d
 				checkDiagnostic(t, c.Src, d)
 			}
 			for line, re := range c.Wants {
@@ -61,11 +61,11 @@ func TestErrors(t *testing.T) {
 func checkDiagnostic(t *testing.T, src []byte, d *diag.Diagnostic) {
 	t.Helper()
 	r := d.Range
-	if !r.Start.IsValid() || r.Start.File == "" {
+	if !r.Start().IsValid() || r.Start().File == "" {
 		t.Errorf("%s: no position", d.Summary)
 	}
-	if r.End.Offset < r.Start.Offset || r.End.Offset > len(src) {
-		t.Errorf("%s: range %d..%d outside the source of %d bytes", d.Error(), r.Start.Offset, r.End.Offset, len(src))
+	if r.End().Offset < r.Start().Offset || r.End().Offset > len(src) {
+		t.Errorf("%s: range %d..%d outside the source of %d bytes", d.Error(), r.Start().Offset, r.End().Offset, len(src))
 	}
 	if d.Summary == "" || strings.HasSuffix(d.Summary, ".") || strings.ToLower(d.Summary[:1]) != d.Summary[:1] {
 		t.Errorf("summary %q: want lower case, no final period", d.Summary)

@@ -23,7 +23,7 @@ check stress: sigma <= 355 MPa
 	for _, it := range f.Items {
 		switch x := it.(type) {
 		case *sheet.Cell:
-			fmt.Printf("cell %s [%s] = %s at %s\n", x.Name.Name, x.Unit.Text, x.Expr.Text, x.Expr.Range.Start)
+			fmt.Printf("cell %s [%s] = %s at %s\n", x.Name.Name, x.Unit.Text, x.Expr.Text, x.Expr.Range.Start())
 		case *sheet.Check:
 			fmt.Printf("check %s: %s\n", x.Name.Name, x.Body.Text)
 		}

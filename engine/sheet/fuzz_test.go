@@ -23,8 +23,8 @@ func FuzzParse(f *testing.F) {
 			t.Fatal("Parse returned no file")
 		}
 		for _, d := range errs {
-			if d.Range.Start.Offset < 0 || d.Range.End.Offset > len(src) || d.Range.End.Offset < d.Range.Start.Offset {
-				t.Fatalf("%s: range %d..%d outside the source of %d bytes", d.Error(), d.Range.Start.Offset, d.Range.End.Offset, len(src))
+			if d.Range.Start().Offset < 0 || d.Range.End().Offset > len(src) || d.Range.End().Offset < d.Range.Start().Offset {
+				t.Fatalf("%s: range %d..%d outside the source of %d bytes", d.Error(), d.Range.Start().Offset, d.Range.End().Offset, len(src))
 			}
 		}
 		checkRoundTrip(t, "fuzz.sheaf", src)

@@ -2,7 +2,6 @@ package sheet
 
 import (
 	"fmt"
-	"sort"
 	"unicode"
 	"unicode/utf8"
 
@@ -41,7 +40,7 @@ func (p *parser) splitLines(from int) {
 			end--
 		}
 		if len(p.lines) >= p.cfg.maxLines {
-			p.errorf(p.pos(start), p.pos(start),
+			p.errorf(start, start,
 				fmt.Sprintf("a sheet may hold at most %d lines; the rest of the file is not read", p.cfg.maxLines),
 				"split the calculation into sheets that use one another, or raise the limit (MaxLines)",
 				"too many lines")
@@ -75,7 +74,7 @@ func (p *parser) scanLine(ln *line) {
 		}
 		r, size := utf8.DecodeRuneInString(text[j:ln.end])
 		if r == utf8.RuneError && size <= 1 {
-			p.errorf(p.pos(j), p.pos(j+1),
+			p.errorf(j, j+1,
 				fmt.Sprintf("byte 0x%02x does not start a UTF-8 character", c),
 				"save the sheet as UTF-8 text",
 				"invalid UTF-8")
@@ -83,7 +82,7 @@ func (p *parser) scanLine(ln *line) {
 			return
 		}
 		if name, ok := diag.BidiControl(r); ok {
-			p.errorf(p.pos(j), p.pos(j+size),
+			p.errorf(j, j+size,
 				fmt.Sprintf("U+%04X %s changes the order in which the text around it is shown, so a line can read differently from what Sheaf reads", r, name),
 				"delete the character (it may have come from a copy and paste); write right-to-left text without direction controls",
 				"direction control U+%04X in the sheet", r)
@@ -91,7 +90,7 @@ func (p *parser) scanLine(ln *line) {
 			return
 		}
 		if unicode.IsControl(r) || r == '\uFEFF' {
-			p.errorf(p.pos(j), p.pos(j+size),
+			p.errorf(j, j+size,
 				fmt.Sprintf("a sheet holds printable text, spaces, tabs and line breaks; U+%04X is none of these", r),
 				"delete the character (it may have come from a copy and paste)",
 				"unexpected control character U+%04X", r)
@@ -102,48 +101,19 @@ func (p *parser) scanLine(ln *line) {
 	}
 }
 
-// pos converts a byte offset into a position: 1-based line, 1-based column
-// in runes (a tab is one column), and the offset itself.
-func (p *parser) pos(off int) diag.Pos {
-	li := sort.Search(len(p.lines), func(i int) bool { return p.lines[i].start > off }) - 1
-	if li < 0 {
-		// Before the first line (inside a BOM) or no lines split yet.
-		return diag.Pos{File: p.name, Line: 1, Col: 1 + utf8.RuneCountInString(p.text[min(p.bom, off):off]), Offset: off}
-	}
-	return p.posIn(li, off)
-}
-
-// posIn is pos when the line index is known.
-func (p *parser) posIn(li, off int) diag.Pos {
-	start := p.lines[li].start
-	if off < start {
-		off = start
-	}
-	col := 1
-	s := p.text[start:off]
-	ascii := true
-	for i := 0; i < len(s); i++ {
-		if s[i] >= utf8.RuneSelf {
-			ascii = false
-			break
-		}
-	}
-	if ascii {
-		col += len(s)
-	} else {
-		col += utf8.RuneCountInString(s)
-	}
-	return diag.Pos{File: p.name, Line: li + 1, Col: col, Offset: off}
-}
-
-// rng builds a range on line li from byte offsets.
+// rng is the range of bytes [from, to) on line li (from is kept on the
+// line).
 func (p *parser) rng(li, from, to int) diag.Range {
-	return diag.Range{Start: p.posIn(li, from), End: p.posIn(li, to)}
+	from = max(from, p.lines[li].start)
+	return p.src.Span(from, max(to, from))
 }
 
-// errorf records a syntax error.
-func (p *parser) errorf(start, end diag.Pos, detail, hint, format string, args ...any) {
-	p.diags.Errorf(diag.Range{Start: start, End: end}, detail, hint, format, args...)
+// span is the range of bytes [from, to) of the file.
+func (p *parser) span(from, to int) diag.Range { return p.src.Span(from, to) }
+
+// errorf records a syntax error over bytes [from, to).
+func (p *parser) errorf(from, to int, detail, hint, format string, args ...any) {
+	p.diags.Errorf(p.src.Span(from, to), detail, hint, format, args...)
 }
 
 // errAt records a syntax error over a range.

@@ -10,6 +10,7 @@ import (
 // parser holds the state of one Parse call.
 type parser struct {
 	name     string
+	src      *diag.Source
 	cfg      config
 	text     string
 	bom      int
@@ -33,8 +34,9 @@ type parser struct {
 func Parse(name string, src []byte, opts ...Option) (*File, diag.List) {
 	p := &parser{name: name, cfg: newConfig(opts), file: &File{Name: name, Src: src}, inHeader: true}
 	if len(src) > p.cfg.maxBytes {
-		start := diag.Pos{File: name, Line: 1, Col: 1}
-		p.errorf(start, start,
+		p.src = diag.NewSource(name, "")
+		p.file.Source = p.src
+		p.errorf(0, 0,
 			fmt.Sprintf("the file is %d bytes; a sheet may be at most %d bytes", len(src), p.cfg.maxBytes),
 			"split the calculation into sheets that use one another, or raise the limit (MaxBytes)",
 			"sheet too large")
@@ -42,6 +44,8 @@ func Parse(name string, src []byte, opts ...Option) (*File, diag.List) {
 		return p.file, p.diags
 	}
 	p.text = string(src)
+	p.src = diag.NewSource(name, p.text)
+	p.file.Source = p.src
 	if strings.HasPrefix(p.text, "\uFEFF") {
 		p.bom = len("\uFEFF")
 	}

@@ -112,7 +112,7 @@ func (p *parser) parseAction(i, j int) Item {
 	if !ok || !kok {
 		return nil
 	}
-	return &Action{Kind: kind, Cell: *c, Range: diag.Range{Start: p.posIn(i, ln.start), End: c.Range.End}}
+	return &Action{Kind: kind, Cell: *c, Range: p.span(ln.start, int(c.Range.To))}
 }
 
 // actionKind reads the kind words in [from, to) of line i.

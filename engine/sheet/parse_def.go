@@ -2,8 +2,6 @@ package sheet
 
 import (
 	"strings"
-
-	"github.com/sheafcalc/sheaf/engine/diag"
 )
 
 // reserved are words that cannot name a cell, a parameter, a table, a
@@ -140,7 +138,7 @@ func (p *parser) parseDef(i, j, at int, funcs bool) Item {
 	if !ok || !bok {
 		return nil
 	}
-	r := diag.Range{Start: p.posIn(i, at), End: p.posIn(j-1, p.lines[j-1].end)}
+	r := p.span(at, p.lines[j-1].end)
 	if isFunc {
 		fd := &FuncDef{Name: id, Params: params, Body: body, Annot: annot, Range: r}
 		if hasUnit {
@@ -174,7 +172,7 @@ func (p *parser) expectEquals(i, k int, id Ident) bool {
 		p.errAt(p.rng(i, k, k+2), "a cell is defined with `=`", "write `=` instead of `:=`",
 			"`:=` is not a definition")
 	case rest == "" || strings.HasPrefix(rest, "--"):
-		p.errAt(p.rng(i, id.Range.Start.Offset, k), "a cell gives its value after `=`: `"+id.Name+" = expression`",
+		p.errAt(p.rng(i, int(id.Range.From), k), "a cell gives its value after `=`: `"+id.Name+" = expression`",
 			"give the cell a value, e.g. `"+id.Name+" = 38 kN`",
 			"missing `=` after `%s`", id.Name)
 	default:
@@ -278,7 +276,7 @@ func (p *parser) parseCheck(i, j int) Item {
 		return nil
 	}
 	return &Check{Name: id, State: state, Body: body, Annot: annot,
-		Range: diag.Range{Start: p.posIn(i, ln.start), End: p.posIn(j-1, p.lines[j-1].end)}}
+		Range: p.span(ln.start, p.lines[j-1].end)}
 }
 
 // body reads an expression that starts at offset from on line i and runs
@@ -337,7 +335,7 @@ func (p *parser) body(i, j, from int) (Expr, Annot, bool) {
 			"empty expression")
 		return Expr{}, Annot{}, false
 	}
-	e := Expr{Text: t[a:b], Range: diag.Range{Start: p.posIn(p.lineOf(a, i, j), a), End: p.posIn(p.lineOf(b-1, i, j), b)}}
+	e := Expr{Text: t[a:b], Range: p.span(a, b)}
 	var an Annot
 	if annotLine >= 0 {
 		an = p.annot(annotLine, annotAt)

@@ -61,7 +61,7 @@ func (p *parser) parseMeta(i, keyEnd, colon int) Item {
 				"move the line to the top of the sheet",
 				"header line `%s:` after the first item", key)
 		} else {
-			p.errAt(diag.Range{Start: p.posIn(i, colon), End: p.posIn(i, colon+1)},
+			p.errAt(p.rng(i, colon, colon+1),
 				"a cell is defined with `=`: `"+key+" = expression`; `name:` is used only by header lines and checks",
 				"write `"+key+" = ...`, or `check "+key+": demand <= capacity` for a design check",
 				"unexpected `:` after `%s`", key)
@@ -81,7 +81,7 @@ func (p *parser) parseMeta(i, keyEnd, colon int) Item {
 	value := t[a:b]
 	if prev, dup := p.seenMeta[key]; dup {
 		p.errAt(keyRange,
-			"`"+key+":` is already given at line "+strconv.Itoa(prev.Start.Line),
+			"`"+key+":` is already given at line "+strconv.Itoa(prev.Start().Line),
 			"keep one `"+key+":` line",
 			"duplicate header key `%s`", key)
 		return nil

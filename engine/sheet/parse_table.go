@@ -1,7 +1,6 @@
 package sheet
 
 import (
-	"github.com/sheafcalc/sheaf/engine/diag"
 	"github.com/sheafcalc/sheaf/internal/plural"
 )
 
@@ -27,7 +26,7 @@ func (p *parser) parseTable(i, j int) Item {
 	if id.Name == "" {
 		return nil
 	}
-	tb := &Table{Name: id, Range: diag.Range{Start: p.posIn(i, ln.start), End: p.posIn(j-1, p.lines[j-1].end)}}
+	tb := &Table{Name: id, Range: p.span(ln.start, p.lines[j-1].end)}
 	k = skipSpace(t, k+len(id.Name), ln.end)
 	switch {
 	case k >= ln.end:

@@ -2,8 +2,6 @@ package sheet
 
 import (
 	"strings"
-
-	"github.com/sheafcalc/sheaf/engine/diag"
 )
 
 // parseUse reads a template use on lines [i, j).
@@ -22,7 +20,7 @@ func (p *parser) parseUse(i, j int) Item {
 	if id.Name == "" {
 		return nil
 	}
-	u := &Use{Name: id, Range: diag.Range{Start: p.posIn(i, ln.start), End: p.posIn(j-1, p.lines[j-1].end)}}
+	u := &Use{Name: id, Range: p.span(ln.start, p.lines[j-1].end)}
 	k = skipSpace(t, k+len(id.Name), ln.end)
 	if e := identEnd(t, k, ln.end); t[k:e] != "from" {
 		p.errAt(p.rng(i, k, max(e, min(k+1, ln.end))), "a use line names the template, then `from` and the file in double quotes",

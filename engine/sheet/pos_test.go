@@ -46,14 +46,14 @@ func TestPositions(t *testing.T) {
 				t.Fatal("no cell")
 			}
 			r := tt.get(c)
-			got := [2][3]int{{r.Start.Line, r.Start.Col, r.Start.Offset}, {r.End.Line, r.End.Col, r.End.Offset}}
+			got := [2][3]int{{r.Start().Line, r.Start().Col, r.Start().Offset}, {r.End().Line, r.End().Col, r.End().Offset}}
 			if want := [2][3]int{tt.start, tt.end}; got != want {
 				t.Errorf("range = %v, want %v", got, want)
 			}
-			if r.Start.File != "p.sheaf" {
-				t.Errorf("file = %q", r.Start.File)
+			if r.Start().File != "p.sheaf" {
+				t.Errorf("file = %q", r.Start().File)
 			}
-			if tt.src[r.Start.Offset:r.End.Offset] == "" {
+			if tt.src[r.Start().Offset:r.End().Offset] == "" {
 				t.Errorf("empty span")
 			}
 		})
@@ -71,7 +71,7 @@ func TestExprPosAt(t *testing.T) {
 	c := f.Items[1].(*Cell)
 	for _, word := range []string{"g_k", "q_k", "s"} {
 		off := strings.LastIndex(c.Expr.Text, word)
-		p := c.Expr.PosAt(off)
+		p := c.Expr.RangeAt(off, off).Start()
 		if got := src[p.Offset : p.Offset+len(word)]; got != word {
 			t.Errorf("%s: offset %d holds %q", word, p.Offset, got)
 		}

@@ -156,7 +156,7 @@ func siUnit(d units.Dim) string { return units.SISymbol(d) }
 
 // NewProblem converts a diagnostic.
 func NewProblem(kind string, d *diag.Diagnostic) Problem {
-	p := d.Range.Start
+	p := d.Range.Start()
 	return Problem{Kind: kind, Severity: d.Severity.String(), File: p.File, Line: p.Line, Column: p.Col, Pos: p.String(),
 		Message: d.Summary, Detail: d.Detail, Hint: d.Hint}
 }

@@ -142,7 +142,7 @@ func TestJSONRoundTrip(t *testing.T) {
 		t.Errorf("%d problems, want %d", len(d.Problems), len(r.Problems))
 	}
 	for i, p := range d.Problems {
-		if want := r.Problems[i]; p.Pos != want.Range.Start.String() || p.Message != want.Summary {
+		if want := r.Problems[i]; p.Pos != want.Range.Start().String() || p.Message != want.Summary {
 			t.Errorf("problem %d: %+v, want %v", i, p, want)
 		}
 	}

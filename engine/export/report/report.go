@@ -100,11 +100,11 @@ func (d *doc) wf(format string, args ...any) { fmt.Fprintf(&d.b, format, args...
 // text is the source text a node was typed from (its span in the file).
 func (d *doc) text(n *check.Node) string {
 	r := n.Range()
-	src := d.src[r.Start.File]
-	if src == nil || r.Start.Offset < 0 || r.End.Offset > len(src) || r.Start.Offset >= r.End.Offset {
+	src := d.src[r.Start().File]
+	if src == nil || r.Start().Offset < 0 || r.End().Offset > len(src) || r.Start().Offset >= r.End().Offset {
 		return ""
 	}
-	return string(src[r.Start.Offset:r.End.Offset])
+	return string(src[r.Start().Offset:r.End().Offset])
 }
 
 func (d *doc) cellName(i int) string {

@@ -187,7 +187,7 @@ func (x *exporter) commentBlocks() []commentBlock {
 			out[len(out)-1].text += "\n" + line
 			continue
 		}
-		out = append(out, commentBlock{off: c.Range.Start.Offset, text: line})
+		out = append(out, commentBlock{off: c.Range.Start().Offset, text: line})
 		open = true
 	}
 	// A block of empty comment lines says nothing.
@@ -264,7 +264,7 @@ func (x *exporter) cellRow(cr *engine.CellResult) [calcCols]excelize.Cell {
 		value = x.text("not computed", clsValueOnly)
 		note = "not computed"
 		for _, p := range x.r.Problems {
-			if p.Range.Start.Line == c.Pos().Line && p.Range.Start.File == c.Pos().File {
+			if p.Range.Start().Line == c.Pos().Line && p.Range.Start().File == c.Pos().File {
 				note += ": " + p.Summary
 				break
 			}

@@ -25,7 +25,7 @@ func (x *exporter) substituted(c *check.Cell, body ...*check.Node) string {
 		return ""
 	}
 	src := c.Formula.Source
-	base := src.Range.Start.Offset
+	base := src.Range.Start().Offset
 	var spans []span
 	mixed := false // a value of another combination than c's
 	var walk func(n *check.Node, base bool)
@@ -45,7 +45,7 @@ func (x *exporter) substituted(c *check.Cell, body ...*check.Node) string {
 						v = "(" + v + ")" // (16 mm)^2, not 16 mm^2
 					}
 					r := n.Range()
-					spans = append(spans, span{r.Start.Offset - base, r.End.Offset - base, v})
+					spans = append(spans, span{r.Start().Offset - base, r.End().Offset - base, v})
 					return
 				}
 			}

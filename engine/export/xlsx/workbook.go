@@ -234,8 +234,8 @@ func (x *exporter) layout() {
 	for i := range x.r.Cells {
 		cr := &x.r.Cells[i]
 		c := cr.Cell
-		if c.Range.Start.File == x.s.Name() {
-			for len(comments) > 0 && comments[0].off < c.Range.Start.Offset {
+		if c.Range.Start().File == x.s.Name() {
+			for len(comments) > 0 && comments[0].off < c.Range.Start().Offset {
 				x.rows = append(x.rows, calcRow{kind: rowComment, row: row, title: comments[0].text})
 				row++
 				comments = comments[1:]
@@ -464,8 +464,8 @@ func (x *exporter) exprText(c *check.Cell, n *check.Node) string {
 	if c.Formula == nil {
 		return ""
 	}
-	base := c.Formula.Source.Range.Start.Offset
-	a, b := n.Range().Start.Offset-base, n.Range().End.Offset-base
+	base := c.Formula.Source.Range.Start().Offset
+	a, b := n.Range().Start().Offset-base, n.Range().End().Offset-base
 	if a < 0 || b > len(c.Formula.Source.Text) || a > b {
 		return ""
 	}
