@@ -26,6 +26,9 @@ type pin struct {
 // order, and refuses one in a user function's body (a function has no
 // cell of its own to hold the value).
 func findPins(prog *check.Program, errs *diag.List) []pin {
+	if !prog.InCombination {
+		return nil
+	}
 	var out []pin
 	var walk func(c *check.Cell, n *check.Node)
 	walk = func(c *check.Cell, n *check.Node) {

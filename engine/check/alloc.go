@@ -1,6 +1,8 @@
 package check
 
 import (
+	"github.com/sheafcalc/sheaf/engine/formula"
+	"github.com/sheafcalc/sheaf/engine/sheet"
 	"github.com/sheafcalc/sheaf/engine/units"
 	"github.com/sheafcalc/sheaf/funcs"
 )
@@ -13,6 +15,7 @@ import (
 // would otherwise be freed. An arena belongs to one checker and is used
 // from one goroutine.
 type arena struct {
+	cells []cellAndFormula
 	nodes []Node
 	args  []*Node
 	block int // size of the next block; grows so small programs stay small
@@ -24,6 +27,25 @@ const maxBlock = 1024
 func (a *arena) grow() int {
 	a.block = min(max(2*a.block, 16), maxBlock)
 	return a.block
+}
+
+// cellAndFormula is a cell with room for its formula, so that the two
+// are one allocation.
+type cellAndFormula struct {
+	cell Cell
+	f    formula.Formula
+}
+
+// cellWith returns a new cell whose Formula is an unparsed formula of e.
+func (a *arena) cellWith(e sheet.Expr) *Cell {
+	if len(a.cells) == 0 {
+		a.cells = make([]cellAndFormula, min(a.grow(), 256))
+	}
+	x := &a.cells[0]
+	a.cells = a.cells[1:]
+	x.f.Source = e
+	x.cell.Formula = &x.f
+	return &x.cell
 }
 
 // node returns a new node holding a copy of args.

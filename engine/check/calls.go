@@ -40,6 +40,9 @@ func (t *typer) call(n int32, name string, argNodes []int32) *Node {
 		r := t.node(n, OpBuiltin, ty, args...)
 		r.Builtin = b.ID
 		r.setStr(b.Name)
+		if b.ID == BInCombo {
+			t.c.prog.InCombination = true
+		}
 		return r
 	}
 	if def, ok := funcs.Lookup(name); ok {

@@ -41,6 +41,8 @@ type checker struct {
 	use *uses
 	// arena allocates the typed nodes.
 	arena arena
+	// formulas holds the slices of the parsed formulas.
+	formulas formula.Arena
 	// standIn holds, per cell index, the type users of a failed cell are
 	// checked against (see typeAll); nil until the first failure.
 	standIn []*funcs.Type
@@ -97,7 +99,7 @@ func (c *checker) collectFile(f *sheet.File, scope string, depth int) {
 		if len(p.Cells) > c.opt.MaxCells {
 			return // reported by Sheet
 		}
-		cell := newCell(it)
+		cell := c.arena.newCell(it)
 		switch it := it.(type) {
 		case *sheet.Meta:
 			if scope == "" {
@@ -141,7 +143,7 @@ func (c *checker) collectFile(f *sheet.File, scope string, depth int) {
 			// qualified names (`hanger.G`); the using sheet's rules
 			// combine them (engine.setupCombos holds the template's own
 			// header and factor lines to those).
-			cell = newCell(&it.Cell)
+			cell = c.arena.newCell(&it.Cell)
 			cell.Action = it
 			c.displayUnit(cell, it.Cell.Unit)
 		case *sheet.Factor:
@@ -231,7 +233,7 @@ func (c *checker) rangeCheck(ck *sheet.Check, cell *Cell) (lo, hi *Cell) {
 	// The check's formula is parsed here, once: parseAll leaves a parsed
 	// formula alone. A check that is not a range keeps it, with its
 	// problems (a range that points two ways says why).
-	ok, errs := cell.Formula.ParseSource(formula.Options{MaxDepth: c.opt.MaxDepth, Range: true})
+	ok, errs := cell.Formula.ParseSource(formula.Options{MaxDepth: c.opt.MaxDepth, Range: true, Arena: &c.formulas})
 	f := cell.Formula
 	if !ok || errs.HasErrors() || f.Nodes[f.Root].Kind != formula.KRange {
 		c.errs = append(c.errs, errs...)
@@ -266,20 +268,24 @@ func limitState(ck *sheet.Check) *sheet.Ident {
 	return &ck.State
 }
 
-func newCell(it sheet.Item) *Cell {
+func (a *arena) newCell(it sheet.Item) *Cell {
 	switch it := it.(type) {
 	case *sheet.Cell:
-		return &Cell{Name: it.Name.Name, Kind: Derived, NameRange: it.Name.Range, Range: it.Range,
-			Expr: it.Expr.Text, Description: it.Annot.Description, Reference: it.Annot.Reference,
-			Formula: &formula.Formula{Source: it.Expr}}
+		cell := a.cellWith(it.Expr)
+		cell.Name, cell.Kind, cell.NameRange, cell.Range = it.Name.Name, Derived, it.Name.Range, it.Range
+		cell.Expr, cell.Description, cell.Reference = it.Expr.Text, it.Annot.Description, it.Annot.Reference
+		return cell
 	case *sheet.FuncDef:
-		return &Cell{Name: it.Name.Name, Kind: Function, NameRange: it.Name.Range, Range: it.Range,
-			Expr: it.Body.Text, Description: it.Annot.Description, Reference: it.Annot.Reference,
-			Formula: &formula.Formula{Source: it.Body}}
+		cell := a.cellWith(it.Body)
+		cell.Name, cell.Kind, cell.NameRange, cell.Range = it.Name.Name, Function, it.Name.Range, it.Range
+		cell.Expr, cell.Description, cell.Reference = it.Body.Text, it.Annot.Description, it.Annot.Reference
+		return cell
 	case *sheet.Check:
-		return &Cell{Name: it.Name.Name, Kind: Check, NameRange: it.Name.Range, Range: it.Range,
-			Expr: it.Body.Text, Description: it.Annot.Description, Reference: it.Annot.Reference,
-			Formula: &formula.Formula{Source: it.Body}, State: limitState(it)}
+		cell := a.cellWith(it.Body)
+		cell.Name, cell.Kind, cell.NameRange, cell.Range = it.Name.Name, Check, it.Name.Range, it.Range
+		cell.Expr, cell.Description, cell.Reference = it.Body.Text, it.Annot.Description, it.Annot.Reference
+		cell.State = limitState(it)
+		return cell
 	}
 	return nil
 }
@@ -376,7 +382,7 @@ func (c *checker) table(cell *Cell, t *sheet.Table) {
 				break
 			}
 			if lit.Expr {
-				f, ferrs := formula.Parse(sheet.Expr{Text: lit.Text, Range: lit.Range}, formula.Options{MaxDepth: c.opt.MaxDepth})
+				f, ferrs := formula.Parse(sheet.Expr{Text: lit.Text, Range: lit.Range}, formula.Options{MaxDepth: c.opt.MaxDepth, Arena: &c.formulas})
 				c.errs = append(c.errs, ferrs...)
 				if f == nil || ferrs.HasErrors() {
 					ok = false
@@ -436,7 +442,7 @@ func (c *checker) typeEntries(cell *Cell, sys units.System) {
 
 // parseAll parses every formula.
 func (c *checker) parseAll() {
-	opt := formula.Options{MaxDepth: c.opt.MaxDepth}
+	opt := formula.Options{MaxDepth: c.opt.MaxDepth, Arena: &c.formulas}
 	for _, cell := range c.prog.Cells {
 		if cell.Formula == nil || cell.Formula.Nodes != nil {
 			continue // none, or parsed already (a check: rangeCheck)

@@ -138,6 +138,9 @@ type Program struct {
 	Order []int
 	// Users are the reverse edges: Users[i] lists the cells that use cell i.
 	Users [][]int
+	// InCombination is set when a formula calls in_combination, so that
+	// a sheet without one is not searched for its calls.
+	InCombination bool
 }
 
 // Lookup returns the named cell or nil.

@@ -346,7 +346,7 @@ func (c *checker) applyOverrides() {
 	if c.use == nil {
 		return
 	}
-	opt := formula.Options{MaxDepth: c.opt.MaxDepth}
+	opt := formula.Options{MaxDepth: c.opt.MaxDepth, Arena: &c.formulas}
 	for _, b := range c.use.blocks {
 		seen := map[string]diag.Pos{}
 		written := strings.TrimPrefix(strings.TrimSuffix(b.prefix, "."), b.scope)

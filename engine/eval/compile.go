@@ -96,6 +96,11 @@ func Compile(p *check.Program) *Machine {
 		m.fast[st.i] = st.fn
 	}
 	m.depAt = make([]int32, len(p.Cells)+1)
+	total := 0
+	for _, c := range p.Cells {
+		total += len(c.DepIdx)
+	}
+	m.deps = make([]int32, 0, total)
 	for i, c := range p.Cells {
 		for _, j := range c.DepIdx {
 			m.deps = append(m.deps, int32(j))

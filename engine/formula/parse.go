@@ -18,6 +18,8 @@ type Options struct {
 	// `lo <= x <= hi` (or with >=), read as a KRange node: the expression
 	// of a range check.
 	Range bool
+	// Arena, when set, holds the formula's slices (see Arena).
+	Arena *Arena
 }
 
 // DefaultMaxDepth is the default limit on expression nesting.
@@ -57,6 +59,15 @@ func (f *Formula) ParseSource(opt Options) (bool, diag.List) {
 		return false, errs
 	}
 	p := parser{f: f, lex: lexer{src: e.Text}, opt: opt, errs: &errs}
+	if a := opt.Arena; a != nil {
+		s := &a.scratch
+		f.Nodes, f.Args, f.Nums, f.Quantities, f.Refs = s.Nodes[:0], s.Args[:0], s.Nums[:0], s.Quantities[:0], s.Refs[:0]
+		defer func() {
+			// The scratch keeps the grown slices for the next formula.
+			s.Nodes, s.Args, s.Nums, s.Quantities, s.Refs = f.Nodes, f.Args, f.Nums, f.Quantities, f.Refs
+			a.keep(f)
+		}()
+	}
 	if !p.parse() {
 		errs.Sort()
 		return false, errs
@@ -93,12 +104,14 @@ func (p *parser) parse() (ok bool) {
 			ok = false
 		}
 	}()
-	// A formula has about one node per three bytes of text.
-	p.f.Nodes = make([]Node, 0, len(p.lex.src)/3+1)
-	// Most formulas hold a few names and numbers: room for them up front
-	// saves the growth of three small slices per formula.
-	p.f.Refs = make([]int32, 0, 4)
-	p.f.Nums = make([]float64, 0, 2)
+	if p.opt.Arena == nil {
+		// A formula has about one node per three bytes of text.
+		p.f.Nodes = make([]Node, 0, len(p.lex.src)/3+1)
+		// Most formulas hold a few names and numbers: room for them up
+		// front saves the growth of three small slices per formula.
+		p.f.Refs = make([]int32, 0, 4)
+		p.f.Nums = make([]float64, 0, 2)
+	}
 	p.next()
 	root := p.expression()
 	if p.opt.Range && p.tok.kind == tOp && isCompare(p.tok.text) && p.f.Nodes[root].Kind == KBinary && p.f.Nodes[root].Op.IsComparison() {

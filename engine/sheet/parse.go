@@ -19,7 +19,9 @@ type parser struct {
 	file     *File
 	inHeader bool
 	seenMeta map[string]diag.Range
-	// pre and cells hand out the cells of a large sheet (see alloc.go).
+	// cells hands out the cells of the sheet (see alloc.go).
+	cells     []cellUnit
+	cellBlock int
 }
 
 // Parse reads a whole sheet.
