@@ -96,23 +96,6 @@ func (r Range) Sub(from, to int) Range {
 	return Range{Src: r.Src, From: r.From + int32(from), To: r.From + int32(to)}
 }
 
-// Through returns the span from the start of r to the end of s (both in
-// the same file).
-func (r Range) Through(s Range) Range {
-	if !r.IsValid() || s.Src != r.Src {
-		return r
-	}
-	return Range{Src: r.Src, From: r.From, To: max(s.To, r.From)}
-}
-
-// Text returns the source text r spans ("" when it has none).
-func (r Range) Text() string {
-	if !r.IsValid() || int(r.To) > len(r.Src.Text) || r.To < r.From {
-		return ""
-	}
-	return r.Src.Text[r.From:r.To]
-}
-
 // Compare orders ranges by the position of their start.
 func (r Range) Compare(s Range) int { return r.Start().Compare(s.Start()) }
 
