@@ -259,21 +259,17 @@ func (t *translator) plugin(n *check.Node, form string) (term, error) {
 	return term{s: s, atom: true}, nil
 }
 
-// text translates a text argument of d: a string written in the call, or
-// a cell that holds one.
+// text translates a text argument of d: a string written in the call (a
+// sheet has no text cells; a text reaching d otherwise, through a
+// user function's parameter, only Sheaf passes on).
 func (t *translator) text(d *funcs.Def, a *check.Node) (string, error) {
-	if a.Op == check.OpString {
-		if len(a.Str()) > 255 {
-			return "", fail("passes `" + d.Name + "` a text longer than a formula may hold")
-		}
-		return quoted(a.Str()), nil
+	if a.Op != check.OpString {
+		return "", fail("passes `"+d.Name+"` a text", " that is not written in the call")
 	}
-	if a.Op == check.OpCell && a.Type != nil && a.Type.Kind == funcs.String {
-		if r, ok := t.refs[t.path(a)]; ok && r.rows == 0 {
-			return r.name, nil
-		}
+	if len(a.Str()) > 255 {
+		return "", fail("passes `" + d.Name + "` a text longer than a formula may hold")
 	}
-	return "", fail("passes `"+d.Name+"` a text", " that is not a cell or written in the call")
+	return quoted(a.Str()), nil
 }
 
 // term is term k of d's Terms, computed from Sheaf's value of the record
