@@ -16,6 +16,10 @@ import (
 //	{curve.chi} the column chi of the table argument curve, as a range
 //	{curve.lambda:increasing} a condition: TRUE when the column increases
 //	            strictly from row to row (for Valid)
+//	{name}      the text argument name, as a text expression
+//	{c.EA}      the number field EA of the record argument c
+//	{c#fixed}   the term fixed that Terms computes from the record
+//	            argument c, as a number
 //
 // Write each placeholder in brackets where an operator could bind into it
 // ("({E})*({I})"): an argument may arrive as an expression.
@@ -29,12 +33,32 @@ type Spreadsheet struct {
 	// Fields are the formulas of the numeric fields of a record result,
 	// by field name (the fields not listed only Sheaf computes).
 	Fields map[string]string
+	// Terms, when set, are the numbers the forms take from one record
+	// argument that its fields do not carry.
+	Terms *Terms
+}
+
+// Terms are numbers Go computes from the value of one record argument,
+// named {param#name} in the forms: what a formula needs of an argument
+// whose fields do not carry it (the plateau sums of the laws of a
+// composite's parts). The workbook writes them as numbers: the result
+// follows its other arguments live, and the record argument through
+// Sheaf's run only, so it is out of date (guarded) once an input of that
+// argument changes.
+type Terms struct {
+	Param string   // the record parameter
+	Names []string // the terms, in the order Of returns them
+	// Of computes the terms from the argument's value. It fails exactly
+	// where Call fails whatever the other arguments are.
+	Of func(v Value) ([]float64, error)
 }
 
 // Placeholder is one {…} of a spreadsheet form.
 type Placeholder struct {
 	Param   int    // index into Def.Params
 	Column  string // a column of a table argument, or ""
+	Field   string // a number field of a record argument, or ""
+	Term    int    // with Field "": index into Terms.Names, or -1
 	Default string // the value when an optional argument is omitted, or ""
 	// Increasing: the placeholder is the condition that Column increases
 	// strictly down the table.
@@ -74,10 +98,11 @@ func (d *Def) ExpandSpreadsheet(form string, arg func(Placeholder) (string, erro
 }
 
 func (d *Def) placeholder(s string) (Placeholder, error) {
-	p := Placeholder{Param: -1}
+	p := Placeholder{Param: -1, Term: -1}
 	s, incr := strings.CutSuffix(s, ":increasing")
 	p.Increasing = incr
 	name, def, hasDef := strings.Cut(s, "=")
+	name, term, hasTerm := strings.Cut(name, "#")
 	name, col, hasCol := strings.Cut(name, ".")
 	for i, q := range d.Params {
 		if q.Name == name {
@@ -96,17 +121,67 @@ func (d *Def) placeholder(s string) (Placeholder, error) {
 	} else if q.Optional {
 		return p, fmt.Errorf("{%s}: the optional parameter needs a default, {%s=…}", s, name)
 	}
-	if hasCol {
+	switch {
+	case hasTerm:
+		tm := d.Spreadsheet.terms()
+		if tm == nil || tm.Param != name || hasCol || incr || hasDef {
+			return p, fmt.Errorf("{%s}: a term is {param#name} of the parameter Terms names", s)
+		}
+		for i, n := range tm.Names {
+			if n == term {
+				p.Term = i
+			}
+		}
+		if p.Term < 0 {
+			return p, fmt.Errorf("{%s}: Terms has no term %q", s, term)
+		}
+	case hasCol && q.Type != nil && q.Type.Kind == Record:
+		rec := recordFields(q.Type)
+		i := -1
+		if rec != nil {
+			i = rec.Field(col)
+		}
+		if i < 0 || rec.Fields[i].Type == nil || rec.Fields[i].Type.Kind != Number || incr {
+			return p, fmt.Errorf("{%s}: the record %s has no number field %q", s, name, col)
+		}
+		p.Field = col
+	case hasCol:
 		if q.Type == nil || q.Type.Kind != Table || q.Type.Field(col) < 0 {
 			return p, fmt.Errorf("{%s}: %s has no column %q", s, name, col)
 		}
 		p.Column = col
-	} else if incr {
+	case incr:
 		return p, fmt.Errorf("{%s:increasing}: name a column of a table", s)
-	} else if q.Type == nil || q.Type.Kind != Number {
-		return p, fmt.Errorf("{%s}: %s is not a number; name a column of a table", s, name)
+	case q.Type != nil && q.Type.Kind == String:
+		// a text argument, as a text expression
+	case q.Type == nil || q.Type.Kind != Number:
+		return p, fmt.Errorf("{%s}: %s is not a number; name a column of a table or a field of a record", s, name)
 	}
 	return p, nil
+}
+
+func (f *Spreadsheet) terms() *Terms {
+	if f == nil {
+		return nil
+	}
+	return f.Terms
+}
+
+// recordFields is the record type t with its fields: t itself, or, for
+// a parameter type that names a record without listing its fields, the
+// result type of that name of a function registered before.
+func recordFields(t *Type) *Type {
+	if len(t.Fields) > 0 || t.Name == "" {
+		return t
+	}
+	mu.RLock()
+	defer mu.RUnlock()
+	for _, d := range defs {
+		if r := d.Result; r != nil && r.Kind == Record && r.Name == t.Name && len(r.Fields) > 0 {
+			return r
+		}
+	}
+	return nil
 }
 
 // check reports a malformed form: a placeholder that names no parameter
@@ -137,6 +212,17 @@ func (f *Spreadsheet) check(d *Def) error {
 	}
 	if f.Formula == "" && len(f.Fields) == 0 {
 		return errors.New("neither a Formula nor Fields")
+	}
+	if tm := f.Terms; tm != nil {
+		i := -1
+		for j, q := range d.Params {
+			if q.Name == tm.Param {
+				i = j
+			}
+		}
+		if i < 0 || d.Params[i].Type == nil || d.Params[i].Type.Kind != Record || tm.Of == nil || len(tm.Names) == 0 {
+			return errors.New("Terms name a record parameter, their names and Of")
+		}
 	}
 	return nil
 }

@@ -17,6 +17,11 @@ func TestSpreadsheetCheck(t *testing.T) {
 	table := &Type{Kind: Table, Fields: []Field{{Name: "x", Type: num}}}
 	def := &Def{Name: "f", Params: []Param{{Name: "a", Type: num}, {Name: "tb", Type: table}, {Name: "k", Type: num, Optional: true}}, Result: num}
 	rec := &Def{Name: "r", Params: def.Params, Result: RecordOf("r", Field{Name: "A", Type: num})}
+	// A record parameter that lists its fields, one that only names an
+	// unregistered record type, and a text parameter.
+	sec := RecordOf("", Field{Name: "A", Type: num}, Field{Name: "kind", Type: StringType})
+	terms := &Terms{Param: "s", Names: []string{"fixed", "scaled"}, Of: func(Value) ([]float64, error) { return []float64{1, 2}, nil }}
+	rdef := &Def{Name: "g", Params: []Param{{Name: "s", Type: sec}, {Name: "u", Type: RecordOf("no_such_record")}, {Name: "mode", Type: StringType}}, Result: num}
 	cases := []struct {
 		name string
 		d    *Def
@@ -36,10 +41,22 @@ func TestSpreadsheetCheck(t *testing.T) {
 		{"unknown field", rec, &Spreadsheet{Fields: map[string]string{"B": "{a}"}}, `no number field "B"`},
 		{"formula of a record", rec, &Spreadsheet{Formula: "{a}"}, "a record result has Fields"},
 		{"empty", def, &Spreadsheet{}, "neither"},
+		{"record field and text", rdef, &Spreadsheet{Formula: `({s.A})*IF(TRIM({mode})="x",1,2)`}, ""},
+		{"text field", rdef, &Spreadsheet{Formula: "{s.kind}"}, `no number field "kind"`},
+		{"missing field", rdef, &Spreadsheet{Formula: "{s.B}"}, `no number field "B"`},
+		{"unregistered record", rdef, &Spreadsheet{Formula: "{u.A}"}, `no number field "A"`},
+		{"record as a number", rdef, &Spreadsheet{Formula: "{s}"}, "not a number"},
+		{"terms", rdef, &Spreadsheet{Formula: "{s#fixed}+2*{s#scaled}", Terms: terms}, ""},
+		{"unknown term", rdef, &Spreadsheet{Formula: "{s#other}", Terms: terms}, `no term "other"`},
+		{"term without Terms", rdef, &Spreadsheet{Formula: "{s#fixed}"}, "a term is"},
+		{"term of another parameter", rdef, &Spreadsheet{Formula: "{u#fixed}", Terms: terms}, "a term is"},
+		{"terms of a text", rdef, &Spreadsheet{Formula: "{s.A}", Terms: &Terms{Param: "mode", Names: []string{"x"}, Of: terms.Of}}, "Terms name a record parameter"},
 	}
 	for _, c := range cases {
 		t.Run(c.name, func(t *testing.T) {
-			err := c.f.check(c.d)
+			d := *c.d // as Register checks it: the form is the Def's
+			d.Spreadsheet = c.f
+			err := c.f.check(&d)
 			switch {
 			case c.err == "" && err != nil:
 				t.Fatalf("unexpected error %v", err)

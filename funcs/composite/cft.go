@@ -59,6 +59,33 @@ var CFTType = funcs.RecordOf("cft_resistance",
 	funcs.Field{Name: "A_c", Type: funcs.Num(L.Mul(L)), Doc: "concrete area π(d − 2t)²/4, m²"},
 )
 
+// cftForm is CFTResistance as spreadsheet formulas, in the order of its
+// operations: the confinement applies for λ̄ ≤ 0.5 and e/d < 0.1.
+// Source: EN 1994-1-1:2004 §6.7.3.2(1) Eq. (6.30) and (6), Eqs. (6.33)–(6.36) (from memory).
+func cftForm() *funcs.Spreadsheet {
+	di := "(({d})-2*({t}))"
+	ed := "(({e=0})/({d}))"
+	l := "({lambda_bar})"
+	confined := "AND(" + l + "<=0.5," + ed + "<0.1)"
+	ea0 := "MIN(1,0.25*(3+2*" + l + "))"
+	ec0 := "MAX(0,4.9-18.5*" + l + "+17*" + l + "*" + l + ")"
+	etaA := "IF(" + confined + "," + ea0 + "+(1-" + ea0 + ")*10*" + ed + ",1)"
+	etaC := "IF(" + confined + "," + ec0 + "*(1-10*" + ed + "),0)"
+	// π as a number, not PI(): see section's piText.
+	aa := "(3.141592653589793*(({d})*({d})-" + di + "*" + di + ")/4)"
+	ac := "(3.141592653589793*" + di + "*" + di + "/4)"
+	return &funcs.Spreadsheet{
+		Valid: "AND({d}>0,{t}>0,{f_yd}>0,{f_y}>0,{f_cd}>0,{f_ck}>0,2*({t})<({d})," + l + ">=0,({e=0})>=0)",
+		Fields: map[string]string{
+			"N_plRd": "(" + etaA + ")*" + aa + "*({f_yd})+" + ac + "*({f_cd})*(1+(" + etaC + ")*(({t})/({d}))*(({f_y})/({f_ck})))",
+			"eta_a":  etaA,
+			"eta_c":  etaC,
+			"A_a":    aa,
+			"A_c":    ac,
+		},
+	}
+}
+
 func init() {
 	st := func(n, doc string) funcs.Param { return funcs.Param{Name: n, Type: funcs.Num(Stress), Doc: doc} }
 	ln := func(n, doc string) funcs.Param { return funcs.Param{Name: n, Type: funcs.Num(L), Doc: doc} }
@@ -81,7 +108,8 @@ func init() {
 			}
 			return &funcs.RecordValue{Type: CFTType, Fields: []funcs.Value{r.NplRd, r.EtaA, r.EtaC, r.Aa, r.Ac}, Payload: r}, nil
 		},
-		Summary: "EN 1994-1-1 plastic resistance of a concrete-filled circular tube, with confinement",
+		Spreadsheet: cftForm(),
+		Summary:     "EN 1994-1-1 plastic resistance of a concrete-filled circular tube, with confinement",
 		Doc: "The plastic resistance to compression N_pl,Rd of a concrete-filled circular hollow section. For a stocky " +
 			"column (λ̄ ≤ 0.5) with a small eccentricity (e/d < 0.1) the tube confines the core: the concrete strength " +
 			"rises by η_c·(t/d)·(f_y/f_ck) while the steel's share falls to η_a. Otherwise η_a = 1, η_c = 0 and the " +

@@ -163,7 +163,8 @@ func init() {
 			}
 			return c.EA / e, nil
 		},
-		Summary: "area of the equivalent section in the reference material, EA/E_ref",
+		Spreadsheet: &funcs.Spreadsheet{Formula: "({c.EA})/({E_ref})", Valid: "{E_ref}>0"},
+		Summary:     "area of the equivalent section in the reference material, EA/E_ref",
 		Doc: "The transformed (equivalent) area: each part's area scaled by its modular ratio n_i = E_i/E_ref, " +
 			"so that the transformed section in the reference material has the composite's axial rigidity.",
 		Formula: "A_tr = Σ (E_i/E_ref)·A_i = EA/E_ref",

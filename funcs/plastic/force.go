@@ -183,17 +183,46 @@ func (s *Section) SquashLoad(coef float64) (float64, error) {
 		return 0, fmt.Errorf("the concrete coefficient must be between 0 and 1.5, got %g", coef)
 	}
 	n := 0.0
-	for i, l := range s.Laws {
-		if l == nil {
-			return 0, fmt.Errorf("parts[%d] is a graded elastic part without a plateau; the squash load needs a plastic law in every part", i)
-		}
-		f, ok := l.Squash(coef)
-		if !ok {
-			return 0, fmt.Errorf("parts[%d] has %s %s law without a compressive plateau; give it law_epp or law_parabola_rect, or use strain_for_force", i, article(l.Kind()), l.Kind())
+	for i := range s.Laws {
+		f, err := s.plateau(i, coef)
+		if err != nil {
+			return 0, err
 		}
 		n += f * s.C.Parts[i].A
 	}
 	return n, nil
+}
+
+// plateau is the compressive plateau stress of part i at the concrete
+// coefficient coef, or why it has none.
+func (s *Section) plateau(i int, coef float64) (float64, error) {
+	l := s.Laws[i]
+	if l == nil {
+		return 0, fmt.Errorf("parts[%d] is a graded elastic part without a plateau; the squash load needs a plastic law in every part", i)
+	}
+	f, ok := l.Squash(coef)
+	if !ok {
+		return 0, fmt.Errorf("parts[%d] has %s %s law without a compressive plateau; give it law_epp or law_parabola_rect, or use strain_for_force", i, article(l.Kind()), l.Kind())
+	}
+	return f, nil
+}
+
+// SquashTerms splits the squash load as fixed + coef·scaled: Σ A_i·f_i of
+// the parts whose plateau the concrete coefficient leaves alone (f_y), and
+// of those it multiplies (f_cd). Every law's plateau is linear in coef (f_y,
+// or coef·f_cd), so Squash(0) is the fixed share and Squash(1) − Squash(0)
+// the scaled one. It fails where SquashLoad fails for every coefficient.
+func (s *Section) SquashTerms() (fixed, scaled float64, err error) {
+	for i := range s.Laws {
+		f0, err := s.plateau(i, 0)
+		if err != nil {
+			return 0, 0, err
+		}
+		f1, _ := s.plateau(i, 1)
+		fixed += f0 * s.C.Parts[i].A
+		scaled += (f1 - f0) * s.C.Parts[i].A
+	}
+	return fixed, scaled, nil
 }
 
 // MaxCurvePoints bounds the rows of an N–ε curve.

@@ -203,6 +203,21 @@ func init() {
 			}
 			return s.SquashLoad(optNum(a, 1, 1))
 		},
+		// Source: EN 1994-1-1:2004 §6.7.3.2(1), Eq. (6.30) (from memory):
+		// N_pl = Σ A_a·f_yd + coef·Σ A_c·f_cd, the sums from Sheaf's
+		// composite (its parts and laws are no fields of the record).
+		Spreadsheet: &funcs.Spreadsheet{
+			Formula: "{c#fixed}+({coef=1})*{c#scaled}",
+			Valid:   "AND({coef=1}>0,{coef=1}<=1.5)",
+			Terms: &funcs.Terms{Param: "c", Names: []string{"fixed", "scaled"}, Of: func(v funcs.Value) ([]float64, error) {
+				s, err := sectionOf(v)
+				if err != nil {
+					return nil, err
+				}
+				fixed, scaled, err := s.SquashTerms()
+				return []float64{fixed, scaled}, err
+			}},
+		},
 		Summary: "plastic resistance in compression Σ A_i·f_i (a positive force)",
 		Doc: "Every part on its compressive plateau: steel at f_y, concrete at coef·f_cd. The result is a positive " +
 			"resistance (compare it with the magnitude of the compressive force). Parts with an elastic or user law " +

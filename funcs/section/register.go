@@ -144,10 +144,11 @@ func init() {
 	})
 	funcs.Register(&funcs.Def{
 		Name: "angle", Family: family,
-		Params:  []funcs.Param{length("h", "leg height along z, m"), length("b", "leg width along y, m"), length("t", "thickness of both legs, m; < min(h, b)")},
-		Result:  sec,
-		Call:    func(a []funcs.Value) (funcs.Value, error) { return wrap(Angle(num(a[0]), num(a[1]), num(a[2]))) },
-		Summary: "L shape h × b × t with its heel at the origin",
+		Params:      []funcs.Param{length("h", "leg height along z, m"), length("b", "leg width along y, m"), length("t", "thickness of both legs, m; < min(h, b)")},
+		Result:      sec,
+		Call:        func(a []funcs.Value) (funcs.Value, error) { return wrap(Angle(num(a[0]), num(a[1]), num(a[2]))) },
+		Spreadsheet: angleShape,
+		Summary:     "L shape h × b × t with its heel at the origin",
 		Doc: "An angle with legs h (along +z) and b (along +y) of thickness t, the outer corner (heel) at the " +
 			"origin. Root and toe radii are ignored. The principal axes are inclined: use I_1, I_2 and i_min.",
 		Formula: "polygon (0,0) (b,0) (b,t) (t,t) (t,h) (0,h); properties by Green's theorem",

@@ -118,7 +118,8 @@ func init() {
 		Call: func(a []funcs.Value) (funcs.Value, error) {
 			return wrap(RolledI(num(a[0]), num(a[1]), num(a[2]), num(a[3]), num(a[4])))
 		},
-		Summary: "rolled I/H profile with root radii, centred at the origin",
+		Spreadsheet: rolledISection,
+		Summary:     "rolled I/H profile with root radii, centred at the origin",
 		Doc: "A doubly symmetric I or H section of plates h, b, t_w, t_f with four root fillets of radius r between " +
 			"web and flanges, as hot-rolled profiles are drawn; the fillets are exact circular arcs (a square " +
 			"less a quarter circle), so A and I match the steel tables' values computed from the dimensions. " +
@@ -134,7 +135,8 @@ func init() {
 		Call: func(a []funcs.Value) (funcs.Value, error) {
 			return wrap(RoundedRHS(num(a[0]), num(a[1]), num(a[2]), num(a[3]), num(a[4])))
 		},
-		Summary: "rectangular hollow section with rounded corners, centred at the origin",
+		Spreadsheet: roundedRHS,
+		Summary:     "rectangular hollow section with rounded corners, centred at the origin",
 		Doc: "A rectangular tube b × h with wall t whose corners are exact circular arcs of radius r_o outside and " +
 			"r_i inside (hot-finished tubes: r_o = 1.5t, r_i = t for calculation, EN 10210-2, from memory; ASTM " +
 			"A500 HSS in AISC tables: r_o = 2t_des, r_i = t_des). Its core is the rounded void.",

@@ -3,6 +3,7 @@ package stability
 import (
 	"fmt"
 	"math"
+	"strconv"
 	"strings"
 
 	"github.com/sheafcalc/sheaf/funcs"
@@ -67,6 +68,36 @@ func FcrE3(fy, e, slender float64) (float64, error) {
 	return 0.877 * fe, nil
 }
 
+// chiForm is Chi as a spreadsheet formula: α by the curve's name, as
+// Chi reads it (TRIM and the spreadsheet's comparison of texts, which
+// ignores case, do what strings.TrimSpace and ToLower do for a name padded
+// with spaces; a name padded with tabs, which Go trims, is an error in the
+// workbook: the safe side), then Φ and χ as in Chi, with products for the
+// squares as in Go.
+// Source: EN 1993-1-1:2005 §6.3.1.2(1), Eq. (6.49) and Table 6.1 (from memory).
+func chiForm() *funcs.Spreadsheet {
+	// &"": excelize's calculator evaluates TRIM of a bare cell reference
+	// inside SQRT and MIN wrongly (to 0); of a text expression rightly.
+	name := "TRIM({curve}&\"\")"
+	l := "({lambda_bar})"
+	// α: the factor of the first curve whose name matches; the last
+	// curve's when none does, which Valid then refuses.
+	alpha := strconv.FormatFloat(ImperfectionFactors[curveNames[len(curveNames)-1]], 'G', -1, 64)
+	names := make([]string, len(curveNames))
+	for i := len(curveNames) - 1; i >= 0; i-- {
+		is := name + "=" + strconv.Quote(curveNames[i])
+		names[i] = is
+		if i < len(curveNames)-1 {
+			alpha = "IF(" + is + "," + strconv.FormatFloat(ImperfectionFactors[curveNames[i]], 'G', -1, 64) + "," + alpha + ")"
+		}
+	}
+	phi := "(0.5*(1+" + alpha + "*(" + l + "-0.2)+" + l + "*" + l + "))"
+	return &funcs.Spreadsheet{
+		Formula: "MIN(1,1/(" + phi + "+SQRT(" + phi + "*" + phi + "-" + l + "*" + l + ")))",
+		Valid:   "AND(" + l + ">=0,OR(" + strings.Join(names, ",") + "))",
+	}
+}
+
 func codeDefs() []*funcs.Def {
 	return []*funcs.Def{
 		{
@@ -78,7 +109,8 @@ func codeDefs() []*funcs.Def {
 				c, _ := a[1].(string)
 				return Chi(num(a[0]), c)
 			},
-			Summary: "EN 1993-1-1 reduction factor χ(λ̄, curve) for flexural buckling",
+			Spreadsheet: chiForm(),
+			Summary:     "EN 1993-1-1 reduction factor χ(λ̄, curve) for flexural buckling",
 			Doc: "The reduction factor χ for flexural buckling of a uniform member in compression, from the relative " +
 				"slenderness λ̄ and the buckling curve, with the imperfection factors α = 0.13 (a0), 0.21 (a), 0.34 (b), " +
 				"0.49 (c), 0.76 (d). χ = 1 up to λ̄ = 0.2. The choice of curve (EN 1993-1-1 Table 6.2, EN 1994-1-1 " +

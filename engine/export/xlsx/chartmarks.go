@@ -34,6 +34,17 @@ import (
 // (abs, or a largest |q|) draws its limit on the side of the design point:
 // -110 MPa for a pipe in compression checked by |σ| ≤ 110 MPa.
 //
+// A chart of an N–ε curve (n_eps_curve of a composite) marks every check
+// whose capacity is, through cells that merely pass a value on, the squash
+// load of the same composite (squash_load), compared with `<=` or `<`: the
+// squash load as a horizontal line on the compression side (-N_pl,Rd, where
+// the curve's plateau ends), and the design point (ε_Ed, -N_Ed), when the
+// sheet computes the strain at the demand: a cell that is
+// strain_for_force(c, -N_Ed) of the same composite (or minus it), with no
+// temperature change, shown in the combination that governs the check.
+// Without that cell the check is not marked: the exporter does not solve
+// for the strain, and a point between samples would be a guess.
+//
 // The numbers of the marks sit on the Charts tab right of the print area
 // (the series need cells; a spreadsheet plots no hidden cells). A status
 // line above each chart turns to chartStale once an input upstream of the
@@ -42,7 +53,9 @@ import (
 // chartMark is one check marked on one chart.
 type chartMark struct {
 	k         int     // index into x.checks (the Summary row)
-	i         int     // the sample of the design point
+	i         int     // the sample of the design point; -1: at px, py
+	px, py    float64 // the design point off the samples (SI), i < 0
+	pointCell int     // the cell that gives px, -1 for none
 	sign      float64 // the limit is drawn at sign·limit
 	magnitude bool    // the check compares |q|
 	limit     float64 // the other side of the check, SI
@@ -150,6 +163,9 @@ func (x *exporter) columnOf(n *check.Node, u *sampleUse) bool {
 
 // marksOf lists the checks marked on chart s.
 func (x *exporter) marksOf(s chartSpec) []chartMark {
+	if s.b.t.Type.Name == "n_eps_curve" {
+		return x.curveMarks(s)
+	}
 	if s.b.t.Type.Name != "bar_samples" {
 		return nil
 	}
@@ -204,7 +220,7 @@ func (x *exporter) markOf(s chartSpec, k int, ch *checkRow) (chartMark, bool) {
 		if math.Abs(v-sd.v) > 1e-9*math.Max(math.Abs(v), math.Abs(sd.v)) {
 			continue // not the sample the check compared: no mark
 		}
-		m := chartMark{k: k, i: i, sign: 1, magnitude: u.abs || u.how == 'm', limit: sd.otherV, limitCol: sd.otherCol, op: sd.op}
+		m := chartMark{k: k, i: i, pointCell: -1, sign: 1, magnitude: u.abs || u.how == 'm', limit: sd.otherV, limitCol: sd.otherCol, op: sd.op}
 		if sd.other != nil {
 			m.limitText = sd.other.Text()
 			if sd.other.Op == check.OpConst {
@@ -217,6 +233,127 @@ func (x *exporter) markOf(s chartSpec, k int, ch *checkRow) (chartMark, bool) {
 		return m, true
 	}
 	return chartMark{}, false
+}
+
+// passOn follows n through cells that merely pass a value on (a cell
+// whose expression is another cell) and returns the last cell reached, or
+// n when it is no cell.
+func (x *exporter) passOn(n *check.Node) *check.Node {
+	cells := x.s.Program().Cells
+	for depth := 0; n != nil && n.Op == check.OpCell && depth < 32; depth++ {
+		c := cells[n.Index]
+		if c.Kind != check.Derived || c.Body == nil || c.Body.Op != check.OpCell {
+			return n
+		}
+		n = c.Body
+	}
+	return n
+}
+
+// sameCell reports whether a and b, followed through cells that pass a
+// value on, end at one cell.
+func (x *exporter) sameCell(a, b *check.Node) bool {
+	a, b = x.passOn(a), x.passOn(b)
+	return a != nil && b != nil && a.Op == check.OpCell && b.Op == check.OpCell && a.Index == b.Index
+}
+
+// pluginCall is n, or the expression of the cell n reaches through cells
+// that pass a value on, when it is a call of the plugin name; nil otherwise.
+func (x *exporter) pluginCall(n *check.Node, name string) *check.Node {
+	n = x.passOn(n)
+	if n != nil && n.Op == check.OpCell {
+		if c := x.s.Program().Cells[n.Index]; c.Kind == check.Derived {
+			n = c.Body
+		}
+	}
+	if n == nil || n.Op != check.OpPlugin || n.Def() == nil || n.Def().Name != name {
+		return nil
+	}
+	return n
+}
+
+// curveMarks lists the checks marked on chart s of an N–ε curve.
+func (x *exporter) curveMarks(s chartSpec) []chartMark {
+	owner := x.cellIndex(s.b.path)
+	if owner < 0 {
+		return nil
+	}
+	cells := x.s.Program().Cells
+	curve := x.pluginCall(cells[owner].Body, "n_eps_curve")
+	if curve == nil || len(curve.Args) == 0 || x.comboDep(owner) {
+		return nil
+	}
+	comp := curve.Args[0]
+	var out []chartMark
+	for k, ch := range x.checks {
+		c := ch.cell
+		if !ch.known || len(out) == maxMarks || c.Op != "<=" && c.Op != "<" || !(ch.demand >= 0) || !(ch.capacity > 0) {
+			continue
+		}
+		sq := x.pluginCall(c.Capacity, "squash_load")
+		if sq == nil || len(sq.Args) == 0 || !x.sameCell(sq.Args[0], comp) {
+			continue
+		}
+		cell, eps, ok := x.strainAt(comp, c, ch)
+		if !ok {
+			continue
+		}
+		op := "≤"
+		if c.Op == "<" {
+			op = "<"
+		}
+		m := chartMark{k: k, i: -1, px: eps, py: -ch.demand, pointCell: cell, sign: -1, magnitude: true,
+			limit: ch.capacity, limitCol: "D", op: op}
+		if c.Capacity.Op != check.OpConst {
+			m.limitText = c.Capacity.Text()
+		}
+		out = append(out, m)
+	}
+	return out
+}
+
+// strainAt finds a cell of the sheet that is the strain at which the
+// composite comp carries minus the demand of check c: strain_for_force(comp,
+// -D) or minus it, D the demand's cell, no temperature change, in the
+// combination that governs c. It returns the cell and the strain (SI).
+func (x *exporter) strainAt(comp *check.Node, c *check.Cell, ch *checkRow) (int, float64, bool) {
+	cells := x.s.Program().Cells
+	gov := -1
+	if x.r.Combos != nil {
+		for _, r := range x.r.Checks {
+			if r.Cell == c && r.Combo != nil {
+				gov = comboIndex(x.r.Combos, r.Combo.Governing)
+			}
+		}
+	}
+	for i, cell := range cells {
+		if cell.Kind != check.Derived || cell.Body == nil || !x.r.Cells[i].Known {
+			continue
+		}
+		v, ok := x.r.Cells[i].Value.(float64)
+		if !ok {
+			continue
+		}
+		body, sign := cell.Body, 1.0
+		if body.Op == check.OpNeg {
+			body, sign = body.Args[0], -1
+		}
+		if body.Op != check.OpPlugin || body.Def() == nil || body.Def().Name != "strain_for_force" || len(body.Args) < 2 {
+			continue
+		}
+		if len(body.Args) > 2 && body.Args[2] != nil && !(body.Args[2].Op == check.OpConst && body.Args[2].Num == 0) {
+			continue // a temperature change: not the curve's strain
+		}
+		f := body.Args[1]
+		if !x.sameCell(body.Args[0], comp) || f.Op != check.OpNeg || !x.sameCell(f.Args[0], c.Demand) {
+			continue
+		}
+		if x.cellCombo(i) != gov {
+			continue // the strain of another combination
+		}
+		return i, sign * v, true
+	}
+	return -1, 0, false
 }
 
 // pickSample is the index of the sample u uses, -1 when there is none.
@@ -384,13 +521,21 @@ func (x *exporter) writeMarks(s chartSpec, marks []chartMark, top int, put func(
 			Line:   excelize.LineOptions{Type: excelize.LineSolid, Dash: limitDashes[j%len(limitDashes)], Width: 1.5},
 			Fill:   excelize.Fill{Type: "pattern", Pattern: 1, Color: []string{colLimit}},
 		})
-		// The design point: the sample the check uses, from Sheaf.
-		i := m.i
+		// The design point: the sample the check uses, or the point
+		// Sheaf computed on the curve, from Sheaf.
+		px, py := m.px, m.py
+		if m.i >= 0 {
+			px, py = xs[m.i], ys[m.i]
+		}
 		pr := row + 2
-		put(xCol, pr, excelize.Cell{Value: xs[i] / xu.Factor})
-		put(yCol, pr, excelize.Cell{Value: ys[i] / yu.Factor})
-		pt := "design point of check " + ch.cell.Name + ": " + sym + " = " + units.FormatNumber(ys[i]/yu.Factor, x.sig) + " " + yUnit +
-			" at " + s.b.t.Type.Fields[s.xc].Name + " = " + xNum(xs[i]) + " " + unitText(xu)
+		put(xCol, pr, excelize.Cell{Value: px / xu.Factor})
+		put(yCol, pr, excelize.Cell{Value: py / yu.Factor})
+		xName := s.b.t.Type.Fields[s.xc].Name
+		if xName == "eps" {
+			xName = "ε"
+		}
+		pt := "design point of check " + ch.cell.Name + ": " + sym + " = " + withUnit(units.FormatNumber(py/yu.Factor, x.sig), yUnit) +
+			" at " + xName + " = " + withUnit(xNum(px), unitText(xu))
 		put(nameCol, pr, excelize.Cell{Value: pt})
 		series = append(series, excelize.ChartSeries{
 			Name: abs(nameCol, pr), Categories: abs(xCol, pr), Values: abs(yCol, pr),
@@ -398,6 +543,9 @@ func (x *exporter) writeMarks(s chartSpec, marks []chartMark, top int, put func(
 			Line:   excelize.LineOptions{Type: excelize.LineNone},
 		})
 		keys = append(keys, x.stale[ch.cell.Index]...)
+		if m.pointCell >= 0 {
+			keys = append(keys, x.stale[m.pointCell]...)
+		}
 	}
 	// The status line above the chart.
 	if owner := x.cellIndex(strings.TrimSuffix(s.b.path, ".samples")); owner >= 0 {
@@ -414,6 +562,15 @@ func (x *exporter) writeMarks(s chartSpec, marks []chartMark, top int, put func(
 // chartStale is the status line of a chart once an input it depends on
 // changed.
 const chartStale = "OUT OF DATE: an input the samples or the marked checks depend on changed; the chart shows the Sheaf run: rerun Sheaf"
+
+// withUnit is a number and its unit, with a space between them, or the
+// number alone for a plain number.
+func withUnit(v, unit string) string {
+	if unit == "" {
+		return v
+	}
+	return v + " " + unit
+}
 
 // unitText is a unit as a chart shows it ("" for a plain number).
 func unitText(u units.Unit) string {

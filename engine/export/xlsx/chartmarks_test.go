@@ -192,6 +192,9 @@ func TestChartMarks(t *testing.T) {
 		sheet  string
 		charts []chart
 		rel    float64 // of the design point against its source
+		// between: the design points are Sheaf's points on the curve,
+		// between two samples (an N–ε curve), not samples.
+		between bool
 		// fill sets the expected values that are Sheaf's own (the
 		// position of a sample, a limit computed in the sheet)
 		fill func(t *testing.T, r *engine.Results, cs []chart)
@@ -264,6 +267,56 @@ func TestChartMarks(t *testing.T) {
 			},
 		},
 		{
+			// A concrete-filled tube with actions: the squash load is the
+			// curve's plateau (drawn at -N_pl,Rd), the design point is the
+			// strain Sheaf finds at the governing N_Ed; the other checks
+			// (buckling, the core's stress) are not marked.
+			sheet: "../../../sheets/cft-column.sheaf", rel: 1e-12, between: true,
+			charts: []chart{{"N(ε)", []wantMark{{"limit of check squash: |N| ≤ 4106 kN (N_plRd), drawn at -4106",
+				"design point of check squash: N = -2738 kN at ε = -0.001053", nan, nan, nan, 0}}}},
+			fill: func(t *testing.T, r *engine.Results, cs []chart) {
+				npl, eps := sampleValue(t, r, "N_plRd"), -sampleValue(t, r, "eps_Ed")
+				ned := math.NaN()
+				for _, ch := range r.Checks {
+					if ch.Cell.Name == "squash" {
+						ned = ch.Demand
+					}
+				}
+				// Source: the sheet's hand check, N_plRd = 4106.2 kN, ULS 2
+				// = 2737.5 kN, eps_Ed = 1.053 per mille (rounded).
+				if !near(npl, 4106.2e3, 1e-4) || !near(ned, 2737.5e3, 1e-9) || !near(eps, -1.053e-3, 1e-3) {
+					t.Errorf("N_plRd = %g N, N_Ed = %g N, eps_Ed = %g: not the hand check's", npl, ned, eps)
+				}
+				m := &cs[0].marks[0]
+				m.y, m.px, m.py = -npl/1e3, eps, -ned/1e3
+			},
+		},
+		{
+			sheet: "testdata/curve-marks.sheaf", rel: 1e-12, between: true,
+			charts: []chart{
+				{"N(ε), axial force against uniform strain: first tube", []wantMark{
+					{"limit of check pl1: |N| ≤ 1713 kN (N_pl1), drawn at -1713", "design point of check pl1: N = -1200 kN at ε = -0.001184", nan, nan, -1200, 0},
+					{"limit of check via: |N| ≤ 1713 kN (N_cap), drawn at -1713", "design point of check via: N = -1200 kN at ε = -0.001184", nan, nan, -1200, 0},
+				}},
+				{"N(ε), axial force against uniform strain: second tube", nil},
+			},
+			fill: func(t *testing.T, r *engine.Results, cs []chart) {
+				// Source: closed forms: N_pl = A·f_y with A = π(d² − (d − 2t)²)/4
+				// = π(200² − 184²)/4 mm² (Gere & Goodno, Appendix E); the
+				// tube is elastic at N_Ed (ε < f_y/E), so ε = N_Ed/(E·A)
+				// (Hooke's law).
+				a := math.Pi * (0.2*0.2 - 0.184*0.184) / 4
+				eps := sampleValue(t, r, "eps_1")
+				if !near(eps, 1200e3/(210e9*a), 1e-9) {
+					t.Errorf("eps_1 = %g, Hooke's law gives %g", eps, 1200e3/(210e9*a))
+				}
+				for j := range cs[0].marks {
+					m := &cs[0].marks[j]
+					m.y, m.px = -a*355e6/1e3, -eps
+				}
+			},
+		},
+		{
 			// Its checks compare the load and the slenderness, no sample.
 			sheet:  "../../../sheets/tapered-strut.sheaf",
 			charts: []chart{{"N(x)", nil}, {"u(x)", nil}, {"σ(x)", nil}},
@@ -333,6 +386,12 @@ func TestChartMarks(t *testing.T) {
 					onCurve := false
 					for i := range xs {
 						onCurve = onCurve || xs[i] == pt.xs[0] && ss[0].ys[i] == pt.ys[0]
+						if tc.between && i > 0 {
+							// Between the samples around it (the curve is
+							// monotone there).
+							lo, hi := math.Min(ss[0].ys[i-1], ss[0].ys[i]), math.Max(ss[0].ys[i-1], ss[0].ys[i])
+							onCurve = onCurve || xs[i-1] <= pt.xs[0] && pt.xs[0] <= xs[i] && lo <= pt.ys[0] && pt.ys[0] <= hi
+						}
 					}
 					if !onCurve {
 						t.Errorf("%s: design point (%g, %g) is not a sample", c.title, pt.xs[0], pt.ys[0])

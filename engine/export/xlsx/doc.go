@@ -29,6 +29,11 @@
 //     legend with value and unit (chartmarks.go).
 //   - Run record: the inputs as Sheaf computed with them (see Guards).
 //
+// A chart of bar samples marks the limit and the design point of each check
+// that compares one of its samples; a chart of an N–ε curve marks the
+// squash load of its composite and the strain Sheaf finds at the design
+// force (chartmarks.go).
+//
 // Every tab prints on A4 with the column headers of the Calculation tab
 // on each page; TestPrintedWorkbook checks the printed pages.
 //
@@ -45,12 +50,17 @@
 // Quantity literals become SI numbers, user functions are inlined, interp
 // over table columns becomes an INDEX/MATCH interpolation over the Data
 // tab, and a plugin function with a spreadsheet form in the registry
-// (funcs.Spreadsheet: euler_load, concrete_ecm, buckling_factor, the
-// fields of circle, chs, rect and rhs, …) becomes that form with its
-// arguments in place, divided by its validity condition so that it is an
-// error where the Go function is. What only Sheaf can compute (the other
-// plugin functions, records built by them, lists) is written as a value,
-// styled grey and italic. Every formula cell also carries Sheaf's value,
+// (funcs.Spreadsheet: euler_load, concrete_ecm, buckling_factor,
+// buckling_reduction, the fields of circle, chs, rect, rhs, i_section,
+// rolled_i, rhs_rounded, angle and cft_resistance, …) becomes that form
+// with its arguments in place, divided by its validity condition so that it
+// is an error where the Go function is. A form may read a field of a record
+// argument (transformed_area reads the composite's EA cell) or numbers Go
+// computes from one (squash_load takes the plateau sums of the composite's
+// laws, written as numbers: it follows its coefficient live and the
+// composite through the guard of that cell). What only Sheaf can compute
+// (the other plugin functions, records built by them, lists) is written as
+// a value, styled grey and italic. Every formula cell also carries Sheaf's value,
 // and the workbook asks for a full recalculation on load.
 //
 // # Guards

@@ -331,7 +331,7 @@ func everySheet(t *testing.T) []string {
 	if err != nil || len(all) == 0 {
 		t.Fatalf("no sheets: %v", err)
 	}
-	return append(all, "testdata/ops.sheaf", "testdata/charts.sheaf", "testdata/template-table.sheaf", "testdata/uplift.sheaf")
+	return append(all, "testdata/ops.sheaf", "testdata/charts.sheaf", "testdata/template-table.sheaf", "testdata/uplift.sheaf", "testdata/curve-marks.sheaf")
 }
 
 // editedBook applies e to a fresh export of s with results base and

@@ -48,8 +48,11 @@ func (t term) operand() string {
 type translator struct {
 	refs  map[string]ref
 	cells []*check.Cell
-	args  [][]term // the arguments of the user functions being inlined
-	depth int
+	// result is Sheaf's value of cell i, for the terms a spreadsheet form
+	// takes from a record argument (funcs.Terms); nil: none is known.
+	result func(i int) (funcs.Value, bool)
+	args   [][]term // the arguments of the user functions being inlined
+	depth  int
 }
 
 // num formats a number for a formula: shortest exact form, upper-case
@@ -216,6 +219,20 @@ func (t *translator) plugin(n *check.Node, form string) (term, error) {
 			return p.Default, nil
 		}
 		a := n.Args[p.Param]
+		switch {
+		case p.Term >= 0:
+			return t.term(d, a, p.Term)
+		case p.Field != "":
+			// A field of a record argument: its value cell.
+			path := t.path(a)
+			r, ok := t.refs[path+"."+p.Field]
+			if path == "" || !ok || r.rows > 0 || r.bool {
+				return "", fail("passes `"+d.Name+"` a record whose field "+p.Field, " has no value cell")
+			}
+			return scaled(r.name, r.factor).s, nil
+		case d.Params[p.Param].Type.Kind == funcs.String:
+			return t.text(d, a)
+		}
 		if p.Column != "" {
 			path := t.path(a)
 			r, ok := t.refs[path+"."+p.Column]
@@ -240,6 +257,36 @@ func (t *translator) plugin(n *check.Node, form string) (term, error) {
 		return term{}, err
 	}
 	return term{s: s, atom: true}, nil
+}
+
+// text translates a text argument of d: a string written in the call (a
+// sheet has no text cells; a text reaching d otherwise, through a
+// user function's parameter, only Sheaf passes on).
+func (t *translator) text(d *funcs.Def, a *check.Node) (string, error) {
+	if a.Op != check.OpString {
+		return "", fail("passes `"+d.Name+"` a text", " that is not written in the call")
+	}
+	if len(a.Str()) > 255 {
+		return "", fail("passes `" + d.Name + "` a text longer than a formula may hold")
+	}
+	return quoted(a.Str()), nil
+}
+
+// term is term k of d's Terms, computed from Sheaf's value of the record
+// argument a (a cell of the sheet), written as a number.
+func (t *translator) term(d *funcs.Def, a *check.Node, k int) (string, error) {
+	if a.Op != check.OpCell || t.result == nil {
+		return "", fail("passes `"+d.Name+"` a record", " that is not a cell of the sheet")
+	}
+	v, ok := t.result(int(a.Index))
+	if !ok {
+		return "", fail("passes `"+d.Name+"` a record", " that Sheaf did not compute")
+	}
+	xs, err := d.Spreadsheet.Terms.Of(v)
+	if err != nil || k >= len(xs) || math.IsNaN(xs[k]) || math.IsInf(xs[k], 0) {
+		return "", fail("calls `"+d.Name+"`", " where it fails")
+	}
+	return num(xs[k]).operand(), nil
 }
 
 // spreadsheetFormula expands a spreadsheet form of d (its Formula or a

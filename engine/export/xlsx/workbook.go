@@ -114,7 +114,12 @@ func export(s *engine.Sheet, r *engine.Results, opt Options) (*exporter, error) 
 	}
 	x.f = excelize.NewFile()
 	x.st = &styles{f: x.f, cache: map[styleKey]int{}}
-	x.tr = &translator{refs: make(map[string]ref, n), cells: s.Cells()}
+	x.tr = &translator{refs: make(map[string]ref, n), cells: s.Cells(), result: func(i int) (funcs.Value, bool) {
+		if i < 0 || i >= len(r.Cells) || !r.Cells[i].Known {
+			return nil, false
+		}
+		return r.Cells[i].Value, true
+	}}
 	x.layout()
 	for _, step := range []func() error{x.writeSummary, x.writeCalc, x.writeCombos, x.writeData, x.writeCharts, x.writeRun, x.finishTabs, x.workbookProps} {
 		if err := step(); err != nil {
