@@ -55,25 +55,21 @@ type Range struct {
 }
 
 // Start returns the position of the first byte of the span.
-func (r Range) Start() Pos {
-	if r.Src == nil {
-		return Pos{}
-	}
-	if r.From < 0 {
-		return Pos{File: r.Src.Name}
-	}
-	return r.Src.Pos(int(r.From))
-}
+func (r Range) Start() Pos { return r.at(r.From) }
 
 // End returns the position just past the span.
-func (r Range) End() Pos {
+func (r Range) End() Pos { return r.at(r.To) }
+
+// at is the position of offset off of r's source (the file alone for a
+// range naming the file as a whole).
+func (r Range) at(off int32) Pos {
 	if r.Src == nil {
 		return Pos{}
 	}
 	if r.From < 0 {
 		return Pos{File: r.Src.Name}
 	}
-	return r.Src.Pos(int(r.To))
+	return r.Src.Pos(int(off))
 }
 
 // IsValid reports whether r names a place in a file.
