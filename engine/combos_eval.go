@@ -341,7 +341,7 @@ func capacityChoice(prog *check.Program, c *Cell) bool {
 			n = prog.Cells[k].Body
 		}
 	}
-	return n.Op == check.OpBuiltin && (n.Builtin == check.BMin || n.Builtin == check.BMax) && len(n.Args) >= 2
+	return n.Op == check.OpBuiltin && (n.Builtin == check.BMin || n.Builtin == check.BMax) && n.NArg() >= 2
 }
 
 // comboTerm returns the governing term of check cell i in its governing

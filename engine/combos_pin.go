@@ -35,16 +35,16 @@ func findPins(prog *check.Program, errs *diag.List) []pin {
 		if n == nil {
 			return
 		}
-		if n.Op == check.OpBuiltin && n.Builtin == check.BInCombo && len(n.Args) == 2 {
+		if n.Op == check.OpBuiltin && n.Builtin == check.BInCombo && n.NArg() == 2 {
 			if c.Kind == Function {
 				errs.Errorf(n.Range(), "a function has no cell of its own to hold the value of one combination",
 					"compute `"+n.Text()+"` in a cell and pass that cell to the function", "in_combination in the function `%s`", c.Name)
 				return
 			}
-			out = append(out, pin{node: n, cell: c.Index, of: int(n.Args[0].Index), combo: -1})
+			out = append(out, pin{node: n, cell: c.Index, of: int(n.Arg(0).Index), combo: -1})
 			return
 		}
-		for _, a := range n.Args {
+		for _, a := range n.Args() {
 			walk(c, a)
 		}
 	}
@@ -73,13 +73,13 @@ func (cs *Combos) resolvePins(prog *check.Program, pins []pin, errs *diag.List) 
 	for k := range pins {
 		p := &pins[k]
 		x := prog.Cells[p.of]
-		at := p.node.Args[1].Range()
+		at := p.node.Arg(1).Range()
 		if !cs.Depends[p.of] {
-			errs.Errorf(p.node.Args[0].Range(), "`"+x.Name+"` does not depend on an action, so it is the same in every combination",
+			errs.Errorf(p.node.Arg(0).Range(), "`"+x.Name+"` does not depend on an action, so it is the same in every combination",
 				"write `"+x.Name+"` alone", "`%s` has no combination to choose", x.Name)
 			continue
 		}
-		want := norm(p.node.Args[1].Str())
+		want := norm(p.node.Arg(1).Str())
 		for m := range cs.All {
 			if norm(cs.All[m].Name) == want || norm(cs.Text(m)) == want {
 				p.combo = m
@@ -159,7 +159,7 @@ func direct(prog *check.Program, dep []bool, pins []pin) []bool {
 			if n.Op == check.OpCell {
 				delete(m, int(n.Index)) // also read outside a pin
 			}
-			for _, a := range n.Args {
+			for _, a := range n.Args() {
 				walk(a)
 			}
 		}

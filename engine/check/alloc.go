@@ -7,26 +7,26 @@ import (
 	"github.com/sheafcalc/sheaf/funcs"
 )
 
-// arena hands out the typed nodes of a program from blocks, and shares one
-// number type per dimension. A sheet of 100,000 cells types about a million
-// nodes: one allocation per node (and one per argument list) made checking
-// a large sheet slow, mostly by the memory it took up fresh. The program
-// keeps every node for its whole life, so a block never pins memory that
-// would otherwise be freed. An arena belongs to one checker and is used
-// from one goroutine.
+// arena hands out the cells and typed nodes of a program from blocks, and
+// shares one number type per dimension. A sheet of 100,000 cells types
+// about a million nodes: one allocation per node made checking a large
+// sheet slow, mostly by the memory it took up fresh. The program keeps
+// every cell and node for its whole life, so a block never pins memory
+// that would otherwise be freed. Each kind of block grows on its own from
+// a few items, so a small sheet stays small. An arena belongs to one
+// checker and is used from one goroutine.
 type arena struct {
-	cells []cellAndFormula
-	nodes []Node
-	args  []*Node
-	block int // size of the next block; grows so small programs stay small
-	nums  map[units.Dim]*funcs.Type
+	cells              []cellAndFormula
+	srcs               []typed
+	nodes              []Node
+	cellN, srcN, nodeN int // size of the next block of each kind
+	nums               map[units.Dim]*funcs.Type
 }
 
-const maxBlock = 1024
-
-func (a *arena) grow() int {
-	a.block = min(max(2*a.block, 16), maxBlock)
-	return a.block
+// grow doubles a block size, from 16 up to limit, and returns it.
+func grow(size *int, limit int) int {
+	*size = min(max(2**size, 16), limit)
+	return *size
 }
 
 // cellAndFormula is a cell with room for its formula, so that the two
@@ -39,7 +39,7 @@ type cellAndFormula struct {
 // cellWith returns a new cell whose Formula is an unparsed formula of e.
 func (a *arena) cellWith(e sheet.Expr) *Cell {
 	if len(a.cells) == 0 {
-		a.cells = make([]cellAndFormula, min(a.grow(), 256))
+		a.cells = make([]cellAndFormula, grow(&a.cellN, 256))
 	}
 	x := &a.cells[0]
 	a.cells = a.cells[1:]
@@ -48,33 +48,26 @@ func (a *arena) cellWith(e sheet.Expr) *Cell {
 	return &x.cell
 }
 
-// node returns a new node holding a copy of args.
-func (a *arena) node() *Node {
-	if len(a.nodes) == 0 {
-		a.nodes = make([]Node, a.grow())
+// typed returns room for the typed nodes of f, one slot per syntax node.
+func (a *arena) typed(f *formula.Formula, p *Program) *typed {
+	if len(a.srcs) == 0 {
+		a.srcs = make([]typed, grow(&a.srcN, 256))
 	}
-	n := &a.nodes[0]
-	a.nodes = a.nodes[1:]
-	return n
-}
-
-// argList returns a copy of args with no spare capacity, so an append by
-// a later phase cannot write into the next node's arguments.
-func (a *arena) argList(args []*Node) []*Node {
-	k := len(args)
-	if k == 0 {
-		return nil
+	s := &a.srcs[0]
+	a.srcs = a.srcs[1:]
+	k := len(f.Nodes)
+	switch {
+	case k > 256:
+		s.nodes = make([]Node, k)
+	default:
+		if len(a.nodes) < k {
+			a.nodes = make([]Node, max(grow(&a.nodeN, 4096), k))
+		}
+		s.nodes = a.nodes[:k:k]
+		a.nodes = a.nodes[k:]
 	}
-	if k > maxBlock/4 {
-		return append([]*Node(nil), args...)
-	}
-	if len(a.args) < k {
-		a.args = make([]*Node, max(a.grow(), k))
-	}
-	out := a.args[:k:k]
-	a.args = a.args[k:]
-	copy(out, args)
-	return out
+	s.f, s.prog = f, p
+	return s
 }
 
 // num returns the number type of dimension d, shared by every node of that

@@ -28,8 +28,8 @@ func (c *checker) budget() {
 			return 0
 		}
 		s := 1.0
-		for _, a := range n.Args {
-			s += size(a)
+		for k := range n.NArg() {
+			s += size(n.Arg(k))
 		}
 		if n.Op == OpUser || n.Op == OpFuncRef {
 			s += cost[n.Index]

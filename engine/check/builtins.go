@@ -81,6 +81,15 @@ var Builtins = []BuiltinInfo{
 	{BInCombo, "in_combination", `in_combination(cell, "SLS-c 2")`, "the cell's value in the one combination named (SPEC.md §5a), the same in every combination; the result has the cell's dimension"},
 }
 
+// builtinNames names each built-in by its ID.
+var builtinNames = func() []string {
+	names := make([]string, BInCombo+1)
+	for _, b := range Builtins {
+		names[b.ID] = b.Name
+	}
+	return names
+}()
+
 var builtinByName = func() map[string]BuiltinInfo {
 	m := map[string]BuiltinInfo{}
 	for _, b := range Builtins {
@@ -434,13 +443,13 @@ func (t *typer) dimOverflow(d units.Dim, op string, a, b units.Dim) *argProblem 
 func fold(n *Node) (float64, bool) {
 	switch n.Op {
 	case OpConst:
-		return n.Num, n.Type.Dim.IsNone()
+		return n.Num(), n.Type.Dim.IsNone()
 	case OpNeg:
-		v, ok := fold(n.Args[0])
+		v, ok := fold(n.Arg(0))
 		return -v, ok
 	case OpAdd, OpSub, OpMul, OpDiv:
-		a, ok1 := fold(n.Args[0])
-		b, ok2 := fold(n.Args[1])
+		a, ok1 := fold(n.Arg(0))
+		b, ok2 := fold(n.Arg(1))
 		if !ok1 || !ok2 {
 			return 0, false
 		}

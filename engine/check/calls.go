@@ -37,9 +37,8 @@ func (t *typer) call(n int32, name string, argNodes []int32) *Node {
 			}
 			return t.fail(at, p.summary, "the rule of "+b.Name+": "+b.Rule, p.hint)
 		}
-		r := t.node(n, OpBuiltin, ty, args...)
+		r := t.node(n, OpBuiltin, ty)
 		r.Builtin = b.ID
-		r.setStr(b.Name)
 		if b.ID == BInCombo {
 			t.c.prog.InCombination = true
 		}
@@ -86,9 +85,8 @@ func (t *typer) userCall(n int32, idx int, fn *Cell, fnType *funcs.Type, argNode
 				"the function is defined at "+fn.Pos().String(), t.argHint(p.Type))
 		}
 	}
-	r := t.node(n, OpUser, fnType.Result, args...)
+	r := t.node(n, OpUser, fnType.Result)
 	r.Index = int32(idx)
-	r.setStr(fn.Name)
 	return r
 }
 
@@ -120,7 +118,6 @@ func (t *typer) pluginCall(n int32, def *funcs.Def, argNodes []int32) *Node {
 				}
 				r := t.node(a, OpFuncRef, fnType)
 				r.Index = int32(j)
-				r.setStr(fn.Name)
 				args[i], types[i] = r, fnType
 				if !p.Type.Accepts(fnType) {
 					t.fail(a, fmt.Sprintf("%s of %s must be %s, got %s", p.Name, def.Name, p.Type.String(), fnType.String()), p.Doc,
@@ -155,10 +152,7 @@ func (t *typer) pluginCall(n int32, def *funcs.Def, argNodes []int32) *Node {
 	if res == nil {
 		return t.fail(n, def.Name+" returns nothing", "a plugin function must declare its result", "report this to the author of the "+def.Family+" functions")
 	}
-	r := t.node(n, OpPlugin, res, args...)
-	r.setDef(def)
-	r.setStr(def.Name)
-	return r
+	return t.node(n, OpPlugin, res)
 }
 
 // argHint says what to pass for a parameter of type want.

@@ -120,7 +120,7 @@ func (t *typer) describeType(ty *funcs.Type) string {
 func plainNumberHint(u units.Unit, body *Node) string {
 	sym := u.Symbol
 	if body.Op == OpConst {
-		lit := "`" + units.FormatNumber(body.Num, 15) + " " + sym + "`"
+		lit := "`" + units.FormatNumber(body.Num(), 15) + " " + sym + "`"
 		if u.Dim == angleDim {
 			return "a plain number is not an angle: write " + lit + ", or multiply a number of radians by 1 rad"
 		}

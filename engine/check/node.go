@@ -10,122 +10,185 @@ import (
 type Op uint8
 
 const (
-	OpConst   Op = iota // Num
-	OpBool              // Num != 0
-	OpString            // Str
+	OpConst   Op = iota // Num()
+	OpBool              // Num() != 0
+	OpString            // Str()
 	OpCell              // value of cell Index
 	OpParam             // parameter Index of the enclosing user function
-	OpNeg               // -Args[0]
-	OpNot               // not Args[0]
-	OpAdd               // Args[0] + Args[1]
-	OpSub               // Args[0] - Args[1]
-	OpMul               // Args[0] * Args[1]
-	OpDiv               // Args[0] / Args[1]
-	OpPow               // Args[0] ^ Args[1]
+	OpNeg               // -Arg(0)
+	OpNot               // not Arg(0)
+	OpAdd               // Arg(0) + Arg(1)
+	OpSub               // Arg(0) - Arg(1)
+	OpMul               // Arg(0) * Arg(1)
+	OpDiv               // Arg(0) / Arg(1)
+	OpPow               // Arg(0) ^ Arg(1)
 	OpLT                // comparisons of numbers
 	OpLE                //
 	OpGT                //
 	OpGE                //
 	OpEQ                //
 	OpNE                //
-	OpAnd               // Args[0] and Args[1]
-	OpOr                // Args[0] or Args[1]
-	OpCond              // Args[0] ? Args[1] : Args[2]
-	OpBuiltin           // built-in Builtin applied to Args
-	OpPlugin            // plugin Def applied to Args
-	OpUser              // user function cell Index applied to Args
+	OpAnd               // Arg(0) and Arg(1)
+	OpOr                // Arg(0) or Arg(1)
+	OpCond              // Arg(0) ? Arg(1) : Arg(2)
+	OpBuiltin           // built-in Builtin applied to the arguments
+	OpPlugin            // plugin Def() applied to the arguments
+	OpUser              // user function cell Index applied to the arguments
 	OpFuncRef           // user function cell Index as a function value
-	OpField             // field Index of record Args[0]
-	OpColumn            // column Index of table Args[0], as a list
-	OpIndex             // Args[0][Args[1]]
-	OpList              // [Args...]
-	OpRecord            // {Str[i]: Args[i]}; field names in Type.Fields
+	OpField             // field Index of record Arg(0)
+	OpColumn            // column Index of table Arg(0), as a list
+	OpIndex             // Arg(0)[Arg(1)]
+	OpList              // [arguments...]
+	OpRecord            // {name: argument, ...}; field names in Type.Fields
 )
 
 // Node is a typed expression: the checker's output, the evaluator's input.
-// A large sheet types about ten nodes per cell, so the node is kept small:
-// the index is 32 bits beside the operation, and the name and plugin that
-// few nodes carry sit behind one pointer.
+//
+// A formula's typed nodes lie in one slice beside its syntax nodes, at the
+// same indices: node i is the type and meaning of syntax node i. What the
+// syntax already holds (the arguments, a literal's value, a name, the
+// span) is read from it rather than copied, so a node is 32 bytes and a
+// formula's nodes are one allocation. Brackets and a unary plus have no
+// node of their own: they stand for what they enclose.
 type Node struct {
 	Op      Op
-	Builtin Builtin // beside Op: a million nodes, 8 bytes each
-	Index   int32
+	Builtin Builtin // for OpBuiltin
+	Index   int32   // cell, parameter or field index (see Op)
+	at      int32   // the syntax node in src.f
 	Type    *funcs.Type
-	Num     float64
-	Args    []*Node
-	// F is the formula the node was typed from, and From, To the byte
-	// span of the node in F.Source.Text: Range computes the sheet range
-	// only when a message needs it, which keeps checking a large sheet
-	// cheap, and the span does not hold on to the formula's syntax tree.
-	From, To int32
-	F        *formula.Formula
-	ext      *nodeExt
+	src     *typed
 }
 
-// nodeExt holds what only a few nodes carry.
-type nodeExt struct {
-	str string
-	def *funcs.Def
+// typed is a formula with its typed nodes.
+type typed struct {
+	f     *formula.Formula
+	prog  *Program // for the names of the cells a node refers to
+	nodes []Node   // len(f.Nodes); a slot is set when its syntax node was typed
+}
+
+// node returns the typed node standing for syntax node n: brackets and a
+// unary plus stand for what they enclose.
+func (s *typed) node(n int32) *Node {
+	for {
+		nd := &s.f.Nodes[n]
+		if nd.Kind != formula.KParen && (nd.Kind != formula.KUnary || nd.Op != formula.OpPlus) {
+			return &s.nodes[n]
+		}
+		n = nd.A
+	}
+}
+
+// NArg returns the number of arguments of the node.
+func (n *Node) NArg() int {
+	switch n.Op {
+	case OpNeg, OpNot, OpField, OpColumn:
+		return 1
+	case OpAdd, OpSub, OpMul, OpDiv, OpPow, OpLT, OpLE, OpGT, OpGE, OpEQ, OpNE, OpAnd, OpOr, OpIndex:
+		return 2
+	case OpCond:
+		return 3
+	case OpBuiltin, OpPlugin, OpUser, OpList:
+		return len(n.src.f.ArgList(n.at))
+	case OpRecord:
+		return len(n.src.f.ArgList(n.at)) / 2
+	}
+	return 0
+}
+
+// Arg returns argument k of the node (0 ≤ k < NArg()).
+func (n *Node) Arg(k int) *Node {
+	nd := &n.src.f.Nodes[n.at]
+	switch n.Op {
+	case OpNeg, OpNot, OpField, OpColumn:
+		return n.src.node(nd.A)
+	case OpBuiltin, OpPlugin, OpUser, OpList:
+		return n.src.node(n.src.f.ArgList(n.at)[k])
+	case OpRecord:
+		return n.src.node(n.src.f.ArgList(n.at)[2*k+1]) // keys and values alternate
+	}
+	switch k {
+	case 0:
+		return n.src.node(nd.A)
+	case 1:
+		return n.src.node(nd.B)
+	}
+	return n.src.node(nd.C)
+}
+
+// Args returns the arguments of the node in a new slice (nil when it has
+// none). Arg and NArg read them without one.
+func (n *Node) Args() []*Node {
+	k := n.NArg()
+	if k == 0 {
+		return nil
+	}
+	args := make([]*Node, k)
+	for i := range args {
+		args[i] = n.Arg(i)
+	}
+	return args
+}
+
+// Num is the value in SI of a constant (OpConst) or of a yes/no literal
+// (OpBool, 1 or 0); 0 for other nodes.
+func (n *Node) Num() float64 {
+	f := n.src.f
+	switch f.Nodes[n.at].Kind {
+	case formula.KNumber, formula.KBool:
+		return f.Num(n.at)
+	case formula.KQuantity:
+		return f.Quantity(n.at).SI
+	case formula.KName:
+		if n.Op == OpConst {
+			return Constants[f.Text(n.at)].SI
+		}
+	}
+	return 0
 }
 
 // Str is the text of a string constant, or the name of the function a
 // call or function value names ("" for other nodes).
 func (n *Node) Str() string {
-	if n.ext == nil {
-		return ""
+	switch n.Op {
+	case OpString:
+		return n.src.f.StringText(n.at)
+	case OpBuiltin:
+		return builtinNames[n.Builtin]
+	case OpPlugin:
+		return n.src.f.Callee(n.at)
+	case OpUser, OpFuncRef:
+		return n.src.prog.Cells[n.Index].Name
 	}
-	return n.ext.str
+	return ""
 }
 
 // Def is the plugin a plugin call applies (nil for other nodes).
 func (n *Node) Def() *funcs.Def {
-	if n.ext == nil {
+	if n.Op != OpPlugin {
 		return nil
 	}
-	return n.ext.def
+	d, _ := funcs.Lookup(n.src.f.Callee(n.at))
+	return d
 }
 
-func (n *Node) setStr(s string) {
-	if n.ext == nil {
-		n.ext = &nodeExt{}
-	}
-	n.ext.str = s
-}
+// Formula is the formula the node was typed from.
+func (n *Node) Formula() *formula.Formula { return n.src.f }
 
-func (n *Node) setDef(d *funcs.Def) {
-	if n.ext == nil {
-		n.ext = &nodeExt{}
-	}
-	n.ext.def = d
-}
+// Span is the byte span of the node in Formula().Source.Text.
+func (n *Node) Span() (from, to int) { return n.src.f.Span(n.at) }
 
-// Range returns the source range of the node (zero when it has none).
-func (n *Node) Range() diag.Range {
-	if n.F == nil {
-		return diag.Range{}
-	}
-	return n.F.Source.RangeAt(int(n.From), int(n.To))
-}
+// Range returns the source range of the node.
+func (n *Node) Range() diag.Range { return n.src.f.Range(n.at) }
 
-// Text returns the source text of the node as written ("" when it has
-// none), e.g. `N_plRd` or `0.9 * A_s * f_ub / gamma_M2`.
-func (n *Node) Text() string {
-	if n.F == nil || n.From < 0 || int(n.To) > len(n.F.Source.Text) || n.From >= n.To {
-		return ""
-	}
-	return n.F.Source.Text[n.From:n.To]
-}
+// Text returns the source text of the node as written, e.g. `N_plRd` or
+// `0.9 * A_s * f_ub / gamma_M2`.
+func (n *Node) Text() string { return n.src.f.Text(n.at) }
 
 // Quantity returns the quantity literal a constant node was typed from,
 // such as `38 kN` with its written unit, or nil.
 func (n *Node) Quantity() *formula.Quantity {
-	if n.F == nil || n.Op != OpConst {
+	if n.Op != OpConst || n.src.f.Nodes[n.at].Kind != formula.KQuantity {
 		return nil
 	}
-	for i := range n.F.Quantities {
-		if q := &n.F.Quantities[i]; q.From == n.From && q.To == n.To {
-			return q
-		}
-	}
-	return nil
+	return n.src.f.Quantity(n.at)
 }

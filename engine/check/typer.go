@@ -14,6 +14,7 @@ import (
 type typer struct {
 	c      *checker
 	f      *formula.Formula
+	typed  *typed // the typed nodes of f, made on first use
 	cell   *Cell
 	params []Param // of the user function being typed
 	system units.System
@@ -25,10 +26,14 @@ func (t *typer) fail(n int32, summary, detail, hint string) *Node {
 	return nil
 }
 
-func (t *typer) node(n int32, op Op, ty *funcs.Type, args ...*Node) *Node {
-	r := t.c.arena.node()
-	from, to := t.f.Span(n)
-	*r = Node{Op: op, Type: ty, Args: t.c.arena.argList(args), From: int32(from), To: int32(to), F: t.f}
+// node sets and returns the typed node of syntax node n. Its arguments are
+// the typed nodes of n's operands, which the caller typed first.
+func (t *typer) node(n int32, op Op, ty *funcs.Type) *Node {
+	if t.typed == nil {
+		t.typed = t.c.arena.typed(t.f, t.c.prog)
+	}
+	r := &t.typed.nodes[n]
+	*r = Node{Op: op, Type: ty, at: n, src: t.typed}
 	return r
 }
 
@@ -40,25 +45,17 @@ func (t *typer) expr(n int32) *Node {
 	nd := &f.Nodes[n]
 	switch nd.Kind {
 	case formula.KNumber:
-		r := t.node(n, OpConst, numNone)
-		r.Num = f.Num(n)
-		return r
+		return t.node(n, OpConst, numNone)
 	case formula.KQuantity:
 		q := f.Quantity(n)
 		if q.Unit.Factor == 0 {
 			return nil // the unit was reported already
 		}
-		r := t.node(n, OpConst, t.c.arena.num(q.Unit.Dim))
-		r.Num = q.SI
-		return r
+		return t.node(n, OpConst, t.c.arena.num(q.Unit.Dim))
 	case formula.KBool:
-		r := t.node(n, OpBool, funcs.BoolType)
-		r.Num = f.Num(n)
-		return r
+		return t.node(n, OpBool, funcs.BoolType)
 	case formula.KString:
-		r := t.node(n, OpString, funcs.StringType)
-		r.setStr(f.StringText(n))
-		return r
+		return t.node(n, OpString, funcs.StringType)
 	case formula.KName:
 		return t.ident(n)
 	case formula.KParen:
@@ -72,7 +69,7 @@ func (t *typer) expr(n int32) *Node {
 			if x.Type.Kind != funcs.Bool {
 				return t.fail(n, "`not` needs a comparison, got "+t.describeType(x.Type), "", "write a comparison after it, as in `not (N > 0)`")
 			}
-			return t.node(n, OpNot, funcs.BoolType, x)
+			return t.node(n, OpNot, funcs.BoolType)
 		}
 		if x.Type.Kind != funcs.Number {
 			return t.fail(n, "cannot negate "+t.describeType(x.Type), "only numbers have a sign", "negate a number, as in `-mat.E` or `-xs[0]`")
@@ -80,7 +77,7 @@ func (t *typer) expr(n int32) *Node {
 		if nd.Op == formula.OpPlus {
 			return x
 		}
-		return t.node(n, OpNeg, x.Type, x)
+		return t.node(n, OpNeg, x.Type)
 	case formula.KBinary:
 		return t.binary(n)
 	case formula.KCond:
@@ -94,7 +91,7 @@ func (t *typer) expr(n int32) *Node {
 		if !sameType(a.Type, b.Type) {
 			return t.fail(n, fmt.Sprintf("the two choices of `? :` differ: %s and %s", t.describeType(a.Type), t.describeType(b.Type)), "both results of a choice must be the same kind of quantity", "check the units of the two choices")
 		}
-		return t.node(n, OpCond, a.Type, c, a, b)
+		return t.node(n, OpCond, a.Type)
 	case formula.KField, formula.KIndex:
 		return t.member(n)
 	case formula.KCall:
@@ -146,9 +143,7 @@ func (t *typer) ident(n int32) *Node {
 		return t.aliasValue(n, name)
 	}
 	if k, ok := Constants[name]; ok {
-		r := t.node(n, OpConst, t.c.arena.num(k.Dim))
-		r.Num = k.SI
-		return r
+		return t.node(n, OpConst, t.c.arena.num(k.Dim))
 	}
 	if _, ok := builtinByName[name]; ok {
 		return t.fail(n, "`"+name+"` is a function and needs arguments", "", "write "+builtinByName[name].Sig)
@@ -210,9 +205,9 @@ func (t *typer) binary(n int32) *Node {
 			return t.fail(n, "`"+op+"` joins comparisons", "both sides must be comparisons such as `a < b`", "compare each value, as in `a > 0 "+op+" b > 0`")
 		}
 		if op == "and" {
-			return t.node(n, OpAnd, funcs.BoolType, a, b)
+			return t.node(n, OpAnd, funcs.BoolType)
 		}
-		return t.node(n, OpOr, funcs.BoolType, a, b)
+		return t.node(n, OpOr, funcs.BoolType)
 	}
 	if a.Type.Kind != funcs.Number || b.Type.Kind != funcs.Number {
 		bad := a
@@ -239,9 +234,9 @@ func (t *typer) binary(n int32) *Node {
 				"both sides of + and - must be the same kind of quantity", "check the units of the two sides")
 		}
 		if op == "+" {
-			return t.node(n, OpAdd, a.Type, a, b)
+			return t.node(n, OpAdd, a.Type)
 		}
-		return t.node(n, OpSub, a.Type, a, b)
+		return t.node(n, OpSub, a.Type)
 	case "*", "/":
 		d, o := da.Mul(db), OpMul
 		if op == "/" {
@@ -250,7 +245,7 @@ func (t *typer) binary(n int32) *Node {
 		if p := t.dimOverflow(d, op, da, db); p != nil {
 			return t.fail(n, p.summary, overflowDetail, p.hint)
 		}
-		return t.node(n, o, t.c.arena.num(d), a, b)
+		return t.node(n, o, t.c.arena.num(d))
 	case "^":
 		ty, p := t.powType(a, b, "`^`")
 		if p != nil {
@@ -260,14 +255,14 @@ func (t *typer) binary(n int32) *Node {
 			}
 			return t.fail(at, p.summary, "", p.hint)
 		}
-		return t.node(n, OpPow, ty, a, b)
+		return t.node(n, OpPow, ty)
 	}
 	if o, ok := cmpOps[op]; ok {
 		if da != db {
 			return t.fail(n, fmt.Sprintf("cannot compare %s with %s", t.describeDim(da), t.describeDim(db)),
 				"both sides of a comparison must be the same kind of quantity", "check the units of the two sides")
 		}
-		return t.node(n, o, funcs.BoolType, a, b)
+		return t.node(n, o, funcs.BoolType)
 	}
 	return t.fail(n, "operator `"+op+"` is not part of the sheet language", "formulas use + - * / ^ (or **), comparisons, and/or/not and `a ? b : c`", "")
 }
@@ -305,11 +300,11 @@ func (t *typer) member(n int32) *Node {
 				return t.fail(nd.B, fmt.Sprintf("%s `%s`", what, field), "", hint)
 			}
 			if x.Type.Kind == funcs.Table {
-				r := t.node(n, OpColumn, funcs.ListOf(x.Type.Fields[i].Type), x)
+				r := t.node(n, OpColumn, funcs.ListOf(x.Type.Fields[i].Type))
 				r.Index = int32(i)
 				return r
 			}
-			r := t.node(n, OpField, x.Type.Fields[i].Type, x)
+			r := t.node(n, OpField, x.Type.Fields[i].Type)
 			r.Index = int32(i)
 			return r
 		}
@@ -327,7 +322,7 @@ func (t *typer) member(n int32) *Node {
 	if i.Type.Kind != funcs.Number || !i.Type.Dim.IsNone() {
 		return t.fail(nd.B, "an index must be a plain number, got "+t.describeType(i.Type), "", "the first element is xs[0]")
 	}
-	return t.node(n, OpIndex, x.Type.Elem, x, i)
+	return t.node(n, OpIndex, x.Type.Elem)
 }
 
 func join(xs []string) string {
@@ -360,7 +355,7 @@ func (t *typer) list(n int32) *Node {
 				"every item of a list has the unit of the first", "use a record for values of different kinds, as in `{L: 2 m, P: 38 kN}`")
 		}
 	}
-	return t.node(n, OpList, funcs.ListOf(args[0].Type), args...)
+	return t.node(n, OpList, funcs.ListOf(args[0].Type))
 }
 
 func (t *typer) record(n int32) *Node {
@@ -380,5 +375,5 @@ func (t *typer) record(n int32) *Node {
 		args = append(args, x)
 		fields = append(fields, funcs.Field{Name: key, Type: x.Type})
 	}
-	return t.node(n, OpRecord, funcs.RecordOf("", fields...), args...)
+	return t.node(n, OpRecord, funcs.RecordOf("", fields...))
 }

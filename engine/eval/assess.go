@@ -87,7 +87,7 @@ func (s *State) Governing(i int) *check.Node {
 			n = s.M.P.Cells[k].Body
 		}
 	}
-	if n.Op != check.OpBuiltin || (n.Builtin != check.BMin && n.Builtin != check.BMax) || len(n.Args) < 2 {
+	if n.Op != check.OpBuiltin || (n.Builtin != check.BMin && n.Builtin != check.BMax) || n.NArg() < 2 {
 		return nil
 	}
 	best, bestV := -1, 0.0
@@ -97,7 +97,7 @@ func (s *State) Governing(i int) *check.Node {
 	saved := f.Fail
 	f.Fail = nil
 	defer func() { f.Fail = saved }()
-	for k, a := range n.Args {
+	for k, a := range n.Args() {
 		if a.Type == nil || a.Type.Kind != funcs.Number {
 			return nil
 		}
@@ -109,7 +109,7 @@ func (s *State) Governing(i int) *check.Node {
 			best, bestV = k, v
 		}
 	}
-	return n.Args[best]
+	return n.Arg(best)
 }
 
 // Uncomputed returns the number of cells with a problem that are not

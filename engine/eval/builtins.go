@@ -10,11 +10,11 @@ import (
 // builtin compiles a call of a built-in function with a Number result.
 func (m *Machine) builtin(n *check.Node) numFn {
 	one := func(g func(float64) float64) numFn {
-		a := m.numOf(n.Args[0])
+		a := m.numOf(n.Arg(0))
 		return func(f *Frame) float64 { return g(a(f)) }
 	}
 	guarded := func(ok func(float64) bool, g func(float64) float64, msg string) numFn {
-		a := m.numOf(n.Args[0])
+		a := m.numOf(n.Arg(0))
 		return func(f *Frame) float64 {
 			x := a(f)
 			if !ok(x) {
@@ -24,7 +24,7 @@ func (m *Machine) builtin(n *check.Node) numFn {
 			return g(x)
 		}
 	}
-	isList := len(n.Args) == 1 && n.Args[0].Type.Kind != n.Type.Kind
+	isList := n.NArg() == 1 && n.Arg(0).Type.Kind != n.Type.Kind
 	switch n.Builtin {
 	case check.BInCombo:
 		return m.pin(n)
@@ -57,20 +57,20 @@ func (m *Machine) builtin(n *check.Node) numFn {
 	case check.BCeil:
 		return one(math.Ceil)
 	case check.BAtan2:
-		y, x := m.numOf(n.Args[0]), m.numOf(n.Args[1])
+		y, x := m.numOf(n.Arg(0)), m.numOf(n.Arg(1))
 		return func(f *Frame) float64 { return math.Atan2(y(f), x(f)) }
 	case check.BPow:
-		return m.pow(&check.Node{Op: check.OpPow, Type: n.Type, Args: n.Args, From: n.From, To: n.To, F: n.F})
+		return m.pow(n, n.Arg(0), n.Arg(1))
 	case check.BRound:
-		x := m.numOf(n.Args[0])
-		if len(n.Args) == 1 {
+		x := m.numOf(n.Arg(0))
+		if n.NArg() == 1 {
 			return func(f *Frame) float64 { return math.Round(x(f)) }
 		}
-		step := m.numOf(n.Args[1])
+		step := m.numOf(n.Arg(1))
 		return func(f *Frame) float64 {
 			s := step(f)
 			if s <= 0 {
-				f.fail(n.Args[1], "round needs a positive step", "")
+				f.fail(n.Arg(1), "round needs a positive step", "")
 				return nan
 			}
 			return math.Round(x(f)/s) * s
@@ -79,7 +79,7 @@ func (m *Machine) builtin(n *check.Node) numFn {
 		if isList || n.Builtin == check.BSum || n.Builtin == check.BMean || n.Builtin == check.BLen {
 			return m.listReduce(n)
 		}
-		xs := m.nums(n.Args)
+		xs := m.nums(n.Args())
 		g := math.Hypot
 		switch n.Builtin {
 		case check.BMin:
@@ -106,7 +106,7 @@ func (m *Machine) builtin(n *check.Node) numFn {
 
 func (m *Machine) listReduce(n *check.Node) numFn {
 	if n.Builtin == check.BLen {
-		v := m.valOf(n.Args[0])
+		v := m.valOf(n.Arg(0))
 		return func(f *Frame) float64 {
 			switch l := v(f).(type) {
 			case []float64:
@@ -117,7 +117,7 @@ func (m *Machine) listReduce(n *check.Node) numFn {
 			return 0
 		}
 	}
-	xs := m.listOf(n.Args[0])
+	xs := m.listOf(n.Arg(0))
 	id := n.Builtin
 	return func(f *Frame) float64 {
 		l := xs(f)
@@ -153,7 +153,7 @@ func (m *Machine) listReduce(n *check.Node) numFn {
 // interp interpolates linearly in (xs, ys); xs must increase strictly. A
 // lookup outside [xs[0], xs[n-1]] is an error: tables are not extrapolated.
 func (m *Machine) interp(n *check.Node) numFn {
-	xsF, ysF, xF := m.listOf(n.Args[0]), m.listOf(n.Args[1]), m.numOf(n.Args[2])
+	xsF, ysF, xF := m.listOf(n.Arg(0)), m.listOf(n.Arg(1)), m.numOf(n.Arg(2))
 	return func(f *Frame) float64 {
 		xs, ys, x := xsF(f), ysF(f), xF(f)
 		y, msg := Interp(xs, ys, x)
@@ -213,7 +213,7 @@ func (m *Machine) pin(n *check.Node) numFn {
 	}
 	return func(f *Frame) float64 {
 		if k >= len(f.Pins) || math.IsNaN(f.Pins[k]) {
-			f.fail(n, "the cell has no value in the combination "+n.Args[1].Str(), "see the problems of that combination (`sheaf run --combinations`)")
+			f.fail(n, "the cell has no value in the combination "+n.Arg(1).Str(), "see the problems of that combination (`sheaf run --combinations`)")
 			return nan
 		}
 		return f.Pins[k]

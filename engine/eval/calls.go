@@ -10,13 +10,13 @@ import (
 
 // userCall calls a user function with a Number result.
 func (m *Machine) userCall(n *check.Node) numFn {
-	args, idx := m.nums(n.Args), int(n.Index)
+	args, idx := m.nums(n.Args()), int(n.Index)
 	return func(f *Frame) float64 { return call(m, f, args, idx, m.num[idx], nan) }
 }
 
 // userCallVal calls a user function whose result is not a number.
 func (m *Machine) userCallVal(n *check.Node) valFn {
-	args, idx := m.nums(n.Args), int(n.Index)
+	args, idx := m.nums(n.Args()), int(n.Index)
 	return func(f *Frame) funcs.Value { return call(m, f, args, idx, m.val[idx], nil) }
 }
 
@@ -83,7 +83,7 @@ func (m *Machine) funcRef(n *check.Node) valFn {
 
 // plugin calls a registered function on the general path.
 func (m *Machine) plugin(n *check.Node) valFn {
-	args := m.vals(n.Args)
+	args := m.vals(n.Args())
 	def := n.Def()
 	return func(f *Frame) funcs.Value {
 		vs := make([]funcs.Value, len(def.Params))

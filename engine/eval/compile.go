@@ -145,7 +145,7 @@ var nan = math.NaN()
 func (m *Machine) numOf(n *check.Node) numFn {
 	switch n.Op {
 	case check.OpConst:
-		v := n.Num
+		v := n.Num()
 		return func(*Frame) float64 { return v }
 	case check.OpCell:
 		i := n.Index
@@ -154,25 +154,25 @@ func (m *Machine) numOf(n *check.Node) numFn {
 		i := n.Index
 		return func(f *Frame) float64 { return f.Args[i] }
 	case check.OpNeg:
-		a := m.numOf(n.Args[0])
+		a := m.numOf(n.Arg(0))
 		return func(f *Frame) float64 { return -a(f) }
 	case check.OpAdd, check.OpSub, check.OpMul:
 		if fn := arith(n); fn != nil {
 			return fn
 		}
-		a, b := m.numOf(n.Args[0]), m.numOf(n.Args[1])
+		a, b := m.numOf(n.Arg(0)), m.numOf(n.Arg(1))
 		switch n.Op {
 		case check.OpAdd:
-			if y := n.Args[1]; y.Op == check.OpConst {
-				k := y.Num
+			if y := n.Arg(1); y.Op == check.OpConst {
+				k := y.Num()
 				return func(f *Frame) float64 { return a(f) + k }
 			}
 			return func(f *Frame) float64 { return a(f) + b(f) }
 		case check.OpSub:
 			return func(f *Frame) float64 { return a(f) - b(f) }
 		}
-		if n.Args[1].Op == check.OpConst {
-			k := n.Args[1].Num
+		if n.Arg(1).Op == check.OpConst {
+			k := n.Arg(1).Num()
 			return func(f *Frame) float64 { return a(f) * k }
 		}
 		return func(f *Frame) float64 { return a(f) * b(f) }
@@ -180,12 +180,12 @@ func (m *Machine) numOf(n *check.Node) numFn {
 		if fn := arith(n); fn != nil {
 			return fn
 		}
-		a, b := m.numOf(n.Args[0]), m.numOf(n.Args[1])
-		if y := n.Args[1]; y.Op == check.OpConst && y.Num != 0 {
-			k := y.Num // a nonzero constant divisor cannot fail
+		a, b := m.numOf(n.Arg(0)), m.numOf(n.Arg(1))
+		if y := n.Arg(1); y.Op == check.OpConst && y.Num() != 0 {
+			k := y.Num() // a nonzero constant divisor cannot fail
 			return func(f *Frame) float64 { return a(f) / k }
 		}
-		den := n.Args[1]
+		den := n.Arg(1)
 		return func(f *Frame) float64 {
 			d := b(f)
 			if d == 0 {
@@ -195,9 +195,9 @@ func (m *Machine) numOf(n *check.Node) numFn {
 			return a(f) / d
 		}
 	case check.OpPow:
-		return m.pow(n)
+		return m.pow(n, n.Arg(0), n.Arg(1))
 	case check.OpCond:
-		c, a, b := m.boolOf(n.Args[0]), m.numOf(n.Args[1]), m.numOf(n.Args[2])
+		c, a, b := m.boolOf(n.Arg(0)), m.numOf(n.Arg(1)), m.numOf(n.Arg(2))
 		return func(f *Frame) float64 {
 			if c(f) {
 				return a(f)
@@ -209,7 +209,7 @@ func (m *Machine) numOf(n *check.Node) numFn {
 	case check.OpUser:
 		return m.userCall(n)
 	case check.OpIndex:
-		xs, ix := m.listOf(n.Args[0]), m.numOf(n.Args[1])
+		xs, ix := m.listOf(n.Arg(0)), m.numOf(n.Arg(1))
 		return func(f *Frame) float64 {
 			l := xs(f)
 			k, ok := index(f, n, ix(f), len(l))
@@ -239,7 +239,7 @@ func (m *Machine) numOf(n *check.Node) numFn {
 // (a / k, not a * (1/k)), so results are bit for bit the same; a division
 // by a cell still checks for zero, through the general path.
 func arith(n *check.Node) numFn {
-	x, y := n.Args[0], n.Args[1]
+	x, y := n.Arg(0), n.Arg(1)
 	switch {
 	case x.Op == check.OpCell && y.Op == check.OpCell:
 		i, j := x.Index, y.Index
@@ -252,7 +252,7 @@ func arith(n *check.Node) numFn {
 			return func(f *Frame) float64 { return f.Num[i] * f.Num[j] }
 		}
 	case x.Op == check.OpCell && y.Op == check.OpConst:
-		i, k := x.Index, y.Num
+		i, k := x.Index, y.Num()
 		switch n.Op {
 		case check.OpAdd:
 			return func(f *Frame) float64 { return f.Num[i] + k }
@@ -266,7 +266,7 @@ func arith(n *check.Node) numFn {
 			}
 		}
 	case x.Op == check.OpConst && y.Op == check.OpCell:
-		k, j := x.Num, y.Index
+		k, j := x.Num(), y.Index
 		switch n.Op {
 		case check.OpAdd:
 			return func(f *Frame) float64 { return k + f.Num[j] }
@@ -299,10 +299,10 @@ func index(f *Frame, at *check.Node, i float64, n int) (int, bool) {
 	return k, true
 }
 
-func (m *Machine) pow(n *check.Node) numFn {
-	a, b := m.numOf(n.Args[0]), m.numOf(n.Args[1])
-	if e := n.Args[1]; e.Op == check.OpConst {
-		switch e.Num {
+func (m *Machine) pow(n, x, e *check.Node) numFn {
+	a, b := m.numOf(x), m.numOf(e)
+	if e.Op == check.OpConst {
+		switch e.Num() {
 		case 2:
 			return func(f *Frame) float64 { x := a(f); return x * x }
 		case 3:
@@ -323,19 +323,19 @@ func (m *Machine) pow(n *check.Node) numFn {
 func (m *Machine) boolOf(n *check.Node) func(*Frame) bool {
 	switch n.Op {
 	case check.OpBool:
-		v := n.Num != 0
+		v := n.Num() != 0
 		return func(*Frame) bool { return v }
 	case check.OpNot:
-		a := m.boolOf(n.Args[0])
+		a := m.boolOf(n.Arg(0))
 		return func(f *Frame) bool { return !a(f) }
 	case check.OpAnd:
-		a, b := m.boolOf(n.Args[0]), m.boolOf(n.Args[1])
+		a, b := m.boolOf(n.Arg(0)), m.boolOf(n.Arg(1))
 		return func(f *Frame) bool { return a(f) && b(f) }
 	case check.OpOr:
-		a, b := m.boolOf(n.Args[0]), m.boolOf(n.Args[1])
+		a, b := m.boolOf(n.Arg(0)), m.boolOf(n.Arg(1))
 		return func(f *Frame) bool { return a(f) || b(f) }
 	case check.OpLT, check.OpLE, check.OpGT, check.OpGE, check.OpEQ, check.OpNE:
-		a, b := m.numOf(n.Args[0]), m.numOf(n.Args[1])
+		a, b := m.numOf(n.Arg(0)), m.numOf(n.Arg(1))
 		switch n.Op {
 		case check.OpLT:
 			return func(f *Frame) bool { return a(f) < b(f) }
@@ -353,7 +353,7 @@ func (m *Machine) boolOf(n *check.Node) func(*Frame) bool {
 		i := n.Index
 		return func(f *Frame) bool { b, _ := f.Val[i].(bool); return b }
 	case check.OpCond:
-		c, a, b := m.boolOf(n.Args[0]), m.boolOf(n.Args[1]), m.boolOf(n.Args[2])
+		c, a, b := m.boolOf(n.Arg(0)), m.boolOf(n.Arg(1)), m.boolOf(n.Arg(2))
 		return func(f *Frame) bool {
 			if c(f) {
 				return a(f)
@@ -398,7 +398,7 @@ func (m *Machine) valOf(n *check.Node) valFn {
 		return func(f *Frame) funcs.Value { return f.Val[i] }
 	case check.OpList:
 		if n.Type.Elem.Kind == funcs.Number {
-			xs := m.nums(n.Args)
+			xs := m.nums(n.Args())
 			return func(f *Frame) funcs.Value {
 				out := make([]float64, len(xs))
 				for i, x := range xs {
@@ -407,7 +407,7 @@ func (m *Machine) valOf(n *check.Node) valFn {
 				return out
 			}
 		}
-		xs := m.vals(n.Args)
+		xs := m.vals(n.Args())
 		return func(f *Frame) funcs.Value {
 			out := make([]funcs.Value, len(xs))
 			for i, x := range xs {
@@ -416,7 +416,7 @@ func (m *Machine) valOf(n *check.Node) valFn {
 			return out
 		}
 	case check.OpRecord:
-		xs := m.vals(n.Args)
+		xs := m.vals(n.Args())
 		ty := n.Type
 		return func(f *Frame) funcs.Value {
 			r := &funcs.RecordValue{Type: ty, Fields: make([]funcs.Value, len(xs))}
@@ -426,7 +426,7 @@ func (m *Machine) valOf(n *check.Node) valFn {
 			return r
 		}
 	case check.OpField:
-		rec, i := m.valOf(n.Args[0]), int(n.Index)
+		rec, i := m.valOf(n.Arg(0)), int(n.Index)
 		return func(f *Frame) funcs.Value {
 			r, ok := rec(f).(*funcs.RecordValue)
 			if !ok || i >= len(r.Fields) {
@@ -436,7 +436,7 @@ func (m *Machine) valOf(n *check.Node) valFn {
 			return r.Fields[i]
 		}
 	case check.OpColumn:
-		tbl, i := m.valOf(n.Args[0]), int(n.Index)
+		tbl, i := m.valOf(n.Arg(0)), int(n.Index)
 		return func(f *Frame) funcs.Value {
 			t, ok := tbl(f).(*funcs.TableValue)
 			if !ok || i >= len(t.Cols) {
@@ -446,7 +446,7 @@ func (m *Machine) valOf(n *check.Node) valFn {
 			return t.Cols[i]
 		}
 	case check.OpIndex:
-		xs, ix := m.valOf(n.Args[0]), m.numOf(n.Args[1])
+		xs, ix := m.valOf(n.Arg(0)), m.numOf(n.Arg(1))
 		return func(f *Frame) funcs.Value {
 			l, _ := xs(f).([]funcs.Value)
 			k, ok := index(f, n, ix(f), len(l))
@@ -456,7 +456,7 @@ func (m *Machine) valOf(n *check.Node) valFn {
 			return l[k]
 		}
 	case check.OpCond:
-		c, a, b := m.boolOf(n.Args[0]), m.valOf(n.Args[1]), m.valOf(n.Args[2])
+		c, a, b := m.boolOf(n.Arg(0)), m.valOf(n.Arg(1)), m.valOf(n.Arg(2))
 		return func(f *Frame) funcs.Value {
 			if c(f) {
 				return a(f)

@@ -177,8 +177,8 @@ func (s *Server) substituted(d *document, c *engine.Cell) string {
 				}
 			}
 		case check.OpField:
-			if len(n.Args) == 1 && n.Args[0].Op == check.OpCell && int(n.Args[0].Index) < len(cells) {
-				if v, ok := d.state.Value(cells[n.Args[0].Index].Name); ok {
+			if n.NArg() == 1 && n.Arg(0).Op == check.OpCell && int(n.Arg(0).Index) < len(cells) {
+				if v, ok := d.state.Value(cells[n.Arg(0).Index].Name); ok {
 					if r, ok := v.(*funcs.RecordValue); ok && r.Type != nil && int(n.Index) < len(r.Fields) {
 						if f := r.Type.Fields[n.Index]; f.Type != nil && f.Type.Kind == funcs.Number {
 							if x, ok := r.Fields[n.Index].(float64); ok {
@@ -200,7 +200,7 @@ func (s *Server) substituted(d *document, c *engine.Cell) string {
 				return
 			}
 		}
-		for _, a := range n.Args {
+		for _, a := range n.Args() {
 			walk(a)
 		}
 	}

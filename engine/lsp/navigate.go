@@ -119,7 +119,7 @@ func occurrences(s *engine.Sheet, x *engine.Cell, sources func(string) *text) []
 				out = append(out, occurrence{r: seg})
 			}
 		}
-		for _, a := range n.Args {
+		for _, a := range n.Args() {
 			walk(a)
 		}
 	}

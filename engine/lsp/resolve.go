@@ -183,7 +183,7 @@ func nodeAt(n *check.Node, l, c int) *check.Node {
 	if n == nil || !contains(n.Range(), l, c) {
 		return nil
 	}
-	for _, a := range n.Args {
+	for _, a := range n.Args() {
 		if m := nodeAt(a, l, c); m != nil {
 			return m
 		}
@@ -289,9 +289,9 @@ func (d *document) nodeTarget(n *check.Node, word string, wr lspRange) *target {
 			}
 		}
 	case check.OpField:
-		if len(n.Args) == 1 && n.Args[0].Op == check.OpCell && int(n.Args[0].Index) < len(cells) {
+		if n.NArg() == 1 && n.Arg(0).Op == check.OpCell && int(n.Arg(0).Index) < len(cells) {
 			field := word[strings.LastIndexByte(word, '.')+1:]
-			return &target{kind: tField, name: field, cell: cells[n.Args[0].Index], rng: wr, node: n}
+			return &target{kind: tField, name: field, cell: cells[n.Arg(0).Index], rng: wr, node: n}
 		}
 	case check.OpParam:
 		return &target{kind: tParam, name: word, rng: wr, node: n}

@@ -106,11 +106,11 @@ func pathOnly(n *check.Node) bool {
 	case check.OpCell:
 		return true
 	case check.OpField, check.OpColumn:
-		return pathOnly(n.Args[0])
+		return pathOnly(n.Arg(0))
 	case check.OpIndex:
-		return pathOnly(n.Args[0]) && n.Args[1].Op == check.OpConst
+		return pathOnly(n.Arg(0)) && n.Arg(1).Op == check.OpConst
 	case check.OpNeg:
-		return pathOnly(n.Args[0])
+		return pathOnly(n.Arg(0))
 	}
 	return false
 }
@@ -275,9 +275,9 @@ func (d *doc) record(c *engine.Cell, r *funcs.RecordValue) {
 		d.math(func(b *strings.Builder) { symbol(b, f.Name) })
 		d.w("</th><td>")
 		switch {
-		case written && i < len(c.Body.Args):
+		case written && i < c.Body.NArg():
 			t := &typesetter{d: d, scope: c.Scope}
-			arg := c.Body.Args[i]
+			arg := c.Body.Arg(i)
 			d.math(func(b *strings.Builder) { t.expr(b, arg, 0) })
 			if arg.Op != check.OpConst {
 				if x, ok := r.Fields[i].(float64); ok {

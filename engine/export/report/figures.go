@@ -480,10 +480,10 @@ func (d *doc) curveFigure(c *engine.Cell, t *funcs.TableValue) {
 // (cells written as squash_load(col, ...) and strain_for_force(col, N),
 // possibly negated), to mark them on the curve.
 func (d *doc) curveMarks(c *engine.Cell, n []float64, fu units.Unit) []mark {
-	if c.Body == nil || c.Body.Op != check.OpPlugin || len(c.Body.Args) == 0 || c.Body.Args[0].Op != check.OpCell {
+	if c.Body == nil || c.Body.Op != check.OpPlugin || c.Body.NArg() == 0 || c.Body.Arg(0).Op != check.OpCell {
 		return nil
 	}
-	col := c.Body.Args[0].Index
+	col := c.Body.Arg(0).Index
 	lo, hi := 0.0, 0.0
 	for _, x := range n {
 		lo, hi = math.Min(lo, x), math.Max(hi, x)
@@ -493,9 +493,9 @@ func (d *doc) curveMarks(c *engine.Cell, n []float64, fu units.Unit) []mark {
 	for _, o := range d.prog.Cells {
 		body, sign := o.Body, 1.0
 		if body != nil && body.Op == check.OpNeg {
-			body, sign = body.Args[0], -1
+			body, sign = body.Arg(0), -1
 		}
-		if body == nil || body.Op != check.OpPlugin || len(body.Args) < 2 || body.Args[0].Op != check.OpCell || body.Args[0].Index != col {
+		if body == nil || body.Op != check.OpPlugin || body.NArg() < 2 || body.Arg(0).Op != check.OpCell || body.Arg(0).Index != col {
 			continue
 		}
 		cr := &d.res.Cells[o.Index]
@@ -512,7 +512,7 @@ func (d *doc) curveMarks(c *engine.Cell, n []float64, fu units.Unit) []mark {
 			l := "squash load " + o.Name + " = " + d.formatSI(q, fu)
 			out = append(out, mark{y: q / fu.Factor, line: true, label: l, long: l})
 		case "strain_for_force":
-			force, ok := d.number(body.Args[1])
+			force, ok := d.number(body.Arg(1))
 			if !ok {
 				continue
 			}
@@ -529,9 +529,9 @@ func (d *doc) curveMarks(c *engine.Cell, n []float64, fu units.Unit) []mark {
 func (d *doc) number(n *check.Node) (float64, bool) {
 	switch n.Op {
 	case check.OpConst:
-		return n.Num, true
+		return n.Num(), true
 	case check.OpNeg:
-		x, ok := d.number(n.Args[0])
+		x, ok := d.number(n.Arg(0))
 		return -x, ok
 	case check.OpCell, check.OpField, check.OpIndex:
 		v, ok := d.eval(n)

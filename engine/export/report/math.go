@@ -114,7 +114,7 @@ func (t *typesetter) node(b *strings.Builder, n *check.Node) {
 	case check.OpConst:
 		t.literal(b, n)
 	case check.OpBool:
-		if n.Num != 0 {
+		if n.Num() != 0 {
 			b.WriteString("<mtext>true</mtext>")
 		} else {
 			b.WriteString("<mtext>false</mtext>")
@@ -131,11 +131,11 @@ func (t *typesetter) node(b *strings.Builder, n *check.Node) {
 		}
 	case check.OpNeg:
 		b.WriteString("<mrow><mo>−</mo>")
-		t.expr(b, n.Args[0], precUnary)
+		t.expr(b, n.Arg(0), precUnary)
 		b.WriteString("</mrow>")
 	case check.OpNot:
 		b.WriteString("<mrow><mo>¬</mo>")
-		t.expr(b, n.Args[0], precUnary)
+		t.expr(b, n.Arg(0), precUnary)
 		b.WriteString("</mrow>")
 	case check.OpAdd, check.OpSub, check.OpMul, check.OpAnd, check.OpOr,
 		check.OpLT, check.OpLE, check.OpGT, check.OpGE, check.OpEQ, check.OpNE:
@@ -145,28 +145,28 @@ func (t *typesetter) node(b *strings.Builder, n *check.Node) {
 			right = p + 1
 		}
 		b.WriteString("<mrow>")
-		t.expr(b, n.Args[0], p)
+		t.expr(b, n.Arg(0), p)
 		b.WriteString("<mo>" + opText[n.Op] + "</mo>")
-		if n.Args[1].Op == check.OpNeg || t.prec(n.Args[1]) == precUnary {
+		if n.Arg(1).Op == check.OpNeg || t.prec(n.Arg(1)) == precUnary {
 			right = precAtom
 		}
-		t.expr(b, n.Args[1], right)
+		t.expr(b, n.Arg(1), right)
 		b.WriteString("</mrow>")
 	case check.OpDiv:
 		b.WriteString("<mfrac><mrow>")
-		t.expr(b, n.Args[0], 0)
+		t.expr(b, n.Arg(0), 0)
 		b.WriteString("</mrow><mrow>")
-		t.expr(b, n.Args[1], 0)
+		t.expr(b, n.Arg(1), 0)
 		b.WriteString("</mrow></mfrac>")
 	case check.OpPow:
-		t.power(b, n.Args[0], n.Args[1])
+		t.power(b, n.Arg(0), n.Arg(1))
 	case check.OpCond:
 		b.WriteString("<mrow>")
-		t.expr(b, n.Args[1], precCond+1)
+		t.expr(b, n.Arg(1), precCond+1)
 		b.WriteString("<mtext>&#x2003;if&#x2003;</mtext>")
-		t.expr(b, n.Args[0], precCond+1)
+		t.expr(b, n.Arg(0), precCond+1)
 		b.WriteString("<mtext>,&#x2003;else&#x2003;</mtext>")
-		t.expr(b, n.Args[2], precCond+1)
+		t.expr(b, n.Arg(2), precCond+1)
 		b.WriteString("</mrow>")
 	case check.OpBuiltin:
 		t.builtin(b, n)
@@ -175,7 +175,7 @@ func (t *typesetter) node(b *strings.Builder, n *check.Node) {
 		if name == "" && n.Op == check.OpUser {
 			name = t.name(t.d.cellName(int(n.Index)))
 		}
-		t.call(b, name, n.Args)
+		t.call(b, name, n.Args())
 	case check.OpFuncRef:
 		name := n.Str()
 		if name == "" {
@@ -184,23 +184,23 @@ func (t *typesetter) node(b *strings.Builder, n *check.Node) {
 		b.WriteString("<mi mathvariant=\"normal\">" + esc(name) + "</mi>")
 	case check.OpField, check.OpColumn:
 		b.WriteString("<mrow>")
-		t.expr(b, n.Args[0], precAtom)
+		t.expr(b, n.Arg(0), precAtom)
 		b.WriteString("<mo lspace=\"0\" rspace=\"0\">.</mo>")
 		symbol(b, memberName(n))
 		b.WriteString("</mrow>")
 	case check.OpIndex:
 		b.WriteString("<mrow>")
-		t.expr(b, n.Args[0], precAtom)
+		t.expr(b, n.Arg(0), precAtom)
 		b.WriteString("<mo>[</mo>")
-		t.expr(b, n.Args[1], 0)
+		t.expr(b, n.Arg(1), 0)
 		b.WriteString("<mo>]</mo></mrow>")
 	case check.OpList:
 		b.WriteString("<mrow><mo>[</mo>")
-		t.list(b, n.Args)
+		t.list(b, n.Args())
 		b.WriteString("<mo>]</mo></mrow>")
 	case check.OpRecord:
 		b.WriteString("<mrow><mo>{</mo>")
-		for i, a := range n.Args {
+		for i, a := range n.Args() {
 			if i > 0 {
 				b.WriteString("<mo separator=\"true\">,</mo>")
 			}
@@ -227,10 +227,10 @@ func (t *typesetter) name(s string) string {
 
 // memberName is the field or column an OpField or OpColumn node reads.
 func memberName(n *check.Node) string {
-	if len(n.Args) == 0 || n.Args[0].Type == nil {
+	if n.NArg() == 0 || n.Arg(0).Type == nil {
 		return "?"
 	}
-	fs := n.Args[0].Type.Fields
+	fs := n.Arg(0).Type.Fields
 	if int(n.Index) < len(fs) {
 		return fs[n.Index].Name
 	}
@@ -238,7 +238,7 @@ func memberName(n *check.Node) string {
 }
 
 func (t *typesetter) power(b *strings.Builder, base, exp *check.Node) {
-	if exp.Op == check.OpConst && exp.Num == 0.5 {
+	if exp.Op == check.OpConst && exp.Num() == 0.5 {
 		b.WriteString("<msqrt>")
 		t.expr(b, base, 0)
 		b.WriteString("</msqrt>")
@@ -268,22 +268,22 @@ func (t *typesetter) power(b *strings.Builder, base, exp *check.Node) {
 
 func (t *typesetter) builtin(b *strings.Builder, n *check.Node) {
 	switch name := n.Str(); {
-	case name == "sqrt" && len(n.Args) == 1:
+	case name == "sqrt" && n.NArg() == 1:
 		b.WriteString("<msqrt>")
-		t.expr(b, n.Args[0], 0)
+		t.expr(b, n.Arg(0), 0)
 		b.WriteString("</msqrt>")
-	case name == "cbrt" && len(n.Args) == 1:
+	case name == "cbrt" && n.NArg() == 1:
 		b.WriteString("<mroot><mrow>")
-		t.expr(b, n.Args[0], 0)
+		t.expr(b, n.Arg(0), 0)
 		b.WriteString("</mrow><mn>3</mn></mroot>")
-	case name == "abs" && len(n.Args) == 1:
+	case name == "abs" && n.NArg() == 1:
 		b.WriteString("<mrow><mo>|</mo>")
-		t.expr(b, n.Args[0], 0)
+		t.expr(b, n.Arg(0), 0)
 		b.WriteString("<mo>|</mo></mrow>")
-	case name == "pow" && len(n.Args) == 2:
-		t.power(b, n.Args[0], n.Args[1])
+	case name == "pow" && n.NArg() == 2:
+		t.power(b, n.Arg(0), n.Arg(1))
 	default:
-		t.call(b, name, n.Args)
+		t.call(b, name, n.Args())
 	}
 }
 
@@ -416,7 +416,7 @@ func (t *typesetter) literal(b *strings.Builder, n *check.Node) {
 	num, unit := splitLiteral(s)
 	if num == "" {
 		if s == "" {
-			number(b, units.FormatNumber(n.Num, 6))
+			number(b, units.FormatNumber(n.Num(), 6))
 			return
 		}
 		b.WriteString("<mtext>" + esc(s) + "</mtext>")
@@ -473,7 +473,7 @@ func splitLiteral(s string) (num, unit string) {
 // than the one of the cell being written.
 func (t *typesetter) inOtherCombo(n *check.Node) bool {
 	for n.Op == check.OpField || n.Op == check.OpIndex || n.Op == check.OpColumn {
-		n = n.Args[0]
+		n = n.Arg(0)
 	}
 	if n.Op != check.OpCell {
 		return false

@@ -132,7 +132,7 @@ func (d *doc) eval(n *check.Node) (funcs.Value, bool) {
 		cr := &d.res.Cells[n.Index]
 		return cr.Value, cr.Known
 	case check.OpField:
-		v, ok := d.eval(n.Args[0])
+		v, ok := d.eval(n.Arg(0))
 		if !ok {
 			return nil, false
 		}
@@ -140,7 +140,7 @@ func (d *doc) eval(n *check.Node) (funcs.Value, bool) {
 			return r.Fields[n.Index], true
 		}
 	case check.OpColumn:
-		v, ok := d.eval(n.Args[0])
+		v, ok := d.eval(n.Arg(0))
 		if !ok {
 			return nil, false
 		}
@@ -148,15 +148,15 @@ func (d *doc) eval(n *check.Node) (funcs.Value, bool) {
 			return t.Cols[n.Index], true
 		}
 	case check.OpIndex:
-		if n.Args[1].Op != check.OpConst {
+		if n.Arg(1).Op != check.OpConst {
 			return nil, false
 		}
-		v, ok := d.eval(n.Args[0])
+		v, ok := d.eval(n.Arg(0))
 		if !ok {
 			return nil, false
 		}
-		i := int(n.Args[1].Num)
-		if float64(i) != n.Args[1].Num || i < 0 {
+		i := int(n.Arg(1).Num())
+		if float64(i) != n.Arg(1).Num() || i < 0 {
 			return nil, false
 		}
 		switch l := v.(type) {

@@ -98,30 +98,30 @@ func (x *exporter) sampleOf(n *check.Node) (u sampleUse, ok bool) {
 	cells := x.s.Program().Cells
 	for depth := 0; n != nil && depth < 32; depth++ {
 		switch {
-		case n.Op == check.OpBuiltin && n.Builtin == check.BAbs && len(n.Args) == 1:
+		case n.Op == check.OpBuiltin && n.Builtin == check.BAbs && n.NArg() == 1:
 			u.abs = true
-			n = n.Args[0]
+			n = n.Arg(0)
 		case n.Op == check.OpCell:
 			c := cells[n.Index]
 			if c.Kind != check.Derived || c.Body == nil {
 				return u, false
 			}
 			n = c.Body
-		case n.Op == check.OpIndex && len(n.Args) == 2 && n.Args[1].Op == check.OpConst:
-			k := n.Args[1].Num
+		case n.Op == check.OpIndex && n.NArg() == 2 && n.Arg(1).Op == check.OpConst:
+			k := n.Arg(1).Num()
 			if k != math.Trunc(k) || k < 0 || k > 1e9 {
 				return u, false
 			}
 			u.how, u.k = 'k', int(k)
-			return u, x.columnOf(n.Args[0], &u)
-		case n.Op == check.OpBuiltin && (n.Builtin == check.BMax || n.Builtin == check.BMin) && len(n.Args) == 1:
+			return u, x.columnOf(n.Arg(0), &u)
+		case n.Op == check.OpBuiltin && (n.Builtin == check.BMax || n.Builtin == check.BMin) && n.NArg() == 1:
 			u.how = '+'
 			if n.Builtin == check.BMin {
 				u.how = '-'
 			}
-			return u, x.columnOf(n.Args[0], &u)
-		case n.Op == check.OpField && n.Args[0].Op == check.OpCell:
-			rec := n.Args[0]
+			return u, x.columnOf(n.Arg(0), &u)
+		case n.Op == check.OpField && n.Arg(0).Op == check.OpCell:
+			rec := n.Arg(0)
 			if rec.Type == nil || rec.Type.Name != "bar_result" {
 				return u, false
 			}
@@ -149,14 +149,14 @@ func (x *exporter) sampleOf(n *check.Node) (u sampleUse, ok bool) {
 
 // columnOf reads res.samples.q (a column of the samples of a cell) into u.
 func (x *exporter) columnOf(n *check.Node, u *sampleUse) bool {
-	if n.Op != check.OpColumn || n.Args[0].Op != check.OpField || n.Args[0].Args[0].Op != check.OpCell {
+	if n.Op != check.OpColumn || n.Arg(0).Op != check.OpField || n.Arg(0).Args()[0].Op != check.OpCell {
 		return false
 	}
-	t := n.Args[0]
-	if t.Type == nil || t.Type.Name != "bar_samples" || t.Args[0].Type == nil || t.Args[0].Type.Name != "bar_result" {
+	t := n.Arg(0)
+	if t.Type == nil || t.Type.Name != "bar_samples" || t.Arg(0).Type == nil || t.Arg(0).Type.Name != "bar_result" {
 		return false
 	}
-	u.table = x.s.Program().Cells[t.Args[0].Index].Name + "." + t.Args[0].Type.Fields[t.Index].Name
+	u.table = x.s.Program().Cells[t.Arg(0).Index].Name + "." + t.Arg(0).Type.Fields[t.Index].Name
 	u.col = t.Type.Fields[n.Index].Name
 	return true
 }
@@ -280,10 +280,10 @@ func (x *exporter) curveMarks(s chartSpec) []chartMark {
 	}
 	cells := x.s.Program().Cells
 	curve := x.pluginCall(cells[owner].Body, "n_eps_curve")
-	if curve == nil || len(curve.Args) == 0 || x.comboDep(owner) {
+	if curve == nil || curve.NArg() == 0 || x.comboDep(owner) {
 		return nil
 	}
-	comp := curve.Args[0]
+	comp := curve.Arg(0)
 	var out []chartMark
 	for k, ch := range x.checks {
 		c := ch.cell
@@ -291,7 +291,7 @@ func (x *exporter) curveMarks(s chartSpec) []chartMark {
 			continue
 		}
 		sq := x.pluginCall(c.Capacity, "squash_load")
-		if sq == nil || len(sq.Args) == 0 || !x.sameCell(sq.Args[0], comp) {
+		if sq == nil || sq.NArg() == 0 || !x.sameCell(sq.Arg(0), comp) {
 			continue
 		}
 		cell, eps, ok := x.strainAt(comp, c, ch)
@@ -336,16 +336,16 @@ func (x *exporter) strainAt(comp *check.Node, c *check.Cell, ch *checkRow) (int,
 		}
 		body, sign := cell.Body, 1.0
 		if body.Op == check.OpNeg {
-			body, sign = body.Args[0], -1
+			body, sign = body.Arg(0), -1
 		}
-		if body.Op != check.OpPlugin || body.Def() == nil || body.Def().Name != "strain_for_force" || len(body.Args) < 2 {
+		if body.Op != check.OpPlugin || body.Def() == nil || body.Def().Name != "strain_for_force" || body.NArg() < 2 {
 			continue
 		}
-		if len(body.Args) > 2 && body.Args[2] != nil && !(body.Args[2].Op == check.OpConst && body.Args[2].Num == 0) {
+		if body.NArg() > 2 && body.Arg(2) != nil && !(body.Arg(2).Op == check.OpConst && body.Arg(2).Num() == 0) {
 			continue // a temperature change: not the curve's strain
 		}
-		f := body.Args[1]
-		if !x.sameCell(body.Args[0], comp) || f.Op != check.OpNeg || !x.sameCell(f.Args[0], c.Demand) {
+		f := body.Arg(1)
+		if !x.sameCell(body.Arg(0), comp) || f.Op != check.OpNeg || !x.sameCell(f.Arg(0), c.Demand) {
 			continue
 		}
 		if x.cellCombo(i) != gov {

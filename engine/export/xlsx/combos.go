@@ -202,7 +202,7 @@ func (x *exporter) comboSubst(c *check.Cell, n *check.Node, v string) (string, b
 		return v, true
 	}
 	for n.Op == check.OpField {
-		n = n.Args[0]
+		n = n.Arg(0)
 	}
 	if n.Op != check.OpCell {
 		return v, true

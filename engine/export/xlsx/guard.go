@@ -108,7 +108,7 @@ func (x *exporter) guardStale() {
 				if x.staleFields == nil {
 					x.staleFields = make([][]int32, n)
 				}
-				x.staleFields[i] = x.staleOf(b.Args...)
+				x.staleFields[i] = x.staleOf(b.Args()...)
 			}
 			continue
 		}
@@ -164,12 +164,12 @@ func (x *exporter) walkRefs(fn func(cell int, live bool), ns ...*check.Node) {
 		case check.OpCell, check.OpUser, check.OpFuncRef:
 			fn(int(n.Index), false)
 		case check.OpField:
-			if a := n.Args[0]; a.Op == check.OpCell && x.liveField[x.tr.path(n)] {
+			if a := n.Arg(0); a.Op == check.OpCell && x.liveField[x.tr.path(n)] {
 				fn(int(a.Index), true)
 				return
 			}
 		}
-		for _, a := range n.Args {
+		for _, a := range n.Args() {
 			walk(a)
 		}
 	}

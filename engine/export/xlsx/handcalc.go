@@ -52,7 +52,7 @@ func (x *exporter) substituted(c *check.Cell, body ...*check.Node) string {
 		case check.OpParam, check.OpFuncRef:
 			return
 		}
-		for i, a := range n.Args {
+		for i, a := range n.Args() {
 			walk(a, i == 0 && (n.Op == check.OpPow || n.Op == check.OpBuiltin && n.Builtin == check.BPow))
 		}
 	}
@@ -140,7 +140,7 @@ func (x *exporter) handCalc(c *check.Cell, expr, result string) string {
 	if sub == "" {
 		sub = expr
 	}
-	if len(c.DepIdx) == 0 && (c.Body == nil || c.Body.Op == check.OpConst || c.Body.Op == check.OpNeg && c.Body.Args[0].Op == check.OpConst) {
+	if len(c.DepIdx) == 0 && (c.Body == nil || c.Body.Op == check.OpConst || c.Body.Op == check.OpNeg && c.Body.Arg(0).Op == check.OpConst) {
 		return ""
 	}
 	line := c.Name + " = " + expr

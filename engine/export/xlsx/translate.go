@@ -75,11 +75,11 @@ func (t *translator) path(n *check.Node) string {
 		}
 		return t.cells[n.Index].Name
 	case check.OpField, check.OpColumn:
-		p := t.path(n.Args[0])
+		p := t.path(n.Arg(0))
 		if p == "" {
 			return ""
 		}
-		return p + "." + n.Args[0].Type.Fields[n.Index].Name
+		return p + "." + n.Arg(0).Type.Fields[n.Index].Name
 	}
 	return ""
 }
@@ -121,12 +121,12 @@ func (t *translator) expr(n *check.Node) (term, error) {
 	}
 	switch n.Op {
 	case check.OpConst:
-		if n.Num == math.Pi {
+		if n.Num() == math.Pi {
 			return term{s: "PI()", atom: true}, nil
 		}
-		return num(n.Num), nil
+		return num(n.Num()), nil
 	case check.OpBool:
-		if n.Num != 0 {
+		if n.Num() != 0 {
 			return term{s: "TRUE", atom: true}, nil
 		}
 		return term{s: "FALSE", atom: true}, nil
@@ -134,9 +134,9 @@ func (t *translator) expr(n *check.Node) (term, error) {
 		if n.Type.Kind != funcs.Number && n.Type.Kind != funcs.Bool {
 			return term{}, fail("its value is a " + n.Type.Kind.String())
 		}
-		if n.Op == check.OpField && n.Args[0].Op == check.OpPlugin {
+		if n.Op == check.OpField && n.Arg(0).Op == check.OpPlugin {
 			// A field of a call written in place: circle(d).A.
-			return t.pluginField(n.Args[0], n.Args[0].Type.Fields[n.Index].Name)
+			return t.pluginField(n.Arg(0), n.Arg(0).Type.Fields[n.Index].Name)
 		}
 		return t.value(n)
 	case check.OpParam:
@@ -146,24 +146,24 @@ func (t *translator) expr(n *check.Node) (term, error) {
 		a := t.args[len(t.args)-1][n.Index]
 		return term{s: a.operand(), atom: true}, nil
 	case check.OpNeg:
-		x, err := t.expr(n.Args[0])
+		x, err := t.expr(n.Arg(0))
 		if err != nil {
 			return x, err
 		}
 		return term{s: "-" + x.operand()}, nil
 	case check.OpNot:
-		x, err := t.expr(n.Args[0])
+		x, err := t.expr(n.Arg(0))
 		if err != nil {
 			return x, err
 		}
 		return term{s: "NOT(" + x.s + ")", atom: true}, nil
 	case check.OpAdd, check.OpSub, check.OpMul, check.OpDiv, check.OpPow,
 		check.OpLT, check.OpLE, check.OpGT, check.OpGE, check.OpEQ, check.OpNE:
-		a, err := t.expr(n.Args[0])
+		a, err := t.expr(n.Arg(0))
 		if err != nil {
 			return a, err
 		}
-		b, err := t.expr(n.Args[1])
+		b, err := t.expr(n.Arg(1))
 		if err != nil {
 			return b, err
 		}
@@ -173,11 +173,11 @@ func (t *translator) expr(n *check.Node) (term, error) {
 		}
 		return term{s: a.operand() + op + b.operand()}, nil
 	case check.OpAnd, check.OpOr:
-		a, err := t.expr(n.Args[0])
+		a, err := t.expr(n.Arg(0))
 		if err != nil {
 			return a, err
 		}
-		b, err := t.expr(n.Args[1])
+		b, err := t.expr(n.Arg(1))
 		if err != nil {
 			return b, err
 		}
@@ -187,7 +187,7 @@ func (t *translator) expr(n *check.Node) (term, error) {
 		}
 		return term{s: fn + a.s + "," + b.s + ")", atom: true}, nil
 	case check.OpCond:
-		xs, err := t.all(n.Args)
+		xs, err := t.all(n.Args())
 		if err != nil {
 			return term{}, err
 		}
@@ -212,13 +212,13 @@ func (t *translator) expr(n *check.Node) (term, error) {
 func (t *translator) plugin(n *check.Node, form string) (term, error) {
 	d := n.Def()
 	s, err := spreadsheetFormula(d, form, func(p funcs.Placeholder) (string, error) {
-		if p.Param >= len(n.Args) || n.Args[p.Param] == nil {
+		if p.Param >= n.NArg() || n.Arg(p.Param) == nil {
 			if p.Default == "" {
 				return "", fail("calls `" + d.Name + "` without an argument its spreadsheet form needs")
 			}
 			return p.Default, nil
 		}
-		a := n.Args[p.Param]
+		a := n.Arg(p.Param)
 		switch {
 		case p.Term >= 0:
 			return t.term(d, a, p.Term)
@@ -355,7 +355,7 @@ func (t *translator) user(n *check.Node) (term, error) {
 	if t.depth > 16 {
 		return term{}, fail("user functions nest too deeply to inline")
 	}
-	args, err := t.all(n.Args)
+	args, err := t.all(n.Args())
 	if err != nil {
 		return term{}, err
 	}
@@ -382,7 +382,7 @@ type list struct {
 func (t *translator) list(n *check.Node) (list, error) {
 	switch n.Op {
 	case check.OpList:
-		xs, err := t.all(n.Args)
+		xs, err := t.all(n.Args())
 		return list{elems: xs}, err
 	case check.OpColumn:
 		p := t.path(n)
@@ -424,13 +424,13 @@ var simple = map[check.Builtin]string{
 // negative numbers as Go's math.Floor does; ROUND rounds half away from
 // zero as Go's math.Round does.
 func (t *translator) builtin(n *check.Node) (term, error) {
-	isList := len(n.Args) == 1 && n.Args[0].Type.Kind == funcs.List
+	isList := n.NArg() == 1 && n.Arg(0).Type.Kind == funcs.List
 	switch n.Builtin {
 	case check.BMin, check.BMax, check.BSum, check.BMean, check.BHypot, check.BLen:
 		fn := map[check.Builtin]string{check.BMin: "MIN", check.BMax: "MAX", check.BSum: "SUM", check.BMean: "AVERAGE", check.BHypot: "SUMSQ", check.BLen: "COUNT"}[n.Builtin]
 		var x term
 		if isList {
-			l, err := t.list(n.Args[0])
+			l, err := t.list(n.Arg(0))
 			if err != nil {
 				return l0(err)
 			}
@@ -449,7 +449,7 @@ func (t *translator) builtin(n *check.Node) (term, error) {
 			}
 			x = call(fn, l.elems...)
 		} else {
-			xs, err := t.all(n.Args)
+			xs, err := t.all(n.Args())
 			if err != nil {
 				return term{}, err
 			}
@@ -462,7 +462,7 @@ func (t *translator) builtin(n *check.Node) (term, error) {
 	case check.BInterp:
 		return t.interp(n)
 	}
-	xs, err := t.all(n.Args)
+	xs, err := t.all(n.Args())
 	if err != nil {
 		return term{}, err
 	}
@@ -499,18 +499,18 @@ func l0(err error) (term, error) { return term{}, err }
 // its condition, would be simpler, but not every calculator evaluates them
 // lazily or as a single value.)
 func (t *translator) interp(n *check.Node) (term, error) {
-	xs, err := t.list(n.Args[0])
+	xs, err := t.list(n.Arg(0))
 	if err != nil {
 		return term{}, err
 	}
-	ys, err := t.list(n.Args[1])
+	ys, err := t.list(n.Arg(1))
 	if err != nil {
 		return term{}, err
 	}
 	if xs.rng == "" || ys.rng == "" || xs.rows < 2 || xs.rows != ys.rows {
 		return term{}, fail("interpolates in a list that is not a table column of two or more rows")
 	}
-	x, err := t.expr(n.Args[2])
+	x, err := t.expr(n.Arg(2))
 	if err != nil {
 		return x, err
 	}

@@ -408,8 +408,8 @@ func (x *exporter) layoutRecord(c *check.Cell, path string, v *funcs.RecordValue
 		}
 		p := path + "." + fld.Name
 		var arg *check.Node
-		if lit != nil && lit.Op == check.OpRecord && i < len(lit.Args) && lit.Type != nil && i < len(lit.Type.Fields) && lit.Type.Fields[i].Name == fld.Name {
-			arg = lit.Args[i]
+		if lit != nil && lit.Op == check.OpRecord && i < lit.NArg() && lit.Type != nil && i < len(lit.Type.Fields) && lit.Type.Fields[i].Name == fld.Name {
+			arg = lit.Arg(i)
 		}
 		fr := calcRow{kind: rowField, row: row, path: p, val: v.Fields[i], input: input, formul: arg, desc: fld.Doc, cell: c.Index}
 		if fld.Type != nil && fld.Type.Kind == funcs.List && fld.Type.Elem != nil {
