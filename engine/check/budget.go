@@ -22,17 +22,31 @@ func (c *checker) budget() {
 		limit = float64(c.opt.MaxSteps)
 	}
 	cost := make([]float64, len(p.Cells)) // steps of one evaluation; +Inf: over budget, reported
-	var size func(n *Node) float64
-	size = func(n *Node) float64 {
-		if n == nil {
-			return 0
-		}
+	var walk func(n *Node) float64
+	walk = func(n *Node) float64 {
 		s := 1.0
 		for k := range n.NArg() {
-			s += size(n.Arg(k))
+			s += walk(n.Arg(k))
 		}
 		if n.Op == OpUser || n.Op == OpFuncRef {
 			s += cost[n.Index]
+		}
+		return s
+	}
+	// steps counts the typed nodes of one formula reached from its roots.
+	// A formula that calls no function of the sheet takes a step per node:
+	// its count, kept while typing, saves a walk over every node of a
+	// large sheet.
+	steps := func(roots ...*Node) float64 {
+		if roots[0] == nil {
+			return 0
+		}
+		if !roots[0].src.calls {
+			return float64(roots[0].src.count)
+		}
+		s := 0.0
+		for _, r := range roots {
+			s += walk(r)
 		}
 		return s
 	}
@@ -41,9 +55,9 @@ func (c *checker) budget() {
 		if cell.Type == nil {
 			continue
 		}
-		s := size(cell.Body) + size(cell.Demand) + size(cell.Capacity)
+		s := steps(cell.Body) + steps(cell.Demand, cell.Capacity) // a check's two sides are one formula
 		for _, e := range cell.Entries {
-			s += size(e.Node)
+			s += steps(e.Node)
 		}
 		if math.IsInf(s, 1) {
 			cost[i] = s // a callee was reported

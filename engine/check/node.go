@@ -64,6 +64,8 @@ type typed struct {
 	f     *formula.Formula
 	prog  *Program // for the names of the cells a node refers to
 	nodes []Node   // len(f.Nodes); a slot is set when its syntax node was typed
+	count int32    // slots set
+	calls bool     // some slot calls a function of the sheet (OpUser, OpFuncRef)
 }
 
 // node returns the typed node standing for syntax node n: brackets and a

@@ -34,6 +34,8 @@ func (t *typer) node(n int32, op Op, ty *funcs.Type) *Node {
 	}
 	r := &t.typed.nodes[n]
 	*r = Node{Op: op, Type: ty, at: n, src: t.typed}
+	t.typed.count++
+	t.typed.calls = t.typed.calls || op == OpUser || op == OpFuncRef
 	return r
 }
 
