@@ -60,7 +60,10 @@ func Sheet(f *sheet.File, opt Options) (*Program, diag.List) {
 	if opt.MaxCells <= 0 {
 		opt.MaxCells = DefaultMaxCells
 	}
-	c := &checker{prog: &Program{File: f, Files: []*sheet.File{f}, ByName: make(map[string]int, len(f.Items))}, opt: opt}
+	// Most items of a sheet are cells: room for them up front (templates
+	// add theirs beyond it).
+	items := min(len(f.Items), opt.MaxCells)
+	c := &checker{prog: &Program{File: f, Files: []*sheet.File{f}, Cells: make([]*Cell, 0, items), ByName: make(map[string]int, items)}, opt: opt}
 	c.collect()
 	if len(c.prog.Cells) > opt.MaxCells {
 		c.errs.Errorf(c.prog.Cells[opt.MaxCells].Range, fmt.Sprintf("a sheet may hold at most %s; this one has %s", countText(opt.MaxCells)+" "+plural.Noun(opt.MaxCells, "cell"), countText(len(c.prog.Cells))),
