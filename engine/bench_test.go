@@ -183,6 +183,34 @@ func BenchmarkRecompute1000(b *testing.B) {
 	}
 }
 
+// BenchmarkRecomputeWide99k sets A, which every chain reads from its
+// tenth cell on, so that a recompute runs most of the sheet (99,001
+// cells): the incremental path over a change that reaches everything.
+func BenchmarkRecomputeWide99k(b *testing.B) {
+	s := compile(b, genSheet(benchChains, benchLen))
+	st := s.NewState()
+	st.Recompute()
+	b.ReportAllocs()
+	for b.Loop() {
+		if err := st.Set("A", 314e-6); err != nil { // its written value, in SI
+			b.Fatal(err)
+		}
+		st.Recompute()
+	}
+	const ran = 1 + benchChains*(benchLen-10)
+	perCell(b, ran)
+	if n := len(st.LastEvaluated()); n != ran {
+		b.Fatalf("recomputed %d cells, want %d", n, ran)
+	}
+	p := make([]float64, benchChains)
+	for k := range p {
+		p[k] = float64(k+1) * 1000
+	}
+	out := make([]float64, benchChains*benchLen)
+	plain(benchChains, benchLen, p, out)
+	checkCell(b, st.Eval(), fmt.Sprintf("c0_%d", benchLen-1), out[benchLen-1])
+}
+
 func BenchmarkPlainGo100k(b *testing.B) {
 	p := make([]float64, benchChains)
 	for k := range p {

@@ -245,3 +245,166 @@ func TestClonesInParallel(t *testing.T) {
 		}
 	}
 }
+
+// TestRecomputeSteps: an incremental Eval after each change gives what a
+// fresh evaluation with the same overrides gives, and lists exactly the
+// cells downstream of the change in Program.Order, through the paths off
+// the fast one: a cell that fails (or becomes NaN or infinite) in the
+// middle of a recompute and recovers later, a cell that failed before and
+// lies outside the change, an overridden cell downstream of the change
+// (the evaluator's own Set takes any cell), function bodies, checks,
+// tables with entries that follow a cell, cells written before the cells
+// they use, and cells that run in another order than they are listed in.
+func TestRecomputeSteps(t *testing.T) {
+	type step struct {
+		reset   bool // Reset cell instead of setting it to v
+		cell    string
+		v       float64
+		unknown []string           // the cells left without a value
+		values  map[string]float64 // hand arithmetic, exact
+	}
+	cases := []struct {
+		name  string
+		src   string
+		steps []step
+		// reordered: the cells of the first step run (in the run order,
+		// reading order here) in another order than Program.Order lists
+		// them, so Last is put back in that order.
+		reordered bool
+	}{
+		{name: "a cell fails mid-recompute and recovers",
+			src: "in0 = 1\nd = 1 / (in0 - 2)\ne = d + in0\nf = in0 * 3\n",
+			steps: []step{
+				{cell: "in0", v: 2, unknown: []string{"d", "e"}, values: map[string]float64{"f": 6}},
+				{cell: "in0", v: 3, values: map[string]float64{"d": 1, "e": 4, "f": 9}},
+			}},
+		{name: "infinite and NaN mid-recompute",
+			src: "x = 1\ny = x * 1e300\nz = y * 1e10\nw = x * 0\n",
+			steps: []step{
+				{cell: "x", v: 2, unknown: []string{"z"}, values: map[string]float64{"y": 2e300, "w": 0}},
+				{cell: "x", v: math.Inf(1), unknown: []string{"y", "z", "w"}},
+				{cell: "x", v: 0.5e-20, values: map[string]float64{"y": 0.5e280, "w": 0}},
+			}},
+		{name: "a cell that failed before, outside the change",
+			src: "zero = 0\nbad = 1 / zero\nin0 = 1\ne = bad + in0\ng = in0 * 2\n",
+			steps: []step{
+				{cell: "in0", v: 4, unknown: []string{"bad", "e"}, values: map[string]float64{"g": 8}},
+			}},
+		{name: "an overridden cell downstream",
+			src: "in0 = 1\nc = in0 * 2\nd = c + in0\n",
+			steps: []step{
+				{cell: "c", v: 7, values: map[string]float64{"c": 7, "d": 8}},
+				{cell: "in0", v: 5, values: map[string]float64{"c": 7, "d": 12}},
+				{reset: true, cell: "c", values: map[string]float64{"c": 10, "d": 15}},
+			}},
+		{name: "a function body reads a cell",
+			src: "k = 3\nf(z) = z * k\nin0 = 2\ny = f(in0) + 1\n",
+			steps: []step{
+				{cell: "k", v: 4, values: map[string]float64{"y": 9}},
+				{cell: "in0", v: 5, values: map[string]float64{"y": 21}},
+			}},
+		{name: "a check",
+			src: "dem = 1\ncap = 2\ncheck u: dem <= cap\n",
+			steps: []step{
+				{cell: "cap", v: 0, unknown: []string{"u"}},
+				{cell: "cap", v: 4, values: map[string]float64{"u": 0.25}},
+			}},
+		{name: "a table with an entry that follows a cell",
+			src: "w = 4\ntable t\n    L [m]  q\n    1      (w)\n    2      3\nn = sum(t.q) + w\n",
+			steps: []step{
+				{cell: "w", v: 6, values: map[string]float64{"n": 15}},
+			}},
+		{name: "cells written before the cells they use",
+			src: "d = c + b\nc = b * 2\nb = in0 + 1\nin0 = 3\n",
+			steps: []step{
+				{cell: "in0", v: 1, values: map[string]float64{"b": 2, "c": 4, "d": 6}},
+			}},
+		{name: "cells run in another order than listed",
+			src:       "in0 = 1\na1 = in0 + 1\na2 = a1 + 1\na3 = a2 + 1\nb1 = in0 * 2\nb2 = b1 + a3\n",
+			reordered: true,
+			steps: []step{
+				{cell: "in0", v: 5, values: map[string]float64{"a3": 8, "b1": 10, "b2": 18}},
+			}},
+	}
+	for _, c := range cases {
+		t.Run(c.name, func(t *testing.T) {
+			m := compile(t, c.src)
+			st := m.NewState()
+			st.Eval()
+			over := map[int]float64{}
+			for k, s := range c.steps {
+				i := cell(t, m, s.cell).Index
+				if s.reset {
+					st.Reset(i)
+					delete(over, i)
+				} else {
+					st.Set(i, s.v)
+					over[i] = s.v
+				}
+				ran := slices.Clone(st.Eval())
+
+				down := downstream(m, []int{i})
+				var want []int
+				for _, j := range m.P.Order {
+					if down[j] {
+						want = append(want, j)
+					}
+				}
+				if !slices.Equal(ran, want) {
+					t.Fatalf("step %d: ran %v, want %v (Program.Order)", k, names(m, ran), names(m, want))
+				}
+				if k == 0 && c.reordered {
+					reading := slices.Sorted(slices.Values(want))
+					if slices.Equal(reading, want) {
+						t.Fatalf("the case does not test a reordering: %v", names(m, want))
+					}
+				}
+
+				fresh := m.NewState()
+				for j, v := range over {
+					fresh.Set(j, v)
+				}
+				fresh.Eval()
+				// The slot of a cell without a value keeps what it held
+				// (nothing reads it), so only known values are compared.
+				for _, cl := range m.P.Cells {
+					j := cl.Index
+					a, b := st.Problem[j], fresh.Problem[j]
+					if st.Known[j] != fresh.Known[j] || (a == nil) != (b == nil) || a != nil && a.Summary != b.Summary ||
+						st.Known[j] && math.Float64bits(st.F.Num[j]) != math.Float64bits(fresh.F.Num[j]) {
+						t.Fatalf("step %d: incremental and fresh differ at %s: known %v/%v, value %g/%g, problem %v/%v",
+							k, cl.Name, st.Known[j], fresh.Known[j], st.F.Num[j], fresh.F.Num[j], a, b)
+					}
+				}
+				for _, name := range s.unknown {
+					if j := cell(t, m, name).Index; st.Known[j] {
+						t.Errorf("step %d: %s has the value %g, want none", k, name, st.F.Num[j])
+					}
+				}
+				for name, v := range s.values {
+					if j := cell(t, m, name).Index; !st.Known[j] || st.F.Num[j] != v {
+						t.Errorf("step %d: %s = %g (known %v), want %g", k, name, st.F.Num[j], st.Known[j], v)
+					}
+				}
+				known := 0
+				for _, cl := range m.P.Cells {
+					if st.Known[cl.Index] {
+						known++
+					}
+				}
+				if want := len(m.P.Cells) - len(s.unknown); known != want {
+					t.Errorf("step %d: %d cells known, want %d", k, known, want)
+				}
+			}
+		})
+	}
+}
+
+// names returns the names of cells idx of m.
+func names(m *eval.Machine, idx []int) []string {
+	out := make([]string, len(idx))
+	for k, i := range idx {
+		out[k] = m.P.Cells[i].Name
+	}
+	return out
+}
