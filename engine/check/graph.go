@@ -4,9 +4,12 @@ import (
 	"strings"
 )
 
-// order computes a topological order (Kahn's algorithm, reading order
-// between independent cells) and reports every cycle once, listing each of
-// its cells with its position.
+// order computes a topological order and reports every cycle once,
+// listing each of its cells with its position. The order is Kahn's, level
+// by level: first every cell that uses no other, in reading order, then
+// each cell as soon as the last cell it uses is placed. It is not reading
+// order: a sheet of independent chains interleaves them (eval schedules its
+// own run order for locality, eval/order.go).
 func (c *checker) order() {
 	p := c.prog
 	n := len(p.Cells)

@@ -134,7 +134,7 @@ type Program struct {
 	Templates []TemplateCombos
 	ByName    map[string]int
 	// Order lists every cell index in a topological order of the
-	// dependency graph (dependencies first; reading order between equals).
+	// dependency graph (dependencies first, level by level; see order).
 	Order []int
 	// Users are the reverse edges: Users[i] lists the cells that use cell i.
 	Users [][]int
