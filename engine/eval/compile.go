@@ -21,11 +21,9 @@ type Machine struct {
 	demand   []numFn
 	capacity []numFn
 	topoPos  []int32
-	// plan is the run order (order.go) with what an evaluation needs of
-	// each cell, read in one pass over contiguous memory; runPos[i] is the
-	// position of cell i in it.
-	plan   []step
-	runPos []int32
+	// plan is p.Order with what the first, full evaluation needs of each
+	// cell, read in one pass over contiguous memory.
+	plan []step
 	// fast[i] is the Number body of cell i when the cell has no other path
 	// (as in plan), else nil; deps[depAt[i]:depAt[i+1]] are its
 	// dependencies. An incremental Eval runs such a cell from these alone,
@@ -71,12 +69,11 @@ func Compile(p *check.Program) *Machine {
 	}
 	// Cells compile in evaluation order, so the closures of cells
 	// evaluated one after the other lie side by side in memory.
-	run := m.schedule()
-	for _, i := range run {
+	for _, i := range p.Order {
 		m.compileCell(p.Cells[i])
 	}
 	m.plan = make([]step, len(p.Order))
-	for k, i := range run {
+	for k, i := range p.Order {
 		c := p.Cells[i]
 		m.plan[k] = step{i: int32(i)}
 		if c.Type == nil {

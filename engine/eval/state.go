@@ -24,10 +24,9 @@ type State struct {
 	// states never write either) and are copied on the first write.
 	ownProblem, ownOver bool
 	dirty               []int
-	// stale has one bit per position of the run order (Machine.plan):
-	// the cells an incremental Eval must run. Reading the bits in order
-	// gives them in a topological order without a sort; Eval leaves every
-	// bit clear.
+	// stale has one bit per position of Program.Order: the cells an
+	// incremental Eval must run. Reading the bits in order gives them in
+	// evaluation order without a sort; Eval leaves every bit clear.
 	stale []uint64
 	done  bool
 	last  []int
@@ -122,10 +121,9 @@ func (s *State) Overridden(i int) bool { return s.over[i] }
 
 // Eval evaluates every stale cell: all of them the first time, then only
 // the cells downstream of inputs set since. It returns the indices of the
-// cells evaluated, in the order of Program.Order (valid until the next
-// Eval; read only: after the first Eval it is the program's Order itself).
-// They run in the run order (see schedule), also one in which every cell
-// comes after the cells it uses, so the values are the same.
+// cells evaluated, in evaluation order, that of Program.Order (valid until
+// the next Eval; read only: after the first Eval it is the program's Order
+// itself).
 func (s *State) Eval() []int {
 	p := s.M.P
 	if !s.done {
@@ -148,7 +146,7 @@ func (s *State) Eval() []int {
 	if s.stale == nil {
 		s.stale = make([]uint64, (len(p.Order)+63)/64)
 	}
-	stale, pos := s.stale, m.runPos
+	stale, pos := s.stale, m.topoPos
 	mark := func(i int) bool {
 		k := pos[i]
 		w, b := k>>6, uint64(1)<<(k&63)
@@ -173,21 +171,15 @@ func (s *State) Eval() []int {
 			}
 		}
 	}
-	// They run in the order of the bits, the run order (see schedule),
-	// and are listed again in s.last as they run.
+	// They run in the order of the bits, Program.Order, and are listed
+	// again in s.last as they run.
 	n := len(s.last)
 	s.last = s.last[:0]
-	topo, prev, sorted := m.topoPos, int32(-1), true
 	for w, word := range stale {
 		for word != 0 {
-			i := int(m.plan[w<<6+bits.TrailingZeros64(word)].i)
+			i := p.Order[w<<6+bits.TrailingZeros64(word)]
 			word &= word - 1
 			s.last = append(s.last, i)
-			if t := topo[i]; t > prev {
-				prev = t
-			} else {
-				sorted = false
-			}
 			if fn := m.fast[i]; fn != nil && !s.over[i] && s.depsKnown(i) {
 				f.Fail, f.Args = nil, nil
 				if v := fn(f); f.Fail == nil && v-v == 0 { // v-v is NaN for NaN and ±Inf
@@ -203,36 +195,10 @@ func (s *State) Eval() []int {
 			break
 		}
 	}
-	if !sorted {
-		s.inOrder()
-	}
 	return s.last
 }
 
-// inOrder puts s.last, the cells an incremental Eval ran, in the order of
-// Program.Order (the order Last reports, whatever order they ran in), with
-// the stale bits (all clear) as scratch.
-func (s *State) inOrder() {
-	p, topo, stale := s.M.P, s.M.topoPos, s.stale
-	for _, i := range s.last {
-		k := topo[i]
-		stale[k>>6] |= 1 << (k & 63)
-	}
-	n := len(s.last)
-	s.last = s.last[:0]
-	for w, word := range stale {
-		for word != 0 {
-			s.last = append(s.last, p.Order[w<<6+bits.TrailingZeros64(word)])
-			word &= word - 1
-		}
-		stale[w] = 0
-		if len(s.last) == n {
-			break
-		}
-	}
-}
-
-// full evaluates every cell in the run order, on a state not yet
+// full evaluates every cell in Program.Order, on a state not yet
 // evaluated (so no cell is known and none has a problem yet). While every
 // cell so far is known, the dependencies of the next one are known too
 // (they come before it in the order), so a Number cell needs no look at

@@ -267,9 +267,9 @@ func TestRecomputeSteps(t *testing.T) {
 		name  string
 		src   string
 		steps []step
-		// reordered: the cells of the first step run (in the run order,
-		// reading order here) in another order than Program.Order lists
-		// them, so Last is put back in that order.
+		// reordered: the cells of the first step run in another order
+		// than they are written (Program.Order puts a cell after the ones
+		// it uses), and Last lists them in the order they ran.
 		reordered bool
 	}{
 		{name: "a cell fails mid-recompute and recovers",
@@ -319,11 +319,11 @@ func TestRecomputeSteps(t *testing.T) {
 			steps: []step{
 				{cell: "in0", v: 1, values: map[string]float64{"b": 2, "c": 4, "d": 6}},
 			}},
-		{name: "cells run in another order than listed",
-			src:       "in0 = 1\na1 = in0 + 1\na2 = a1 + 1\na3 = a2 + 1\nb1 = in0 * 2\nb2 = b1 + a3\n",
+		{name: "cells run in another order than written",
+			src:       "in0 = 1\nb2 = b1 + a1\nb1 = in0 * 2\na1 = in0 + 1\n",
 			reordered: true,
 			steps: []step{
-				{cell: "in0", v: 5, values: map[string]float64{"a3": 8, "b1": 10, "b2": 18}},
+				{cell: "in0", v: 5, values: map[string]float64{"a1": 6, "b1": 10, "b2": 16}},
 			}},
 	}
 	for _, c := range cases {

@@ -1,23 +1,22 @@
-package eval
+package check
 
 import (
 	"slices"
 	"testing"
 
-	"github.com/sheafcalc/sheaf/engine/check"
 	"github.com/sheafcalc/sheaf/engine/sheet"
 )
 
-// TestRunOrder: the run order holds every cell once; each cell comes
+// TestOrder: Program.Order holds every cell once; each cell comes
 // after the cells it uses (read from the names each cell depends on,
 // Program.DepNames, not from the evaluator's edges), unless it lies on a
 // cycle; and cells keep reading order wherever their dependencies allow
 // (a cell's dependencies are placed in their order of first use).
-func TestRunOrder(t *testing.T) {
+func TestOrder(t *testing.T) {
 	cases := []struct {
 		name string
 		src  string
-		want []string // the run order, by name
+		want []string // the order, by name
 	}{
 		{"top down is reading order",
 			"a = 1\nb = a + 1\nc = 2\nd = c + b\n",
@@ -41,22 +40,18 @@ func TestRunOrder(t *testing.T) {
 			if errs.HasErrors() {
 				t.Fatalf("the sheet does not parse: %v", errs)
 			}
-			// A cycle is an error, but the evaluator still receives the
-			// program (its cells are unknown): the errors are not fatal.
-			p, _ := check.Sheet(f, check.Options{})
-			m := Compile(p)
+			// A cycle is an error, but the program still has an order
+			// (its cells are never typed): the errors are not fatal.
+			p, _ := Sheet(f, Options{})
 			var got []string
 			at := map[string]int{}
-			for k, st := range m.plan {
-				name := p.Cells[st.i].Name
+			for k, i := range p.Order {
+				name := p.Cells[i].Name
 				got = append(got, name)
 				at[name] = k
-				if m.runPos[st.i] != int32(k) {
-					t.Errorf("runPos[%s] = %d, but it runs at %d", name, m.runPos[st.i], k)
-				}
 			}
 			if !slices.Equal(got, c.want) {
-				t.Fatalf("run order %v, want %v", got, c.want)
+				t.Fatalf("order %v, want %v", got, c.want)
 			}
 			for _, cell := range p.Cells {
 				for _, d := range p.DepNames(cell) {
