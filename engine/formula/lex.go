@@ -22,11 +22,11 @@ const (
 // token is one token: its kind, its byte span and, for operators, its text.
 type token struct {
 	kind     tokKind
-	from, to int    // byte span in the formula text
+	from, to int32  // byte span in the formula text
 	text     string // the token as written
 	// numbers: the end of the number part, and the start of the unit run
 	// (unitFrom == to when there is none)
-	numEnd, unitFrom int
+	numEnd, unitFrom int32
 }
 
 // words are the operator words of the grammar; they are never units nor
@@ -60,12 +60,12 @@ func (l *lexer) next() token {
 	}
 	start := l.pos
 	if start >= len(s) {
-		return token{kind: tEOF, from: start, to: start}
+		return token{kind: tEOF, from: int32(start), to: int32(start)}
 	}
 	c := s[start]
 	op := func(n int) token {
 		l.pos = start + n
-		return token{kind: tOp, from: start, to: l.pos, text: s[start:l.pos]}
+		return token{kind: tOp, from: int32(start), to: int32(l.pos), text: s[start:l.pos]}
 	}
 	switch {
 	case isDigit(c) || (c == '.' && start+1 < len(s) && isDigit(s[start+1])):
@@ -79,7 +79,7 @@ func (l *lexer) next() token {
 			panic(l.slip(start, j, "unclosed text", "text is written between double quotes on one line, as in \"fixed\"", "close it with `\"`"))
 		}
 		l.pos = j + 1
-		return token{kind: tString, from: start, to: l.pos, text: s[start:l.pos]}
+		return token{kind: tString, from: int32(start), to: int32(l.pos), text: s[start:l.pos]}
 	case c == '_' || c >= utf8.RuneSelf || isLetter(rune(c)):
 		r, _ := utf8.DecodeRuneInString(s[start:])
 		if c != '_' && !isLetter(r) {
@@ -94,7 +94,7 @@ func (l *lexer) next() token {
 			j += n
 		}
 		l.pos = j
-		t := token{kind: tName, from: start, to: j, text: s[start:j]}
+		t := token{kind: tName, from: int32(start), to: int32(j), text: s[start:j]}
 		if words[t.text] {
 			t.kind = tOp
 		}
@@ -195,7 +195,7 @@ func (l *lexer) number() token {
 	if j < len(s) && s[j] == '_' {
 		panic(l.slip(j, j+1, "`_` cannot group the digits of a number", "a number is written with its digits together, as in 1000 or 1e3", "write `"+strings.ReplaceAll(s[start:wordEnd(s, j)], "_", "")+"`"))
 	}
-	t := token{kind: tNumber, from: start, to: j, text: s[start:j], numEnd: j, unitFrom: j}
+	t := token{kind: tNumber, from: int32(start), to: int32(j), text: s[start:j], numEnd: int32(j), unitFrom: int32(j)}
 	k := j
 	for k < len(s) && (s[k] == ' ' || s[k] == '\t') {
 		k++
@@ -216,7 +216,7 @@ func (l *lexer) number() token {
 		l.pos = j
 		return t
 	}
-	t.unitFrom, t.to, t.text = k, e, s[start:e]
+	t.unitFrom, t.to, t.text = int32(k), int32(e), s[start:e]
 	l.pos = e
 	return t
 }
@@ -271,11 +271,11 @@ func isLetter(r rune) bool { return unicode.IsLetter(r) }
 
 // slip is a syntax error found while reading a token.
 func (l *lexer) slip(from, to int, summary, detail, hint string) *syntaxError {
-	return &syntaxError{from: from, to: to, summary: summary, detail: detail, hint: hint}
+	return &syntaxError{from: int32(from), to: int32(to), summary: summary, detail: detail, hint: hint}
 }
 
 // syntaxError is the first problem of a formula; the parser stops there.
 type syntaxError struct {
-	from, to              int
+	from, to              int32
 	summary, detail, hint string
 }

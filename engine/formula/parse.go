@@ -134,7 +134,7 @@ func (p *parser) isOp(s string) bool { return p.tok.kind == tOp && p.tok.text ==
 // add appends a node and returns its index.
 func (p *parser) add(n Node) int32 {
 	if uint(len(p.f.Nodes)) >= p.opt.MaxNodes {
-		panic(&syntaxError{from: int(n.From), to: int(n.To), summary: "the formula is too long",
+		panic(&syntaxError{from: n.From, to: n.To, summary: "the formula is too long",
 			detail: "a formula may hold at most " + strconv.FormatUint(uint64(p.opt.MaxNodes), 10) + " terms", hint: "split it into intermediate cells"})
 	}
 	p.f.Nodes = append(p.f.Nodes, n)
@@ -159,7 +159,7 @@ func (p *parser) leave() { p.depth-- }
 func (p *parser) expression() int32 {
 	p.enter()
 	defer p.leave()
-	c := p.or()
+	c := p.climb(precOr)
 	if !p.isOp("?") {
 		return c
 	}
@@ -178,63 +178,134 @@ func (p *parser) expression() int32 {
 	return p.add(Node{Kind: KCond, From: from, To: to, A: c, B: a, C: b})
 }
 
-// or  = and { "or" and } .
-func (p *parser) or() int32 {
-	x := p.and()
-	for p.isOp("or") {
-		p.next()
-		x = p.binary(OpOr, x, p.and())
+// The binary operators are read by precedence climbing, one loop over the
+// rules of SPEC.md §4 from `or` down to `^`:
+//
+//	or      = and { "or" and } .
+//	and     = not { "and" not } .
+//	not     = "not" not | compare .
+//	compare = sum [ ( "<" | "<=" | ">" | ">=" | "==" | "!=" ) sum ] .
+//	sum     = product { ( "+" | "-" ) product } .
+//	product = unary { ( "*" | "/" ) unary } .
+//	unary   = ( "-" | "+" ) unary | power .
+//	power   = postfix [ "^" unary ] .
+//
+// A level is the rule an operand is read at: precOr reads a whole `or`,
+// precUnary a `unary`. The prefix words and signs have levels of their own
+// between the binary ones, so `not a < b` is not (a < b), `-x^2` is
+// -(x^2), `2^-1` is 2^(-1) and `a^b^c` is a^(b^c). Reading every operand
+// through one loop, rather than down a function per rule, keeps a formula
+// of a large sheet from descending ten calls for each name and number.
+const (
+	precOr = 1 + iota
+	precAnd
+	precNot
+	precCompare
+	precSum
+	precProduct
+	precUnary
+	precPower
+)
+
+// binaryOp returns the operator and the level of the binary operator t
+// (0 when t is not one).
+func binaryOp(t token) (Op, int) {
+	if t.kind != tOp {
+		return OpNone, 0
 	}
-	return x
+	switch t.text {
+	case "or":
+		return OpOr, precOr
+	case "and":
+		return OpAnd, precAnd
+	case "<":
+		return OpLT, precCompare
+	case "<=":
+		return OpLE, precCompare
+	case ">":
+		return OpGT, precCompare
+	case ">=":
+		return OpGE, precCompare
+	case "==":
+		return OpEQ, precCompare
+	case "!=":
+		return OpNE, precCompare
+	case "+":
+		return OpAdd, precSum
+	case "-":
+		return OpSub, precSum
+	case "*":
+		return OpMul, precProduct
+	case "/":
+		return OpDiv, precProduct
+	case "^":
+		return OpPow, precPower
+	}
+	return OpNone, 0
 }
 
-// and = not { "and" not } .
-func (p *parser) and() int32 {
-	x := p.not()
-	for p.isOp("and") {
-		p.next()
-		x = p.binary(OpAnd, x, p.not())
-	}
-	return x
+func isCompare(s string) bool {
+	_, prec := binaryOp(token{kind: tOp, text: s})
+	return prec == precCompare
 }
 
-// not = "not" not | compare .
-func (p *parser) not() int32 {
-	if !p.isOp("not") {
-		return p.compare()
+// climb reads an expression of level at least level (see precOr).
+func (p *parser) climb(level int) int32 {
+	x := p.operand(level)
+	last := precPower + 1 // the level of the operator x was made with
+	for {
+		op, prec := binaryOp(p.tok)
+		// An operator binds here when it is of this level or above and
+		// no tighter than the one before it: the tighter ones were read
+		// by the right operand. Comparisons do not chain, so none follows
+		// a comparison.
+		if prec < level || prec > last || prec == precCompare && last == precCompare {
+			return x
+		}
+		p.next()
+		switch prec {
+		case precPower: // right-associative, and its exponent may have a sign
+			p.enter()
+			x = p.binary(op, x, p.climb(precUnary))
+			p.leave()
+		case precCompare:
+			x = p.binary(op, x, p.climb(precSum))
+			if p.tok.kind == tOp && isCompare(p.tok.text) && !(p.opt.Range && p.depth == 1) {
+				p.fail(p.tok, "comparisons do not chain",
+					"write each comparison on its own and join them: `a < b and b < c`; a check may be written between two limits, `check name: lo <= x <= hi`")
+			}
+		default:
+			x = p.binary(op, x, p.climb(prec+1))
+		}
+		last = prec
 	}
+}
+
+// operand reads the first operand of an expression of level level: a
+// `not` or a sign when the level has room for one, else a postfix.
+func (p *parser) operand(level int) int32 {
+	if p.tok.kind == tOp {
+		switch t := p.tok.text; {
+		case t == "not" && level <= precNot:
+			return p.prefix(OpNot, precNot)
+		case t == "-" && level <= precUnary:
+			return p.prefix(OpNeg, precUnary)
+		case t == "+" && level <= precUnary:
+			return p.prefix(OpPlus, precUnary)
+		}
+	}
+	return p.postfix()
+}
+
+// prefix reads `not x` or a sign and its operand, of level level.
+func (p *parser) prefix(op Op, level int) int32 {
 	from := p.tok.from
 	p.next()
 	p.enter()
 	defer p.leave()
-	x := p.not()
+	x := p.climb(level)
 	_, to := p.span(x)
-	return p.add(Node{Kind: KUnary, Op: OpNot, From: int32(from), To: to, A: x, B: -1, C: -1})
-}
-
-var compareOps = map[string]Op{"<": OpLT, "<=": OpLE, ">": OpGT, ">=": OpGE, "==": OpEQ, "!=": OpNE}
-
-func isCompare(s string) bool { _, ok := compareOps[s]; return ok }
-
-// compare = sum [ ( "<" | "<=" | ">" | ">=" | "==" | "!=" ) sum ] .
-//
-// Comparisons do not chain: `a < b < c` is an error.
-func (p *parser) compare() int32 {
-	x := p.sum()
-	if p.tok.kind != tOp {
-		return x
-	}
-	op, ok := compareOps[p.tok.text]
-	if !ok {
-		return x
-	}
-	p.next()
-	x = p.binary(op, x, p.sum())
-	if p.tok.kind == tOp && isCompare(p.tok.text) && !(p.opt.Range && p.depth == 1) {
-		p.fail(p.tok, "comparisons do not chain",
-			"write each comparison on its own and join them: `a < b and b < c`; a check may be written between two limits, `check name: lo <= x <= hi`")
-	}
-	return x
+	return p.add(Node{Kind: KUnary, Op: op, From: int32(from), To: to, A: x, B: -1, C: -1})
 }
 
 // range = sum ( "<" | "<=" ) sum ( "<" | "<=" ) sum
@@ -243,7 +314,7 @@ func (p *parser) compare() int32 {
 //
 // rangeTail reads the second comparison of a range check.
 func (p *parser) rangeTail(first int32) int32 {
-	op1, op2 := p.f.Nodes[first].Op, compareOps[p.tok.text]
+	op1, op2 := p.f.Nodes[first].Op, compareOp(p.tok.text)
 	t := p.tok
 	up := (op1 == OpLE || op1 == OpLT) && (op2 == OpLE || op2 == OpLT)
 	down := (op1 == OpGE || op1 == OpGT) && (op2 == OpGE || op2 == OpGT)
@@ -252,70 +323,15 @@ func (p *parser) rangeTail(first int32) int32 {
 			"both comparisons of a range point the same way")
 	}
 	p.next()
-	hi := p.sum()
+	hi := p.climb(precSum)
 	fn := p.f.Nodes[first]
 	_, to := p.span(hi)
 	return p.add(Node{Kind: KRange, Op: op1, Op2: op2, From: fn.From, To: to, A: fn.A, B: fn.B, C: hi})
 }
 
-// sum = product { ( "+" | "-" ) product } .
-func (p *parser) sum() int32 {
-	x := p.product()
-	for p.tok.kind == tOp && (p.tok.text == "+" || p.tok.text == "-") {
-		op := OpAdd
-		if p.tok.text == "-" {
-			op = OpSub
-		}
-		p.next()
-		x = p.binary(op, x, p.product())
-	}
-	return x
-}
-
-// product = unary { ( "*" | "/" ) unary } .
-func (p *parser) product() int32 {
-	x := p.unary()
-	for p.tok.kind == tOp && (p.tok.text == "*" || p.tok.text == "/") {
-		op := OpMul
-		if p.tok.text == "/" {
-			op = OpDiv
-		}
-		p.next()
-		x = p.binary(op, x, p.unary())
-	}
-	return x
-}
-
-// unary = ( "-" | "+" ) unary | power .
-func (p *parser) unary() int32 {
-	if p.tok.kind != tOp || (p.tok.text != "-" && p.tok.text != "+") {
-		return p.power()
-	}
-	op := OpNeg
-	if p.tok.text == "+" {
-		op = OpPlus
-	}
-	from := p.tok.from
-	p.next()
-	p.enter()
-	defer p.leave()
-	x := p.unary()
-	_, to := p.span(x)
-	return p.add(Node{Kind: KUnary, Op: op, From: int32(from), To: to, A: x, B: -1, C: -1})
-}
-
-// power = postfix [ "^" unary ] .
-//
-// So `-x^2` is -(x^2), `2^-1` is 2^(-1) and `a^b^c` is a^(b^c).
-func (p *parser) power() int32 {
-	x := p.postfix()
-	if !p.isOp("^") {
-		return x
-	}
-	p.next()
-	p.enter()
-	defer p.leave()
-	return p.binary(OpPow, x, p.unary())
+func compareOp(s string) Op {
+	op, _ := binaryOp(token{kind: tOp, text: s})
+	return op
 }
 
 func (p *parser) binary(op Op, a, b int32) int32 {
@@ -427,7 +443,7 @@ func (p *parser) number() int32 {
 	num := t.text[:t.numEnd-t.from]
 	v, out := parseNumber(num)
 	if out {
-		p.errs.Add(&diag.Diagnostic{Range: p.f.Source.RangeAt(t.from, t.numEnd), Summary: "the number `" + num + "` is out of range",
+		p.errs.Add(&diag.Diagnostic{Range: p.f.Source.RangeAt(int(t.from), int(t.numEnd)), Summary: "the number `" + num + "` is out of range",
 			Detail: "numbers are 64-bit floating point: their magnitude must lie between about 2.2e-308 and 1.8e308", Hint: "check the exponent"})
 	}
 	if t.unitFrom == t.to {
@@ -652,7 +668,7 @@ func needsValue(s string) bool {
 
 func (p *parser) report(se *syntaxError) {
 	e := p.f.Source
-	from, to := min(se.from, len(e.Text)), min(se.to, len(e.Text))
+	from, to := min(int(se.from), len(e.Text)), min(int(se.to), len(e.Text))
 	if from == to && from > 0 {
 		from--
 	}
@@ -664,18 +680,18 @@ func (p *parser) report(se *syntaxError) {
 func (p *parser) unitDiag(t token, err error) *diag.Diagnostic {
 	e := p.f.Source
 	d := &diag.Diagnostic{
-		Range:   e.RangeAt(t.unitFrom, t.to),
+		Range:   e.RangeAt(int(t.unitFrom), int(t.to)),
 		Summary: err.Error(),
 		Detail:  "a number followed by a unit is a quantity: `38 kN`, `4.5 kN/m`, `12e-6 1/K`",
 		Hint:    "to multiply by a cell, write the operator: `2 * x`",
 	}
 	var ue *units.Error
 	if errors.As(err, &ue) {
-		from, to := t.unitFrom+ue.Offset, t.unitFrom+ue.End
+		from, to := int(t.unitFrom)+ue.Offset, int(t.unitFrom)+ue.End
 		if to <= from {
-			to = t.to
+			to = int(t.to)
 		}
-		if from >= t.unitFrom && to <= t.to {
+		if from >= int(t.unitFrom) && to <= int(t.to) {
 			d.Range = e.RangeAt(from, to)
 		}
 		d.Summary = ue.Msg
