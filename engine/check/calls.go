@@ -152,7 +152,9 @@ func (t *typer) pluginCall(n int32, def *funcs.Def, argNodes []int32) *Node {
 	if res == nil {
 		return t.fail(n, def.Name+" returns nothing", "a plugin function must declare its result", "report this to the author of the "+def.Family+" functions")
 	}
-	return t.node(n, OpPlugin, res)
+	r := t.node(n, OpPlugin, res)
+	r.Index = t.c.prog.plugin(def)
+	return r
 }
 
 // argHint says what to pass for a parameter of type want.

@@ -53,7 +53,7 @@ const (
 type Node struct {
 	Op      Op
 	Builtin Builtin // for OpBuiltin
-	Index   int32   // cell, parameter or field index (see Op)
+	Index   int32   // cell, parameter or field index (see Op); for OpPlugin, of Program.plugins
 	at      int32   // the syntax node in src.f
 	Type    *funcs.Type
 	src     *typed
@@ -157,7 +157,7 @@ func (n *Node) Str() string {
 	case OpBuiltin:
 		return builtinNames[n.Builtin]
 	case OpPlugin:
-		return n.src.f.Callee(n.at)
+		return n.Def().Name
 	case OpUser, OpFuncRef:
 		return n.src.prog.Cells[n.Index].Name
 	}
@@ -169,8 +169,7 @@ func (n *Node) Def() *funcs.Def {
 	if n.Op != OpPlugin {
 		return nil
 	}
-	d, _ := funcs.Lookup(n.src.f.Callee(n.at))
-	return d
+	return n.src.prog.plugins[n.Index]
 }
 
 // Formula is the formula the node was typed from.

@@ -141,6 +141,20 @@ type Program struct {
 	// InCombination is set when a formula calls in_combination, so that
 	// a sheet without one is not searched for its calls.
 	InCombination bool
+	// plugins are the plugin functions the formulas call, each once, as
+	// the registry gave them when the sheet was checked (Node.Def).
+	plugins []*funcs.Def
+}
+
+// plugin returns the index of d in p.plugins, adding it when new.
+func (p *Program) plugin(d *funcs.Def) int32 {
+	for i, x := range p.plugins {
+		if x == d {
+			return int32(i)
+		}
+	}
+	p.plugins = append(p.plugins, d)
+	return int32(len(p.plugins) - 1)
 }
 
 // Lookup returns the named cell or nil.
