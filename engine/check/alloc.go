@@ -5,6 +5,7 @@ import (
 	"github.com/sheafcalc/sheaf/engine/sheet"
 	"github.com/sheafcalc/sheaf/engine/units"
 	"github.com/sheafcalc/sheaf/funcs"
+	"github.com/sheafcalc/sheaf/internal/block"
 )
 
 // arena hands out the cells and typed nodes of a program from blocks, and
@@ -16,17 +17,10 @@ import (
 // a few items, so a small sheet stays small. An arena belongs to one
 // checker and is used from one goroutine.
 type arena struct {
-	cells              []cellAndFormula
-	srcs               []typed
-	nodes              []Node
-	cellN, srcN, nodeN int // size of the next block of each kind
-	nums               map[units.Dim]*funcs.Type
-}
-
-// grow doubles a block size, from 16 up to limit, and returns it.
-func grow(size *int, limit int) int {
-	*size = min(max(2**size, 16), limit)
-	return *size
+	cells block.Block[cellAndFormula]
+	srcs  block.Block[typed]
+	nodes block.Block[Node]
+	nums  map[units.Dim]*funcs.Type
 }
 
 // cellAndFormula is a cell with room for its formula, so that the two
@@ -38,35 +32,51 @@ type cellAndFormula struct {
 
 // cellWith returns a new cell whose Formula is an unparsed formula of e.
 func (a *arena) cellWith(e sheet.Expr) *Cell {
-	if len(a.cells) == 0 {
-		a.cells = make([]cellAndFormula, grow(&a.cellN, 256))
-	}
-	x := &a.cells[0]
-	a.cells = a.cells[1:]
+	x := a.cells.One()
 	x.f.Source = e
 	x.cell.Formula = &x.f
 	return &x.cell
 }
 
+// reserveCells makes room for the cells of items (at most limit) in one
+// block, so a file's cells are one allocation rather than a run of
+// doubling blocks, the last of them half empty.
+func (a *arena) reserveCells(items []sheet.Item, limit int) {
+	n := 0
+	for _, it := range items {
+		switch it.(type) {
+		case *sheet.Cell, *sheet.FuncDef, *sheet.Check:
+			n++
+		}
+	}
+	a.cells.Reserve(min(n, limit))
+}
+
+// reserveTyped makes room for the typed nodes of every formula of p in
+// one block: they are all parsed before the first is typed, so their
+// sizes are known.
+func (a *arena) reserveTyped(p *Program) {
+	nodes, formulas := 0, 0
+	add := func(f *formula.Formula) {
+		if f != nil {
+			nodes += len(f.Nodes)
+			formulas++
+		}
+	}
+	for _, c := range p.Cells {
+		add(c.Formula)
+		for _, e := range c.Entries {
+			add(e.Formula)
+		}
+	}
+	a.nodes.Reserve(nodes)
+	a.srcs.Reserve(formulas)
+}
+
 // typed returns room for the typed nodes of f, one slot per syntax node.
 func (a *arena) typed(f *formula.Formula, p *Program) *typed {
-	if len(a.srcs) == 0 {
-		a.srcs = make([]typed, grow(&a.srcN, 256))
-	}
-	s := &a.srcs[0]
-	a.srcs = a.srcs[1:]
-	k := len(f.Nodes)
-	switch {
-	case k > 256:
-		s.nodes = make([]Node, k)
-	default:
-		if len(a.nodes) < k {
-			a.nodes = make([]Node, max(grow(&a.nodeN, 4096), k))
-		}
-		s.nodes = a.nodes[:k:k]
-		a.nodes = a.nodes[k:]
-	}
-	s.f, s.prog = f, p
+	s := a.srcs.One()
+	s.f, s.prog, s.nodes = f, p, a.nodes.Take(len(f.Nodes))
 	return s
 }
 

@@ -76,6 +76,7 @@ func Sheet(f *sheet.File, opt Options) (*Program, diag.List) {
 	c.applyOverrides()
 	c.resolve()
 	c.order()
+	c.arena.reserveTyped(c.prog)
 	c.typeAll()
 	c.budget()
 	c.errs.Sort()
@@ -98,6 +99,7 @@ func (c *checker) collectFile(f *sheet.File, scope string, depth int) {
 	if scope != "" {
 		section = strings.TrimSuffix(scope, ".")
 	}
+	c.arena.reserveCells(f.Items, c.opt.MaxCells+1-len(p.Cells))
 	for _, it := range f.Items {
 		if len(p.Cells) > c.opt.MaxCells {
 			return // reported by Sheet

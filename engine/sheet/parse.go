@@ -5,6 +5,7 @@ import (
 	"strings"
 
 	"github.com/sheafcalc/sheaf/engine/diag"
+	"github.com/sheafcalc/sheaf/internal/block"
 )
 
 // parser holds the state of one Parse call.
@@ -20,8 +21,7 @@ type parser struct {
 	inHeader bool
 	seenMeta map[string]diag.Range
 	// cells hands out the cells of the sheet (see alloc.go).
-	cells     []cellUnit
-	cellBlock int
+	cells block.Block[cellUnit]
 }
 
 // Parse reads a whole sheet.
@@ -34,7 +34,8 @@ type parser struct {
 // go on and report their own problems too. It never panics on any input.
 // A UTF-8 byte order mark and CRLF line breaks are accepted.
 func Parse(name string, src []byte, opts ...Option) (*File, diag.List) {
-	p := &parser{name: name, cfg: newConfig(opts), file: &File{Name: name, Src: src}, inHeader: true}
+	p := &parser{name: name, cfg: newConfig(opts), file: &File{Name: name, Src: src}, inHeader: true,
+		cells: block.Block[cellUnit]{Min: 8, Max: 256}}
 	if len(src) > p.cfg.maxBytes {
 		p.src = diag.NewSource(name, "")
 		p.file.Source = p.src
