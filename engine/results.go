@@ -259,7 +259,7 @@ func (s *Sheet) checkUnit(c *Cell) units.Unit {
 			}
 		}
 	}
-	u, _ := units.Preferred(c.Demand.Type.Dim, s.system)
+	u, _ := units.Preferred(c.Demand.Type().Dim, s.system)
 	if u.Factor == 0 {
 		u.Factor = 1
 	}

@@ -102,5 +102,5 @@ func (s *Sheet) parseValue(label, text string) (funcs.Value, *funcs.Type, error)
 	if fail != nil {
 		return nil, nil, fmt.Errorf("cannot compute %q for `%s`: %s", text, label, fail.Msg)
 	}
-	return v, n.Type, nil
+	return v, n.Type(), nil
 }

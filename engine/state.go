@@ -256,16 +256,16 @@ func (s *Sheet) ParseInput(name, text string) (funcs.Value, error) {
 		// 500 %; the unit is written, not guessed.
 		return nil, fmt.Errorf("`%s` is shown in %s and a plain number is a fraction of one: write the unit, e.g. %s %s", name, c.Unit.Symbol, strings.TrimSpace(text), c.Unit.Symbol)
 	}
-	if c.Type.Kind == funcs.Number && n.Type.Kind == funcs.Number && n.Type.Dim != c.Type.Dim {
+	if c.Type.Kind == funcs.Number && n.Type().Kind == funcs.Number && n.Type().Dim != c.Type.Dim {
 		got := "a plain number"
-		if !n.Type.Dim.IsNone() {
+		if !n.Type().Dim.IsNone() {
 			got = "of another dimension"
 			if len(f.Quantities) == 1 && f.Quantities[0].Unit.Quantity != "" {
 				got = "a " + f.Quantities[0].Unit.Quantity
 			}
 		}
 		hint := ""
-		if n.Type.Dim.IsNone() {
+		if n.Type().Dim.IsNone() {
 			hint = fmt.Sprintf("; write the unit, e.g. %s %s", text, s.DisplayUnit(c).Symbol)
 		}
 		return nil, fmt.Errorf("`%s` must be %s, but %q is %s%s", name, s.describe(c), text, got, hint)

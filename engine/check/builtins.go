@@ -147,8 +147,8 @@ func (t *typer) builtinType(b BuiltinInfo, args []*Node) (*funcs.Type, *argProbl
 		return &argProblem{-1, fmt.Sprintf("%s takes %s %s, got %d", b.Name, want, plural.Noun(lo, "argument"), n), "write " + b.Sig}
 	}
 	num := func(i int) *argProblem {
-		if args[i].Type.Kind != funcs.Number {
-			return &argProblem{i, fmt.Sprintf("%s needs a number, got %s", b.Name, t.describeType(args[i].Type)), "write " + b.Sig}
+		if args[i].Type().Kind != funcs.Number {
+			return &argProblem{i, fmt.Sprintf("%s needs a number, got %s", b.Name, t.describeType(args[i].Type())), "write " + b.Sig}
 		}
 		return nil
 	}
@@ -156,9 +156,9 @@ func (t *typer) builtinType(b BuiltinInfo, args []*Node) (*funcs.Type, *argProbl
 		if p := num(i); p != nil {
 			return p
 		}
-		if !args[i].Type.Dim.IsNone() {
-			return &argProblem{i, fmt.Sprintf("%s needs a plain number, got %s", b.Name, t.describeDim(args[i].Type.Dim)),
-				"divide by a unit to normalise, e.g. " + b.Name + "(x / (1 " + t.unitOf(args[i].Type.Dim) + "))"}
+		if !args[i].Type().Dim.IsNone() {
+			return &argProblem{i, fmt.Sprintf("%s needs a plain number, got %s", b.Name, t.describeDim(args[i].Type().Dim)),
+				"divide by a unit to normalise, e.g. " + b.Name + "(x / (1 " + t.unitOf(args[i].Type().Dim) + "))"}
 		}
 		return nil
 	}
@@ -166,7 +166,7 @@ func (t *typer) builtinType(b BuiltinInfo, args []*Node) (*funcs.Type, *argProbl
 		if p := num(i); p != nil {
 			return p
 		}
-		switch d := args[i].Type.Dim; {
+		switch d := args[i].Type().Dim; {
 		case d == angleDim:
 			return nil
 		case d.IsNone():
@@ -178,8 +178,8 @@ func (t *typer) builtinType(b BuiltinInfo, args []*Node) (*funcs.Type, *argProbl
 		}
 	}
 	list := func(i int) *argProblem {
-		if args[i].Type.Kind != funcs.List || args[i].Type.Elem.Kind != funcs.Number {
-			return &argProblem{i, fmt.Sprintf("%s needs a list of numbers, got %s", b.Name, t.describeType(args[i].Type)), "write " + b.Sig + ", e.g. a table column `tbl.L` or `[1 m, 2 m]`"}
+		if args[i].Type().Kind != funcs.List || args[i].Type().Elem.Kind != funcs.Number {
+			return &argProblem{i, fmt.Sprintf("%s needs a list of numbers, got %s", b.Name, t.describeType(args[i].Type())), "write " + b.Sig + ", e.g. a table column `tbl.L` or `[1 m, 2 m]`"}
 		}
 		return nil
 	}
@@ -188,11 +188,11 @@ func (t *typer) builtinType(b BuiltinInfo, args []*Node) (*funcs.Type, *argProbl
 			if p := num(i); p != nil {
 				return nil, p
 			}
-			if args[i].Type.Dim != args[from].Type.Dim {
-				return nil, &argProblem{i, fmt.Sprintf("%s needs arguments of one dimension: %s and %s", b.Name, t.describeDim(args[from].Type.Dim), t.describeDim(args[i].Type.Dim)), "convert both to the same kind of quantity"}
+			if args[i].Type().Dim != args[from].Type().Dim {
+				return nil, &argProblem{i, fmt.Sprintf("%s needs arguments of one dimension: %s and %s", b.Name, t.describeDim(args[from].Type().Dim), t.describeDim(args[i].Type().Dim)), "convert both to the same kind of quantity"}
 			}
 		}
-		return funcs.Num(args[from].Type.Dim), nil
+		return funcs.Num(args[from].Type().Dim), nil
 	}
 	switch b.ID {
 	case BSqrt, BCbrt:
@@ -206,9 +206,9 @@ func (t *typer) builtinType(b BuiltinInfo, args []*Node) (*funcs.Type, *argProbl
 		if b.ID == BCbrt {
 			den = 3
 		}
-		d, ok := args[0].Type.Dim.Pow(1, den)
+		d, ok := args[0].Type().Dim.Pow(1, den)
 		if !ok {
-			return nil, &argProblem{0, fmt.Sprintf("%s of %s has no dimension Sheaf can write", b.Name, t.describeDim(args[0].Type.Dim)), "normalise first, e.g. " + b.Name + "(x / (1 " + t.unitOf(args[0].Type.Dim) + "))"}
+			return nil, &argProblem{0, fmt.Sprintf("%s of %s has no dimension Sheaf can write", b.Name, t.describeDim(args[0].Type().Dim)), "normalise first, e.g. " + b.Name + "(x / (1 " + t.unitOf(args[0].Type().Dim) + "))"}
 		}
 		return funcs.Num(d), nil
 	case BAbs:
@@ -231,13 +231,13 @@ func (t *typer) builtinType(b BuiltinInfo, args []*Node) (*funcs.Type, *argProbl
 		if args[1].Op != OpString {
 			return nil, &argProblem{1, "in_combination needs the combination as a text in quotes", "write " + b.Sig + "; `sheaf run --combinations` lists the labels"}
 		}
-		return funcs.Num(args[0].Type.Dim), nil
+		return funcs.Num(args[0].Type().Dim), nil
 	case BMin, BMax:
 		if n == 1 {
 			if p := list(0); p != nil {
 				return nil, p
 			}
-			return funcs.Num(args[0].Type.Elem.Dim), nil
+			return funcs.Num(args[0].Type().Elem.Dim), nil
 		}
 		if p := arity(2, -1); p != nil {
 			return nil, p
@@ -291,10 +291,10 @@ func (t *typer) builtinType(b BuiltinInfo, args []*Node) (*funcs.Type, *argProbl
 		}
 		if n == 1 {
 			if p := plain(0); p != nil {
-				if args[0].Type.Kind == funcs.Number {
+				if args[0].Type().Kind == funcs.Number {
 					// round(30.4 deg) would round a number of radians: a step in
 					// the unit says what is rounded.
-					p.hint = "round to a step of the same unit, e.g. round(x, 1 " + t.unitOf(args[0].Type.Dim) + ")"
+					p.hint = "round to a step of the same unit, e.g. round(x, 1 " + t.unitOf(args[0].Type().Dim) + ")"
 				}
 				return nil, p
 			}
@@ -313,10 +313,10 @@ func (t *typer) builtinType(b BuiltinInfo, args []*Node) (*funcs.Type, *argProbl
 		if p := num(2); p != nil {
 			return nil, p
 		}
-		if args[2].Type.Dim != args[0].Type.Elem.Dim {
-			return nil, &argProblem{2, fmt.Sprintf("interp looks up %s in a list of %s", t.describeDim(args[2].Type.Dim), t.describeDim(args[0].Type.Elem.Dim)), "x must have the dimension of xs"}
+		if args[2].Type().Dim != args[0].Type().Elem.Dim {
+			return nil, &argProblem{2, fmt.Sprintf("interp looks up %s in a list of %s", t.describeDim(args[2].Type().Dim), t.describeDim(args[0].Type().Elem.Dim)), "x must have the dimension of xs"}
 		}
-		return funcs.Num(args[1].Type.Elem.Dim), nil
+		return funcs.Num(args[1].Type().Elem.Dim), nil
 	case BSum, BMean:
 		if p := arity(1, 1); p != nil {
 			return nil, p
@@ -324,13 +324,13 @@ func (t *typer) builtinType(b BuiltinInfo, args []*Node) (*funcs.Type, *argProbl
 		if p := list(0); p != nil {
 			return nil, p
 		}
-		return funcs.Num(args[0].Type.Elem.Dim), nil
+		return funcs.Num(args[0].Type().Elem.Dim), nil
 	case BLen:
 		if p := arity(1, 1); p != nil {
 			return nil, p
 		}
-		if args[0].Type.Kind != funcs.List {
-			return nil, &argProblem{0, "len needs a list, got " + t.describeType(args[0].Type), "write len(xs)"}
+		if args[0].Type().Kind != funcs.List {
+			return nil, &argProblem{0, "len needs a list, got " + t.describeType(args[0].Type()), "write len(xs)"}
 		}
 		return numNone, nil
 	}
@@ -346,34 +346,34 @@ type argProblem struct {
 // powType is the rule of x^n and pow(x, n): with a dimensioned x, n must be
 // a constant whose value is a fraction with a small denominator.
 func (t *typer) powType(x, e *Node, what string) (*funcs.Type, *argProblem) {
-	if x.Type.Kind != funcs.Number || e.Type.Kind != funcs.Number {
+	if x.Type().Kind != funcs.Number || e.Type().Kind != funcs.Number {
 		return nil, &argProblem{-1, what + " needs numbers", ""}
 	}
-	if !e.Type.Dim.IsNone() {
-		return nil, &argProblem{1, "an exponent must be a plain number, got " + t.describeDim(e.Type.Dim), "normalise the exponent"}
+	if !e.Type().Dim.IsNone() {
+		return nil, &argProblem{1, "an exponent must be a plain number, got " + t.describeDim(e.Type().Dim), "normalise the exponent"}
 	}
-	if x.Type.Dim.IsNone() {
+	if x.Type().Dim.IsNone() {
 		return numNone, nil
 	}
 	v, ok := fold(e)
 	if !ok {
-		return nil, &argProblem{1, "the exponent of " + t.describeDim(x.Type.Dim) + " must be a constant", "write a number such as 2 or 0.5; to use a computed exponent, normalise the base first: (x / (1 " + t.unitOf(x.Type.Dim) + "))^n"}
+		return nil, &argProblem{1, "the exponent of " + t.describeDim(x.Type().Dim) + " must be a constant", "write a number such as 2 or 0.5; to use a computed exponent, normalise the base first: (x / (1 " + t.unitOf(x.Type().Dim) + "))^n"}
 	}
 	for den := 1; den <= 12; den++ {
 		num := v * float64(den)
 		if math.Abs(num-math.Round(num)) < 1e-9 && math.Abs(num) < 1000 {
 			n := int(math.Round(num))
-			if d, ok := x.Type.Dim.Pow(n, den); ok {
+			if d, ok := x.Type().Dim.Pow(n, den); ok {
 				return funcs.Num(d), nil
 			}
-			if powOverflows(x.Type.Dim, n, den) {
-				return nil, &argProblem{1, fmt.Sprintf("%s to the power %g is beyond the range of dimension exponents", t.describeDim(x.Type.Dim), v),
-					t.overflowHint(x.Type.Dim)}
+			if powOverflows(x.Type().Dim, n, den) {
+				return nil, &argProblem{1, fmt.Sprintf("%s to the power %g is beyond the range of dimension exponents", t.describeDim(x.Type().Dim), v),
+					t.overflowHint(x.Type().Dim)}
 			}
 			break
 		}
 	}
-	return nil, &argProblem{1, fmt.Sprintf("%s to the power %g has no dimension Sheaf can write", t.describeDim(x.Type.Dim), v), "use whole or half powers, or normalise the base"}
+	return nil, &argProblem{1, fmt.Sprintf("%s to the power %g has no dimension Sheaf can write", t.describeDim(x.Type().Dim), v), "use whole or half powers, or normalise the base"}
 }
 
 // powOverflows reports whether d^(num/den) fails only because an exponent
@@ -443,7 +443,7 @@ func (t *typer) dimOverflow(d units.Dim, op string, a, b units.Dim) *argProblem 
 func fold(n *Node) (float64, bool) {
 	switch n.Op {
 	case OpConst:
-		return n.Num(), n.Type.Dim.IsNone()
+		return n.Num(), n.Type().Dim.IsNone()
 	case OpNeg:
 		v, ok := fold(n.Arg(0))
 		return -v, ok

@@ -80,8 +80,8 @@ func (t *typer) userCall(n int32, idx int, fn *Cell, fnType *funcs.Type, argNode
 	}
 	for i, a := range args {
 		p := fn.Params[i]
-		if !p.Type.Accepts(a.Type) {
-			return t.fail(argNodes[i], fmt.Sprintf("argument %s of %s must be %s, got %s", p.Name, fn.Name, t.describeType(p.Type), t.describeType(a.Type)),
+		if !p.Type.Accepts(a.Type()) {
+			return t.fail(argNodes[i], fmt.Sprintf("argument %s of %s must be %s, got %s", p.Name, fn.Name, t.describeType(p.Type), t.describeType(a.Type())),
 				"the function is defined at "+fn.Pos().String(), t.argHint(p.Type))
 		}
 	}
@@ -132,9 +132,9 @@ func (t *typer) pluginCall(n int32, def *funcs.Def, argNodes []int32) *Node {
 			ok = false
 			continue
 		}
-		args[i], types[i] = x, x.Type
-		if p != nil && !p.Type.Accepts(x.Type) {
-			t.fail(a, fmt.Sprintf("%s of %s must be %s, got %s", p.Name, def.Name, t.describeType(p.Type), t.describeType(x.Type)), p.Doc, angleArgHint(p.Type, x.Type)+"see `sheaf funcs "+def.Name+"`")
+		args[i], types[i] = x, x.Type()
+		if p != nil && !p.Type.Accepts(x.Type()) {
+			t.fail(a, fmt.Sprintf("%s of %s must be %s, got %s", p.Name, def.Name, t.describeType(p.Type), t.describeType(x.Type())), p.Doc, angleArgHint(p.Type, x.Type())+"see `sheaf funcs "+def.Name+"`")
 			ok = false
 		}
 	}

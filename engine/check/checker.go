@@ -431,10 +431,10 @@ func (c *checker) typeEntries(cell *Cell, sys units.System) {
 			continue
 		}
 		col := ty.Fields[e.Col]
-		if n.Type.Kind != funcs.Number || n.Type.Dim != col.Type.Dim {
+		if n.Type().Kind != funcs.Number || n.Type().Dim != col.Type.Dim {
 			c.errs.Errorf(e.Formula.Source.Range, "an entry of column `"+col.Name+"` must be "+article(t.describeDim(col.Type.Dim))+", as its header says",
 				"write the entry in the unit of its column's dimension, or correct the formula",
-				"table entry is %s, column `%s` is %s", article(t.describeType(n.Type)), col.Name, article(t.describeDim(col.Type.Dim)))
+				"table entry is %s, column `%s` is %s", article(t.describeType(n.Type())), col.Name, article(t.describeDim(col.Type.Dim)))
 			cell.Type = nil
 			continue
 		}
@@ -643,13 +643,13 @@ func (c *checker) typeCell(t *typer, cell *Cell) {
 			ps[k] = p.Type
 		}
 		cell.Body = body
-		cell.Type = funcs.FuncOf(body.Type, ps...)
+		cell.Type = funcs.FuncOf(body.Type(), ps...)
 	default:
 		body := t.expr(cell.Formula.Root)
 		if body == nil || !c.fitsOverride(t, cell, body) || !c.fitsUnit(t, cell, body) {
 			return
 		}
-		cell.Body, cell.Type = body, body.Type
+		cell.Body, cell.Type = body, body.Type()
 	}
 }
 
@@ -703,23 +703,23 @@ func (c *checker) fitsUnit(t *typer, cell *Cell, body *Node) bool {
 	if !cell.HasUnit {
 		return true
 	}
-	if body.Type.Kind != funcs.Number {
+	if body.Type().Kind != funcs.Number {
 		t.errs.Errorf(cell.Formula.Source.Range, "a display unit applies to a number", "remove [`"+cell.Unit.Symbol+"`]",
-			"display unit %s given for %s", cell.Unit.Symbol, t.describeType(body.Type))
+			"display unit %s given for %s", cell.Unit.Symbol, t.describeType(body.Type()))
 		return false
 	}
-	if body.Type.Dim != cell.Unit.Dim {
+	if body.Type().Dim != cell.Unit.Dim {
 		what := t.describeDim(cell.Unit.Dim)
 		if cell.Unit.Quantity != "" && !cell.Unit.Dim.IsNone() { // not "a dimensionless"
 			what = cell.Unit.Quantity
 		}
-		hint := "write the unit of the result, e.g. [" + t.unitOf(body.Type.Dim) + "], or correct the formula"
-		if body.Type.Dim.IsNone() {
+		hint := "write the unit of the result, e.g. [" + t.unitOf(body.Type().Dim) + "], or correct the formula"
+		if body.Type().Dim.IsNone() {
 			hint = plainNumberHint(cell.Unit, body)
 		}
 		t.errs.Errorf(cell.Formula.Source.Range,
 			"the unit in brackets sets how the value is shown and must have the dimension of the expression",
-			hint, "display unit %s is %s but the expression is %s", cell.Unit.Symbol, article(what), t.describeDim(body.Type.Dim))
+			hint, "display unit %s is %s but the expression is %s", cell.Unit.Symbol, article(what), t.describeDim(body.Type().Dim))
 		return false
 	}
 	if v, ok := bareNumber(cell.Formula); ok && cell.Unit.Dim.IsNone() && cell.Unit.Factor != 1 {
@@ -784,13 +784,13 @@ func (c *checker) typeCheck(t *typer, cell *Cell) {
 	if l == nil || r == nil {
 		return
 	}
-	if l.Type.Kind != funcs.Number || r.Type.Kind != funcs.Number {
-		t.fail(f.Root, "a check compares two numbers", "got "+t.describeType(l.Type)+" and "+t.describeType(r.Type),
+	if l.Type().Kind != funcs.Number || r.Type().Kind != funcs.Number {
+		t.fail(f.Root, "a check compares two numbers", "got "+t.describeType(l.Type())+" and "+t.describeType(r.Type()),
 			"compare a number with a number, e.g. a field `mat.f_y` or an element `xs[0]`")
 		return
 	}
-	if l.Type.Dim != r.Type.Dim {
-		t.fail(f.Root, fmt.Sprintf("cannot compare %s with %s", t.describeDim(l.Type.Dim), t.describeDim(r.Type.Dim)),
+	if l.Type().Dim != r.Type().Dim {
+		t.fail(f.Root, fmt.Sprintf("cannot compare %s with %s", t.describeDim(l.Type().Dim), t.describeDim(r.Type().Dim)),
 			"the demand and the capacity of a check must be the same kind of quantity", "check the units of the two sides")
 		return
 	}

@@ -47,7 +47,8 @@ const (
 // A formula's typed nodes lie in one slice beside its syntax nodes, at the
 // same indices: node i is the type and meaning of syntax node i. What the
 // syntax already holds (the arguments, a literal's value, a name, the
-// span) is read from it rather than copied, so a node is 32 bytes and a
+// span) is read from it rather than copied, and its type is an index into
+// the program's types, so a node is 24 bytes with a single pointer, and a
 // formula's nodes are one allocation. Brackets and a unary plus have no
 // node of their own: they stand for what they enclose.
 type Node struct {
@@ -55,9 +56,12 @@ type Node struct {
 	Builtin Builtin // for OpBuiltin
 	Index   int32   // cell, parameter or field index (see Op); for OpPlugin, of Program.plugins
 	at      int32   // the syntax node in src.f
-	Type    *funcs.Type
+	ty      int32   // the type, in Program.types
 	src     *typed
 }
+
+// Type is the type of the node's value.
+func (n *Node) Type() *funcs.Type { return n.src.prog.types[n.ty] }
 
 // typed is a formula with its typed nodes.
 type typed struct {

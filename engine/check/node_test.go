@@ -32,7 +32,7 @@ func TestNodeCount(t *testing.T) {
 		k := int32(1)
 		for i := range n.NArg() {
 			a := n.Arg(i)
-			if a.src != n.src || a.Type == nil {
+			if a.src != n.src || a.Type() == nil {
 				t.Errorf("%s: argument %d of `%s` is not a typed node of its formula", n.Range().Start(), i, n.Text())
 				return k
 			}

@@ -144,6 +144,25 @@ type Program struct {
 	// plugins are the plugin functions the formulas call, each once, as
 	// the registry gave them when the sheet was checked (Node.Def).
 	plugins []*funcs.Def
+	// types are the types of the typed nodes (Node.Type), each once;
+	// typeAt finds one in it.
+	types  []*funcs.Type
+	typeAt map[*funcs.Type]int32
+}
+
+// typeIndex returns the index of t in p.types, adding it when new. Types
+// are shared by pointer (every number of one dimension has one), so a
+// sheet holds few.
+func (p *Program) typeIndex(t *funcs.Type) int32 {
+	if i, ok := p.typeAt[t]; ok {
+		return i
+	}
+	if p.typeAt == nil {
+		p.typeAt = map[*funcs.Type]int32{}
+	}
+	p.types = append(p.types, t)
+	p.typeAt[t] = int32(len(p.types) - 1)
+	return p.typeAt[t]
 }
 
 // plugin returns the index of d in p.plugins, adding it when new.

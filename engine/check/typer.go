@@ -33,7 +33,7 @@ func (t *typer) node(n int32, op Op, ty *funcs.Type) *Node {
 		t.typed = t.c.arena.typed(t.f, t.c.prog)
 	}
 	r := &t.typed.nodes[n]
-	*r = Node{Op: op, Type: ty, at: n, src: t.typed}
+	*r = Node{Op: op, ty: t.c.prog.typeIndex(ty), at: n, src: t.typed}
 	t.typed.count++
 	t.typed.calls = t.typed.calls || op == OpUser || op == OpFuncRef
 	return r
@@ -68,18 +68,18 @@ func (t *typer) expr(n int32) *Node {
 			return nil
 		}
 		if nd.Op == formula.OpNot {
-			if x.Type.Kind != funcs.Bool {
-				return t.fail(n, "`not` needs a comparison, got "+t.describeType(x.Type), "", "write a comparison after it, as in `not (N > 0)`")
+			if x.Type().Kind != funcs.Bool {
+				return t.fail(n, "`not` needs a comparison, got "+t.describeType(x.Type()), "", "write a comparison after it, as in `not (N > 0)`")
 			}
 			return t.node(n, OpNot, funcs.BoolType)
 		}
-		if x.Type.Kind != funcs.Number {
-			return t.fail(n, "cannot negate "+t.describeType(x.Type), "only numbers have a sign", "negate a number, as in `-mat.E` or `-xs[0]`")
+		if x.Type().Kind != funcs.Number {
+			return t.fail(n, "cannot negate "+t.describeType(x.Type()), "only numbers have a sign", "negate a number, as in `-mat.E` or `-xs[0]`")
 		}
 		if nd.Op == formula.OpPlus {
 			return x
 		}
-		return t.node(n, OpNeg, x.Type)
+		return t.node(n, OpNeg, x.Type())
 	case formula.KBinary:
 		return t.binary(n)
 	case formula.KCond:
@@ -87,13 +87,13 @@ func (t *typer) expr(n int32) *Node {
 		if c == nil || a == nil || b == nil {
 			return nil
 		}
-		if c.Type.Kind != funcs.Bool {
-			return t.fail(nd.A, "the condition of `? :` must be a comparison, got "+t.describeType(c.Type), "", "write e.g. `N > 0 ? a : b`")
+		if c.Type().Kind != funcs.Bool {
+			return t.fail(nd.A, "the condition of `? :` must be a comparison, got "+t.describeType(c.Type()), "", "write e.g. `N > 0 ? a : b`")
 		}
-		if !sameType(a.Type, b.Type) {
-			return t.fail(n, fmt.Sprintf("the two choices of `? :` differ: %s and %s", t.describeType(a.Type), t.describeType(b.Type)), "both results of a choice must be the same kind of quantity", "check the units of the two choices")
+		if !sameType(a.Type(), b.Type()) {
+			return t.fail(n, fmt.Sprintf("the two choices of `? :` differ: %s and %s", t.describeType(a.Type()), t.describeType(b.Type())), "both results of a choice must be the same kind of quantity", "check the units of the two choices")
 		}
-		return t.node(n, OpCond, a.Type)
+		return t.node(n, OpCond, a.Type())
 	case formula.KField, formula.KIndex:
 		return t.member(n)
 	case formula.KCall:
@@ -203,7 +203,7 @@ func (t *typer) binary(n int32) *Node {
 	op := nd.Op.String()
 	switch op {
 	case "and", "or":
-		if a.Type.Kind != funcs.Bool || b.Type.Kind != funcs.Bool {
+		if a.Type().Kind != funcs.Bool || b.Type().Kind != funcs.Bool {
 			return t.fail(n, "`"+op+"` joins comparisons", "both sides must be comparisons such as `a < b`", "compare each value, as in `a > 0 "+op+" b > 0`")
 		}
 		if op == "and" {
@@ -211,20 +211,20 @@ func (t *typer) binary(n int32) *Node {
 		}
 		return t.node(n, OpOr, funcs.BoolType)
 	}
-	if a.Type.Kind != funcs.Number || b.Type.Kind != funcs.Number {
+	if a.Type().Kind != funcs.Number || b.Type().Kind != funcs.Number {
 		bad := a
-		if a.Type.Kind == funcs.Number {
+		if a.Type().Kind == funcs.Number {
 			bad = b
 		}
 		hint := ""
-		if bad.Type.Kind == funcs.Record {
+		if bad.Type().Kind == funcs.Record {
 			hint = "pick a field, e.g. `mat.E`"
-		} else if bad.Type.Kind == funcs.List || bad.Type.Kind == funcs.Table {
+		} else if bad.Type().Kind == funcs.List || bad.Type().Kind == funcs.Table {
 			hint = "reduce the list first, e.g. sum(xs) or max(xs), or pick one element xs[0]"
 		}
-		return t.fail(n, fmt.Sprintf("`%s` needs numbers, got %s", op, t.describeType(bad.Type)), "arithmetic and comparisons work on numbers with units", hint)
+		return t.fail(n, fmt.Sprintf("`%s` needs numbers, got %s", op, t.describeType(bad.Type())), "arithmetic and comparisons work on numbers with units", hint)
 	}
-	da, db := a.Type.Dim, b.Type.Dim
+	da, db := a.Type().Dim, b.Type().Dim
 	switch op {
 	case "+", "-":
 		if da != db {
@@ -236,9 +236,9 @@ func (t *typer) binary(n int32) *Node {
 				"both sides of + and - must be the same kind of quantity", "check the units of the two sides")
 		}
 		if op == "+" {
-			return t.node(n, OpAdd, a.Type)
+			return t.node(n, OpAdd, a.Type())
 		}
-		return t.node(n, OpSub, a.Type)
+		return t.node(n, OpSub, a.Type())
 	case "*", "/":
 		d, o := da.Mul(db), OpMul
 		if op == "/" {
@@ -282,17 +282,17 @@ func (t *typer) member(n int32) *Node {
 	}
 	if nd.Kind == formula.KField {
 		field := t.f.Text(nd.B)
-		switch x.Type.Kind {
+		switch x.Type().Kind {
 		case funcs.Record, funcs.Table:
-			i := x.Type.Field(field)
+			i := x.Type().Field(field)
 			if i < 0 {
-				names := make([]string, len(x.Type.Fields))
-				for j, f := range x.Type.Fields {
+				names := make([]string, len(x.Type().Fields))
+				for j, f := range x.Type().Fields {
 					names[j] = f.Name
 				}
 				hint := "its fields are: " + join(names)
 				what := "record has no field"
-				if x.Type.Kind == funcs.Table {
+				if x.Type().Kind == funcs.Table {
 					hint = "its columns are: " + join(names)
 					what = "table has no column"
 				}
@@ -301,30 +301,30 @@ func (t *typer) member(n int32) *Node {
 				}
 				return t.fail(nd.B, fmt.Sprintf("%s `%s`", what, field), "", hint)
 			}
-			if x.Type.Kind == funcs.Table {
-				r := t.node(n, OpColumn, funcs.ListOf(x.Type.Fields[i].Type))
+			if x.Type().Kind == funcs.Table {
+				r := t.node(n, OpColumn, funcs.ListOf(x.Type().Fields[i].Type))
 				r.Index = int32(i)
 				return r
 			}
-			r := t.node(n, OpField, x.Type.Fields[i].Type)
+			r := t.node(n, OpField, x.Type().Fields[i].Type)
 			r.Index = int32(i)
 			return r
 		}
-		return t.fail(n, "`."+field+"` needs a record or a table, got "+t.describeType(x.Type), "fields belong to records such as `{E: 210 GPa}` and columns to tables",
+		return t.fail(n, "`."+field+"` needs a record or a table, got "+t.describeType(x.Type()), "fields belong to records such as `{E: 210 GPa}` and columns to tables",
 			"remove `."+field+"`, or name a record or table before it")
 	}
 	i := t.expr(nd.B)
 	if i == nil {
 		return nil
 	}
-	if x.Type.Kind != funcs.List {
-		return t.fail(n, "indexing `[i]` needs a list, got "+t.describeType(x.Type), "lists are written `[1 m, 2 m]`; a table's column `t.L` is a list too",
+	if x.Type().Kind != funcs.List {
+		return t.fail(n, "indexing `[i]` needs a list, got "+t.describeType(x.Type()), "lists are written `[1 m, 2 m]`; a table's column `t.L` is a list too",
 			"remove the index, or index a list")
 	}
-	if i.Type.Kind != funcs.Number || !i.Type.Dim.IsNone() {
-		return t.fail(nd.B, "an index must be a plain number, got "+t.describeType(i.Type), "", "the first element is xs[0]")
+	if i.Type().Kind != funcs.Number || !i.Type().Dim.IsNone() {
+		return t.fail(nd.B, "an index must be a plain number, got "+t.describeType(i.Type()), "", "the first element is xs[0]")
 	}
-	return t.node(n, OpIndex, x.Type.Elem)
+	return t.node(n, OpIndex, x.Type().Elem)
 }
 
 func join(xs []string) string {
@@ -352,12 +352,12 @@ func (t *typer) list(n int32) *Node {
 		args = append(args, x)
 	}
 	for i, x := range args[1:] {
-		if !sameType(args[0].Type, x.Type) {
-			return t.fail(items[i+1], fmt.Sprintf("a list holds values of one kind: %s and %s", t.describeType(args[0].Type), t.describeType(x.Type)),
+		if !sameType(args[0].Type(), x.Type()) {
+			return t.fail(items[i+1], fmt.Sprintf("a list holds values of one kind: %s and %s", t.describeType(args[0].Type()), t.describeType(x.Type())),
 				"every item of a list has the unit of the first", "use a record for values of different kinds, as in `{L: 2 m, P: 38 kN}`")
 		}
 	}
-	return t.node(n, OpList, funcs.ListOf(args[0].Type))
+	return t.node(n, OpList, funcs.ListOf(args[0].Type()))
 }
 
 func (t *typer) record(n int32) *Node {
@@ -375,7 +375,7 @@ func (t *typer) record(n int32) *Node {
 			return nil
 		}
 		args = append(args, x)
-		fields = append(fields, funcs.Field{Name: key, Type: x.Type})
+		fields = append(fields, funcs.Field{Name: key, Type: x.Type()})
 	}
 	return t.node(n, OpRecord, funcs.RecordOf("", fields...))
 }

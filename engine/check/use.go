@@ -476,14 +476,14 @@ func (c *checker) fitsOverride(t *typer, cell *Cell, body *Node) bool {
 	var scratch diag.List
 	ot := &typer{c: c, f: r.orig, cell: &Cell{Name: cell.Name, Scope: r.scope}, system: t.system, errs: &scratch}
 	want := ot.expr(r.orig.Root)
-	if want == nil || sameType(want.Type, body.Type) {
+	if want == nil || sameType(want.Type(), body.Type()) {
 		return true // a broken template input is reported when the template is checked alone
 	}
 	local := strings.TrimPrefix(cell.Name, r.scope)
 	written := strings.TrimPrefix(strings.TrimSuffix(r.scope, "."), cell.Scope)
 	hint := "the template writes `" + r.orig.Source.Text + "`; give a value of that kind"
 	t.errs.Errorf(cell.Formula.Source.Range, "a use block replaces an input with a value of the same kind, so that the template's formulas keep their units",
-		hint, "`%s` of template `%s` is %s, but this value is %s", local, written, article(t.describeType(want.Type)), article(t.describeType(body.Type)))
+		hint, "`%s` of template `%s` is %s, but this value is %s", local, written, article(t.describeType(want.Type())), article(t.describeType(body.Type())))
 	return false
 }
 

@@ -62,7 +62,7 @@ var (
 // quantities are just negative where a positive demand is expected.
 func OppositeSense(c *check.Cell) (is, writtenFor string) {
 	dem := c.Demand
-	if dem == nil || dem.Type == nil || (dem.Type.Dim != forceDim && dem.Type.Dim != stressDim) {
+	if dem == nil || dem.Type() == nil || (dem.Type().Dim != forceDim && dem.Type().Dim != stressDim) {
 		return "negative", "a positive demand"
 	}
 	if dem.Op == check.OpNeg {
@@ -98,7 +98,7 @@ func (s *State) Governing(i int) *check.Node {
 	f.Fail = nil
 	defer func() { f.Fail = saved }()
 	for k, a := range n.Args() {
-		if a.Type == nil || a.Type.Kind != funcs.Number {
+		if a.Type() == nil || a.Type().Kind != funcs.Number {
 			return nil
 		}
 		v := s.M.numOf(a)(f)

@@ -24,7 +24,7 @@ func (m *Machine) builtin(n *check.Node) numFn {
 			return g(x)
 		}
 	}
-	isList := n.NArg() == 1 && n.Arg(0).Type.Kind != n.Type.Kind
+	isList := n.NArg() == 1 && n.Arg(0).Type().Kind != n.Type().Kind
 	switch n.Builtin {
 	case check.BInCombo:
 		return m.pin(n)

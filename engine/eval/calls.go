@@ -59,7 +59,7 @@ var framePool = sync.Pool{New: func() any { return &Frame{Stack: make([]float64,
 // value may still allocate its argument slice at the caller; plugins that
 // call in a loop should pass a reused slice with args...).
 func (m *Machine) funcRef(n *check.Node) valFn {
-	idx, name, ty := int(n.Index), n.Str(), n.Type
+	idx, name, ty := int(n.Index), n.Str(), n.Type()
 	return func(f *Frame) funcs.Value {
 		num, val := f.Num, f.Val
 		body := m.num[idx]

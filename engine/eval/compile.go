@@ -127,7 +127,7 @@ func (m *Machine) compileCell(c *check.Cell) {
 		if c.Body == nil {
 			return
 		}
-		switch c.Body.Type.Kind {
+		switch c.Body.Type().Kind {
 		case funcs.Number:
 			m.num[c.Index] = m.numOf(c.Body)
 		case funcs.Bool:
@@ -373,7 +373,7 @@ func (m *Machine) listOf(n *check.Node) func(*Frame) []float64 {
 
 // valOf compiles any node to the general path.
 func (m *Machine) valOf(n *check.Node) valFn {
-	switch n.Type.Kind {
+	switch n.Type().Kind {
 	case funcs.Number:
 		switch n.Op {
 		case check.OpField, check.OpPlugin:
@@ -397,7 +397,7 @@ func (m *Machine) valOf(n *check.Node) valFn {
 		i := n.Index
 		return func(f *Frame) funcs.Value { return f.Val[i] }
 	case check.OpList:
-		if n.Type.Elem.Kind == funcs.Number {
+		if n.Type().Elem.Kind == funcs.Number {
 			xs := m.nums(n.Args())
 			return func(f *Frame) funcs.Value {
 				out := make([]float64, len(xs))
@@ -417,7 +417,7 @@ func (m *Machine) valOf(n *check.Node) valFn {
 		}
 	case check.OpRecord:
 		xs := m.vals(n.Args())
-		ty := n.Type
+		ty := n.Type()
 		return func(f *Frame) funcs.Value {
 			r := &funcs.RecordValue{Type: ty, Fields: make([]funcs.Value, len(xs))}
 			for i, x := range xs {
@@ -497,7 +497,7 @@ func Value(n *check.Node) (funcs.Value, *Failure) {
 	m := &Machine{P: &check.Program{}}
 	f := &Frame{}
 	var v funcs.Value
-	switch n.Type.Kind {
+	switch n.Type().Kind {
 	case funcs.Number:
 		v = m.numOf(n)(f)
 	default:

@@ -239,8 +239,8 @@ func Build(r *engine.Results, exit int) *Document {
 	for _, c := range r.Checks {
 		jc := Check{Name: c.Cell.Name, Known: c.Known, Unit: c.Unit.Symbol, Pass: c.Pass, Verdict: "not assessed",
 			Governing: c.Governing, Description: c.Cell.Description, Reference: c.Cell.Reference}
-		if c.Cell.Demand != nil && c.Cell.Demand.Type != nil {
-			jc.SIUnit = siUnit(c.Cell.Demand.Type.Dim)
+		if c.Cell.Demand != nil && c.Cell.Demand.Type() != nil {
+			jc.SIUnit = siUnit(c.Cell.Demand.Type().Dim)
 		}
 		if c.Known || c.Problem != nil {
 			jc.DemandSI, jc.CapacitySI = num(c.Demand), num(c.Capacity)

@@ -204,8 +204,8 @@ func (t *typesetter) node(b *strings.Builder, n *check.Node) {
 			if i > 0 {
 				b.WriteString("<mo separator=\"true\">,</mo>")
 			}
-			if n.Type != nil && i < len(n.Type.Fields) {
-				symbol(b, n.Type.Fields[i].Name)
+			if n.Type() != nil && i < len(n.Type().Fields) {
+				symbol(b, n.Type().Fields[i].Name)
 				b.WriteString("<mo>:</mo>")
 			}
 			t.expr(b, a, 0)
@@ -227,10 +227,10 @@ func (t *typesetter) name(s string) string {
 
 // memberName is the field or column an OpField or OpColumn node reads.
 func memberName(n *check.Node) string {
-	if n.NArg() == 0 || n.Arg(0).Type == nil {
+	if n.NArg() == 0 || n.Arg(0).Type() == nil {
 		return "?"
 	}
-	fs := n.Arg(0).Type.Fields
+	fs := n.Arg(0).Type().Fields
 	if int(n.Index) < len(fs) {
 		return fs[n.Index].Name
 	}
@@ -245,7 +245,7 @@ func (t *typesetter) power(b *strings.Builder, base, exp *check.Node) {
 		return
 	}
 	b.WriteString("<msup>")
-	if t.subst && base.Type != nil && base.Type.Kind == funcs.Number && (base.Op == check.OpCell || base.Op == check.OpField || base.Op == check.OpIndex) {
+	if t.subst && base.Type() != nil && base.Type().Kind == funcs.Number && (base.Op == check.OpCell || base.Op == check.OpField || base.Op == check.OpIndex) {
 		// a value with its unit: (16 mm)², never 16 mm², which reads as an area
 		var vb strings.Builder
 		if t.value(&vb, base) {
@@ -306,7 +306,7 @@ func (t *typesetter) list(b *strings.Builder, args []*check.Node) {
 // number (a cell, a field of a record, an element of a list) and its value
 // is known; it reports whether it wrote anything.
 func (t *typesetter) value(b *strings.Builder, n *check.Node) bool {
-	if n.Type == nil || n.Type.Kind != funcs.Number {
+	if n.Type() == nil || n.Type().Kind != funcs.Number {
 		return false
 	}
 	var x float64
@@ -350,7 +350,7 @@ func (t *typesetter) value(b *strings.Builder, n *check.Node) bool {
 		if !ok {
 			return false
 		}
-		x, u = f, t.d.unitFor(n.Type.Dim)
+		x, u = f, t.d.unitFor(n.Type().Dim)
 	default:
 		return false
 	}

@@ -122,10 +122,10 @@ func (x *exporter) sampleOf(n *check.Node) (u sampleUse, ok bool) {
 			return u, x.columnOf(n.Arg(0), &u)
 		case n.Op == check.OpField && n.Arg(0).Op == check.OpCell:
 			rec := n.Arg(0)
-			if rec.Type == nil || rec.Type.Name != "bar_result" {
+			if rec.Type() == nil || rec.Type().Name != "bar_result" {
 				return u, false
 			}
-			f, known := sampleFields[rec.Type.Fields[n.Index].Name]
+			f, known := sampleFields[rec.Type().Fields[n.Index].Name]
 			if !known {
 				return u, false
 			}
@@ -153,11 +153,11 @@ func (x *exporter) columnOf(n *check.Node, u *sampleUse) bool {
 		return false
 	}
 	t := n.Arg(0)
-	if t.Type == nil || t.Type.Name != "bar_samples" || t.Arg(0).Type == nil || t.Arg(0).Type.Name != "bar_result" {
+	if t.Type() == nil || t.Type().Name != "bar_samples" || t.Arg(0).Type() == nil || t.Arg(0).Type().Name != "bar_result" {
 		return false
 	}
-	u.table = x.s.Program().Cells[t.Arg(0).Index].Name + "." + t.Arg(0).Type.Fields[t.Index].Name
-	u.col = t.Type.Fields[n.Index].Name
+	u.table = x.s.Program().Cells[t.Arg(0).Index].Name + "." + t.Arg(0).Type().Fields[t.Index].Name
+	u.col = t.Type().Fields[n.Index].Name
 	return true
 }
 

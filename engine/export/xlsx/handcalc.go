@@ -35,7 +35,7 @@ func (x *exporter) substituted(c *check.Cell, body ...*check.Node) string {
 		}
 		switch n.Op {
 		case check.OpCell, check.OpField:
-			if n.Type.Kind == funcs.Number {
+			if n.Type().Kind == funcs.Number {
 				if v, ok := x.pathValue(x.tr.path(n)); ok {
 					if v, ok = x.comboSubst(c, n, v); !ok {
 						mixed = true

@@ -79,7 +79,7 @@ func (t *translator) path(n *check.Node) string {
 		if p == "" {
 			return ""
 		}
-		return p + "." + n.Arg(0).Type.Fields[n.Index].Name
+		return p + "." + n.Arg(0).Type().Fields[n.Index].Name
 	}
 	return ""
 }
@@ -108,7 +108,7 @@ func describeNode(t *translator, n *check.Node) string {
 	case check.OpIndex:
 		return "a list element"
 	}
-	return "a " + n.Type.Kind.String()
+	return "a " + n.Type().Kind.String()
 }
 
 var cmpText = map[check.Op]string{check.OpLT: "<", check.OpLE: "<=", check.OpGT: ">", check.OpGE: ">=", check.OpEQ: "=", check.OpNE: "<>"}
@@ -131,12 +131,12 @@ func (t *translator) expr(n *check.Node) (term, error) {
 		}
 		return term{s: "FALSE", atom: true}, nil
 	case check.OpCell, check.OpField:
-		if n.Type.Kind != funcs.Number && n.Type.Kind != funcs.Bool {
-			return term{}, fail("its value is a " + n.Type.Kind.String())
+		if n.Type().Kind != funcs.Number && n.Type().Kind != funcs.Bool {
+			return term{}, fail("its value is a " + n.Type().Kind.String())
 		}
 		if n.Op == check.OpField && n.Arg(0).Op == check.OpPlugin {
 			// A field of a call written in place: circle(d).A.
-			return t.pluginField(n.Arg(0), n.Arg(0).Type.Fields[n.Index].Name)
+			return t.pluginField(n.Arg(0), n.Arg(0).Type().Fields[n.Index].Name)
 		}
 		return t.value(n)
 	case check.OpParam:
@@ -204,7 +204,7 @@ func (t *translator) expr(n *check.Node) (term, error) {
 	case check.OpIndex:
 		return term{}, fail("picks an element of a list")
 	}
-	return term{}, fail("its value is a " + n.Type.Kind.String())
+	return term{}, fail("its value is a " + n.Type().Kind.String())
 }
 
 // plugin translates a call of a plugin by its spreadsheet form (the
@@ -424,7 +424,7 @@ var simple = map[check.Builtin]string{
 // negative numbers as Go's math.Floor does; ROUND rounds half away from
 // zero as Go's math.Round does.
 func (t *translator) builtin(n *check.Node) (term, error) {
-	isList := n.NArg() == 1 && n.Arg(0).Type.Kind == funcs.List
+	isList := n.NArg() == 1 && n.Arg(0).Type().Kind == funcs.List
 	switch n.Builtin {
 	case check.BMin, check.BMax, check.BSum, check.BMean, check.BHypot, check.BLen:
 		fn := map[check.Builtin]string{check.BMin: "MIN", check.BMax: "MAX", check.BSum: "SUM", check.BMean: "AVERAGE", check.BHypot: "SUMSQ", check.BLen: "COUNT"}[n.Builtin]
@@ -534,7 +534,7 @@ func (t *translator) cellFormula(body *check.Node, f float64) (string, error) {
 		return "", err
 	}
 	s := x.s
-	if f != 1 && body.Type.Kind == funcs.Number {
+	if f != 1 && body.Type().Kind == funcs.Number {
 		s = x.operand() + "/" + num(f).operand()
 	}
 	if len(s) > maxFormulaLen {

@@ -408,7 +408,7 @@ func (x *exporter) layoutRecord(c *check.Cell, path string, v *funcs.RecordValue
 		}
 		p := path + "." + fld.Name
 		var arg *check.Node
-		if lit != nil && lit.Op == check.OpRecord && i < lit.NArg() && lit.Type != nil && i < len(lit.Type.Fields) && lit.Type.Fields[i].Name == fld.Name {
+		if lit != nil && lit.Op == check.OpRecord && i < lit.NArg() && lit.Type() != nil && i < len(lit.Type().Fields) && lit.Type().Fields[i].Name == fld.Name {
 			arg = lit.Arg(i)
 		}
 		fr := calcRow{kind: rowField, row: row, path: p, val: v.Fields[i], input: input, formul: arg, desc: fld.Doc, cell: c.Index}
