@@ -29,9 +29,15 @@ type token struct {
 	numEnd, unitFrom int32
 }
 
-// words are the operator words of the grammar; they are never units nor
-// names.
-var words = map[string]bool{"and": true, "or": true, "not": true, "true": true, "false": true}
+// isWord reports whether s is one of the operator words of the grammar,
+// which are never units nor names.
+func isWord(s string) bool {
+	switch s {
+	case "and", "or", "not", "true", "false":
+		return true
+	}
+	return false
+}
 
 // lexer reads tokens from the formula text.
 type lexer struct {
@@ -63,10 +69,6 @@ func (l *lexer) next() token {
 		return token{kind: tEOF, from: int32(start), to: int32(start)}
 	}
 	c := s[start]
-	op := func(n int) token {
-		l.pos = start + n
-		return token{kind: tOp, from: int32(start), to: int32(l.pos), text: s[start:l.pos]}
-	}
 	switch {
 	case isDigit(c) || (c == '.' && start+1 < len(s) && isDigit(s[start+1])):
 		return l.number()
@@ -87,6 +89,14 @@ func (l *lexer) next() token {
 		}
 		j := start
 		for j < len(s) {
+			if b := s[j]; b < utf8.RuneSelf {
+				// ASCII, the usual case, without decoding a rune.
+				if b != '_' && !isDigit(b) && (b|0x20 < 'a' || b|0x20 > 'z') {
+					break
+				}
+				j++
+				continue
+			}
 			r, n := utf8.DecodeRuneInString(s[j:])
 			if r != '_' && !isLetter(r) && !unicode.IsDigit(r) {
 				break
@@ -95,7 +105,7 @@ func (l *lexer) next() token {
 		}
 		l.pos = j
 		t := token{kind: tName, from: int32(start), to: int32(j), text: s[start:j]}
-		if words[t.text] {
+		if isWord(t.text) {
 			t.kind = tOp
 		}
 		return t
@@ -106,7 +116,7 @@ func (l *lexer) next() token {
 	}
 	switch two {
 	case "<=", ">=", "==", "!=":
-		return op(2)
+		return l.op(start, 2)
 	case "//", "/*":
 		panic(l.slip(start, start+2, "`"+two+"` does not start a comment in a formula",
 			"comments start with # on a line of their own; after `--` a cell takes a description", "move the remark to a `#` line above, or after `--`"))
@@ -127,7 +137,7 @@ func (l *lexer) next() token {
 	}
 	switch c {
 	case '+', '-', '*', '/', '^', '<', '>', '?', ':', ',', '.', '(', ')', '[', ']', '{', '}', '=':
-		return op(1)
+		return l.op(start, 1)
 	case '!':
 		panic(l.slip(start, start+1, "`!` is not an operator in a sheet", "a condition is negated with the word not", "write `not (a > b)`; `!=` compares"))
 	case '|':
@@ -142,6 +152,12 @@ func (l *lexer) next() token {
 		panic(l.slip(start, start+1, "text is written between double quotes", "the sheet language has one kind of text: \"fixed\"", "write \"...\""))
 	}
 	return l.unexpectedRune(start)
+}
+
+// op returns the operator of n bytes at start.
+func (l *lexer) op(start, n int) token {
+	l.pos = start + n
+	return token{kind: tOp, from: int32(start), to: int32(l.pos), text: l.src[start:l.pos]}
 }
 
 func (l *lexer) unexpectedRune(start int) token {
@@ -212,7 +228,7 @@ func (l *lexer) number() token {
 		}
 		e += n
 	}
-	if words[s[k:e]] {
+	if isWord(s[k:e]) {
 		l.pos = j
 		return t
 	}
