@@ -61,7 +61,7 @@ func setupCombos(prog *check.Program) (*Combos, diag.List) {
 	var errs diag.List
 	var acts []*Cell
 	for _, c := range prog.Cells {
-		if c.Action != nil {
+		if c.Extra().Action != nil {
 			acts = append(acts, c)
 		}
 	}
@@ -94,7 +94,7 @@ func setupCombos(prog *check.Program) (*Combos, diag.List) {
 		return nil, errs
 	}
 	if rules == nil {
-		at, hint := acts[0].Action.Kind.Range, "add a header line `combinations: EN 1990 6.10` (or EN 1990 6.10a/b, ASCE 7 LRFD, ASCE 7 ASD)"
+		at, hint := acts[0].Extra().Action.Kind.Range, "add a header line `combinations: EN 1990 6.10` (or EN 1990 6.10a/b, ASCE 7 LRFD, ASCE 7 ASD)"
 		for _, t := range prog.Templates {
 			if t.Combinations != "" {
 				hint = "add the header line `combinations: " + t.Combinations + "` to this sheet, as " + t.File + " has; the using sheet's rules combine its templates' actions"
@@ -110,7 +110,7 @@ func setupCombos(prog *check.Program) (*Combos, diag.List) {
 	}
 	cs := &Combos{Rules: rules, Depends: make([]bool, len(prog.Cells))}
 	for _, c := range acts {
-		k := c.Action.Kind
+		k := c.Extra().Action.Kind
 		cl, _ := combine.ParseClass(k.Class)
 		a := combine.Action{Name: c.Name, Class: cl, High: k.High, Favourable: k.Favourable}
 		if k.Category != "" {
@@ -150,14 +150,14 @@ func setupCombos(prog *check.Program) (*Combos, diag.List) {
 		c := prog.Cells[i]
 		for _, j := range c.DepIdx {
 			if cs.Depends[j] {
-				if c.Action != nil {
+				if c.Extra().Action != nil {
 					errs.Errorf(c.NameRange, "the characteristic value of an action is factored in each combination; one computed from another action would be factored twice",
 						"compute it from cells that are not actions", "action `%s` uses the action `%s`", c.Name, actionUsed(prog, cs.Depends, j))
 				}
 				cs.Depends[i] = true
 			}
 		}
-		if c.Action != nil {
+		if c.Extra().Action != nil {
 			cs.Depends[i] = true
 		}
 	}
@@ -170,8 +170,8 @@ func setupCombos(prog *check.Program) (*Combos, diag.List) {
 		st := StateOf(c)
 		if !slices.Contains(rules.States, st) {
 			at := c.NameRange
-			if c.State != nil {
-				at = c.State.Range
+			if c.Extra().State != nil {
+				at = c.Extra().State.Range
 			}
 			errs.Errorf(at, fmt.Sprintf("%s has combinations for %s", rules.Name, strings.Join(rules.States, ", ")),
 				"write one of those after `in`, or leave it out for the ultimate limit state", "no combinations of %s for the limit state `%s`", rules.Name, st)
@@ -318,7 +318,7 @@ func reachesCheck(prog *check.Program, i int) []int {
 func actionUsed(prog *check.Program, dep []bool, j int) string {
 	for {
 		c := prog.Cells[j]
-		if c.Action != nil {
+		if c.Extra().Action != nil {
 			return c.Name
 		}
 		next := -1

@@ -332,7 +332,7 @@ func inCombo(p *diag.Diagnostic, cs *Combos, g int) *diag.Diagnostic {
 // max(...) of several terms, written in the check or in the cell it names
 // (the cases eval.State.Governing names a term for).
 func capacityChoice(prog *check.Program, c *Cell) bool {
-	n := c.Capacity
+	n := c.Extra().Capacity
 	if n == nil {
 		return false
 	}
@@ -509,7 +509,7 @@ func (st *State) CellCombination(c *Cell) string {
 	if c.Kind == Check {
 		return st.Governing(c)
 	}
-	if c.Action != nil || cm.cellIn[c.Index] < 0 {
+	if c.Extra().Action != nil || cm.cellIn[c.Index] < 0 {
 		return ""
 	}
 	return cs.All[cm.cellIn[c.Index]].Name

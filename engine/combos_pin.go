@@ -50,9 +50,9 @@ func findPins(prog *check.Program, errs *diag.List) []pin {
 	}
 	for _, c := range prog.Cells {
 		walk(c, c.Body)
-		walk(c, c.Demand)
-		walk(c, c.Capacity)
-		for _, e := range c.Entries {
+		walk(c, c.Extra().Demand)
+		walk(c, c.Extra().Capacity)
+		for _, e := range c.Extra().Entries {
 			walk(c, e.Node)
 		}
 	}
@@ -164,15 +164,15 @@ func direct(prog *check.Program, dep []bool, pins []pin) []bool {
 			}
 		}
 		walk(c.Body)
-		walk(c.Demand)
-		walk(c.Capacity)
-		for _, e := range c.Entries {
+		walk(c.Extra().Demand)
+		walk(c.Extra().Capacity)
+		for _, e := range c.Extra().Entries {
 			walk(e.Node)
 		}
 	}
 	for _, i := range prog.Order {
 		c := prog.Cells[i]
-		if c.Action != nil {
+		if c.Extra().Action != nil {
 			d[i] = true
 			continue
 		}

@@ -249,17 +249,17 @@ func (st *State) Update(r *Results, idx []int) {
 // written unit of the capacity or demand cell when the side is a bare cell
 // reference, else the preferred unit.
 func (s *Sheet) checkUnit(c *Cell) units.Unit {
-	if c.Demand == nil {
+	if c.Extra().Demand == nil {
 		return units.Unit{Factor: 1}
 	}
-	for _, side := range []*Node{c.Capacity, c.Demand} {
+	for _, side := range []*Node{c.Extra().Capacity, c.Extra().Demand} {
 		if side.Op == OpCell {
 			if d := s.prog.Cells[side.Index]; d.HasUnit {
 				return d.Unit
 			}
 		}
 	}
-	u, _ := units.Preferred(c.Demand.Type().Dim, s.system)
+	u, _ := units.Preferred(c.Extra().Demand.Type().Dim, s.system)
 	if u.Factor == 0 {
 		u.Factor = 1
 	}

@@ -65,7 +65,7 @@ func (a *arena) reserveTyped(p *Program) {
 	}
 	for _, c := range p.Cells {
 		add(c.Formula)
-		for _, e := range c.Entries {
+		for _, e := range c.Extra().Entries {
 			add(e.Formula)
 		}
 	}

@@ -55,8 +55,8 @@ func (c *checker) budget() {
 		if cell.Type == nil {
 			continue
 		}
-		s := steps(cell.Body) + steps(cell.Demand, cell.Capacity) // a check's two sides are one formula
-		for _, e := range cell.Entries {
+		s := steps(cell.Body) + steps(cell.Extra().Demand, cell.Extra().Capacity) // a check's two sides are one formula
+		for _, e := range cell.Extra().Entries {
 			s += steps(e.Node)
 		}
 		if math.IsInf(s, 1) {

@@ -70,8 +70,8 @@ func (t *typer) args(argNodes []int32) []*Node {
 // userCall types a call of the user function fn (cell idx) whose type is
 // fnType: its own, or the stand-in of a function that failed.
 func (t *typer) userCall(n int32, idx int, fn *Cell, fnType *funcs.Type, argNodes []int32) *Node {
-	if len(argNodes) != len(fn.Params) {
-		return t.fail(n, fmt.Sprintf("%s takes %s, got %d", fn.Name, plural.Count(len(fn.Params), "argument"), len(argNodes)),
+	if len(argNodes) != len(fn.Extra().Params) {
+		return t.fail(n, fmt.Sprintf("%s takes %s, got %d", fn.Name, plural.Count(len(fn.Extra().Params), "argument"), len(argNodes)),
 			"the function is defined at "+fn.Pos().String(), "write "+fn.Name+"("+paramList(fn)+")")
 	}
 	args := t.args(argNodes)
@@ -79,7 +79,7 @@ func (t *typer) userCall(n int32, idx int, fn *Cell, fnType *funcs.Type, argNode
 		return nil
 	}
 	for i, a := range args {
-		p := fn.Params[i]
+		p := fn.Extra().Params[i]
 		if !p.Type.Accepts(a.Type()) {
 			return t.fail(argNodes[i], fmt.Sprintf("argument %s of %s must be %s, got %s", p.Name, fn.Name, t.describeType(p.Type), t.describeType(a.Type())),
 				"the function is defined at "+fn.Pos().String(), t.argHint(p.Type))

@@ -135,12 +135,12 @@ func (c *checker) collectFile(f *sheet.File, scope string, depth int) {
 						q.Unit, q.Type = u, funcs.Num(u.Dim)
 					}
 				}
-				for _, o := range cell.Params {
+				for _, o := range cell.Extra().Params {
 					if o.Name == q.Name {
 						c.errs.Errorf(prm.Name.Range, "each parameter needs its own name", "rename one of them, e.g. `"+q.Name+"_2`", "parameter `%s` is written twice", q.Name)
 					}
 				}
-				cell.Params = append(cell.Params, q)
+				cell.more().Params = append(cell.Extra().Params, q)
 			}
 		case *sheet.Check: // whole as newCell made it
 		case *sheet.Action:
@@ -149,7 +149,7 @@ func (c *checker) collectFile(f *sheet.File, scope string, depth int) {
 			// combine them (engine.setupCombos holds the template's own
 			// header and factor lines to those).
 			cell = c.arena.newCell(&it.Cell)
-			cell.Action = it
+			cell.more().Action = it
 			c.displayUnit(cell, it.Cell.Unit)
 		case *sheet.Factor:
 			if scope == "" {
@@ -253,6 +253,10 @@ func (c *checker) rangeCheck(ck *sheet.Check, cell *Cell) (lo, hi *Cell) {
 	half := func(suffix, limit string, from, to int32) *Cell {
 		body := sheet.Expr{Text: ck.Body.Text[from:to], Range: ck.Body.RangeAt(int(from), int(to))}
 		h := *cell
+		if cell.extra != nil { // each half fills its own sides
+			x := *cell.extra
+			h.extra = &x
+		}
 		h.Name = cell.Name + suffix
 		h.Expr = body.Text
 		h.Formula = &formula.Formula{Source: body}
@@ -289,7 +293,7 @@ func (a *arena) newCell(it sheet.Item) *Cell {
 		cell := a.cellWith(it.Body)
 		cell.Name, cell.Kind, cell.NameRange, cell.Range = it.Name.Name, Check, it.Name.Range, it.Range
 		cell.Expr, cell.Description, cell.Reference = it.Body.Text, it.Annot.Description, it.Annot.Reference
-		cell.State = limitState(it)
+		cell.more().State = limitState(it)
 		return cell
 	}
 	return nil
@@ -393,7 +397,7 @@ func (c *checker) table(cell *Cell, t *sheet.Table) {
 					ok = false
 					continue
 				}
-				cell.Entries = append(cell.Entries, Entry{Row: r, Col: i, Formula: f})
+				cell.more().Entries = append(cell.Extra().Entries, Entry{Row: r, Col: i, Formula: f})
 				val.Cols[i] = append(val.Cols[i], 0) // set at evaluation
 				continue
 			}
@@ -407,7 +411,7 @@ func (c *checker) table(cell *Cell, t *sheet.Table) {
 		}
 	}
 	if ok {
-		cell.Type, cell.Table = ty, val
+		cell.Type, cell.more().Table = ty, val
 	}
 }
 
@@ -422,8 +426,8 @@ func (c *checker) typeEntries(cell *Cell, sys units.System) {
 		}
 	}
 	ty := cell.Type // the columns; every entry is typed, each failure reported
-	for k := range cell.Entries {
-		e := &cell.Entries[k]
+	for k := range cell.Extra().Entries {
+		e := &cell.Extra().Entries[k]
 		t := &typer{c: c, f: e.Formula, cell: cell, system: sys, errs: &c.errs}
 		n := t.expr(e.Formula.Root)
 		if n == nil {
@@ -441,7 +445,7 @@ func (c *checker) typeEntries(cell *Cell, sys units.System) {
 		e.Node = n
 	}
 	if cell.Type == nil {
-		cell.Table = nil
+		cell.more().Table = nil
 	}
 }
 
@@ -501,7 +505,7 @@ func (c *checker) resolveCell(i int, seen []int32) {
 	if cell.Formula != nil {
 		c.resolveRefs(i, cell.Formula, seen)
 	}
-	for _, e := range cell.Entries {
+	for _, e := range cell.Extra().Entries {
 		c.resolveRefs(i, e.Formula, seen)
 	}
 	if cell.Kind == Derived && len(cell.DepIdx) == 0 {
@@ -530,7 +534,7 @@ func (c *checker) resolveRefs(i int, f *formula.Formula, seen []int32) {
 }
 
 func isParam(cell *Cell, name string) bool {
-	for _, p := range cell.Params {
+	for _, p := range cell.Extra().Params {
 		if p.Name == name {
 			return true
 		}
@@ -592,7 +596,7 @@ func (c *checker) typeAll() {
 func (c *checker) typeOne(i int, sys units.System) {
 	cell := c.prog.Cells[i]
 	if cell.Kind == Table {
-		if len(cell.Entries) > 0 && cell.Type != nil {
+		if len(cell.Extra().Entries) > 0 && cell.Type != nil {
 			c.typeEntries(cell, sys)
 		}
 		return // typed when read
@@ -613,7 +617,7 @@ func (c *checker) typeOne(i int, sys units.System) {
 			}
 		}
 	}
-	t := &typer{c: c, f: cell.Formula, cell: cell, params: cell.Params, system: sys, errs: &c.errs}
+	t := &typer{c: c, f: cell.Formula, cell: cell, params: cell.Extra().Params, system: sys, errs: &c.errs}
 	if blocked {
 		// A dependency failed unseen: type anyway to find this cell's
 		// own problems, but keep them to itself.
@@ -638,8 +642,8 @@ func (c *checker) typeCell(t *typer, cell *Cell) {
 		if body == nil || !c.fitsUnit(t, cell, body) {
 			return
 		}
-		ps := make([]*funcs.Type, len(cell.Params))
-		for k, p := range cell.Params {
+		ps := make([]*funcs.Type, len(cell.Extra().Params))
+		for k, p := range cell.Extra().Params {
 			ps[k] = p.Type
 		}
 		cell.Body = body
@@ -666,8 +670,8 @@ func (c *checker) standInFor(cell *Cell, found *funcs.Type, blocked bool) {
 		if c.badParams[cell] {
 			return // a parameter's unit did not parse: its dimension is unknown
 		}
-		ps := make([]*funcs.Type, len(cell.Params))
-		for k, p := range cell.Params {
+		ps := make([]*funcs.Type, len(cell.Extra().Params))
+		for k, p := range cell.Extra().Params {
 			ps[k] = p.Type
 		}
 		ty = funcs.FuncOf(c.arena.num(cell.Unit.Dim), ps...)
@@ -794,11 +798,12 @@ func (c *checker) typeCheck(t *typer, cell *Cell) {
 			"the demand and the capacity of a check must be the same kind of quantity", "check the units of the two sides")
 		return
 	}
-	cell.Op = b.Op.String()
+	x := cell.more()
+	x.Op = b.Op.String()
 	if b.Op == formula.OpLE || b.Op == formula.OpLT {
-		cell.Demand, cell.Capacity = l, r
+		x.Demand, x.Capacity = l, r
 	} else {
-		cell.Demand, cell.Capacity = r, l
+		x.Demand, x.Capacity = r, l
 	}
 	cell.Type = numNone
 }

@@ -58,8 +58,8 @@ func TestNodeCount(t *testing.T) {
 			if c.Type == nil {
 				continue
 			}
-			roots := [][]*Node{{c.Body}, {c.Demand, c.Capacity}}
-			for _, e := range c.Entries {
+			roots := [][]*Node{{c.Body}, {c.Extra().Demand, c.Extra().Capacity}}
+			for _, e := range c.Extra().Entries {
 				roots = append(roots, []*Node{e.Node})
 			}
 			for _, rs := range roots {

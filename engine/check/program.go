@@ -41,13 +41,13 @@ type Meta struct {
 type Cell struct {
 	Name        string
 	Kind        Kind
+	HasUnit     bool   // a display unit was written
 	Index       int    // position in Program.Cells (reading order)
 	Section     string // text of the heading above it, "" before the first
 	Description string
 	Reference   string
 	Expr        string     // the expression as written ("" for a table)
 	Unit        units.Unit // display unit; Symbol as written; zero when none
-	HasUnit     bool       // a display unit was written
 	Type        *funcs.Type
 	Range       diag.Range // the whole item
 	NameRange   diag.Range
@@ -61,9 +61,22 @@ type Cell struct {
 
 	// Body is the typed tree of the value (Input, Derived, Function).
 	Body *Node
+	// extra holds what a check, function, table or action cell has
+	// beyond that; nil for an input or a derived cell, which are most of
+	// a large sheet (Extra reads it).
+	extra *Extra
+}
+
+// Extra is what some kinds of cell have beyond a name, a formula and its
+// typed tree. It lies apart from Cell, which inputs and derived cells (most
+// of a sheet) fill without it: a cell is 104 bytes smaller for them.
+type Extra struct {
 	// Check cells: the two sides and the operator as written ("<=" or ">=").
 	Demand, Capacity *Node
 	Op               string
+	// State is the limit state a check names after `in` (nil for the
+	// default one); Cell.LimitState gives its name.
+	State *sheet.Ident
 	// Function cells: the parameters.
 	Params []Param
 	// Table cells: the value, in SI. An entry written as an expression
@@ -73,9 +86,24 @@ type Cell struct {
 	// Action is the item of an action cell (`action permanent G = ...`),
 	// nil for every other cell.
 	Action *sheet.Action
-	// State is the limit state a check names after `in` (nil for the
-	// default one); LimitState gives its name.
-	State *sheet.Ident
+}
+
+// Extra returns what the cell has beyond its value's formula (see Extra);
+// the zero Extra for an input or a derived cell. It is a copy: the checker
+// alone fills a cell.
+func (c *Cell) Extra() Extra {
+	if c.extra == nil {
+		return Extra{}
+	}
+	return *c.extra
+}
+
+// more returns the cell's Extra for the checker to fill, made on first use.
+func (c *Cell) more() *Extra {
+	if c.extra == nil {
+		c.extra = new(Extra)
+	}
+	return c.extra
 }
 
 // Pos is where the cell's name is.
@@ -84,10 +112,10 @@ func (c *Cell) Pos() diag.Pos { return c.NameRange.Start() }
 // LimitState is the limit state a check names after `in` ("" for the
 // default one).
 func (c *Cell) LimitState() string {
-	if c.State == nil {
+	if c.extra == nil || c.extra.State == nil {
 		return ""
 	}
-	return c.State.Name
+	return c.extra.State.Name
 }
 
 // DepNames returns the names of the cells c uses, in order of first use.

@@ -172,7 +172,7 @@ func (t *typer) depIndex(name string) (int, bool) {
 
 func paramList(c *Cell) string {
 	s := ""
-	for i, p := range c.Params {
+	for i, p := range c.Extra().Params {
 		if i > 0 {
 			s += ", "
 		}

@@ -207,8 +207,8 @@ func formula(c *engine.Cell) string {
 	if c.Kind != engine.Function {
 		return c.Expr
 	}
-	ps := make([]string, len(c.Params))
-	for i, p := range c.Params {
+	ps := make([]string, len(c.Extra().Params))
+	for i, p := range c.Extra().Params {
 		ps[i] = p.Name
 		if p.Unit.Symbol != "" {
 			ps[i] += " [" + p.Unit.Symbol + "]"

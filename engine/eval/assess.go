@@ -41,7 +41,7 @@ func Assess(c *check.Cell, d, cp float64) *diag.Diagnostic {
 		is, written := OppositeSense(c)
 		return &diag.Diagnostic{Range: r,
 			Summary: "check `" + c.Name + "` not assessed: demand is " + is + "; this check is written for " + written,
-			Detail: "the demand `" + c.Demand.Text() + "` is negative and the capacity positive: the utilisation " +
+			Detail: "the demand `" + c.Extra().Demand.Text() + "` is negative and the capacity positive: the utilisation " +
 				"would be negative and pass whatever the size of the demand",
 			Hint: "if the member can take both senses, check each with its own resistance (e.g. `check buckling: -N_Ed <= N_bRd`); " +
 				"if the other sense is harmless, say so: `max(N_Ed, 0 kN) <= N_Rd`"}
@@ -61,7 +61,7 @@ var (
 // negative `-N_Ed` tension in one written for compression. Other
 // quantities are just negative where a positive demand is expected.
 func OppositeSense(c *check.Cell) (is, writtenFor string) {
-	dem := c.Demand
+	dem := c.Extra().Demand
 	if dem == nil || dem.Type() == nil || (dem.Type().Dim != forceDim && dem.Type().Dim != stressDim) {
 		return "negative", "a positive demand"
 	}
@@ -78,10 +78,10 @@ func OppositeSense(c *check.Cell) (is, writtenFor string) {
 // evaluated again on the current values; the first of equal terms wins.
 func (s *State) Governing(i int) *check.Node {
 	c := s.M.P.Cells[i]
-	if c.Kind != check.Check || !s.Known[i] || c.Capacity == nil {
+	if c.Kind != check.Check || !s.Known[i] || c.Extra().Capacity == nil {
 		return nil
 	}
-	n := c.Capacity
+	n := c.Extra().Capacity
 	if n.Op == check.OpCell {
 		if k := int(n.Index); k >= 0 && k < len(s.M.P.Cells) && s.M.P.Cells[k].Body != nil && s.Known[k] {
 			n = s.M.P.Cells[k].Body

@@ -117,10 +117,10 @@ func (m *Machine) compileCell(c *check.Cell) {
 	}
 	switch c.Kind {
 	case check.Check:
-		m.demand[c.Index] = m.numOf(c.Demand)
-		m.capacity[c.Index] = m.numOf(c.Capacity)
+		m.demand[c.Index] = m.numOf(c.Extra().Demand)
+		m.capacity[c.Index] = m.numOf(c.Extra().Capacity)
 	case check.Table:
-		if len(c.Entries) > 0 {
+		if len(c.Extra().Entries) > 0 {
 			m.val[c.Index] = m.tableOf(c)
 		}
 	default:
@@ -509,17 +509,17 @@ func Value(n *check.Node) (funcs.Value, *Failure) {
 // tableOf compiles a table with entries written as expressions: each run
 // copies the written table and fills in the entries' values.
 func (m *Machine) tableOf(c *check.Cell) valFn {
-	fns := make([]numFn, len(c.Entries))
-	for k, e := range c.Entries {
+	fns := make([]numFn, len(c.Extra().Entries))
+	for k, e := range c.Extra().Entries {
 		fns[k] = m.numOf(e.Node)
 	}
-	written := c.Table
+	written := c.Extra().Table
 	return func(f *Frame) funcs.Value {
 		t := &funcs.TableValue{Type: written.Type, Cols: make([][]float64, len(written.Cols))}
 		for i, col := range written.Cols {
 			t.Cols[i] = slices.Clone(col)
 		}
-		for k, e := range c.Entries {
+		for k, e := range c.Extra().Entries {
 			v := fns[k](f)
 			if f.Fail != nil {
 				return nil

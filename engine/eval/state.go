@@ -278,7 +278,7 @@ func (s *State) run(i int) {
 		return
 	case check.Table:
 		if !s.over[i] && s.M.val[i] == nil { // a table of numbers as written
-			f.Val[i] = c.Table
+			f.Val[i] = c.Extra().Table
 			s.Known[i] = true
 			return
 		}

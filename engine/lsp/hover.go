@@ -34,7 +34,7 @@ func (s *Server) hover(params json.RawMessage) (any, *rpcError) {
 	case tParam:
 		md = "**" + t.name + "**: a parameter of the function"
 		if x := d.cellAt(p.Position.Line+1, d.lines.runeCol(p.Position)); x != nil && x.Kind == engine.Function {
-			for _, q := range x.Params {
+			for _, q := range x.Extra().Params {
 				if q.Name == t.name && q.Unit.Symbol != "" {
 					md = "**" + t.name + "** [" + q.Unit.Symbol + "]: a parameter of `" + signature(x) + "`"
 				}
@@ -127,7 +127,7 @@ func (s *Server) cellHover(d *document, c *engine.Cell) string {
 // signature writes a user function's head from its parameters.
 func signature(c *engine.Cell) string {
 	var ps []string
-	for _, p := range c.Params {
+	for _, p := range c.Extra().Params {
 		if p.Unit.Symbol != "" {
 			ps = append(ps, p.Name+" ["+p.Unit.Symbol+"]")
 		} else {

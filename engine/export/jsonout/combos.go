@@ -73,7 +73,7 @@ func buildCombos(r *engine.Results) *Combinations {
 	out := &Combinations{Rules: cs.Rules.Name, Title: cs.Rules.Title, Actions: []Action{}, Factors: []Factor{}, List: []Combination{},
 		Shown: cs.All[cs.Shown].Name, Evaluated: cs.Evaluated}
 	for i, a := range cs.Actions {
-		out.Actions = append(out.Actions, Action{Name: a.Name, Kind: cs.Cells[i].Action.Kind.Text()})
+		out.Actions = append(out.Actions, Action{Name: a.Name, Kind: cs.Cells[i].Extra().Action.Kind.Text()})
 	}
 	for _, f := range cs.UsedFactors() {
 		out.Factors = append(out.Factors, Factor{Key: f.Key, Symbol: f.Symbol, Value: f.Value, Source: f.SourceText(),

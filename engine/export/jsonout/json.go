@@ -187,8 +187,8 @@ func Build(r *engine.Results, exit int) *Document {
 		jc := Cell{Name: c.Cell.Name, Kind: c.Cell.Kind.String(), Section: c.Cell.Section, Known: c.Known,
 			Unit: c.Unit.Symbol, Text: c.Text, Description: c.Cell.Description, Reference: c.Cell.Reference,
 			Expr: c.Cell.Expr, Deps: depNames(r, c.Cell)}
-		if c.Cell.Action != nil {
-			jc.Action = c.Cell.Action.Kind.Text()
+		if c.Cell.Extra().Action != nil {
+			jc.Action = c.Cell.Extra().Action.Kind.Text()
 		}
 		if r.Combos != nil && r.Combos.CellIn[c.Cell.Index] >= 0 {
 			jc.InCombination = r.Combos.All[r.Combos.CellIn[c.Cell.Index]].Name
@@ -239,8 +239,8 @@ func Build(r *engine.Results, exit int) *Document {
 	for _, c := range r.Checks {
 		jc := Check{Name: c.Cell.Name, Known: c.Known, Unit: c.Unit.Symbol, Pass: c.Pass, Verdict: "not assessed",
 			Governing: c.Governing, Description: c.Cell.Description, Reference: c.Cell.Reference}
-		if c.Cell.Demand != nil && c.Cell.Demand.Type() != nil {
-			jc.SIUnit = siUnit(c.Cell.Demand.Type().Dim)
+		if c.Cell.Extra().Demand != nil && c.Cell.Extra().Demand.Type() != nil {
+			jc.SIUnit = siUnit(c.Cell.Extra().Demand.Type().Dim)
 		}
 		if c.Known || c.Problem != nil {
 			jc.DemandSI, jc.CapacitySI = num(c.Demand), num(c.Capacity)

@@ -136,7 +136,7 @@ func (d *doc) functionLine(c *engine.Cell) {
 	t := &typesetter{d: d, fn: c, scope: c.Scope}
 	d.part(func(b *strings.Builder) {
 		b.WriteString("<mrow><mi mathvariant=\"normal\">" + esc(strings.TrimPrefix(c.Name, c.Scope)) + "</mi><mo>(</mo>")
-		for i, p := range c.Params {
+		for i, p := range c.Extra().Params {
 			if i > 0 {
 				b.WriteString("<mo separator=\"true\">,</mo>")
 			}
@@ -158,9 +158,9 @@ func (d *doc) checkLine(c *engine.Cell) {
 			ch = &d.res.Checks[i]
 		}
 	}
-	left, right, op := c.Demand, c.Capacity, "≤"
-	if c.Op == ">=" {
-		left, right, op = c.Capacity, c.Demand, "≥"
+	left, right, op := c.Extra().Demand, c.Extra().Capacity, "≤"
+	if c.Extra().Op == ">=" {
+		left, right, op = c.Extra().Capacity, c.Extra().Demand, "≥"
 	}
 	d.w("<span class=\"checkname\">check ", esc(d.local(c)), "</span>")
 	t := &typesetter{d: d, scope: c.Scope}
@@ -184,7 +184,7 @@ func (d *doc) checkLine(c *engine.Cell) {
 	}
 	dem := func(b *strings.Builder) { quantity(b, ch.Demand, ch.Unit, d.sig) }
 	capa := func(b *strings.Builder) { quantity(b, ch.Capacity, ch.Unit, d.sig) }
-	if c.Op == ">=" {
+	if c.Extra().Op == ">=" {
 		dem, capa = capa, dem
 	}
 	d.part(func(b *strings.Builder) {

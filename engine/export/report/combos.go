@@ -78,7 +78,7 @@ func (d *doc) comboNote(c *engine.Cell) {
 		return
 	}
 	if a := d.actionOf(c.Index); a >= 0 {
-		d.w("<span class=\"kindnote\">characteristic value; ", esc(cs.Cells[a].Action.Kind.Text()), " action</span>")
+		d.w("<span class=\"kindnote\">characteristic value; ", esc(cs.Cells[a].Extra().Action.Kind.Text()), " action</span>")
 		return
 	}
 	if m := d.cellCombo(c.Index); m >= 0 && c.Kind != engine.Check {
@@ -120,7 +120,7 @@ func (d *doc) combinations() {
 		}
 		d.w("<tr><td><a href=\"#", anchor(c.Name), "\">")
 		d.math(func(b *strings.Builder) { symbol(b, c.Name) })
-		d.w("</a></td><td>", esc(c.Action.Kind.Text()), "</td><td class=\"num\">", esc(val), "</td><td>", esc(c.Description), "</td></tr>\n")
+		d.w("</a></td><td>", esc(c.Extra().Action.Kind.Text()), "</td><td class=\"num\">", esc(val), "</td><td>", esc(c.Description), "</td></tr>\n")
 	}
 	d.w("</tbody></table>\n")
 	var supOnly []string

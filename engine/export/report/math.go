@@ -124,8 +124,8 @@ func (t *typesetter) node(b *strings.Builder, n *check.Node) {
 	case check.OpCell:
 		symbol(b, t.name(t.d.cellName(int(n.Index))))
 	case check.OpParam:
-		if t.fn != nil && int(n.Index) < len(t.fn.Params) {
-			symbol(b, t.fn.Params[n.Index].Name)
+		if t.fn != nil && int(n.Index) < len(t.fn.Extra().Params) {
+			symbol(b, t.fn.Extra().Params[n.Index].Name)
 		} else {
 			b.WriteString("<mi>?</mi>")
 		}

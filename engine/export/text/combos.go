@@ -44,7 +44,7 @@ func writeCombos(b *strings.Builder, r *engine.Results) {
 	b.WriteString("  rules    " + cs.Rules.Name + ": " + cs.Rules.Title + "\n")
 	var acts []string
 	for i, a := range cs.Actions {
-		acts = append(acts, a.Name+" ("+cs.Cells[i].Action.Kind.Text()+")")
+		acts = append(acts, a.Name+" ("+cs.Cells[i].Extra().Action.Kind.Text()+")")
 	}
 	b.WriteString("  actions  " + strings.Join(acts, ", ") + "\n")
 	var supOnly []string

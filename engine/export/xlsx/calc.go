@@ -244,8 +244,8 @@ func (x *exporter) cellRow(cr *engine.CellResult) [calcCols]excelize.Cell {
 	var value excelize.Cell
 	switch {
 	case c.Kind == engine.Function:
-		ps := make([]string, len(c.Params))
-		for i, p := range c.Params {
+		ps := make([]string, len(c.Extra().Params))
+		for i, p := range c.Extra().Params {
 			ps[i] = p.Name
 		}
 		name += "(" + strings.Join(ps, ", ") + ")"

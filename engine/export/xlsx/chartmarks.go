@@ -196,10 +196,10 @@ func (x *exporter) markOf(s chartSpec, k int, ch *checkRow) (chartMark, bool) {
 		op       string
 	}
 	le, ge := "≤", "≥"
-	if c.Op == "<" || c.Op == ">" {
+	if c.Extra().Op == "<" || c.Extra().Op == ">" {
 		le, ge = "<", ">"
 	}
-	sides := []side{{c.Demand, ch.demand, c.Capacity, ch.capacity, "D", le}, {c.Capacity, ch.capacity, c.Demand, ch.demand, "C", ge}}
+	sides := []side{{c.Extra().Demand, ch.demand, c.Extra().Capacity, ch.capacity, "D", le}, {c.Extra().Capacity, ch.capacity, c.Extra().Demand, ch.demand, "C", ge}}
 	ys := s.b.t.Cols[s.yc]
 	for _, sd := range sides {
 		if math.IsInf(sd.otherV, 0) || math.IsNaN(sd.otherV) {
@@ -287,10 +287,10 @@ func (x *exporter) curveMarks(s chartSpec) []chartMark {
 	var out []chartMark
 	for k, ch := range x.checks {
 		c := ch.cell
-		if !ch.known || len(out) == maxMarks || c.Op != "<=" && c.Op != "<" || !(ch.demand >= 0) || !(ch.capacity > 0) {
+		if !ch.known || len(out) == maxMarks || c.Extra().Op != "<=" && c.Extra().Op != "<" || !(ch.demand >= 0) || !(ch.capacity > 0) {
 			continue
 		}
-		sq := x.pluginCall(c.Capacity, "squash_load")
+		sq := x.pluginCall(c.Extra().Capacity, "squash_load")
 		if sq == nil || sq.NArg() == 0 || !x.sameCell(sq.Arg(0), comp) {
 			continue
 		}
@@ -299,13 +299,13 @@ func (x *exporter) curveMarks(s chartSpec) []chartMark {
 			continue
 		}
 		op := "≤"
-		if c.Op == "<" {
+		if c.Extra().Op == "<" {
 			op = "<"
 		}
 		m := chartMark{k: k, i: -1, px: eps, py: -ch.demand, pointCell: cell, sign: -1, magnitude: true,
 			limit: ch.capacity, limitCol: "D", op: op}
-		if c.Capacity.Op != check.OpConst {
-			m.limitText = c.Capacity.Text()
+		if c.Extra().Capacity.Op != check.OpConst {
+			m.limitText = c.Extra().Capacity.Text()
 		}
 		out = append(out, m)
 	}
@@ -345,7 +345,7 @@ func (x *exporter) strainAt(comp *check.Node, c *check.Cell, ch *checkRow) (int,
 			continue // a temperature change: not the curve's strain
 		}
 		f := body.Arg(1)
-		if !x.sameCell(body.Arg(0), comp) || f.Op != check.OpNeg || !x.sameCell(f.Arg(0), c.Demand) {
+		if !x.sameCell(body.Arg(0), comp) || f.Op != check.OpNeg || !x.sameCell(f.Arg(0), c.Extra().Demand) {
 			continue
 		}
 		if x.cellCombo(i) != gov {

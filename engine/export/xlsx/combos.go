@@ -124,7 +124,7 @@ func (x *exporter) comboDep(i int) bool {
 	if cs == nil || i < 0 || i >= len(cs.Depends) || !cs.Depends[i] {
 		return false
 	}
-	return x.r.Cells[i].Cell.Action == nil
+	return x.r.Cells[i].Cell.Extra().Action == nil
 }
 
 // cellCombo is the combination whose value cell i shows, -1 for none.
@@ -186,10 +186,10 @@ func (x *exporter) comboStale(i int, keys []int32) []int32 {
 // actionNote is the note of action cell c: its kind and that it holds the
 // characteristic value; "" for any other cell.
 func (x *exporter) actionNote(c *check.Cell) string {
-	if c.Action == nil || x.r.Combos == nil {
+	if c.Extra().Action == nil || x.r.Combos == nil {
 		return ""
 	}
-	return "action, " + c.Action.Kind.Text() + ": characteristic value; its factors are on the " + TabCombos + " tab"
+	return "action, " + c.Extra().Action.Kind.Text() + ": characteristic value; its factors are on the " + TabCombos + " tab"
 }
 
 // comboSubst is the text a hand calculation of cell c puts in for node n,
@@ -354,7 +354,7 @@ func (x *exporter) writeCombos() error {
 		} else {
 			val = x.text("not computed", clsValueOnly)
 		}
-		if err := put(row+2+a, x.text(c.Name, clsKey), x.text(c.Action.Kind.Text(), clsText), x.text(c.Description, clsText), val, x.text(unit, clsText)); err != nil {
+		if err := put(row+2+a, x.text(c.Name, clsKey), x.text(c.Extra().Action.Kind.Text(), clsText), x.text(c.Description, clsText), val, x.text(unit, clsText)); err != nil {
 			return err
 		}
 	}

@@ -112,7 +112,7 @@ func (x *exporter) guardStale() {
 			}
 			continue
 		}
-		x.stale[i] = x.staleOf(c.Body, c.Demand, c.Capacity)
+		x.stale[i] = x.staleOf(c.Body, c.Extra().Demand, c.Extra().Capacity)
 	}
 	for _, s := range x.stale {
 		for _, k := range s {

@@ -155,7 +155,7 @@ func (x *exporter) checkCalc(c *check.Cell, cr *checkRow) string {
 	if !cr.known {
 		return oneLine(c.Expr) + ": not assessed"
 	}
-	sub := x.substituted(c, c.Demand, c.Capacity)
+	sub := x.substituted(c, c.Extra().Demand, c.Extra().Capacity)
 	if sub == "" {
 		sub = oneLine(c.Expr)
 	}

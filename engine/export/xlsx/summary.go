@@ -293,7 +293,7 @@ func (x *exporter) checkSummary(ch *checkRow) []any {
 	if line := x.governsLine(c); line != "" {
 		desc = strings.TrimSpace(desc + "\n" + line)
 	}
-	return []any{x.text(c.Name, clsKey), x.text(desc, clsText), side(c.Demand, ch.demand), side(c.Capacity, ch.capacity),
+	return []any{x.text(c.Name, clsKey), x.text(desc, clsText), side(c.Extra().Demand, ch.demand), side(c.Extra().Capacity, ch.capacity),
 		x.text(unit, clsText), util, verdict, x.text(c.Reference, clsText)}
 }
 

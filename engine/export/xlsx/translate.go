@@ -67,7 +67,7 @@ func num(x float64) term {
 func (t *translator) path(n *check.Node) string {
 	switch n.Op {
 	case check.OpCell:
-		if c := t.cells[n.Index]; c.Kind == check.Table && len(c.Entries) > 0 {
+		if c := t.cells[n.Index]; c.Kind == check.Table && len(c.Extra().Entries) > 0 {
 			// Its entries follow cells of the sheet; the Data tab holds
 			// their values of this run, so a formula over it would not
 			// follow an edited input: only Sheaf computes it.
@@ -549,11 +549,11 @@ func (t *translator) cellFormula(body *check.Node, f float64) (string, error) {
 // formula is an error, which the verdict shows as "not assessed", so a
 // demand that changes sign after an edit can never read "passes".
 func (t *translator) checkFormula(c *check.Cell) (string, error) {
-	d, err := t.expr(c.Demand)
+	d, err := t.expr(c.Extra().Demand)
 	if err != nil {
 		return "", err
 	}
-	k, err := t.expr(c.Capacity)
+	k, err := t.expr(c.Extra().Capacity)
 	if err != nil {
 		return "", err
 	}

@@ -282,7 +282,7 @@ func (x *exporter) layout() {
 		case *funcs.RecordValue:
 			row = x.layoutRecord(c, c.Name, v, c.Kind == engine.Input, c.Body, row)
 		case *funcs.TableValue:
-			x.addTable(c.Name, c.Description, v, x.tableUnits(c, v), c.Kind == engine.Table && len(c.Entries) == 0, i).setOwner(c.Description)
+			x.addTable(c.Name, c.Description, v, x.tableUnits(c, v), c.Kind == engine.Table && len(c.Extra().Entries) == 0, i).setOwner(c.Description)
 		}
 	}
 	for _, b := range comments {
@@ -374,7 +374,7 @@ func (x *exporter) markOpaque() {
 			if !live {
 				reads = append(reads, x.reads[d]...)
 			}
-		}, c.Body, c.Demand, c.Capacity)
+		}, c.Body, c.Extra().Demand, c.Extra().Capacity)
 		slices.Sort(reads)
 		x.reads[i] = slices.Compact(reads)
 	}
