@@ -20,6 +20,7 @@ type arena struct {
 	cells block.Block[cellAndFormula]
 	srcs  block.Block[typed]
 	nodes block.Block[Node]
+	deps  block.Block[int]
 	nums  map[units.Dim]*funcs.Type
 }
 

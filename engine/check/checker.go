@@ -527,7 +527,9 @@ func (c *checker) resolveRefs(i int, f *formula.Formula, seen []int32) {
 		}
 		seen[j] = int32(i + 1)
 		if cell.DepIdx == nil {
-			cell.DepIdx = make([]int, 0, len(f.Refs))
+			// Room for every name of the formula, from one block for
+			// all cells: a cell uses at most as many cells as it names.
+			cell.DepIdx = c.arena.deps.Take(len(f.Refs))[:0]
 		}
 		cell.DepIdx = append(cell.DepIdx, j)
 	}

@@ -58,7 +58,7 @@ func (f *Formula) ParseSource(opt Options) (bool, diag.List) {
 		errs.Errorf(e.Range, "an expression computes the value of the cell", "write a value such as `38 kN` or a formula such as `N / A`", "empty expression")
 		return false, errs
 	}
-	p := parser{f: f, lex: lexer{src: e.Text}, opt: opt, errs: &errs}
+	p := parser{f: f, lex: lexer{src: e.Text}, opt: opt}
 	if a := opt.Arena; a != nil {
 		s := &a.scratch
 		f.Nodes, f.Args, f.Nums, f.Quantities, f.Refs = s.Nodes[:0], s.Args[:0], s.Nums[:0], s.Quantities[:0], s.Refs[:0]
@@ -68,7 +68,9 @@ func (f *Formula) ParseSource(opt Options) (bool, diag.List) {
 			a.keep(f)
 		}()
 	}
-	if !p.parse() {
+	ok := p.parse()
+	errs = p.errs
+	if !ok {
 		errs.Sort()
 		return false, errs
 	}
@@ -90,7 +92,7 @@ type parser struct {
 	prev  token // the token before tok
 	opt   Options
 	depth int
-	errs  *diag.List
+	errs  diag.List // held here, not behind a pointer, so it need not escape
 }
 
 func (p *parser) parse() (ok bool) {

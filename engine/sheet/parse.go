@@ -22,7 +22,16 @@ type parser struct {
 	seenMeta map[string]diag.Range
 	// cells hands out the cells of the sheet (see alloc.go).
 	cells block.Block[cellUnit]
+	// open is the bracket stack the scanners of all items share, so
+	// that a sheet grows one, not one per line that opens a bracket.
+	open []int
 }
+
+// scanner returns a bracketScanner on the parser's bracket stack.
+func (p *parser) scanner() bracketScanner { return bracketScanner{open: p.open[:0]} }
+
+// keepScanner keeps the stack sc grew for the next item.
+func (p *parser) keepScanner(sc *bracketScanner) { p.open = sc.open[:0] }
 
 // Parse reads a whole sheet.
 //
@@ -103,7 +112,8 @@ func (p *parser) parseItems() {
 // bracket is open, up to limit. A blank line always ends an item. track is
 // the offset on line i from which brackets count, or -1.
 func (p *parser) extent(i, limit, base, track int) int {
-	var sc bracketScanner
+	sc := p.scanner()
+	defer p.keepScanner(&sc)
 	if track >= 0 {
 		sc.scan(p.text, track, p.lines[i].end)
 	}

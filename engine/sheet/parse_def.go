@@ -286,7 +286,8 @@ func (p *parser) parseCheck(i, j int) Item {
 //	annotation = "--" [ description ] [ " @ " reference ] .
 func (p *parser) body(i, j, from int) (Expr, Annot, bool) {
 	t := p.text
-	var sc bracketScanner
+	sc := p.scanner()
+	defer p.keepScanner(&sc)
 	annotAt, annotLine := -1, -1
 	for li := i; li < j; li++ {
 		s := p.lines[li].start
