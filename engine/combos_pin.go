@@ -49,10 +49,11 @@ func findPins(prog *check.Program, errs *diag.List) []pin {
 		}
 	}
 	for _, c := range prog.Cells {
+		xc := c.Extra()
 		walk(c, c.Body)
-		walk(c, c.Extra().Demand)
-		walk(c, c.Extra().Capacity)
-		for _, e := range c.Extra().Entries {
+		walk(c, xc.Demand)
+		walk(c, xc.Capacity)
+		for _, e := range xc.Entries {
 			walk(c, e.Node)
 		}
 	}
@@ -163,10 +164,11 @@ func direct(prog *check.Program, dep []bool, pins []pin) []bool {
 				walk(a)
 			}
 		}
+		xc := c.Extra()
 		walk(c.Body)
-		walk(c.Extra().Demand)
-		walk(c.Extra().Capacity)
-		for _, e := range c.Extra().Entries {
+		walk(xc.Demand)
+		walk(xc.Capacity)
+		for _, e := range xc.Entries {
 			walk(e.Node)
 		}
 	}

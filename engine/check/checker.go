@@ -140,7 +140,8 @@ func (c *checker) collectFile(f *sheet.File, scope string, depth int) {
 						c.errs.Errorf(prm.Name.Range, "each parameter needs its own name", "rename one of them, e.g. `"+q.Name+"_2`", "parameter `%s` is written twice", q.Name)
 					}
 				}
-				cell.more().Params = append(cell.Extra().Params, q)
+				x := cell.more()
+				x.Params = append(x.Params, q)
 			}
 		case *sheet.Check: // whole as newCell made it
 		case *sheet.Action:
@@ -397,7 +398,8 @@ func (c *checker) table(cell *Cell, t *sheet.Table) {
 					ok = false
 					continue
 				}
-				cell.more().Entries = append(cell.Extra().Entries, Entry{Row: r, Col: i, Formula: f})
+				x := cell.more()
+				x.Entries = append(x.Entries, Entry{Row: r, Col: i, Formula: f})
 				val.Cols[i] = append(val.Cols[i], 0) // set at evaluation
 				continue
 			}
@@ -425,9 +427,10 @@ func (c *checker) typeEntries(cell *Cell, sys units.System) {
 			return
 		}
 	}
-	ty := cell.Type // the columns; every entry is typed, each failure reported
-	for k := range cell.Extra().Entries {
-		e := &cell.Extra().Entries[k]
+	ty := cell.Type                 // the columns; every entry is typed, each failure reported
+	entries := cell.Extra().Entries // shared with the cell: typing fills them in place
+	for k := range entries {
+		e := &entries[k]
 		t := &typer{c: c, f: e.Formula, cell: cell, system: sys, errs: &c.errs}
 		n := t.expr(e.Formula.Root)
 		if n == nil {

@@ -117,8 +117,9 @@ func (m *Machine) compileCell(c *check.Cell) {
 	}
 	switch c.Kind {
 	case check.Check:
-		m.demand[c.Index] = m.numOf(c.Extra().Demand)
-		m.capacity[c.Index] = m.numOf(c.Extra().Capacity)
+		xc := c.Extra()
+		m.demand[c.Index] = m.numOf(xc.Demand)
+		m.capacity[c.Index] = m.numOf(xc.Capacity)
 	case check.Table:
 		if len(c.Extra().Entries) > 0 {
 			m.val[c.Index] = m.tableOf(c)

@@ -158,9 +158,10 @@ func (d *doc) checkLine(c *engine.Cell) {
 			ch = &d.res.Checks[i]
 		}
 	}
-	left, right, op := c.Extra().Demand, c.Extra().Capacity, "≤"
-	if c.Extra().Op == ">=" {
-		left, right, op = c.Extra().Capacity, c.Extra().Demand, "≥"
+	xc := c.Extra()
+	left, right, op := xc.Demand, xc.Capacity, "≤"
+	if xc.Op == ">=" {
+		left, right, op = xc.Capacity, xc.Demand, "≥"
 	}
 	d.w("<span class=\"checkname\">check ", esc(d.local(c)), "</span>")
 	t := &typesetter{d: d, scope: c.Scope}

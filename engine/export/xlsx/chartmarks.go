@@ -196,10 +196,11 @@ func (x *exporter) markOf(s chartSpec, k int, ch *checkRow) (chartMark, bool) {
 		op       string
 	}
 	le, ge := "≤", "≥"
-	if c.Extra().Op == "<" || c.Extra().Op == ">" {
+	xc := c.Extra()
+	if xc.Op == "<" || xc.Op == ">" {
 		le, ge = "<", ">"
 	}
-	sides := []side{{c.Extra().Demand, ch.demand, c.Extra().Capacity, ch.capacity, "D", le}, {c.Extra().Capacity, ch.capacity, c.Extra().Demand, ch.demand, "C", ge}}
+	sides := []side{{xc.Demand, ch.demand, xc.Capacity, ch.capacity, "D", le}, {xc.Capacity, ch.capacity, xc.Demand, ch.demand, "C", ge}}
 	ys := s.b.t.Cols[s.yc]
 	for _, sd := range sides {
 		if math.IsInf(sd.otherV, 0) || math.IsNaN(sd.otherV) {
@@ -287,10 +288,11 @@ func (x *exporter) curveMarks(s chartSpec) []chartMark {
 	var out []chartMark
 	for k, ch := range x.checks {
 		c := ch.cell
-		if !ch.known || len(out) == maxMarks || c.Extra().Op != "<=" && c.Extra().Op != "<" || !(ch.demand >= 0) || !(ch.capacity > 0) {
+		xc := c.Extra()
+		if !ch.known || len(out) == maxMarks || xc.Op != "<=" && xc.Op != "<" || !(ch.demand >= 0) || !(ch.capacity > 0) {
 			continue
 		}
-		sq := x.pluginCall(c.Extra().Capacity, "squash_load")
+		sq := x.pluginCall(xc.Capacity, "squash_load")
 		if sq == nil || sq.NArg() == 0 || !x.sameCell(sq.Arg(0), comp) {
 			continue
 		}
@@ -299,13 +301,13 @@ func (x *exporter) curveMarks(s chartSpec) []chartMark {
 			continue
 		}
 		op := "≤"
-		if c.Extra().Op == "<" {
+		if xc.Op == "<" {
 			op = "<"
 		}
 		m := chartMark{k: k, i: -1, px: eps, py: -ch.demand, pointCell: cell, sign: -1, magnitude: true,
 			limit: ch.capacity, limitCol: "D", op: op}
-		if c.Extra().Capacity.Op != check.OpConst {
-			m.limitText = c.Extra().Capacity.Text()
+		if xc.Capacity.Op != check.OpConst {
+			m.limitText = xc.Capacity.Text()
 		}
 		out = append(out, m)
 	}
