@@ -3,8 +3,10 @@ package engine_test
 import (
 	"bytes"
 	"fmt"
+	"runtime"
 	"strings"
 	"testing"
+	"time"
 
 	"github.com/sheafcalc/sheaf/engine"
 )
@@ -55,6 +57,7 @@ func BenchmarkLoadCheckEval100k(b *testing.B) {
 	src := []byte(genSheet(benchChains, benchLen))
 	b.ReportAllocs()
 	var st *engine.State
+	cost := startCost()
 	for b.Loop() {
 		// The bytes go to Compile as a caller's file would, without the
 		// two copies of the test helper's string argument.
@@ -66,6 +69,7 @@ func BenchmarkLoadCheckEval100k(b *testing.B) {
 		st.Recompute()
 	}
 	perCell(b, benchChains*benchLen)
+	cost.report(b, benchChains*benchLen)
 	// The last cell of the first chain against the same formulas in Go.
 	p := make([]float64, benchChains)
 	for k := range p {
@@ -84,10 +88,12 @@ func BenchmarkFloorTokenize100k(b *testing.B) {
 	b.ReportAllocs()
 	var names map[string]int
 	var tokens int
+	cost := startCost()
 	for b.Loop() {
 		names, tokens = floorTokenize(src)
 	}
 	perCell(b, benchChains*benchLen)
+	cost.report(b, benchChains*benchLen)
 	if want := benchChains*(benchLen+1) + 1; len(names) != want || tokens < 10*benchChains*benchLen {
 		b.Fatalf("%d names and %d tokens, want %d names", len(names), tokens, want)
 	}
@@ -139,6 +145,32 @@ func floorTokenize(src []byte) (map[string]int, int) {
 // perCell reports ns/cell and B/cell of the benchmark.
 func perCell(b *testing.B, cells int) {
 	b.ReportMetric(float64(b.Elapsed().Nanoseconds())/float64(b.N)/float64(cells), "ns/cell")
+}
+
+// cost is where a benchmark's CPU time and allocation stood before its
+// loop. The targets are CPU per op, which on two cores is more
+// than the wall time ns/op gives (the collector runs beside the loop), and
+// bytes per cell.
+type cost struct {
+	cpu   time.Duration
+	bytes uint64
+}
+
+func startCost() cost {
+	var m runtime.MemStats
+	runtime.ReadMemStats(&m)
+	return cost{cpu: processCPU(), bytes: m.TotalAlloc}
+}
+
+// report adds cpu-ns/op (0 where the platform does not measure it) and
+// B/cell for the loop since c.
+func (c cost) report(b *testing.B, cells int) {
+	var m runtime.MemStats
+	runtime.ReadMemStats(&m)
+	if cpu := processCPU(); cpu > 0 {
+		b.ReportMetric(float64((cpu-c.cpu).Nanoseconds())/float64(b.N), "cpu-ns/op")
+	}
+	b.ReportMetric(float64(m.TotalAlloc-c.bytes)/float64(b.N)/float64(cells), "B/cell")
 }
 
 func checkCell(b *testing.B, r *engine.Results, name string, want float64) {
