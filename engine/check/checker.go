@@ -520,7 +520,7 @@ func (c *checker) resolveCell(i int, seen []int32) {
 func (c *checker) resolveRefs(i int, f *formula.Formula, seen []int32) {
 	p := c.prog
 	cell := p.Cells[i]
-	for _, r := range f.Refs {
+	for r := range f.Refs() {
 		if isParam(cell, f.Text(r)) {
 			continue
 		}
@@ -532,7 +532,7 @@ func (c *checker) resolveRefs(i int, f *formula.Formula, seen []int32) {
 		if cell.DepIdx == nil {
 			// Room for every name of the formula, from one block for
 			// all cells: a cell uses at most as many cells as it names.
-			cell.DepIdx = c.arena.deps.Take(len(f.Refs))[:0]
+			cell.DepIdx = c.arena.deps.Take(f.NumRefs())[:0]
 		}
 		cell.DepIdx = append(cell.DepIdx, j)
 	}
@@ -817,7 +817,7 @@ func (c *checker) typeCheck(t *typer, cell *Cell) {
 // formula that may use literals, constants and built-ins but no cell.
 func (p *Program) TypeValue(f *formula.Formula, sys units.System) (*Node, diag.List) {
 	var errs diag.List
-	for _, r := range f.Refs {
+	for r := range f.Refs() {
 		name := f.Text(r)
 		if _, ok := p.ByName[name]; ok {
 			errs.Errorf(f.Range(r), "a value given for an input is a quantity such as `45 kN`",

@@ -437,7 +437,7 @@ func (c *checker) templateDeps(cell *Cell) []string {
 		return nil
 	}
 	var out []string
-	for _, r := range cell.Formula.Refs {
+	for r := range cell.Formula.Refs() {
 		if isParam(cell, cell.Formula.Text(r)) {
 			continue
 		}

@@ -20,7 +20,6 @@ type Arena struct {
 	args    block.Block[int32]
 	nums    block.Block[float64]
 	quants  block.Block[Quantity]
-	refs    block.Block[int32]
 }
 
 // keep copies the parsed slices of f (held in the scratch slices) into
@@ -30,5 +29,4 @@ func (a *Arena) keep(f *Formula) {
 	f.Args = a.args.Copy(f.Args)
 	f.Nums = a.nums.Copy(f.Nums)
 	f.Quantities = a.quants.Copy(f.Quantities)
-	f.Refs = a.refs.Copy(f.Refs)
 }

@@ -1,6 +1,8 @@
 package formula
 
 import (
+	"iter"
+
 	"github.com/sheafcalc/sheaf/engine/diag"
 	"github.com/sheafcalc/sheaf/engine/sheet"
 	"github.com/sheafcalc/sheaf/engine/units"
@@ -66,7 +68,11 @@ func (o Op) IsComparison() bool { return o >= OpLT && o <= OpNE }
 type Node struct {
 	Kind Kind
 	Op   Op
-	Op2  Op    // the second operator of a KRange
+	Op2  Op // the second operator of a KRange
+	// Ref marks a KName that names a value or a function, not a field
+	// name after a dot nor a record key (it fills a byte the node had
+	// spare).
+	Ref  bool
 	From int32 // byte span of the node in the formula text, children included
 	To   int32
 	// A, B, C are child node indices (-1 when absent). For KNumber and
@@ -85,15 +91,36 @@ type Formula struct {
 	Source sheet.Expr // the expression as written, with its place in the file
 	Nodes  []Node
 	Root   int32 // index of the root node in Nodes (-1 when the text could not be parsed)
+	nrefs  int32 // KName nodes marked Ref (Refs), held where Root left a spare word
 	// Args holds the argument lists of calls, lists and records.
 	Args       []int32
 	Nums       []float64
 	Quantities []Quantity // quantity literals in order of appearance
-	// Refs are the KName nodes that name a value or a function (not the
-	// field names after a dot nor the keys of records), in order of
-	// appearance.
-	Refs []int32
 }
+
+// Refs yields the KName nodes that name a value or a function (not the
+// field names after a dot nor the keys of records), in order of
+// appearance: the parser adds a name's node when it reads the name, so
+// node order among names is their order in the text.
+func (f *Formula) Refs() iter.Seq[int32] {
+	return func(yield func(int32) bool) {
+		left := f.nrefs
+		for i := range f.Nodes {
+			if left == 0 {
+				return
+			}
+			if f.Nodes[i].Ref {
+				left--
+				if !yield(int32(i)) {
+					return
+				}
+			}
+		}
+	}
+}
+
+// NumRefs is the number of nodes Refs yields.
+func (f *Formula) NumRefs() int { return int(f.nrefs) }
 
 // Quantity is a number written with a unit, such as `38 kN`.
 type Quantity struct {
@@ -150,6 +177,3 @@ func (f *Formula) Range(n int32) diag.Range {
 	nd := &f.Nodes[n]
 	return f.Source.RangeAt(int(nd.From), int(nd.To))
 }
-
-// RefName returns the name of reference i (an index into Refs).
-func (f *Formula) RefName(i int) string { return f.Text(f.Refs[i]) }

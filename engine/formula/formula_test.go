@@ -95,8 +95,11 @@ func TestQuantities(t *testing.T) {
 			}
 		}
 		var refs []string
-		for i := range f.Refs {
-			refs = append(refs, f.RefName(i))
+		for r := range f.Refs() {
+			refs = append(refs, f.Text(r))
+		}
+		if len(refs) != f.NumRefs() {
+			t.Errorf("%q: %d refs, NumRefs %d", c.text, len(refs), f.NumRefs())
 		}
 		if strings.Join(refs, ",") != strings.Join(c.refs, ",") {
 			t.Errorf("%q: refs %v, want %v", c.text, refs, c.refs)

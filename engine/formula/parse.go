@@ -61,10 +61,10 @@ func (f *Formula) ParseSource(opt Options) (bool, diag.List) {
 	p := parser{f: f, lex: lexer{src: e.Text}, opt: opt}
 	if a := opt.Arena; a != nil {
 		s := &a.scratch
-		f.Nodes, f.Args, f.Nums, f.Quantities, f.Refs = s.Nodes[:0], s.Args[:0], s.Nums[:0], s.Quantities[:0], s.Refs[:0]
+		f.Nodes, f.Args, f.Nums, f.Quantities = s.Nodes[:0], s.Args[:0], s.Nums[:0], s.Quantities[:0]
 		defer func() {
 			// The scratch keeps the grown slices for the next formula.
-			s.Nodes, s.Args, s.Nums, s.Quantities, s.Refs = f.Nodes, f.Args, f.Nums, f.Quantities, f.Refs
+			s.Nodes, s.Args, s.Nums, s.Quantities = f.Nodes, f.Args, f.Nums, f.Quantities
 			a.keep(f)
 		}()
 	}
@@ -109,9 +109,8 @@ func (p *parser) parse() (ok bool) {
 	if p.opt.Arena == nil {
 		// A formula has about one node per three bytes of text.
 		p.f.Nodes = make([]Node, 0, len(p.lex.src)/3+1)
-		// Most formulas hold a few names and numbers: room for them up
-		// front saves the growth of three small slices per formula.
-		p.f.Refs = make([]int32, 0, 4)
+		// Most formulas hold a number or two: room for them up front
+		// saves the growth of a small slice per formula.
 		p.f.Nums = make([]float64, 0, 2)
 	}
 	p.next()
@@ -378,11 +377,10 @@ func (p *parser) postfix() int32 {
 func (p *parser) name(ref bool) int32 {
 	t := p.tok
 	p.next()
-	n := p.add(Node{Kind: KName, From: int32(t.from), To: int32(t.to), A: -1, B: -1, C: -1})
 	if ref {
-		p.f.Refs = append(p.f.Refs, n)
+		p.f.nrefs++
 	}
-	return n
+	return p.add(Node{Kind: KName, Ref: ref, From: int32(t.from), To: int32(t.to), A: -1, B: -1, C: -1})
 }
 
 // primary = quantity | number | "true" | "false" | call | name
