@@ -301,7 +301,8 @@ func reachesCheck(prog *check.Program, i int) []int {
 	for len(todo) > 0 {
 		j := todo[len(todo)-1]
 		todo = todo[:len(todo)-1]
-		for _, u := range prog.Users[j] {
+		for _, u := range prog.Users(j) {
+			u := int(u)
 			if !seen[u] {
 				seen[u] = true
 				todo = append(todo, u)

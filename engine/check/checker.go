@@ -477,26 +477,23 @@ func (c *checker) resolve() {
 	for i := range p.Cells {
 		c.resolveCell(i, seen)
 	}
-	users := make([]int32, len(p.Cells)) // number of users of each cell
-	edges := 0
+	// The reverse edges, counted, then placed: userAt[j+1] counts the
+	// users of j, and then becomes where they end.
+	p.userAt = make([]int32, len(p.Cells)+1)
 	for _, cell := range p.Cells {
 		for _, j := range cell.DepIdx {
-			users[j]++
-		}
-		edges += len(cell.DepIdx)
-	}
-	// The reverse edges share one backing array.
-	p.Users = make([][]int, len(p.Cells))
-	flat := make([]int, 0, edges)
-	for j, n := range users {
-		if n > 0 {
-			p.Users[j] = flat[len(flat) : len(flat) : len(flat)+int(n)]
-			flat = flat[:len(flat)+int(n)]
+			p.userAt[j+1]++
 		}
 	}
+	for j := range p.Cells {
+		p.userAt[j+1] += p.userAt[j]
+	}
+	p.users = make([]int32, p.userAt[len(p.Cells)])
+	next := slices.Clone(p.userAt[:len(p.Cells)]) // where the next user of j goes
 	for i, cell := range p.Cells {
 		for _, j := range cell.DepIdx {
-			p.Users[j] = append(p.Users[j], i)
+			p.users[next[j]] = int32(i)
+			next[j]++
 		}
 	}
 }

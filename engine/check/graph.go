@@ -79,10 +79,10 @@ func (c *checker) unplaced() []int {
 		}
 	}
 	for k := 0; k < len(ready); k++ {
-		for _, u := range p.Users[ready[k]] {
+		for _, u := range p.Users(ready[k]) {
 			indeg[u]--
 			if indeg[u] == 0 {
-				ready = append(ready, u)
+				ready = append(ready, int(u))
 			}
 		}
 	}

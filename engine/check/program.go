@@ -118,6 +118,10 @@ func (c *Cell) LimitState() string {
 	return c.extra.State.Name
 }
 
+// Users returns the cells that use cell i, in reading order. The slice is
+// the program's: callers read it and do not change it.
+func (p *Program) Users(i int) []int32 { return p.users[p.userAt[i]:p.userAt[i+1]:p.userAt[i+1]] }
+
 // DepNames returns the names of the cells c uses, in order of first use.
 func (p *Program) DepNames(c *Cell) []string {
 	names := make([]string, len(c.DepIdx))
@@ -164,8 +168,11 @@ type Program struct {
 	// Order lists every cell index in a topological order of the
 	// dependency graph (dependencies first, level by level; see order).
 	Order []int
-	// Users are the reverse edges: Users[i] lists the cells that use cell i.
-	Users [][]int
+	// users are the reverse edges, read by Users: the cells that use
+	// cell i are users[userAt[i]:userAt[i+1]], in reading order. Two
+	// flat int32 slices, not a slice per cell: a slice header and an int
+	// per edge cost four times the room.
+	userAt, users []int32
 	// InCombination is set when a formula calls in_combination, so that
 	// a sheet without one is not searched for its calls.
 	InCombination bool

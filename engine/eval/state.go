@@ -165,8 +165,8 @@ func (s *State) Eval() []int {
 	}
 	s.dirty = s.dirty[:0]
 	for k := 0; k < len(s.last); k++ {
-		for _, u := range p.Users[s.last[k]] {
-			if mark(u) {
+		for _, u := range p.Users(s.last[k]) {
+			if u := int(u); mark(u) {
 				s.last = append(s.last, u)
 			}
 		}
