@@ -377,10 +377,11 @@ func (p *parser) postfix() int32 {
 func (p *parser) name(ref bool) int32 {
 	t := p.tok
 	p.next()
+	n := p.add(Node{Kind: KName, Ref: ref, From: int32(t.from), To: int32(t.to), A: -1, B: -1, C: -1})
 	if ref {
-		p.f.nrefs++
+		p.f.nrefs++ // after add, which stops a formula with too many nodes
 	}
-	return p.add(Node{Kind: KName, Ref: ref, From: int32(t.from), To: int32(t.to), A: -1, B: -1, C: -1})
+	return n
 }
 
 // primary = quantity | number | "true" | "false" | call | name
