@@ -249,7 +249,7 @@ func (st *State) recomputeCombos() {
 	findTerms := func(m int) {
 		for _, k := range terms[m] {
 			t := ""
-			if n := work.Governing(cs.checks[k]); n != nil {
+			if n := work.Governing(cs.checks[k]); !n.IsZero() {
 				t = n.Text()
 			}
 			cm.term[k] = &t
@@ -333,15 +333,15 @@ func inCombo(p *diag.Diagnostic, cs *Combos, g int) *diag.Diagnostic {
 // (the cases eval.State.Governing names a term for).
 func capacityChoice(prog *check.Program, c *Cell) bool {
 	n := c.Extra().Capacity
-	if n == nil {
+	if n.IsZero() {
 		return false
 	}
-	if n.Op == check.OpCell {
-		if k := int(n.Index); k >= 0 && k < len(prog.Cells) && prog.Cells[k].Body != nil {
+	if n.Op() == check.OpCell {
+		if k := int(n.Index()); k >= 0 && k < len(prog.Cells) && !prog.Cells[k].Body.IsZero() {
 			n = prog.Cells[k].Body
 		}
 	}
-	return n.Op == check.OpBuiltin && (n.Builtin == check.BMin || n.Builtin == check.BMax) && n.NArg() >= 2
+	return n.Op() == check.OpBuiltin && (n.Builtin() == check.BMin || n.Builtin() == check.BMax) && n.NArg() >= 2
 }
 
 // comboTerm returns the governing term of check cell i in its governing

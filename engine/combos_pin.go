@@ -16,7 +16,7 @@ import (
 // combinations, resolves the label and computes the value before the
 // combinations are evaluated.
 type pin struct {
-	node  *check.Node
+	node  check.Node
 	cell  int // the cell whose formula holds the call
 	of    int // the cell X
 	combo int // index into Combos.All
@@ -30,18 +30,18 @@ func findPins(prog *check.Program, errs *diag.List) []pin {
 		return nil
 	}
 	var out []pin
-	var walk func(c *check.Cell, n *check.Node)
-	walk = func(c *check.Cell, n *check.Node) {
-		if n == nil {
+	var walk func(c *check.Cell, n check.Node)
+	walk = func(c *check.Cell, n check.Node) {
+		if n.IsZero() {
 			return
 		}
-		if n.Op == check.OpBuiltin && n.Builtin == check.BInCombo && n.NArg() == 2 {
+		if n.Op() == check.OpBuiltin && n.Builtin() == check.BInCombo && n.NArg() == 2 {
 			if c.Kind == Function {
 				errs.Errorf(n.Range(), "a function has no cell of its own to hold the value of one combination",
 					"compute `"+n.Text()+"` in a cell and pass that cell to the function", "in_combination in the function `%s`", c.Name)
 				return
 			}
-			out = append(out, pin{node: n, cell: c.Index, of: int(n.Arg(0).Index), combo: -1})
+			out = append(out, pin{node: n, cell: c.Index, of: int(n.Arg(0).Index()), combo: -1})
 			return
 		}
 		for _, a := range n.Args() {
@@ -152,13 +152,13 @@ func direct(prog *check.Program, dep []bool, pins []pin) []bool {
 	}
 	for cell, m := range inPin {
 		c := prog.Cells[cell]
-		var walk func(n *check.Node)
-		walk = func(n *check.Node) {
-			if n == nil || n.Op == check.OpBuiltin && n.Builtin == check.BInCombo {
+		var walk func(n check.Node)
+		walk = func(n check.Node) {
+			if n.IsZero() || n.Op() == check.OpBuiltin && n.Builtin() == check.BInCombo {
 				return
 			}
-			if n.Op == check.OpCell {
-				delete(m, int(n.Index)) // also read outside a pin
+			if n.Op() == check.OpCell {
+				delete(m, int(n.Index())) // also read outside a pin
 			}
 			for _, a := range n.Args() {
 				walk(a)

@@ -178,7 +178,7 @@ func (st *State) checkResult(cr *CellResult, i int) CheckResult {
 			// The view's cells may show another combination than this
 			// check's governing one: the term was found in its own.
 			ch.Governing = term
-		} else if g := e.Governing(i); g != nil {
+		} else if g := e.Governing(i); !g.IsZero() {
 			ch.Governing = g.Text()
 		}
 	} else if e.Unassessed(i) {
@@ -249,12 +249,12 @@ func (st *State) Update(r *Results, idx []int) {
 // written unit of the capacity or demand cell when the side is a bare cell
 // reference, else the preferred unit.
 func (s *Sheet) checkUnit(c *Cell) units.Unit {
-	if c.Extra().Demand == nil {
+	if c.Extra().Demand.IsZero() {
 		return units.Unit{Factor: 1}
 	}
-	for _, side := range []*Node{c.Extra().Capacity, c.Extra().Demand} {
-		if side.Op == OpCell {
-			if d := s.prog.Cells[side.Index]; d.HasUnit {
+	for _, side := range []Node{c.Extra().Capacity, c.Extra().Demand} {
+		if side.Op() == OpCell {
+			if d := s.prog.Cells[side.Index()]; d.HasUnit {
 				return d.Unit
 			}
 		}

@@ -91,7 +91,7 @@ func (s *Sheet) parseValue(label, text string) (funcs.Value, *funcs.Type, error)
 		return nil, nil, fmt.Errorf("cannot read %q for `%s`: %s", text, label, errs[0].Summary)
 	}
 	n, errs := s.prog.TypeValue(f, s.system)
-	if errs.HasErrors() || n == nil {
+	if errs.HasErrors() || n.IsZero() {
 		msg := "not a value"
 		if len(errs) > 0 {
 			msg = errs[0].Summary

@@ -244,7 +244,7 @@ func (s *Sheet) ParseInput(name, text string) (funcs.Value, error) {
 		return nil, fmt.Errorf("cannot read %q for `%s`: %s", text, name, errs[0].Summary)
 	}
 	n, errs := s.prog.TypeValue(f, s.system)
-	if errs.HasErrors() || n == nil {
+	if errs.HasErrors() || n.IsZero() {
 		msg := "not a value"
 		if len(errs) > 0 {
 			msg = errs[0].Summary

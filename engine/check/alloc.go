@@ -19,7 +19,7 @@ import (
 type arena struct {
 	cells block.Block[cellAndFormula]
 	srcs  block.Block[typed]
-	nodes block.Block[Node]
+	nodes block.Block[slot]
 	deps  block.Block[int]
 	nums  map[units.Dim]*funcs.Type
 }

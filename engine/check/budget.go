@@ -22,14 +22,14 @@ func (c *checker) budget() {
 		limit = float64(c.opt.MaxSteps)
 	}
 	cost := make([]float64, len(p.Cells)) // steps of one evaluation; +Inf: over budget, reported
-	var walk func(n *Node) float64
-	walk = func(n *Node) float64 {
+	var walk func(n Node) float64
+	walk = func(n Node) float64 {
 		s := 1.0
 		for k := range n.NArg() {
 			s += walk(n.Arg(k))
 		}
-		if n.Op == OpUser || n.Op == OpFuncRef {
-			s += cost[n.Index]
+		if n.Op() == OpUser || n.Op() == OpFuncRef {
+			s += cost[n.Index()]
 		}
 		return s
 	}
@@ -37,8 +37,8 @@ func (c *checker) budget() {
 	// A formula that calls no function of the sheet takes a step per node:
 	// its count, kept while typing, saves a walk over every node of a
 	// large sheet.
-	steps := func(roots ...*Node) float64 {
-		if roots[0] == nil {
+	steps := func(roots ...Node) float64 {
+		if roots[0].IsZero() {
 			return 0
 		}
 		if !roots[0].src.calls {

@@ -132,7 +132,7 @@ var (
 // builtinType applies the dimension rule of b to the argument nodes. It
 // returns the result type or a problem (summary, hint) and the index of the
 // offending argument (-1 for the call as a whole).
-func (t *typer) builtinType(b BuiltinInfo, args []*Node) (*funcs.Type, *argProblem) {
+func (t *typer) builtinType(b BuiltinInfo, args []Node) (*funcs.Type, *argProblem) {
 	n := len(args)
 	arity := func(lo, hi int) *argProblem {
 		if n >= lo && (hi < 0 || n <= hi) {
@@ -222,13 +222,13 @@ func (t *typer) builtinType(b BuiltinInfo, args []*Node) (*funcs.Type, *argProbl
 		if p := arity(2, 2); p != nil {
 			return nil, p
 		}
-		if args[0].Op != OpCell {
+		if args[0].Op() != OpCell {
 			return nil, &argProblem{0, "in_combination needs the name of a cell", "write " + b.Sig + ": the cell whose value in that combination a formula needs"}
 		}
 		if p := num(0); p != nil {
 			return nil, p
 		}
-		if args[1].Op != OpString {
+		if args[1].Op() != OpString {
 			return nil, &argProblem{1, "in_combination needs the combination as a text in quotes", "write " + b.Sig + "; `sheaf run --combinations` lists the labels"}
 		}
 		return funcs.Num(args[0].Type().Dim), nil
@@ -345,7 +345,7 @@ type argProblem struct {
 
 // powType is the rule of x^n and pow(x, n): with a dimensioned x, n must be
 // a constant whose value is a fraction with a small denominator.
-func (t *typer) powType(x, e *Node, what string) (*funcs.Type, *argProblem) {
+func (t *typer) powType(x, e Node, what string) (*funcs.Type, *argProblem) {
 	if x.Type().Kind != funcs.Number || e.Type().Kind != funcs.Number {
 		return nil, &argProblem{-1, what + " needs numbers", ""}
 	}
@@ -440,8 +440,8 @@ func (t *typer) dimOverflow(d units.Dim, op string, a, b units.Dim) *argProblem 
 }
 
 // fold evaluates a constant plain-number expression.
-func fold(n *Node) (float64, bool) {
-	switch n.Op {
+func fold(n Node) (float64, bool) {
+	switch n.Op() {
 	case OpConst:
 		return n.Num(), n.Type().Dim.IsNone()
 	case OpNeg:
@@ -453,7 +453,7 @@ func fold(n *Node) (float64, bool) {
 		if !ok1 || !ok2 {
 			return 0, false
 		}
-		switch n.Op {
+		switch n.Op() {
 		case OpAdd:
 			return a + b, true
 		case OpSub:

@@ -11,7 +11,7 @@ import (
 
 // call types a call of name with args: a user function of the sheet, a
 // built-in, or a plugin function from the registry, in that order.
-func (t *typer) call(n int32, name string, argNodes []int32) *Node {
+func (t *typer) call(n int32, name string, argNodes []int32) Node {
 	if i, ok := t.c.local(t.cell, name); ok {
 		fn := t.c.prog.Cells[i]
 		if fn.Kind != Function {
@@ -20,14 +20,14 @@ func (t *typer) call(n int32, name string, argNodes []int32) *Node {
 		}
 		fnType := t.c.typeOf(i)
 		if fnType == nil {
-			return nil
+			return Node{}
 		}
 		return t.userCall(n, i, fn, fnType, argNodes)
 	}
 	if b, ok := builtinByName[name]; ok {
 		args := t.args(argNodes)
 		if args == nil {
-			return nil
+			return Node{}
 		}
 		ty, p := t.builtinType(b, args)
 		if p != nil {
@@ -38,7 +38,7 @@ func (t *typer) call(n int32, name string, argNodes []int32) *Node {
 			return t.fail(at, p.summary, "the rule of "+b.Name+": "+b.Rule, p.hint)
 		}
 		r := t.node(n, OpBuiltin, ty)
-		r.Builtin = b.ID
+		r.slot().builtin = b.ID
 		if b.ID == BInCombo {
 			t.c.prog.InCombination = true
 		}
@@ -54,12 +54,12 @@ func (t *typer) call(n int32, name string, argNodes []int32) *Node {
 }
 
 // args types every argument; nil if any failed.
-func (t *typer) args(argNodes []int32) []*Node {
-	args := make([]*Node, len(argNodes))
+func (t *typer) args(argNodes []int32) []Node {
+	args := make([]Node, len(argNodes))
 	ok := true
 	for i, a := range argNodes {
 		args[i] = t.expr(a)
-		ok = ok && args[i] != nil
+		ok = ok && !args[i].IsZero()
 	}
 	if !ok {
 		return nil
@@ -69,14 +69,14 @@ func (t *typer) args(argNodes []int32) []*Node {
 
 // userCall types a call of the user function fn (cell idx) whose type is
 // fnType: its own, or the stand-in of a function that failed.
-func (t *typer) userCall(n int32, idx int, fn *Cell, fnType *funcs.Type, argNodes []int32) *Node {
+func (t *typer) userCall(n int32, idx int, fn *Cell, fnType *funcs.Type, argNodes []int32) Node {
 	if len(argNodes) != len(fn.Extra().Params) {
 		return t.fail(n, fmt.Sprintf("%s takes %s, got %d", fn.Name, plural.Count(len(fn.Extra().Params), "argument"), len(argNodes)),
 			"the function is defined at "+fn.Pos().String(), "write "+fn.Name+"("+paramList(fn)+")")
 	}
 	args := t.args(argNodes)
 	if args == nil {
-		return nil
+		return Node{}
 	}
 	for i, a := range args {
 		p := fn.Extra().Params[i]
@@ -86,11 +86,11 @@ func (t *typer) userCall(n int32, idx int, fn *Cell, fnType *funcs.Type, argNode
 		}
 	}
 	r := t.node(n, OpUser, fnType.Result)
-	r.Index = int32(idx)
+	r.slot().index = int32(idx)
 	return r
 }
 
-func (t *typer) pluginCall(n int32, def *funcs.Def, argNodes []int32) *Node {
+func (t *typer) pluginCall(n int32, def *funcs.Def, argNodes []int32) Node {
 	lo, hi := def.MinArgs(), len(def.Params)
 	if len(argNodes) < lo || (len(argNodes) > hi && def.Validate == nil) {
 		want := fmt.Sprintf("%d", hi)
@@ -99,7 +99,7 @@ func (t *typer) pluginCall(n int32, def *funcs.Def, argNodes []int32) *Node {
 		}
 		return t.fail(n, fmt.Sprintf("%s takes %s %s, got %d", def.Name, want, plural.Noun(hi, "argument"), len(argNodes)), def.Summary, "see `sheaf funcs "+def.Name+"`")
 	}
-	args := make([]*Node, len(argNodes))
+	args := make([]Node, len(argNodes))
 	types := make([]*funcs.Type, len(argNodes))
 	ok := true
 	for i, a := range argNodes {
@@ -114,10 +114,10 @@ func (t *typer) pluginCall(n int32, def *funcs.Def, argNodes []int32) *Node {
 				fn := t.c.prog.Cells[j]
 				fnType := t.c.typeOf(j)
 				if fnType == nil {
-					return nil
+					return Node{}
 				}
 				r := t.node(a, OpFuncRef, fnType)
-				r.Index = int32(j)
+				r.slot().index = int32(j)
 				args[i], types[i] = r, fnType
 				if !p.Type.Accepts(fnType) {
 					t.fail(a, fmt.Sprintf("%s of %s must be %s, got %s", p.Name, def.Name, p.Type.String(), fnType.String()), p.Doc,
@@ -128,7 +128,7 @@ func (t *typer) pluginCall(n int32, def *funcs.Def, argNodes []int32) *Node {
 			}
 		}
 		x := t.expr(a)
-		if x == nil {
+		if x.IsZero() {
 			ok = false
 			continue
 		}
@@ -139,7 +139,7 @@ func (t *typer) pluginCall(n int32, def *funcs.Def, argNodes []int32) *Node {
 		}
 	}
 	if !ok {
-		return nil
+		return Node{}
 	}
 	res := def.Result
 	if def.Validate != nil {
@@ -153,7 +153,7 @@ func (t *typer) pluginCall(n int32, def *funcs.Def, argNodes []int32) *Node {
 		return t.fail(n, def.Name+" returns nothing", "a plugin function must declare its result", "report this to the author of the "+def.Family+" functions")
 	}
 	r := t.node(n, OpPlugin, res)
-	r.Index = t.c.prog.plugin(def)
+	r.slot().index = t.c.prog.plugin(def)
 	return r
 }
 

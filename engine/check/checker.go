@@ -433,7 +433,7 @@ func (c *checker) typeEntries(cell *Cell, sys units.System) {
 		e := &entries[k]
 		t := &typer{c: c, f: e.Formula, cell: cell, system: sys, errs: &c.errs}
 		n := t.expr(e.Formula.Root)
-		if n == nil {
+		if n.IsZero() {
 			cell.Type = nil
 			continue
 		}
@@ -641,7 +641,7 @@ func (c *checker) typeCell(t *typer, cell *Cell) {
 		c.typeCheck(t, cell)
 	case Function:
 		body := t.expr(cell.Formula.Root)
-		if body == nil || !c.fitsUnit(t, cell, body) {
+		if body.IsZero() || !c.fitsUnit(t, cell, body) {
 			return
 		}
 		ps := make([]*funcs.Type, len(cell.Extra().Params))
@@ -652,7 +652,7 @@ func (c *checker) typeCell(t *typer, cell *Cell) {
 		cell.Type = funcs.FuncOf(body.Type(), ps...)
 	default:
 		body := t.expr(cell.Formula.Root)
-		if body == nil || !c.fitsOverride(t, cell, body) || !c.fitsUnit(t, cell, body) {
+		if body.IsZero() || !c.fitsOverride(t, cell, body) || !c.fitsUnit(t, cell, body) {
 			return
 		}
 		cell.Body, cell.Type = body, body.Type()
@@ -705,7 +705,7 @@ func (c *checker) typeOf(i int) *funcs.Type {
 }
 
 // fitsUnit reports whether the display unit fits the expression.
-func (c *checker) fitsUnit(t *typer, cell *Cell, body *Node) bool {
+func (c *checker) fitsUnit(t *typer, cell *Cell, body Node) bool {
 	if !cell.HasUnit {
 		return true
 	}
@@ -787,7 +787,7 @@ func (c *checker) typeCheck(t *typer, cell *Cell) {
 		return
 	}
 	l, r := t.expr(b.A), t.expr(b.B)
-	if l == nil || r == nil {
+	if l.IsZero() || r.IsZero() {
 		return
 	}
 	if l.Type().Kind != funcs.Number || r.Type().Kind != funcs.Number {
@@ -812,14 +812,14 @@ func (c *checker) typeCheck(t *typer, cell *Cell) {
 
 // TypeValue types a stand-alone value such as an override `45 kN`: a
 // formula that may use literals, constants and built-ins but no cell.
-func (p *Program) TypeValue(f *formula.Formula, sys units.System) (*Node, diag.List) {
+func (p *Program) TypeValue(f *formula.Formula, sys units.System) (Node, diag.List) {
 	var errs diag.List
 	for r := range f.Refs() {
 		name := f.Text(r)
 		if _, ok := p.ByName[name]; ok {
 			errs.Errorf(f.Range(r), "a value given for an input is a quantity such as `45 kN`",
 				"write the number with its unit", "a value cannot refer to the cell `%s`", name)
-			return nil, errs
+			return Node{}, errs
 		}
 	}
 	c := &checker{prog: &Program{ByName: map[string]int{}}}

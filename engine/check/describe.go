@@ -117,9 +117,9 @@ func (t *typer) describeType(ty *funcs.Type) string {
 // unit u has a dimension (`d [mm] = 16`, `alpha [deg] = 35`): the number
 // needs its unit. body is the cell's expression; a literal is quoted back
 // with the unit.
-func plainNumberHint(u units.Unit, body *Node) string {
+func plainNumberHint(u units.Unit, body Node) string {
 	sym := u.Symbol
-	if body.Op == OpConst {
+	if body.Op() == OpConst {
 		lit := "`" + units.FormatNumber(body.Num(), 15) + " " + sym + "`"
 		if u.Dim == angleDim {
 			return "a plain number is not an angle: write " + lit + ", or multiply a number of radians by 1 rad"

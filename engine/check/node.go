@@ -43,50 +43,72 @@ const (
 )
 
 // Node is a typed expression: the checker's output, the evaluator's input.
+// It is a handle, passed by value: the formula it lies in and the index
+// of its syntax node. The zero Node stands for no expression (IsZero).
 //
 // A formula's typed nodes lie in one slice beside its syntax nodes, at the
-// same indices: node i is the type and meaning of syntax node i. What the
+// same indices: slot i is the type and meaning of syntax node i. What the
 // syntax already holds (the arguments, a literal's value, a name, the
-// span) is read from it rather than copied, and its type is an index into
-// the program's types, so a node is 24 bytes with a single pointer, and a
-// formula's nodes are one allocation. Brackets and a unary plus have no
-// node of their own: they stand for what they enclose.
+// span) is read from it rather than copied, and the type is an index into
+// the program's types, so a slot is 12 bytes without a pointer: the
+// collector does not scan a million of them. Brackets and a unary plus
+// have no node of their own: they stand for what they enclose.
 type Node struct {
-	Op      Op
-	Builtin Builtin // for OpBuiltin
-	Index   int32   // cell, parameter or field index (see Op); for OpPlugin, of Program.plugins
-	at      int32   // the syntax node in src.f
-	ty      int32   // the type, in Program.types
-	src     *typed
+	src *typed
+	at  int32 // the syntax node in src.f
 }
 
+// slot is what the checker found a syntax node to mean.
+type slot struct {
+	op      Op
+	builtin Builtin // for OpBuiltin
+	index   int32   // see Node.Index
+	ty      int32   // the type, in Program.types
+}
+
+// IsZero reports whether n stands for no expression (a cell with no value
+// formula, a side of a check that failed).
+func (n Node) IsZero() bool { return n.src == nil }
+
+func (n Node) slot() *slot { return &n.src.nodes[n.at] }
+
+// Op is the operation of the node.
+func (n Node) Op() Op { return n.src.nodes[n.at].op }
+
+// Builtin is the built-in function an OpBuiltin node applies.
+func (n Node) Builtin() Builtin { return n.src.nodes[n.at].builtin }
+
+// Index is the cell, parameter or field index the node refers to (see
+// Op); for OpPlugin, an index of Program.plugins.
+func (n Node) Index() int32 { return n.src.nodes[n.at].index }
+
 // Type is the type of the node's value.
-func (n *Node) Type() *funcs.Type { return n.src.prog.types[n.ty] }
+func (n Node) Type() *funcs.Type { return n.src.prog.types[n.src.nodes[n.at].ty] }
 
 // typed is a formula with its typed nodes.
 type typed struct {
 	f     *formula.Formula
 	prog  *Program // for the names of the cells a node refers to
-	nodes []Node   // len(f.Nodes); a slot is set when its syntax node was typed
+	nodes []slot   // len(f.Nodes); a slot is set when its syntax node was typed
 	count int32    // slots set
 	calls bool     // some slot calls a function of the sheet (OpUser, OpFuncRef)
 }
 
 // node returns the typed node standing for syntax node n: brackets and a
 // unary plus stand for what they enclose.
-func (s *typed) node(n int32) *Node {
+func (s *typed) node(n int32) Node {
 	for {
 		nd := &s.f.Nodes[n]
 		if nd.Kind != formula.KParen && (nd.Kind != formula.KUnary || nd.Op != formula.OpPlus) {
-			return &s.nodes[n]
+			return Node{src: s, at: n}
 		}
 		n = nd.A
 	}
 }
 
 // NArg returns the number of arguments of the node.
-func (n *Node) NArg() int {
-	switch n.Op {
+func (n Node) NArg() int {
+	switch n.Op() {
 	case OpNeg, OpNot, OpField, OpColumn:
 		return 1
 	case OpAdd, OpSub, OpMul, OpDiv, OpPow, OpLT, OpLE, OpGT, OpGE, OpEQ, OpNE, OpAnd, OpOr, OpIndex:
@@ -102,9 +124,9 @@ func (n *Node) NArg() int {
 }
 
 // Arg returns argument k of the node (0 ≤ k < NArg()).
-func (n *Node) Arg(k int) *Node {
+func (n Node) Arg(k int) Node {
 	nd := &n.src.f.Nodes[n.at]
-	switch n.Op {
+	switch n.Op() {
 	case OpNeg, OpNot, OpField, OpColumn:
 		return n.src.node(nd.A)
 	case OpBuiltin, OpPlugin, OpUser, OpList:
@@ -123,12 +145,12 @@ func (n *Node) Arg(k int) *Node {
 
 // Args returns the arguments of the node in a new slice (nil when it has
 // none). Arg and NArg read them without one.
-func (n *Node) Args() []*Node {
+func (n Node) Args() []Node {
 	k := n.NArg()
 	if k == 0 {
 		return nil
 	}
-	args := make([]*Node, k)
+	args := make([]Node, k)
 	for i := range args {
 		args[i] = n.Arg(i)
 	}
@@ -137,7 +159,7 @@ func (n *Node) Args() []*Node {
 
 // Num is the value in SI of a constant (OpConst) or of a yes/no literal
 // (OpBool, 1 or 0); 0 for other nodes.
-func (n *Node) Num() float64 {
+func (n Node) Num() float64 {
 	f := n.src.f
 	switch f.Nodes[n.at].Kind {
 	case formula.KNumber, formula.KBool:
@@ -145,7 +167,7 @@ func (n *Node) Num() float64 {
 	case formula.KQuantity:
 		return f.Quantity(n.at).SI
 	case formula.KName:
-		if n.Op == OpConst {
+		if n.Op() == OpConst {
 			return Constants[f.Text(n.at)].SI
 		}
 	}
@@ -154,45 +176,45 @@ func (n *Node) Num() float64 {
 
 // Str is the text of a string constant, or the name of the function a
 // call or function value names ("" for other nodes).
-func (n *Node) Str() string {
-	switch n.Op {
+func (n Node) Str() string {
+	switch n.Op() {
 	case OpString:
 		return n.src.f.StringText(n.at)
 	case OpBuiltin:
-		return builtinNames[n.Builtin]
+		return builtinNames[n.Builtin()]
 	case OpPlugin:
 		return n.Def().Name
 	case OpUser, OpFuncRef:
-		return n.src.prog.Cells[n.Index].Name
+		return n.src.prog.Cells[n.Index()].Name
 	}
 	return ""
 }
 
 // Def is the plugin a plugin call applies (nil for other nodes).
-func (n *Node) Def() *funcs.Def {
-	if n.Op != OpPlugin {
+func (n Node) Def() *funcs.Def {
+	if n.Op() != OpPlugin {
 		return nil
 	}
-	return n.src.prog.plugins[n.Index]
+	return n.src.prog.plugins[n.Index()]
 }
 
 // Formula is the formula the node was typed from.
-func (n *Node) Formula() *formula.Formula { return n.src.f }
+func (n Node) Formula() *formula.Formula { return n.src.f }
 
 // Span is the byte span of the node in Formula().Source.Text.
-func (n *Node) Span() (from, to int) { return n.src.f.Span(n.at) }
+func (n Node) Span() (from, to int) { return n.src.f.Span(n.at) }
 
 // Range returns the source range of the node.
-func (n *Node) Range() diag.Range { return n.src.f.Range(n.at) }
+func (n Node) Range() diag.Range { return n.src.f.Range(n.at) }
 
 // Text returns the source text of the node as written, e.g. `N_plRd` or
 // `0.9 * A_s * f_ub / gamma_M2`.
-func (n *Node) Text() string { return n.src.f.Text(n.at) }
+func (n Node) Text() string { return n.src.f.Text(n.at) }
 
 // Quantity returns the quantity literal a constant node was typed from,
 // such as `38 kN` with its written unit, or nil.
-func (n *Node) Quantity() *formula.Quantity {
-	if n.Op != OpConst || n.src.f.Nodes[n.at].Kind != formula.KQuantity {
+func (n Node) Quantity() *formula.Quantity {
+	if n.Op() != OpConst || n.src.f.Nodes[n.at].Kind != formula.KQuantity {
 		return nil
 	}
 	return n.src.f.Quantity(n.at)

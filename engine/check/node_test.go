@@ -27,8 +27,8 @@ func TestNodeCount(t *testing.T) {
 	if err != nil || len(paths) == 0 {
 		t.Fatalf("no bundled sheets: %v", err)
 	}
-	var walk func(n *Node) int32
-	walk = func(n *Node) int32 {
+	var walk func(n Node) int32
+	walk = func(n Node) int32 {
 		k := int32(1)
 		for i := range n.NArg() {
 			a := n.Arg(i)
@@ -58,12 +58,12 @@ func TestNodeCount(t *testing.T) {
 			if c.Type == nil {
 				continue
 			}
-			roots := [][]*Node{{c.Body}, {c.Extra().Demand, c.Extra().Capacity}}
+			roots := [][]Node{{c.Body}, {c.Extra().Demand, c.Extra().Capacity}}
 			for _, e := range c.Extra().Entries {
-				roots = append(roots, []*Node{e.Node})
+				roots = append(roots, []Node{e.Node})
 			}
 			for _, rs := range roots {
-				if rs[0] == nil {
+				if rs[0].IsZero() {
 					continue
 				}
 				var n int32

@@ -60,7 +60,7 @@ type Cell struct {
 	Scope string
 
 	// Body is the typed tree of the value (Input, Derived, Function).
-	Body *Node
+	Body Node
 	// extra holds what a check, function, table or action cell has
 	// beyond that; nil for an input or a derived cell, which are most of
 	// a large sheet (Extra reads it).
@@ -72,7 +72,7 @@ type Cell struct {
 // of a sheet) fill without it: a cell is 104 bytes smaller for them.
 type Extra struct {
 	// Check cells: the two sides and the operator as written ("<=" or ">=").
-	Demand, Capacity *Node
+	Demand, Capacity Node
 	Op               string
 	// State is the limit state a check names after `in` (nil for the
 	// default one); Cell.LimitState gives its name.
@@ -137,7 +137,7 @@ func (p *Program) DepNames(c *Cell) []string {
 type Entry struct {
 	Row, Col int
 	Formula  *formula.Formula
-	Node     *Node
+	Node     Node
 }
 
 // Param is a parameter of a user function.

@@ -21,28 +21,27 @@ type typer struct {
 	errs   *diag.List
 }
 
-func (t *typer) fail(n int32, summary, detail, hint string) *Node {
+func (t *typer) fail(n int32, summary, detail, hint string) Node {
 	t.errs.Add(&diag.Diagnostic{Range: t.f.Range(n), Summary: summary, Detail: detail, Hint: hint})
-	return nil
+	return Node{}
 }
 
 // node sets and returns the typed node of syntax node n. Its arguments are
 // the typed nodes of n's operands, which the caller typed first.
-func (t *typer) node(n int32, op Op, ty *funcs.Type) *Node {
+func (t *typer) node(n int32, op Op, ty *funcs.Type) Node {
 	if t.typed == nil {
 		t.typed = t.c.arena.typed(t.f, t.c.prog)
 	}
-	r := &t.typed.nodes[n]
-	*r = Node{Op: op, ty: t.c.prog.typeIndex(ty), at: n, src: t.typed}
+	t.typed.nodes[n] = slot{op: op, ty: t.c.prog.typeIndex(ty)}
 	t.typed.count++
 	t.typed.calls = t.typed.calls || op == OpUser || op == OpFuncRef
-	return r
+	return Node{src: t.typed, at: n}
 }
 
 // expr types node n of the formula. It returns nil after reporting a
 // problem, or silently when a cell it uses has failed (one mistake, one
 // message).
-func (t *typer) expr(n int32) *Node {
+func (t *typer) expr(n int32) Node {
 	f := t.f
 	nd := &f.Nodes[n]
 	switch nd.Kind {
@@ -51,7 +50,7 @@ func (t *typer) expr(n int32) *Node {
 	case formula.KQuantity:
 		q := f.Quantity(n)
 		if q.Unit.Factor == 0 {
-			return nil // the unit was reported already
+			return Node{} // the unit was reported already
 		}
 		return t.node(n, OpConst, t.c.arena.num(q.Unit.Dim))
 	case formula.KBool:
@@ -64,8 +63,8 @@ func (t *typer) expr(n int32) *Node {
 		return t.expr(nd.A)
 	case formula.KUnary:
 		x := t.expr(nd.A)
-		if x == nil {
-			return nil
+		if x.IsZero() {
+			return Node{}
 		}
 		if nd.Op == formula.OpNot {
 			if x.Type().Kind != funcs.Bool {
@@ -84,8 +83,8 @@ func (t *typer) expr(n int32) *Node {
 		return t.binary(n)
 	case formula.KCond:
 		c, a, b := t.expr(nd.A), t.expr(nd.B), t.expr(nd.C)
-		if c == nil || a == nil || b == nil {
-			return nil
+		if c.IsZero() || a.IsZero() || b.IsZero() {
+			return Node{}
 		}
 		if c.Type().Kind != funcs.Bool {
 			return t.fail(nd.A, "the condition of `? :` must be a comparison, got "+t.describeType(c.Type()), "", "write e.g. `N > 0 ? a : b`")
@@ -116,12 +115,12 @@ func sameType(a, b *funcs.Type) bool {
 	return a.Accepts(b) && b.Accepts(a)
 }
 
-func (t *typer) ident(n int32) *Node {
+func (t *typer) ident(n int32) Node {
 	name := t.f.Text(n)
 	for i, p := range t.params {
 		if p.Name == name {
 			r := t.node(n, OpParam, p.Type)
-			r.Index = int32(i)
+			r.slot().index = int32(i)
 			return r
 		}
 	}
@@ -130,15 +129,15 @@ func (t *typer) ident(n int32) *Node {
 		ty := t.c.typeOf(i)
 		if dep.Kind == Function {
 			if ty == nil {
-				return nil
+				return Node{}
 			}
 			return t.fail(n, "`"+name+"` is a function and needs arguments", "", "call it: "+name+"("+paramList(dep)+")")
 		}
 		if ty == nil {
-			return nil // failed or in a cycle: reported there
+			return Node{} // failed or in a cycle: reported there
 		}
 		r := t.node(n, OpCell, ty)
-		r.Index = int32(i)
+		r.slot().index = int32(i)
 		return r
 	}
 	if t.c.use.isAlias(t.scope() + name) {
@@ -181,7 +180,7 @@ func paramList(c *Cell) string {
 	return s
 }
 
-func (t *typer) undefined(n int32, name string) *Node {
+func (t *typer) undefined(n int32, name string) Node {
 	hint := "define it on a line of its own, as in `" + name + " = ...`, or correct the spelling"
 	if t.f.Nodes[n].Kind == formula.KCall {
 		hint = "`sheaf funcs` lists the functions; a sheet defines its own as `" + name + "(x [m]) = ...`"
@@ -194,11 +193,11 @@ func (t *typer) undefined(n int32, name string) *Node {
 
 var cmpOps = map[string]Op{"<": OpLT, "<=": OpLE, ">": OpGT, ">=": OpGE, "==": OpEQ, "!=": OpNE}
 
-func (t *typer) binary(n int32) *Node {
+func (t *typer) binary(n int32) Node {
 	nd := &t.f.Nodes[n]
 	a, b := t.expr(nd.A), t.expr(nd.B)
-	if a == nil || b == nil {
-		return nil
+	if a.IsZero() || b.IsZero() {
+		return Node{}
 	}
 	op := nd.Op.String()
 	switch op {
@@ -269,7 +268,7 @@ func (t *typer) binary(n int32) *Node {
 	return t.fail(n, "operator `"+op+"` is not part of the sheet language", "formulas use + - * / ^ (or **), comparisons, and/or/not and `a ? b : c`", "")
 }
 
-func (t *typer) member(n int32) *Node {
+func (t *typer) member(n int32) Node {
 	nd := &t.f.Nodes[n]
 	if nd.Kind == formula.KField {
 		if r, ok := t.templateMember(n); ok {
@@ -277,8 +276,8 @@ func (t *typer) member(n int32) *Node {
 		}
 	}
 	x := t.expr(nd.A)
-	if x == nil {
-		return nil
+	if x.IsZero() {
+		return Node{}
 	}
 	if nd.Kind == formula.KField {
 		field := t.f.Text(nd.B)
@@ -303,19 +302,19 @@ func (t *typer) member(n int32) *Node {
 			}
 			if x.Type().Kind == funcs.Table {
 				r := t.node(n, OpColumn, funcs.ListOf(x.Type().Fields[i].Type))
-				r.Index = int32(i)
+				r.slot().index = int32(i)
 				return r
 			}
 			r := t.node(n, OpField, x.Type().Fields[i].Type)
-			r.Index = int32(i)
+			r.slot().index = int32(i)
 			return r
 		}
 		return t.fail(n, "`."+field+"` needs a record or a table, got "+t.describeType(x.Type()), "fields belong to records such as `{E: 210 GPa}` and columns to tables",
 			"remove `."+field+"`, or name a record or table before it")
 	}
 	i := t.expr(nd.B)
-	if i == nil {
-		return nil
+	if i.IsZero() {
+		return Node{}
 	}
 	if x.Type().Kind != funcs.List {
 		return t.fail(n, "indexing `[i]` needs a list, got "+t.describeType(x.Type()), "lists are written `[1 m, 2 m]`; a table's column `t.L` is a list too",
@@ -338,16 +337,16 @@ func join(xs []string) string {
 	return s
 }
 
-func (t *typer) list(n int32) *Node {
+func (t *typer) list(n int32) Node {
 	items := t.f.ArgList(n)
 	if len(items) == 0 {
 		return t.fail(n, "an empty list has no type", "a list holds one or more values of one kind", "write at least one value: [1 m]")
 	}
-	args := make([]*Node, 0, len(items))
+	args := make([]Node, 0, len(items))
 	for _, e := range items {
 		x := t.expr(e)
-		if x == nil {
-			return nil
+		if x.IsZero() {
+			return Node{}
 		}
 		args = append(args, x)
 	}
@@ -360,9 +359,9 @@ func (t *typer) list(n int32) *Node {
 	return t.node(n, OpList, funcs.ListOf(args[0].Type()))
 }
 
-func (t *typer) record(n int32) *Node {
+func (t *typer) record(n int32) Node {
 	pairs := t.f.ArgList(n)
-	var args []*Node
+	var args []Node
 	var fields []funcs.Field
 	for k := 0; k+1 < len(pairs); k += 2 {
 		keyNode := pairs[k]
@@ -371,8 +370,8 @@ func (t *typer) record(n int32) *Node {
 			return t.fail(keyNode, "field `"+key+"` is written twice", "each field of a record has its own name", "keep one of the two")
 		}
 		x := t.expr(pairs[k+1])
-		if x == nil {
-			return nil
+		if x.IsZero() {
+			return Node{}
 		}
 		args = append(args, x)
 		fields = append(fields, funcs.Field{Name: key, Type: x.Type()})

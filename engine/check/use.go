@@ -244,16 +244,16 @@ func (c *checker) usePath(cell *Cell, f *formula.Formula, n int32) (string, int3
 
 // templateMember types `rod.x` when rod names a template use; ok is false
 // when n is an ordinary member access (a record's field, a table's column).
-func (t *typer) templateMember(n int32) (*Node, bool) {
+func (t *typer) templateMember(n int32) (Node, bool) {
 	nd := &t.f.Nodes[n]
 	pre, _, ok := t.c.usePath(t.cell, t.f, nd.A)
 	if !ok {
-		return nil, false
+		return Node{}, false
 	}
 	qual := strings.TrimSuffix(pre, ".")
 	a := t.c.use.aliases[qual]
 	if a.failed {
-		return nil, true // reported at the use
+		return Node{}, true // reported at the use
 	}
 	written := strings.TrimPrefix(qual, t.scope())
 	field := t.f.Text(nd.B)
@@ -274,25 +274,25 @@ func (t *typer) templateMember(n int32) (*Node, bool) {
 	ty := t.c.typeOf(i)
 	if dep.Kind == Function {
 		if ty == nil {
-			return nil, true
+			return Node{}, true
 		}
 		return t.fail(n, "`"+written+"."+field+"` is a function of the template", "a template's functions serve its own cells; only its values can be used here",
 			"copy the function into this sheet, or give the template a cell that computes the value you need"), true
 	}
 	if ty == nil {
-		return nil, true // failed or in a cycle: reported there
+		return Node{}, true // failed or in a cycle: reported there
 	}
 	r := t.node(n, OpCell, ty)
-	r.Index = int32(i)
+	r.slot().index = int32(i)
 	return r, true
 }
 
 // aliasValue reports a template use's name written as a value.
-func (t *typer) aliasValue(n int32, name string) *Node {
+func (t *typer) aliasValue(n int32, name string) Node {
 	qual := t.scope() + name
 	a := t.c.use.aliases[qual]
 	if a.failed {
-		return nil
+		return Node{}
 	}
 	return t.fail(n, "`"+name+"` is a template use, not a value", "it brings in the cells of "+a.file,
 		"refer to one of its cells, e.g. `"+name+"."+t.c.firstCell(qual+".")+"`")
@@ -465,7 +465,7 @@ func (c *checker) inputsOf(prefix string) []string {
 
 // fitsOverride reports whether the typed override body has the type of the
 // template input it replaces, and says so at the override when not.
-func (c *checker) fitsOverride(t *typer, cell *Cell, body *Node) bool {
+func (c *checker) fitsOverride(t *typer, cell *Cell, body Node) bool {
 	if c.use == nil {
 		return true
 	}
@@ -476,7 +476,7 @@ func (c *checker) fitsOverride(t *typer, cell *Cell, body *Node) bool {
 	var scratch diag.List
 	ot := &typer{c: c, f: r.orig, cell: &Cell{Name: cell.Name, Scope: r.scope}, system: t.system, errs: &scratch}
 	want := ot.expr(r.orig.Root)
-	if want == nil || sameType(want.Type(), body.Type()) {
+	if want.IsZero() || sameType(want.Type(), body.Type()) {
 		return true // a broken template input is reported when the template is checked alone
 	}
 	local := strings.TrimPrefix(cell.Name, r.scope)

@@ -62,10 +62,10 @@ var (
 // quantities are just negative where a positive demand is expected.
 func OppositeSense(c *check.Cell) (is, writtenFor string) {
 	dem := c.Extra().Demand
-	if dem == nil || dem.Type() == nil || (dem.Type().Dim != forceDim && dem.Type().Dim != stressDim) {
+	if dem.IsZero() || dem.Type() == nil || (dem.Type().Dim != forceDim && dem.Type().Dim != stressDim) {
 		return "negative", "a positive demand"
 	}
-	if dem.Op == check.OpNeg {
+	if dem.Op() == check.OpNeg {
 		return "tension", "compression"
 	}
 	return "compression", "tension"
@@ -76,19 +76,19 @@ func OppositeSense(c *check.Cell) (is, writtenFor string) {
 // the check or in the cell the check names (`N_Rd = min(N_plRd, N_bRd)`),
 // and nil otherwise or when the check has no value. The terms are
 // evaluated again on the current values; the first of equal terms wins.
-func (s *State) Governing(i int) *check.Node {
+func (s *State) Governing(i int) check.Node {
 	c := s.M.P.Cells[i]
-	if c.Kind != check.Check || !s.Known[i] || c.Extra().Capacity == nil {
-		return nil
+	if c.Kind != check.Check || !s.Known[i] || c.Extra().Capacity.IsZero() {
+		return check.Node{}
 	}
 	n := c.Extra().Capacity
-	if n.Op == check.OpCell {
-		if k := int(n.Index); k >= 0 && k < len(s.M.P.Cells) && s.M.P.Cells[k].Body != nil && s.Known[k] {
+	if n.Op() == check.OpCell {
+		if k := int(n.Index()); k >= 0 && k < len(s.M.P.Cells) && !s.M.P.Cells[k].Body.IsZero() && s.Known[k] {
 			n = s.M.P.Cells[k].Body
 		}
 	}
-	if n.Op != check.OpBuiltin || (n.Builtin != check.BMin && n.Builtin != check.BMax) || n.NArg() < 2 {
-		return nil
+	if n.Op() != check.OpBuiltin || (n.Builtin() != check.BMin && n.Builtin() != check.BMax) || n.NArg() < 2 {
+		return check.Node{}
 	}
 	best, bestV := -1, 0.0
 	f := &s.F
@@ -99,13 +99,13 @@ func (s *State) Governing(i int) *check.Node {
 	defer func() { f.Fail = saved }()
 	for k, a := range n.Args() {
 		if a.Type() == nil || a.Type().Kind != funcs.Number {
-			return nil
+			return check.Node{}
 		}
 		v := s.M.numOf(a)(f)
 		if f.Fail != nil || math.IsNaN(v) {
-			return nil
+			return check.Node{}
 		}
-		if best < 0 || (n.Builtin == check.BMin && v < bestV) || (n.Builtin == check.BMax && v > bestV) {
+		if best < 0 || (n.Builtin() == check.BMin && v < bestV) || (n.Builtin() == check.BMax && v > bestV) {
 			best, bestV = k, v
 		}
 	}

@@ -8,7 +8,7 @@ import (
 )
 
 // builtin compiles a call of a built-in function with a Number result.
-func (m *Machine) builtin(n *check.Node) numFn {
+func (m *Machine) builtin(n check.Node) numFn {
 	one := func(g func(float64) float64) numFn {
 		a := m.numOf(n.Arg(0))
 		return func(f *Frame) float64 { return g(a(f)) }
@@ -25,7 +25,7 @@ func (m *Machine) builtin(n *check.Node) numFn {
 		}
 	}
 	isList := n.NArg() == 1 && n.Arg(0).Type().Kind != n.Type().Kind
-	switch n.Builtin {
+	switch n.Builtin() {
 	case check.BInCombo:
 		return m.pin(n)
 	case check.BSqrt:
@@ -76,12 +76,12 @@ func (m *Machine) builtin(n *check.Node) numFn {
 			return math.Round(x(f)/s) * s
 		}
 	case check.BMin, check.BMax, check.BHypot, check.BSum, check.BMean, check.BLen:
-		if isList || n.Builtin == check.BSum || n.Builtin == check.BMean || n.Builtin == check.BLen {
+		if isList || n.Builtin() == check.BSum || n.Builtin() == check.BMean || n.Builtin() == check.BLen {
 			return m.listReduce(n)
 		}
 		xs := m.nums(n.Args())
 		g := math.Hypot
-		switch n.Builtin {
+		switch n.Builtin() {
 		case check.BMin:
 			g = math.Min
 		case check.BMax:
@@ -104,8 +104,8 @@ func (m *Machine) builtin(n *check.Node) numFn {
 	}
 }
 
-func (m *Machine) listReduce(n *check.Node) numFn {
-	if n.Builtin == check.BLen {
+func (m *Machine) listReduce(n check.Node) numFn {
+	if n.Builtin() == check.BLen {
 		v := m.valOf(n.Arg(0))
 		return func(f *Frame) float64 {
 			switch l := v(f).(type) {
@@ -118,7 +118,7 @@ func (m *Machine) listReduce(n *check.Node) numFn {
 		}
 	}
 	xs := m.listOf(n.Arg(0))
-	id := n.Builtin
+	id := n.Builtin()
 	return func(f *Frame) float64 {
 		l := xs(f)
 		if len(l) == 0 {
@@ -152,7 +152,7 @@ func (m *Machine) listReduce(n *check.Node) numFn {
 
 // interp interpolates linearly in (xs, ys); xs must increase strictly. A
 // lookup outside [xs[0], xs[n-1]] is an error: tables are not extrapolated.
-func (m *Machine) interp(n *check.Node) numFn {
+func (m *Machine) interp(n check.Node) numFn {
 	xsF, ysF, xF := m.listOf(n.Arg(0)), m.listOf(n.Arg(1)), m.numOf(n.Arg(2))
 	return func(f *Frame) float64 {
 		xs, ys, x := xsF(f), ysF(f), xF(f)
@@ -201,11 +201,11 @@ func Interp(xs, ys []float64, x float64) (float64, string) {
 
 // pin compiles in_combination(cell, "label"): the value the engine set in
 // Frame.Pins for this call (the cell evaluated in that combination).
-func (m *Machine) pin(n *check.Node) numFn {
+func (m *Machine) pin(n check.Node) numFn {
 	k, ok := m.pinSlot[n]
 	if !ok {
 		if m.pinSlot == nil {
-			m.pinSlot = map[*check.Node]int{}
+			m.pinSlot = map[check.Node]int{}
 		}
 		k = len(m.Pins)
 		m.pinSlot[n] = k

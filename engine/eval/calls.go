@@ -9,14 +9,14 @@ import (
 )
 
 // userCall calls a user function with a Number result.
-func (m *Machine) userCall(n *check.Node) numFn {
-	args, idx := m.nums(n.Args()), int(n.Index)
+func (m *Machine) userCall(n check.Node) numFn {
+	args, idx := m.nums(n.Args()), int(n.Index())
 	return func(f *Frame) float64 { return call(m, f, args, idx, m.num[idx], nan) }
 }
 
 // userCallVal calls a user function whose result is not a number.
-func (m *Machine) userCallVal(n *check.Node) valFn {
-	args, idx := m.nums(n.Args()), int(n.Index)
+func (m *Machine) userCallVal(n check.Node) valFn {
+	args, idx := m.nums(n.Args()), int(n.Index())
 	return func(f *Frame) funcs.Value { return call(m, f, args, idx, m.val[idx], nil) }
 }
 
@@ -58,8 +58,8 @@ var framePool = sync.Pool{New: func() any { return &Frame{Stack: make([]float64,
 // and free of allocation on our side (a variadic call through a function
 // value may still allocate its argument slice at the caller; plugins that
 // call in a loop should pass a reused slice with args...).
-func (m *Machine) funcRef(n *check.Node) valFn {
-	idx, name, ty := int(n.Index), n.Str(), n.Type()
+func (m *Machine) funcRef(n check.Node) valFn {
+	idx, name, ty := int(n.Index()), n.Str(), n.Type()
 	return func(f *Frame) funcs.Value {
 		num, val := f.Num, f.Val
 		body := m.num[idx]
@@ -82,7 +82,7 @@ func (m *Machine) funcRef(n *check.Node) valFn {
 }
 
 // plugin calls a registered function on the general path.
-func (m *Machine) plugin(n *check.Node) valFn {
+func (m *Machine) plugin(n check.Node) valFn {
 	args := m.vals(n.Args())
 	def := n.Def()
 	return func(f *Frame) funcs.Value {

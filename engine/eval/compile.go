@@ -41,8 +41,8 @@ type Machine struct {
 	noOver    []bool
 	// Pins lists the in_combination calls; Frame.Pins holds their values
 	// in the same order.
-	Pins    []*check.Node
-	pinSlot map[*check.Node]int
+	Pins    []check.Node
+	pinSlot map[check.Node]int
 }
 
 // step is one cell of the full evaluation: fn is its Number body when the
@@ -125,7 +125,7 @@ func (m *Machine) compileCell(c *check.Cell) {
 			m.val[c.Index] = m.tableOf(c)
 		}
 	default:
-		if c.Body == nil {
+		if c.Body.IsZero() {
 			return
 		}
 		switch c.Body.Type().Kind {
@@ -143,16 +143,16 @@ func (m *Machine) compileCell(c *check.Cell) {
 var nan = math.NaN()
 
 // numOf compiles a Number-typed node.
-func (m *Machine) numOf(n *check.Node) numFn {
-	switch n.Op {
+func (m *Machine) numOf(n check.Node) numFn {
+	switch n.Op() {
 	case check.OpConst:
 		v := n.Num()
 		return func(*Frame) float64 { return v }
 	case check.OpCell:
-		i := n.Index
+		i := n.Index()
 		return func(f *Frame) float64 { return f.Num[i] }
 	case check.OpParam:
-		i := n.Index
+		i := n.Index()
 		return func(f *Frame) float64 { return f.Args[i] }
 	case check.OpNeg:
 		a := m.numOf(n.Arg(0))
@@ -162,9 +162,9 @@ func (m *Machine) numOf(n *check.Node) numFn {
 			return fn
 		}
 		a, b := m.numOf(n.Arg(0)), m.numOf(n.Arg(1))
-		switch n.Op {
+		switch n.Op() {
 		case check.OpAdd:
-			if y := n.Arg(1); y.Op == check.OpConst {
+			if y := n.Arg(1); y.Op() == check.OpConst {
 				k := y.Num()
 				return func(f *Frame) float64 { return a(f) + k }
 			}
@@ -172,7 +172,7 @@ func (m *Machine) numOf(n *check.Node) numFn {
 		case check.OpSub:
 			return func(f *Frame) float64 { return a(f) - b(f) }
 		}
-		if n.Arg(1).Op == check.OpConst {
+		if n.Arg(1).Op() == check.OpConst {
 			k := n.Arg(1).Num()
 			return func(f *Frame) float64 { return a(f) * k }
 		}
@@ -182,7 +182,7 @@ func (m *Machine) numOf(n *check.Node) numFn {
 			return fn
 		}
 		a, b := m.numOf(n.Arg(0)), m.numOf(n.Arg(1))
-		if y := n.Arg(1); y.Op == check.OpConst && y.Num() != 0 {
+		if y := n.Arg(1); y.Op() == check.OpConst && y.Num() != 0 {
 			k := y.Num() // a nonzero constant divisor cannot fail
 			return func(f *Frame) float64 { return a(f) / k }
 		}
@@ -239,12 +239,12 @@ func (m *Machine) numOf(n *check.Node) numFn {
 // else. The arithmetic is the same as through the general closures
 // (a / k, not a * (1/k)), so results are bit for bit the same; a division
 // by a cell still checks for zero, through the general path.
-func arith(n *check.Node) numFn {
+func arith(n check.Node) numFn {
 	x, y := n.Arg(0), n.Arg(1)
 	switch {
-	case x.Op == check.OpCell && y.Op == check.OpCell:
-		i, j := x.Index, y.Index
-		switch n.Op {
+	case x.Op() == check.OpCell && y.Op() == check.OpCell:
+		i, j := x.Index(), y.Index()
+		switch n.Op() {
 		case check.OpAdd:
 			return func(f *Frame) float64 { return f.Num[i] + f.Num[j] }
 		case check.OpSub:
@@ -252,9 +252,9 @@ func arith(n *check.Node) numFn {
 		case check.OpMul:
 			return func(f *Frame) float64 { return f.Num[i] * f.Num[j] }
 		}
-	case x.Op == check.OpCell && y.Op == check.OpConst:
-		i, k := x.Index, y.Num()
-		switch n.Op {
+	case x.Op() == check.OpCell && y.Op() == check.OpConst:
+		i, k := x.Index(), y.Num()
+		switch n.Op() {
 		case check.OpAdd:
 			return func(f *Frame) float64 { return f.Num[i] + k }
 		case check.OpSub:
@@ -266,9 +266,9 @@ func arith(n *check.Node) numFn {
 				return func(f *Frame) float64 { return f.Num[i] / k }
 			}
 		}
-	case x.Op == check.OpConst && y.Op == check.OpCell:
-		k, j := x.Num(), y.Index
-		switch n.Op {
+	case x.Op() == check.OpConst && y.Op() == check.OpCell:
+		k, j := x.Num(), y.Index()
+		switch n.Op() {
 		case check.OpAdd:
 			return func(f *Frame) float64 { return k + f.Num[j] }
 		case check.OpSub:
@@ -282,7 +282,7 @@ func arith(n *check.Node) numFn {
 
 // index returns i as an index into a list of length n, or fails at node
 // at when i is not a whole number from 0 to n-1.
-func index(f *Frame, at *check.Node, i float64, n int) (int, bool) {
+func index(f *Frame, at check.Node, i float64, n int) (int, bool) {
 	k := int(i)
 	if float64(k) != i || k < 0 || k >= n {
 		what := "index " + units.FormatNumber(i, 6) + " is out of range"
@@ -300,9 +300,9 @@ func index(f *Frame, at *check.Node, i float64, n int) (int, bool) {
 	return k, true
 }
 
-func (m *Machine) pow(n, x, e *check.Node) numFn {
+func (m *Machine) pow(n, x, e check.Node) numFn {
 	a, b := m.numOf(x), m.numOf(e)
-	if e.Op == check.OpConst {
+	if e.Op() == check.OpConst {
 		switch e.Num() {
 		case 2:
 			return func(f *Frame) float64 { x := a(f); return x * x }
@@ -321,8 +321,8 @@ func (m *Machine) pow(n, x, e *check.Node) numFn {
 }
 
 // boolOf compiles a Bool-typed node.
-func (m *Machine) boolOf(n *check.Node) func(*Frame) bool {
-	switch n.Op {
+func (m *Machine) boolOf(n check.Node) func(*Frame) bool {
+	switch n.Op() {
 	case check.OpBool:
 		v := n.Num() != 0
 		return func(*Frame) bool { return v }
@@ -337,7 +337,7 @@ func (m *Machine) boolOf(n *check.Node) func(*Frame) bool {
 		return func(f *Frame) bool { return a(f) || b(f) }
 	case check.OpLT, check.OpLE, check.OpGT, check.OpGE, check.OpEQ, check.OpNE:
 		a, b := m.numOf(n.Arg(0)), m.numOf(n.Arg(1))
-		switch n.Op {
+		switch n.Op() {
 		case check.OpLT:
 			return func(f *Frame) bool { return a(f) < b(f) }
 		case check.OpLE:
@@ -351,7 +351,7 @@ func (m *Machine) boolOf(n *check.Node) func(*Frame) bool {
 		}
 		return func(f *Frame) bool { return a(f) != b(f) }
 	case check.OpCell:
-		i := n.Index
+		i := n.Index()
 		return func(f *Frame) bool { b, _ := f.Val[i].(bool); return b }
 	case check.OpCond:
 		c, a, b := m.boolOf(n.Arg(0)), m.boolOf(n.Arg(1)), m.boolOf(n.Arg(2))
@@ -367,35 +367,35 @@ func (m *Machine) boolOf(n *check.Node) func(*Frame) bool {
 }
 
 // listOf compiles a node typed as a list of numbers.
-func (m *Machine) listOf(n *check.Node) func(*Frame) []float64 {
+func (m *Machine) listOf(n check.Node) func(*Frame) []float64 {
 	v := m.valOf(n)
 	return func(f *Frame) []float64 { l, _ := v(f).([]float64); return l }
 }
 
 // valOf compiles any node to the general path.
-func (m *Machine) valOf(n *check.Node) valFn {
+func (m *Machine) valOf(n check.Node) valFn {
 	switch n.Type().Kind {
 	case funcs.Number:
-		switch n.Op {
+		switch n.Op() {
 		case check.OpField, check.OpPlugin:
 		default:
 			x := m.numOf(n)
 			return func(f *Frame) funcs.Value { return x(f) }
 		}
 	case funcs.Bool:
-		switch n.Op {
+		switch n.Op() {
 		case check.OpBool, check.OpNot, check.OpAnd, check.OpOr, check.OpLT, check.OpLE, check.OpGT,
 			check.OpGE, check.OpEQ, check.OpNE, check.OpCell, check.OpCond:
 			b := m.boolOf(n)
 			return func(f *Frame) funcs.Value { return b(f) }
 		}
 	}
-	switch n.Op {
+	switch n.Op() {
 	case check.OpString:
 		s := n.Str()
 		return func(*Frame) funcs.Value { return s }
 	case check.OpCell:
-		i := n.Index
+		i := n.Index()
 		return func(f *Frame) funcs.Value { return f.Val[i] }
 	case check.OpList:
 		if n.Type().Elem.Kind == funcs.Number {
@@ -427,7 +427,7 @@ func (m *Machine) valOf(n *check.Node) valFn {
 			return r
 		}
 	case check.OpField:
-		rec, i := m.valOf(n.Arg(0)), int(n.Index)
+		rec, i := m.valOf(n.Arg(0)), int(n.Index())
 		return func(f *Frame) funcs.Value {
 			r, ok := rec(f).(*funcs.RecordValue)
 			if !ok || i >= len(r.Fields) {
@@ -437,7 +437,7 @@ func (m *Machine) valOf(n *check.Node) valFn {
 			return r.Fields[i]
 		}
 	case check.OpColumn:
-		tbl, i := m.valOf(n.Arg(0)), int(n.Index)
+		tbl, i := m.valOf(n.Arg(0)), int(n.Index())
 		return func(f *Frame) funcs.Value {
 			t, ok := tbl(f).(*funcs.TableValue)
 			if !ok || i >= len(t.Cols) {
@@ -477,7 +477,7 @@ func (m *Machine) valOf(n *check.Node) valFn {
 	}
 }
 
-func (m *Machine) nums(ns []*check.Node) []numFn {
+func (m *Machine) nums(ns []check.Node) []numFn {
 	out := make([]numFn, len(ns))
 	for i, a := range ns {
 		out[i] = m.numOf(a)
@@ -485,7 +485,7 @@ func (m *Machine) nums(ns []*check.Node) []numFn {
 	return out
 }
 
-func (m *Machine) vals(ns []*check.Node) []valFn {
+func (m *Machine) vals(ns []check.Node) []valFn {
 	out := make([]valFn, len(ns))
 	for i, a := range ns {
 		out[i] = m.valOf(a)
@@ -494,7 +494,7 @@ func (m *Machine) vals(ns []*check.Node) []valFn {
 }
 
 // Value evaluates a stand-alone typed node that uses no cell.
-func Value(n *check.Node) (funcs.Value, *Failure) {
+func Value(n check.Node) (funcs.Value, *Failure) {
 	m := &Machine{P: &check.Program{}}
 	f := &Frame{}
 	var v funcs.Value

@@ -22,7 +22,7 @@ type Frame struct {
 // Failure is a run-time problem at a node: division by zero, a square root
 // of a negative number, a plugin error.
 type Failure struct {
-	Node *check.Node
+	Node check.Node
 	Msg  string
 	Hint string
 	// Func names the user function in whose body Node lies, "" when it
@@ -30,7 +30,7 @@ type Failure struct {
 	Func string
 }
 
-func (f *Frame) fail(n *check.Node, msg, hint string) {
+func (f *Frame) fail(n check.Node, msg, hint string) {
 	if f.Fail == nil {
 		f.Fail = &Failure{Node: n, Msg: msg, Hint: hint}
 	}

@@ -335,7 +335,7 @@ func isFinite(x float64) bool { return !math.IsNaN(x) && !math.IsInf(x, 0) }
 func (s *State) failed(c *check.Cell, fl *Failure) {
 	r := c.Formula.Source.Range
 	detail := "`" + c.Name + "` has no value; cells that use it are skipped"
-	if fl.Node != nil {
+	if !fl.Node.IsZero() {
 		if nr := fl.Node.Range(); nr.Start().IsValid() {
 			if fl.Func == "" {
 				r = nr

@@ -162,26 +162,26 @@ func (s *Server) substituted(d *document, c *engine.Cell) string {
 	}
 	var reps []rep
 	cells := d.sheet.Cells()
-	var walk func(n *check.Node)
-	walk = func(n *check.Node) {
-		if n == nil {
+	var walk func(n check.Node)
+	walk = func(n check.Node) {
+		if n.IsZero() {
 			return
 		}
 		text := ""
-		switch n.Op {
+		switch n.Op() {
 		case check.OpCell:
-			if int(n.Index) < len(cells) {
-				x := cells[n.Index]
+			if int(n.Index()) < len(cells) {
+				x := cells[n.Index()]
 				if v, ok := d.state.Number(x); ok {
 					text = units.Format(v, d.sheet.DisplayUnit(x), sigFigs)
 				}
 			}
 		case check.OpField:
-			if n.NArg() == 1 && n.Arg(0).Op == check.OpCell && int(n.Arg(0).Index) < len(cells) {
-				if v, ok := d.state.Value(cells[n.Arg(0).Index].Name); ok {
-					if r, ok := v.(*funcs.RecordValue); ok && r.Type != nil && int(n.Index) < len(r.Fields) {
-						if f := r.Type.Fields[n.Index]; f.Type != nil && f.Type.Kind == funcs.Number {
-							if x, ok := r.Fields[n.Index].(float64); ok {
+			if n.NArg() == 1 && n.Arg(0).Op() == check.OpCell && int(n.Arg(0).Index()) < len(cells) {
+				if v, ok := d.state.Value(cells[n.Arg(0).Index()].Name); ok {
+					if r, ok := v.(*funcs.RecordValue); ok && r.Type != nil && int(n.Index()) < len(r.Fields) {
+						if f := r.Type.Fields[n.Index()]; f.Type != nil && f.Type.Kind == funcs.Number {
+							if x, ok := r.Fields[n.Index()].(float64); ok {
 								text = units.Format(x, preferred(f.Type.Dim, d.sheet.System()), sigFigs)
 							}
 						}

@@ -104,14 +104,14 @@ func occurrences(s *engine.Sheet, x *engine.Cell, sources func(string) *text) []
 	if x.NameRange.Start().IsValid() {
 		out = append(out, occurrence{r: x.NameRange, decl: true})
 	}
-	var walk func(n *check.Node)
-	walk = func(n *check.Node) {
-		if n == nil {
+	var walk func(n check.Node)
+	walk = func(n check.Node) {
+		if n.IsZero() {
 			return
 		}
-		if (n.Op == check.OpCell || n.Op == check.OpUser || n.Op == check.OpFuncRef) && int(n.Index) == x.Index {
+		if (n.Op() == check.OpCell || n.Op() == check.OpUser || n.Op() == check.OpFuncRef) && int(n.Index()) == x.Index {
 			r := n.Range()
-			if n.Op != check.OpCell {
+			if n.Op() != check.OpCell {
 				// A call's range covers its arguments: the name is at its start.
 				r.To = min(r.From+int32(len(n.Str())), r.To)
 			}
@@ -194,7 +194,7 @@ func (s *Server) prepareRename(params json.RawMessage) (any, *rpcError) {
 	}
 	local := t.cell.Name[strings.LastIndexByte(t.cell.Name, '.')+1:]
 	r := t.rng
-	if t.node != nil {
+	if !t.node.IsZero() {
 		if seg, ok := lastSegment(t.node.Range(), local, d.lines); ok {
 			r = d.lines.rangeOf(seg)
 		}

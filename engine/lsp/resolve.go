@@ -38,7 +38,7 @@ type target struct {
 	unit units.Unit
 	item sheet.Item
 	// node is the expression node under the cursor (nil on a name).
-	node *check.Node
+	node check.Node
 }
 
 // isNameRune reports whether r may stand in a name.
@@ -179,12 +179,12 @@ func (d *document) cellAt(l, c int) *engine.Cell {
 }
 
 // nodeAt returns the innermost node of n that holds the position.
-func nodeAt(n *check.Node, l, c int) *check.Node {
-	if n == nil || !contains(n.Range(), l, c) {
-		return nil
+func nodeAt(n check.Node, l, c int) check.Node {
+	if n.IsZero() || !contains(n.Range(), l, c) {
+		return check.Node{}
 	}
 	for _, a := range n.Args() {
-		if m := nodeAt(a, l, c); m != nil {
+		if m := nodeAt(a, l, c); !m.IsZero() {
 			return m
 		}
 	}
@@ -192,8 +192,8 @@ func nodeAt(n *check.Node, l, c int) *check.Node {
 }
 
 // trees returns the typed trees of a cell.
-func trees(c *engine.Cell) []*check.Node {
-	return []*check.Node{c.Body, c.Extra().Demand, c.Extra().Capacity}
+func trees(c *engine.Cell) []check.Node {
+	return []check.Node{c.Body, c.Extra().Demand, c.Extra().Capacity}
 }
 
 // unitSpecs returns the unit specs written on an item.
@@ -266,7 +266,7 @@ func (d *document) resolve(p position) *target {
 		}
 		for _, t := range trees(x) {
 			n := nodeAt(t, l, c)
-			if n == nil {
+			if n.IsZero() {
 				continue
 			}
 			if tg := d.nodeTarget(n, word, wr); tg != nil {
@@ -278,20 +278,20 @@ func (d *document) resolve(p position) *target {
 }
 
 // nodeTarget names what node n, under the cursor on word, refers to.
-func (d *document) nodeTarget(n *check.Node, word string, wr lspRange) *target {
+func (d *document) nodeTarget(n check.Node, word string, wr lspRange) *target {
 	cells := d.sheet.Cells()
-	switch n.Op {
+	switch n.Op() {
 	case check.OpCell, check.OpUser, check.OpFuncRef:
-		if int(n.Index) < len(cells) {
-			x := cells[n.Index]
-			if n.Op == check.OpCell || word == n.Str() || strings.HasSuffix(x.Name, word) {
+		if int(n.Index()) < len(cells) {
+			x := cells[n.Index()]
+			if n.Op() == check.OpCell || word == n.Str() || strings.HasSuffix(x.Name, word) {
 				return &target{kind: tCell, name: word, cell: x, rng: d.lines.rangeOf(n.Range()), node: n}
 			}
 		}
 	case check.OpField:
-		if n.NArg() == 1 && n.Arg(0).Op == check.OpCell && int(n.Arg(0).Index) < len(cells) {
+		if n.NArg() == 1 && n.Arg(0).Op() == check.OpCell && int(n.Arg(0).Index()) < len(cells) {
 			field := word[strings.LastIndexByte(word, '.')+1:]
-			return &target{kind: tField, name: field, cell: cells[n.Arg(0).Index], rng: wr, node: n}
+			return &target{kind: tField, name: field, cell: cells[n.Arg(0).Index()], rng: wr, node: n}
 		}
 	case check.OpParam:
 		return &target{kind: tParam, name: word, rng: wr, node: n}

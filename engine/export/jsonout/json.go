@@ -239,7 +239,7 @@ func Build(r *engine.Results, exit int) *Document {
 	for _, c := range r.Checks {
 		jc := Check{Name: c.Cell.Name, Known: c.Known, Unit: c.Unit.Symbol, Pass: c.Pass, Verdict: "not assessed",
 			Governing: c.Governing, Description: c.Cell.Description, Reference: c.Cell.Reference}
-		if c.Cell.Extra().Demand != nil && c.Cell.Extra().Demand.Type() != nil {
+		if !c.Cell.Extra().Demand.IsZero() && c.Cell.Extra().Demand.Type() != nil {
 			jc.SIUnit = siUnit(c.Cell.Extra().Demand.Type().Dim)
 		}
 		if c.Known || c.Problem != nil {

@@ -173,7 +173,7 @@ func (d *doc) use(u *sheet.Use, outer, no string) {
 			d.math(func(b *strings.Builder) { symbol(b, o.Name.Name) })
 			d.w("</td><td>")
 			t := &typesetter{d: d, scope: c.Scope}
-			if c.Body != nil {
+			if !c.Body.IsZero() {
 				d.math(func(b *strings.Builder) { t.expr(b, c.Body, 0) })
 			}
 			d.w("</td><td class=\"num\">", esc(d.resultText(c)), "</td><td>", esc(o.Annot.Description), "</td></tr>\n")

@@ -52,8 +52,8 @@ func (d *doc) valueLine(c *engine.Cell, cr *engine.CellResult) {
 	scope := c.Scope
 	sym := func(b *strings.Builder) { symbol(b, d.local(c)) }
 	body := c.Body
-	lone := body == nil || body.Op == check.OpConst || body.Op == check.OpString || body.Op == check.OpBool
-	if body != nil && body.Op == check.OpRecord {
+	lone := body.IsZero() || body.Op() == check.OpConst || body.Op() == check.OpString || body.Op() == check.OpBool
+	if !body.IsZero() && body.Op() == check.OpRecord {
 		d.part(func(b *strings.Builder) { sym(b); b.WriteString("<mo>=</mo><mtext>record of the fields below</mtext>") })
 		return
 	}
@@ -101,14 +101,14 @@ func (d *doc) local(c *engine.Cell) string {
 
 // pathOnly reports whether n only reads a value (a cell, a field of a
 // record, an element of a list): substituting it repeats the result.
-func pathOnly(n *check.Node) bool {
-	switch n.Op {
+func pathOnly(n check.Node) bool {
+	switch n.Op() {
 	case check.OpCell:
 		return true
 	case check.OpField, check.OpColumn:
 		return pathOnly(n.Arg(0))
 	case check.OpIndex:
-		return pathOnly(n.Arg(0)) && n.Arg(1).Op == check.OpConst
+		return pathOnly(n.Arg(0)) && n.Arg(1).Op() == check.OpConst
 	case check.OpNeg:
 		return pathOnly(n.Arg(0))
 	}
@@ -117,7 +117,7 @@ func pathOnly(n *check.Node) bool {
 
 // sameUnit reports whether a lone literal is written in the cell's display
 // unit, so that the value shown is the number as written (3.0 m is 3 m).
-func (d *doc) sameUnit(n *check.Node, cr *engine.CellResult) bool {
+func (d *doc) sameUnit(n check.Node, cr *engine.CellResult) bool {
 	_, unit := splitLiteral(strings.TrimSpace(d.text(n)))
 	if unit == "" {
 		return cr.Unit.Symbol == "" || cr.Unit.Symbol == "1"
@@ -254,7 +254,7 @@ func (d *doc) record(c *engine.Cell, r *funcs.RecordValue) {
 	if r.Type == nil {
 		return
 	}
-	written := c.Body != nil && c.Body.Op == check.OpRecord
+	written := !c.Body.IsZero() && c.Body.Op() == check.OpRecord
 	name := ""
 	if r.Type.Name != "" {
 		name = " <span class=\"rtype\">" + esc(r.Type.Name) + "</span>"
@@ -280,7 +280,7 @@ func (d *doc) record(c *engine.Cell, r *funcs.RecordValue) {
 			t := &typesetter{d: d, scope: c.Scope}
 			arg := c.Body.Arg(i)
 			d.math(func(b *strings.Builder) { t.expr(b, arg, 0) })
-			if arg.Op != check.OpConst {
+			if arg.Op() != check.OpConst {
 				if x, ok := r.Fields[i].(float64); ok {
 					d.w(" = ", esc(d.formatSI(x, d.unitFor(f.Type.Dim))))
 				}

@@ -42,8 +42,8 @@ const (
 	precAtom
 )
 
-func (t *typesetter) prec(n *check.Node) int {
-	switch n.Op {
+func (t *typesetter) prec(n check.Node) int {
+	switch n.Op() {
 	case check.OpCond:
 		return precCond
 	case check.OpOr:
@@ -69,8 +69,8 @@ func (t *typesetter) prec(n *check.Node) int {
 }
 
 // expr writes n, in brackets when it binds looser than min.
-func (t *typesetter) expr(b *strings.Builder, n *check.Node, min int) {
-	if n == nil {
+func (t *typesetter) expr(b *strings.Builder, n check.Node, min int) {
+	if n.IsZero() {
 		b.WriteString("<mi>?</mi>")
 		return
 	}
@@ -88,8 +88,8 @@ func (t *typesetter) expr(b *strings.Builder, n *check.Node, min int) {
 }
 
 // atomic reports whether n needs no brackets even as the base of a power.
-func (t *typesetter) atomic(n *check.Node) bool {
-	switch n.Op {
+func (t *typesetter) atomic(n check.Node) bool {
+	switch n.Op() {
 	case check.OpCell, check.OpParam, check.OpField, check.OpIndex, check.OpColumn,
 		check.OpBuiltin, check.OpPlugin, check.OpUser, check.OpList, check.OpString:
 		return true
@@ -106,11 +106,11 @@ var opText = map[check.Op]string{
 	check.OpAnd: "and", check.OpOr: "or",
 }
 
-func (t *typesetter) node(b *strings.Builder, n *check.Node) {
+func (t *typesetter) node(b *strings.Builder, n check.Node) {
 	if t.subst && t.value(b, n) {
 		return
 	}
-	switch n.Op {
+	switch n.Op() {
 	case check.OpConst:
 		t.literal(b, n)
 	case check.OpBool:
@@ -122,10 +122,10 @@ func (t *typesetter) node(b *strings.Builder, n *check.Node) {
 	case check.OpString:
 		b.WriteString("<mtext>“" + esc(n.Str()) + "”</mtext>")
 	case check.OpCell:
-		symbol(b, t.name(t.d.cellName(int(n.Index))))
+		symbol(b, t.name(t.d.cellName(int(n.Index()))))
 	case check.OpParam:
-		if t.fn != nil && int(n.Index) < len(t.fn.Extra().Params) {
-			symbol(b, t.fn.Extra().Params[n.Index].Name)
+		if t.fn != nil && int(n.Index()) < len(t.fn.Extra().Params) {
+			symbol(b, t.fn.Extra().Params[n.Index()].Name)
 		} else {
 			b.WriteString("<mi>?</mi>")
 		}
@@ -141,13 +141,13 @@ func (t *typesetter) node(b *strings.Builder, n *check.Node) {
 		check.OpLT, check.OpLE, check.OpGT, check.OpGE, check.OpEQ, check.OpNE:
 		p := t.prec(n)
 		right := p
-		if n.Op == check.OpSub || p == precCmp {
+		if n.Op() == check.OpSub || p == precCmp {
 			right = p + 1
 		}
 		b.WriteString("<mrow>")
 		t.expr(b, n.Arg(0), p)
-		b.WriteString("<mo>" + opText[n.Op] + "</mo>")
-		if n.Arg(1).Op == check.OpNeg || t.prec(n.Arg(1)) == precUnary {
+		b.WriteString("<mo>" + opText[n.Op()] + "</mo>")
+		if n.Arg(1).Op() == check.OpNeg || t.prec(n.Arg(1)) == precUnary {
 			right = precAtom
 		}
 		t.expr(b, n.Arg(1), right)
@@ -172,14 +172,14 @@ func (t *typesetter) node(b *strings.Builder, n *check.Node) {
 		t.builtin(b, n)
 	case check.OpPlugin, check.OpUser:
 		name := n.Str()
-		if name == "" && n.Op == check.OpUser {
-			name = t.name(t.d.cellName(int(n.Index)))
+		if name == "" && n.Op() == check.OpUser {
+			name = t.name(t.d.cellName(int(n.Index())))
 		}
 		t.call(b, name, n.Args())
 	case check.OpFuncRef:
 		name := n.Str()
 		if name == "" {
-			name = t.name(t.d.cellName(int(n.Index)))
+			name = t.name(t.d.cellName(int(n.Index())))
 		}
 		b.WriteString("<mi mathvariant=\"normal\">" + esc(name) + "</mi>")
 	case check.OpField, check.OpColumn:
@@ -226,26 +226,26 @@ func (t *typesetter) name(s string) string {
 }
 
 // memberName is the field or column an OpField or OpColumn node reads.
-func memberName(n *check.Node) string {
+func memberName(n check.Node) string {
 	if n.NArg() == 0 || n.Arg(0).Type() == nil {
 		return "?"
 	}
 	fs := n.Arg(0).Type().Fields
-	if int(n.Index) < len(fs) {
-		return fs[n.Index].Name
+	if int(n.Index()) < len(fs) {
+		return fs[n.Index()].Name
 	}
 	return "?"
 }
 
-func (t *typesetter) power(b *strings.Builder, base, exp *check.Node) {
-	if exp.Op == check.OpConst && exp.Num() == 0.5 {
+func (t *typesetter) power(b *strings.Builder, base, exp check.Node) {
+	if exp.Op() == check.OpConst && exp.Num() == 0.5 {
 		b.WriteString("<msqrt>")
 		t.expr(b, base, 0)
 		b.WriteString("</msqrt>")
 		return
 	}
 	b.WriteString("<msup>")
-	if t.subst && base.Type() != nil && base.Type().Kind == funcs.Number && (base.Op == check.OpCell || base.Op == check.OpField || base.Op == check.OpIndex) {
+	if t.subst && base.Type() != nil && base.Type().Kind == funcs.Number && (base.Op() == check.OpCell || base.Op() == check.OpField || base.Op() == check.OpIndex) {
 		// a value with its unit: (16 mm)², never 16 mm², which reads as an area
 		var vb strings.Builder
 		if t.value(&vb, base) {
@@ -266,7 +266,7 @@ func (t *typesetter) power(b *strings.Builder, base, exp *check.Node) {
 	b.WriteString("</mrow></msup>")
 }
 
-func (t *typesetter) builtin(b *strings.Builder, n *check.Node) {
+func (t *typesetter) builtin(b *strings.Builder, n check.Node) {
 	switch name := n.Str(); {
 	case name == "sqrt" && n.NArg() == 1:
 		b.WriteString("<msqrt>")
@@ -287,13 +287,13 @@ func (t *typesetter) builtin(b *strings.Builder, n *check.Node) {
 	}
 }
 
-func (t *typesetter) call(b *strings.Builder, name string, args []*check.Node) {
+func (t *typesetter) call(b *strings.Builder, name string, args []check.Node) {
 	b.WriteString("<mrow><mi mathvariant=\"normal\">" + esc(name) + "</mi><mo>(</mo>")
 	t.list(b, args)
 	b.WriteString("<mo>)</mo></mrow>")
 }
 
-func (t *typesetter) list(b *strings.Builder, args []*check.Node) {
+func (t *typesetter) list(b *strings.Builder, args []check.Node) {
 	for i, a := range args {
 		if i > 0 {
 			b.WriteString("<mo separator=\"true\">,</mo>")
@@ -305,7 +305,7 @@ func (t *typesetter) list(b *strings.Builder, args []*check.Node) {
 // value writes the number n stands for, with its unit, when n reads a
 // number (a cell, a field of a record, an element of a list) and its value
 // is known; it reports whether it wrote anything.
-func (t *typesetter) value(b *strings.Builder, n *check.Node) bool {
+func (t *typesetter) value(b *strings.Builder, n check.Node) bool {
 	if n.Type() == nil || n.Type().Kind != funcs.Number {
 		return false
 	}
@@ -314,14 +314,14 @@ func (t *typesetter) value(b *strings.Builder, n *check.Node) bool {
 	if t.d.res.Combos != nil && t.inOtherCombo(n) {
 		t.mixed = true
 	}
-	switch n.Op {
+	switch n.Op() {
 	case check.OpCell:
-		cr := &t.d.res.Cells[n.Index]
+		cr := &t.d.res.Cells[n.Index()]
 		if !cr.Known || cr.Cell.Kind == engine.Function {
 			return false
 		}
 		x, u = cr.SI, cr.Unit
-		if a := t.d.actionOf(int(n.Index)); a >= 0 {
+		if a := t.d.actionOf(int(n.Index())); a >= 0 {
 			if t.combo < 0 {
 				t.mixed = true
 				return false
@@ -403,7 +403,7 @@ func unitML(b *strings.Builder, sym string) {
 
 // literal writes a constant as it was written in the sheet: the number
 // and its unit (12e-6 1/K is 12·10⁻⁶ 1/K), pi as π.
-func (t *typesetter) literal(b *strings.Builder, n *check.Node) {
+func (t *typesetter) literal(b *strings.Builder, n check.Node) {
 	s := strings.TrimSpace(t.d.text(n))
 	switch s {
 	case "pi":
@@ -471,13 +471,13 @@ func splitLiteral(s string) (num, unit string) {
 // inOtherCombo reports whether the value n reads (a cell, or a field or
 // element of one) depends on actions and is shown in a combination other
 // than the one of the cell being written.
-func (t *typesetter) inOtherCombo(n *check.Node) bool {
-	for n.Op == check.OpField || n.Op == check.OpIndex || n.Op == check.OpColumn {
+func (t *typesetter) inOtherCombo(n check.Node) bool {
+	for n.Op() == check.OpField || n.Op() == check.OpIndex || n.Op() == check.OpColumn {
 		n = n.Arg(0)
 	}
-	if n.Op != check.OpCell {
+	if n.Op() != check.OpCell {
 		return false
 	}
-	m := t.d.cellCombo(int(n.Index))
+	m := t.d.cellCombo(int(n.Index()))
 	return m >= 0 && m != t.combo
 }

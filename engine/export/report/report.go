@@ -98,7 +98,7 @@ func (d *doc) w(s ...string) {
 func (d *doc) wf(format string, args ...any) { fmt.Fprintf(&d.b, format, args...) }
 
 // text is the source text a node was typed from (its span in the file).
-func (d *doc) text(n *check.Node) string {
+func (d *doc) text(n check.Node) string {
 	r := n.Range()
 	src := d.src[r.Start().File]
 	if src == nil || r.Start().Offset < 0 || r.End().Offset > len(src) || r.Start().Offset >= r.End().Offset {
@@ -126,29 +126,29 @@ func (d *doc) unitFor(dim units.Dim) units.Unit {
 
 // eval returns the value a cell, a field of a record, a column of a table
 // or an element of a list at a constant index stands for.
-func (d *doc) eval(n *check.Node) (funcs.Value, bool) {
-	switch n.Op {
+func (d *doc) eval(n check.Node) (funcs.Value, bool) {
+	switch n.Op() {
 	case check.OpCell:
-		cr := &d.res.Cells[n.Index]
+		cr := &d.res.Cells[n.Index()]
 		return cr.Value, cr.Known
 	case check.OpField:
 		v, ok := d.eval(n.Arg(0))
 		if !ok {
 			return nil, false
 		}
-		if r, ok := v.(*funcs.RecordValue); ok && int(n.Index) < len(r.Fields) {
-			return r.Fields[n.Index], true
+		if r, ok := v.(*funcs.RecordValue); ok && int(n.Index()) < len(r.Fields) {
+			return r.Fields[n.Index()], true
 		}
 	case check.OpColumn:
 		v, ok := d.eval(n.Arg(0))
 		if !ok {
 			return nil, false
 		}
-		if t, ok := v.(*funcs.TableValue); ok && int(n.Index) < len(t.Cols) {
-			return t.Cols[n.Index], true
+		if t, ok := v.(*funcs.TableValue); ok && int(n.Index()) < len(t.Cols) {
+			return t.Cols[n.Index()], true
 		}
 	case check.OpIndex:
-		if n.Arg(1).Op != check.OpConst {
+		if n.Arg(1).Op() != check.OpConst {
 			return nil, false
 		}
 		v, ok := d.eval(n.Arg(0))

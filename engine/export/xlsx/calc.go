@@ -296,7 +296,7 @@ func (x *exporter) cellRow(cr *engine.CellResult) [calcCols]excelize.Cell {
 				note = "record: its fields follow"
 				if x.opaque[c.Index] {
 					note = noteValueOnly + "its fields follow"
-					if c.Body != nil && c.Body.Str() != "" {
+					if !c.Body.IsZero() && c.Body.Str() != "" {
 						note = noteValueOnly + "computed with `" + c.Body.Str() + "`; its fields follow"
 					}
 				}
@@ -317,7 +317,7 @@ func (x *exporter) cellRow(cr *engine.CellResult) [calcCols]excelize.Cell {
 
 // valueCell writes a number or a truth value: editable for an input, a
 // live formula when the expression translates, else Sheaf's value marked.
-func (x *exporter) valueCell(c *check.Cell, v funcs.Value, input bool, body *check.Node, factor float64) (excelize.Cell, string) {
+func (x *exporter) valueCell(c *check.Cell, v funcs.Value, input bool, body check.Node, factor float64) (excelize.Cell, string) {
 	if factor == 0 {
 		factor = 1
 	}
@@ -375,11 +375,11 @@ func (x *exporter) fieldRow(r *calcRow) [calcCols]excelize.Cell {
 	case float64, bool:
 		body := r.formul
 		if x.comboDep(r.cell) {
-			body = nil // a field of a value of one combination: from Sheaf
+			body = check.Node{} // a field of a value of one combination: from Sheaf
 		}
-		if body == nil && r.plugin != nil && !x.comboDep(r.cell) {
+		if body.IsZero() && !r.plugin.IsZero() && !x.comboDep(r.cell) {
 			value, note = x.pluginFieldCell(r)
-		} else if body == nil {
+		} else if body.IsZero() {
 			x.stats.ValueOnly++
 			fmtStr := ""
 			if f, ok := v.(float64); ok {

@@ -94,42 +94,42 @@ type sampleUse struct {
 
 // sampleOf traces a demand to the sample it uses; ok is false for any
 // other demand.
-func (x *exporter) sampleOf(n *check.Node) (u sampleUse, ok bool) {
+func (x *exporter) sampleOf(n check.Node) (u sampleUse, ok bool) {
 	cells := x.s.Program().Cells
-	for depth := 0; n != nil && depth < 32; depth++ {
+	for depth := 0; !n.IsZero() && depth < 32; depth++ {
 		switch {
-		case n.Op == check.OpBuiltin && n.Builtin == check.BAbs && n.NArg() == 1:
+		case n.Op() == check.OpBuiltin && n.Builtin() == check.BAbs && n.NArg() == 1:
 			u.abs = true
 			n = n.Arg(0)
-		case n.Op == check.OpCell:
-			c := cells[n.Index]
-			if c.Kind != check.Derived || c.Body == nil {
+		case n.Op() == check.OpCell:
+			c := cells[n.Index()]
+			if c.Kind != check.Derived || c.Body.IsZero() {
 				return u, false
 			}
 			n = c.Body
-		case n.Op == check.OpIndex && n.NArg() == 2 && n.Arg(1).Op == check.OpConst:
+		case n.Op() == check.OpIndex && n.NArg() == 2 && n.Arg(1).Op() == check.OpConst:
 			k := n.Arg(1).Num()
 			if k != math.Trunc(k) || k < 0 || k > 1e9 {
 				return u, false
 			}
 			u.how, u.k = 'k', int(k)
 			return u, x.columnOf(n.Arg(0), &u)
-		case n.Op == check.OpBuiltin && (n.Builtin == check.BMax || n.Builtin == check.BMin) && n.NArg() == 1:
+		case n.Op() == check.OpBuiltin && (n.Builtin() == check.BMax || n.Builtin() == check.BMin) && n.NArg() == 1:
 			u.how = '+'
-			if n.Builtin == check.BMin {
+			if n.Builtin() == check.BMin {
 				u.how = '-'
 			}
 			return u, x.columnOf(n.Arg(0), &u)
-		case n.Op == check.OpField && n.Arg(0).Op == check.OpCell:
+		case n.Op() == check.OpField && n.Arg(0).Op() == check.OpCell:
 			rec := n.Arg(0)
 			if rec.Type() == nil || rec.Type().Name != "bar_result" {
 				return u, false
 			}
-			f, known := sampleFields[rec.Type().Fields[n.Index].Name]
+			f, known := sampleFields[rec.Type().Fields[n.Index()].Name]
 			if !known {
 				return u, false
 			}
-			name := cells[rec.Index].Name
+			name := cells[rec.Index()].Name
 			u.table, u.col = name+".samples", f.col
 			switch {
 			case f.first:
@@ -148,16 +148,16 @@ func (x *exporter) sampleOf(n *check.Node) (u sampleUse, ok bool) {
 }
 
 // columnOf reads res.samples.q (a column of the samples of a cell) into u.
-func (x *exporter) columnOf(n *check.Node, u *sampleUse) bool {
-	if n.Op != check.OpColumn || n.Arg(0).Op != check.OpField || n.Arg(0).Args()[0].Op != check.OpCell {
+func (x *exporter) columnOf(n check.Node, u *sampleUse) bool {
+	if n.Op() != check.OpColumn || n.Arg(0).Op() != check.OpField || n.Arg(0).Args()[0].Op() != check.OpCell {
 		return false
 	}
 	t := n.Arg(0)
 	if t.Type() == nil || t.Type().Name != "bar_samples" || t.Arg(0).Type() == nil || t.Arg(0).Type().Name != "bar_result" {
 		return false
 	}
-	u.table = x.s.Program().Cells[t.Arg(0).Index].Name + "." + t.Arg(0).Type().Fields[t.Index].Name
-	u.col = t.Type().Fields[n.Index].Name
+	u.table = x.s.Program().Cells[t.Arg(0).Index()].Name + "." + t.Arg(0).Type().Fields[t.Index()].Name
+	u.col = t.Type().Fields[n.Index()].Name
 	return true
 }
 
@@ -188,9 +188,9 @@ func (x *exporter) marksOf(s chartSpec) []chartMark {
 func (x *exporter) markOf(s chartSpec, k int, ch *checkRow) (chartMark, bool) {
 	c := ch.cell
 	type side struct {
-		n        *check.Node
+		n        check.Node
 		v        float64
-		other    *check.Node
+		other    check.Node
 		otherV   float64
 		otherCol string
 		op       string
@@ -222,9 +222,9 @@ func (x *exporter) markOf(s chartSpec, k int, ch *checkRow) (chartMark, bool) {
 			continue // not the sample the check compared: no mark
 		}
 		m := chartMark{k: k, i: i, pointCell: -1, sign: 1, magnitude: u.abs || u.how == 'm', limit: sd.otherV, limitCol: sd.otherCol, op: sd.op}
-		if sd.other != nil {
+		if !sd.other.IsZero() {
 			m.limitText = sd.other.Text()
-			if sd.other.Op == check.OpConst {
+			if sd.other.Op() == check.OpConst {
 				m.limitText = "" // the value says it
 			}
 		}
@@ -239,11 +239,11 @@ func (x *exporter) markOf(s chartSpec, k int, ch *checkRow) (chartMark, bool) {
 // passOn follows n through cells that merely pass a value on (a cell
 // whose expression is another cell) and returns the last cell reached, or
 // n when it is no cell.
-func (x *exporter) passOn(n *check.Node) *check.Node {
+func (x *exporter) passOn(n check.Node) check.Node {
 	cells := x.s.Program().Cells
-	for depth := 0; n != nil && n.Op == check.OpCell && depth < 32; depth++ {
-		c := cells[n.Index]
-		if c.Kind != check.Derived || c.Body == nil || c.Body.Op != check.OpCell {
+	for depth := 0; !n.IsZero() && n.Op() == check.OpCell && depth < 32; depth++ {
+		c := cells[n.Index()]
+		if c.Kind != check.Derived || c.Body.IsZero() || c.Body.Op() != check.OpCell {
 			return n
 		}
 		n = c.Body
@@ -253,22 +253,22 @@ func (x *exporter) passOn(n *check.Node) *check.Node {
 
 // sameCell reports whether a and b, followed through cells that pass a
 // value on, end at one cell.
-func (x *exporter) sameCell(a, b *check.Node) bool {
+func (x *exporter) sameCell(a, b check.Node) bool {
 	a, b = x.passOn(a), x.passOn(b)
-	return a != nil && b != nil && a.Op == check.OpCell && b.Op == check.OpCell && a.Index == b.Index
+	return !a.IsZero() && !b.IsZero() && a.Op() == check.OpCell && b.Op() == check.OpCell && a.Index() == b.Index()
 }
 
 // pluginCall is n, or the expression of the cell n reaches through cells
 // that pass a value on, when it is a call of the plugin name; nil otherwise.
-func (x *exporter) pluginCall(n *check.Node, name string) *check.Node {
+func (x *exporter) pluginCall(n check.Node, name string) check.Node {
 	n = x.passOn(n)
-	if n != nil && n.Op == check.OpCell {
-		if c := x.s.Program().Cells[n.Index]; c.Kind == check.Derived {
+	if !n.IsZero() && n.Op() == check.OpCell {
+		if c := x.s.Program().Cells[n.Index()]; c.Kind == check.Derived {
 			n = c.Body
 		}
 	}
-	if n == nil || n.Op != check.OpPlugin || n.Def() == nil || n.Def().Name != name {
-		return nil
+	if n.IsZero() || n.Op() != check.OpPlugin || n.Def() == nil || n.Def().Name != name {
+		return check.Node{}
 	}
 	return n
 }
@@ -281,7 +281,7 @@ func (x *exporter) curveMarks(s chartSpec) []chartMark {
 	}
 	cells := x.s.Program().Cells
 	curve := x.pluginCall(cells[owner].Body, "n_eps_curve")
-	if curve == nil || curve.NArg() == 0 || x.comboDep(owner) {
+	if curve.IsZero() || curve.NArg() == 0 || x.comboDep(owner) {
 		return nil
 	}
 	comp := curve.Arg(0)
@@ -293,7 +293,7 @@ func (x *exporter) curveMarks(s chartSpec) []chartMark {
 			continue
 		}
 		sq := x.pluginCall(xc.Capacity, "squash_load")
-		if sq == nil || sq.NArg() == 0 || !x.sameCell(sq.Arg(0), comp) {
+		if sq.IsZero() || sq.NArg() == 0 || !x.sameCell(sq.Arg(0), comp) {
 			continue
 		}
 		cell, eps, ok := x.strainAt(comp, c, ch)
@@ -306,7 +306,7 @@ func (x *exporter) curveMarks(s chartSpec) []chartMark {
 		}
 		m := chartMark{k: k, i: -1, px: eps, py: -ch.demand, pointCell: cell, sign: -1, magnitude: true,
 			limit: ch.capacity, limitCol: "D", op: op}
-		if xc.Capacity.Op != check.OpConst {
+		if xc.Capacity.Op() != check.OpConst {
 			m.limitText = xc.Capacity.Text()
 		}
 		out = append(out, m)
@@ -318,7 +318,7 @@ func (x *exporter) curveMarks(s chartSpec) []chartMark {
 // composite comp carries minus the demand of check c: strain_for_force(comp,
 // -D) or minus it, D the demand's cell, no temperature change, in the
 // combination that governs c. It returns the cell and the strain (SI).
-func (x *exporter) strainAt(comp *check.Node, c *check.Cell, ch *checkRow) (int, float64, bool) {
+func (x *exporter) strainAt(comp check.Node, c *check.Cell, ch *checkRow) (int, float64, bool) {
 	cells := x.s.Program().Cells
 	gov := -1
 	if x.r.Combos != nil {
@@ -329,7 +329,7 @@ func (x *exporter) strainAt(comp *check.Node, c *check.Cell, ch *checkRow) (int,
 		}
 	}
 	for i, cell := range cells {
-		if cell.Kind != check.Derived || cell.Body == nil || !x.r.Cells[i].Known {
+		if cell.Kind != check.Derived || cell.Body.IsZero() || !x.r.Cells[i].Known {
 			continue
 		}
 		v, ok := x.r.Cells[i].Value.(float64)
@@ -337,17 +337,17 @@ func (x *exporter) strainAt(comp *check.Node, c *check.Cell, ch *checkRow) (int,
 			continue
 		}
 		body, sign := cell.Body, 1.0
-		if body.Op == check.OpNeg {
+		if body.Op() == check.OpNeg {
 			body, sign = body.Arg(0), -1
 		}
-		if body.Op != check.OpPlugin || body.Def() == nil || body.Def().Name != "strain_for_force" || body.NArg() < 2 {
+		if body.Op() != check.OpPlugin || body.Def() == nil || body.Def().Name != "strain_for_force" || body.NArg() < 2 {
 			continue
 		}
-		if body.NArg() > 2 && body.Arg(2) != nil && !(body.Arg(2).Op == check.OpConst && body.Arg(2).Num() == 0) {
+		if body.NArg() > 2 && !body.Arg(2).IsZero() && !(body.Arg(2).Op() == check.OpConst && body.Arg(2).Num() == 0) {
 			continue // a temperature change: not the curve's strain
 		}
 		f := body.Arg(1)
-		if !x.sameCell(body.Arg(0), comp) || f.Op != check.OpNeg || !x.sameCell(f.Arg(0), c.Extra().Demand) {
+		if !x.sameCell(body.Arg(0), comp) || f.Op() != check.OpNeg || !x.sameCell(f.Arg(0), c.Extra().Demand) {
 			continue
 		}
 		if x.cellCombo(i) != gov {

@@ -196,18 +196,18 @@ func (x *exporter) actionNote(c *check.Cell) string {
 // which reads the value v: an action as its factor in c's combination
 // times its characteristic value. ok is false when n shows a value of
 // another combination than c (the hand calculation then shows none).
-func (x *exporter) comboSubst(c *check.Cell, n *check.Node, v string) (string, bool) {
+func (x *exporter) comboSubst(c *check.Cell, n check.Node, v string) (string, bool) {
 	cs := x.r.Combos
 	if cs == nil {
 		return v, true
 	}
-	for n.Op == check.OpField {
+	for n.Op() == check.OpField {
 		n = n.Arg(0)
 	}
-	if n.Op != check.OpCell {
+	if n.Op() != check.OpCell {
 		return v, true
 	}
-	i := int(n.Index)
+	i := int(n.Index())
 	m := x.cellCombo(c.Index)
 	for a, ac := range cs.Cells {
 		if ac.Index == i {
@@ -477,7 +477,7 @@ func (x *exporter) governsLine(c *check.Cell) string {
 
 // readsActions reports whether expression n reads a cell that depends on
 // an action.
-func (x *exporter) readsActions(n *check.Node) bool {
+func (x *exporter) readsActions(n check.Node) bool {
 	cs := x.r.Combos
 	if cs == nil {
 		return false

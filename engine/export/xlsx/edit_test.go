@@ -62,7 +62,7 @@ func editsOf(t *testing.T, x *exporter) []edit {
 				}})
 		case rowField:
 			v, ok := r.val.(float64)
-			if !r.input || r.formul == nil || !ok || v == 0 {
+			if !r.input || r.formul.IsZero() || !ok || v == 0 {
 				continue
 			}
 			c := x.r.Cells[r.cell].Cell

@@ -102,7 +102,7 @@ func (x *exporter) guardStale() {
 		}
 		if x.opaque[i] {
 			x.stale[i] = x.upstream(i)
-			if b := c.Body; b != nil && b.Op == check.OpPlugin && b.Def().Spreadsheet != nil {
+			if b := c.Body; !b.IsZero() && b.Op() == check.OpPlugin && b.Def().Spreadsheet != nil {
 				// Its fields with a spreadsheet form are live: out of
 				// date only through what the call's arguments read.
 				if x.staleFields == nil {
@@ -136,7 +136,7 @@ func (x *exporter) guardStale() {
 }
 
 // staleOf is the union of the stale sets of what the trees read.
-func (x *exporter) staleOf(ns ...*check.Node) []int32 {
+func (x *exporter) staleOf(ns ...check.Node) []int32 {
 	var s []int32
 	x.walkRefs(func(d int, live bool) {
 		if live {
@@ -154,18 +154,18 @@ func (x *exporter) staleOf(ns ...*check.Node) []int32 {
 
 // walkRefs calls fn for every cell the trees read: live is true for a
 // record read only through a field the workbook computes live (tube.A).
-func (x *exporter) walkRefs(fn func(cell int, live bool), ns ...*check.Node) {
-	var walk func(n *check.Node)
-	walk = func(n *check.Node) {
-		if n == nil {
+func (x *exporter) walkRefs(fn func(cell int, live bool), ns ...check.Node) {
+	var walk func(n check.Node)
+	walk = func(n check.Node) {
+		if n.IsZero() {
 			return
 		}
-		switch n.Op {
+		switch n.Op() {
 		case check.OpCell, check.OpUser, check.OpFuncRef:
-			fn(int(n.Index), false)
+			fn(int(n.Index()), false)
 		case check.OpField:
-			if a := n.Arg(0); a.Op == check.OpCell && x.liveField[x.tr.path(n)] {
-				fn(int(a.Index), true)
+			if a := n.Arg(0); a.Op() == check.OpCell && x.liveField[x.tr.path(n)] {
+				fn(int(a.Index()), true)
 				return
 			}
 		}

@@ -20,7 +20,7 @@ type span struct {
 // (cells and fields of records) replaced by that value in its display
 // unit, as in a hand calculation: "N_Ed / A_s" -> "17.2 kN / 157 mm²".
 // It returns "" when the positions of the tree do not fit the text.
-func (x *exporter) substituted(c *check.Cell, body ...*check.Node) string {
+func (x *exporter) substituted(c *check.Cell, body ...check.Node) string {
 	if c.Formula == nil {
 		return ""
 	}
@@ -28,12 +28,12 @@ func (x *exporter) substituted(c *check.Cell, body ...*check.Node) string {
 	base := src.Range.Start().Offset
 	var spans []span
 	mixed := false // a value of another combination than c's
-	var walk func(n *check.Node, base bool)
-	walk = func(n *check.Node, powBase bool) {
-		if n == nil {
+	var walk func(n check.Node, base bool)
+	walk = func(n check.Node, powBase bool) {
+		if n.IsZero() {
 			return
 		}
-		switch n.Op {
+		switch n.Op() {
 		case check.OpCell, check.OpField:
 			if n.Type().Kind == funcs.Number {
 				if v, ok := x.pathValue(x.tr.path(n)); ok {
@@ -53,7 +53,7 @@ func (x *exporter) substituted(c *check.Cell, body ...*check.Node) string {
 			return
 		}
 		for i, a := range n.Args() {
-			walk(a, i == 0 && (n.Op == check.OpPow || n.Op == check.OpBuiltin && n.Builtin == check.BPow))
+			walk(a, i == 0 && (n.Op() == check.OpPow || n.Op() == check.OpBuiltin && n.Builtin() == check.BPow))
 		}
 	}
 	for _, b := range body {
@@ -140,7 +140,7 @@ func (x *exporter) handCalc(c *check.Cell, expr, result string) string {
 	if sub == "" {
 		sub = expr
 	}
-	if len(c.DepIdx) == 0 && (c.Body == nil || c.Body.Op == check.OpConst || c.Body.Op == check.OpNeg && c.Body.Arg(0).Op == check.OpConst) {
+	if len(c.DepIdx) == 0 && (c.Body.IsZero() || c.Body.Op() == check.OpConst || c.Body.Op() == check.OpNeg && c.Body.Arg(0).Op() == check.OpConst) {
 		return ""
 	}
 	line := c.Name + " = " + expr

@@ -246,7 +246,7 @@ func (x *exporter) verdictColours(tab, rng string) error {
 func (x *exporter) checkSummary(ch *checkRow) []any {
 	c := ch.cell
 	name := x.tr.refs[c.Name].name
-	side := func(n *nodeAlias, si float64) any {
+	side := func(n nodeAlias, si float64) any {
 		v := si / ch.unit.Factor
 		if !ch.known {
 			return x.text("", clsText)

@@ -64,28 +64,28 @@ func num(x float64) term {
 
 // path returns the Sheaf path of a node that names a value: a cell, a
 // field of one, a column of a table; "" otherwise.
-func (t *translator) path(n *check.Node) string {
-	switch n.Op {
+func (t *translator) path(n check.Node) string {
+	switch n.Op() {
 	case check.OpCell:
-		if c := t.cells[n.Index]; c.Kind == check.Table && len(c.Extra().Entries) > 0 {
+		if c := t.cells[n.Index()]; c.Kind == check.Table && len(c.Extra().Entries) > 0 {
 			// Its entries follow cells of the sheet; the Data tab holds
 			// their values of this run, so a formula over it would not
 			// follow an edited input: only Sheaf computes it.
 			return ""
 		}
-		return t.cells[n.Index].Name
+		return t.cells[n.Index()].Name
 	case check.OpField, check.OpColumn:
 		p := t.path(n.Arg(0))
 		if p == "" {
 			return ""
 		}
-		return p + "." + n.Arg(0).Type().Fields[n.Index].Name
+		return p + "." + n.Arg(0).Type().Fields[n.Index()].Name
 	}
 	return ""
 }
 
 // value translates a node that names a value cell.
-func (t *translator) value(n *check.Node) (term, error) {
+func (t *translator) value(n check.Node) (term, error) {
 	p := t.path(n)
 	r, ok := t.refs[p]
 	if p == "" || !ok || r.rows > 0 {
@@ -98,11 +98,11 @@ func (t *translator) value(n *check.Node) (term, error) {
 	return term{s: r.name + "*" + num(r.factor).operand()}, nil
 }
 
-func describeNode(t *translator, n *check.Node) string {
+func describeNode(t *translator, n check.Node) string {
 	if p := t.path(n); p != "" {
 		return "`" + p + "`"
 	}
-	switch n.Op {
+	switch n.Op() {
 	case check.OpPlugin:
 		return "`" + n.Def().Name + "`"
 	case check.OpIndex:
@@ -115,11 +115,11 @@ var cmpText = map[check.Op]string{check.OpLT: "<", check.OpLE: "<=", check.OpGT:
 var arithText = map[check.Op]string{check.OpAdd: "+", check.OpSub: "-", check.OpMul: "*", check.OpDiv: "/", check.OpPow: "^"}
 
 // expr translates a Number or Bool node to a formula in SI.
-func (t *translator) expr(n *check.Node) (term, error) {
-	if n == nil {
+func (t *translator) expr(n check.Node) (term, error) {
+	if n.IsZero() {
 		return term{}, fail("the expression did not check")
 	}
-	switch n.Op {
+	switch n.Op() {
 	case check.OpConst:
 		if n.Num() == math.Pi {
 			return term{s: "PI()", atom: true}, nil
@@ -134,16 +134,16 @@ func (t *translator) expr(n *check.Node) (term, error) {
 		if n.Type().Kind != funcs.Number && n.Type().Kind != funcs.Bool {
 			return term{}, fail("its value is a " + n.Type().Kind.String())
 		}
-		if n.Op == check.OpField && n.Arg(0).Op == check.OpPlugin {
+		if n.Op() == check.OpField && n.Arg(0).Op() == check.OpPlugin {
 			// A field of a call written in place: circle(d).A.
-			return t.pluginField(n.Arg(0), n.Arg(0).Type().Fields[n.Index].Name)
+			return t.pluginField(n.Arg(0), n.Arg(0).Type().Fields[n.Index()].Name)
 		}
 		return t.value(n)
 	case check.OpParam:
-		if len(t.args) == 0 || int(n.Index) >= len(t.args[len(t.args)-1]) {
+		if len(t.args) == 0 || int(n.Index()) >= len(t.args[len(t.args)-1]) {
 			return term{}, fail("a parameter outside its function")
 		}
-		a := t.args[len(t.args)-1][n.Index]
+		a := t.args[len(t.args)-1][n.Index()]
 		return term{s: a.operand(), atom: true}, nil
 	case check.OpNeg:
 		x, err := t.expr(n.Arg(0))
@@ -167,9 +167,9 @@ func (t *translator) expr(n *check.Node) (term, error) {
 		if err != nil {
 			return b, err
 		}
-		op, ok := arithText[n.Op]
+		op, ok := arithText[n.Op()]
 		if !ok {
-			op = cmpText[n.Op]
+			op = cmpText[n.Op()]
 		}
 		return term{s: a.operand() + op + b.operand()}, nil
 	case check.OpAnd, check.OpOr:
@@ -182,7 +182,7 @@ func (t *translator) expr(n *check.Node) (term, error) {
 			return b, err
 		}
 		fn := "AND("
-		if n.Op == check.OpOr {
+		if n.Op() == check.OpOr {
 			fn = "OR("
 		}
 		return term{s: fn + a.s + "," + b.s + ")", atom: true}, nil
@@ -209,10 +209,10 @@ func (t *translator) expr(n *check.Node) (term, error) {
 
 // plugin translates a call of a plugin by its spreadsheet form (the
 // registry's Spreadsheet) with the call's arguments in place.
-func (t *translator) plugin(n *check.Node, form string) (term, error) {
+func (t *translator) plugin(n check.Node, form string) (term, error) {
 	d := n.Def()
 	s, err := spreadsheetFormula(d, form, func(p funcs.Placeholder) (string, error) {
-		if p.Param >= n.NArg() || n.Arg(p.Param) == nil {
+		if p.Param >= n.NArg() || n.Arg(p.Param).IsZero() {
 			if p.Default == "" {
 				return "", fail("calls `" + d.Name + "` without an argument its spreadsheet form needs")
 			}
@@ -262,8 +262,8 @@ func (t *translator) plugin(n *check.Node, form string) (term, error) {
 // text translates a text argument of d: a string written in the call (a
 // sheet has no text cells; a text reaching d otherwise, through a
 // user function's parameter, only Sheaf passes on).
-func (t *translator) text(d *funcs.Def, a *check.Node) (string, error) {
-	if a.Op != check.OpString {
+func (t *translator) text(d *funcs.Def, a check.Node) (string, error) {
+	if a.Op() != check.OpString {
 		return "", fail("passes `"+d.Name+"` a text", " that is not written in the call")
 	}
 	if len(a.Str()) > 255 {
@@ -274,11 +274,11 @@ func (t *translator) text(d *funcs.Def, a *check.Node) (string, error) {
 
 // term is term k of d's Terms, computed from Sheaf's value of the record
 // argument a (a cell of the sheet), written as a number.
-func (t *translator) term(d *funcs.Def, a *check.Node, k int) (string, error) {
-	if a.Op != check.OpCell || t.result == nil {
+func (t *translator) term(d *funcs.Def, a check.Node, k int) (string, error) {
+	if a.Op() != check.OpCell || t.result == nil {
 		return "", fail("passes `"+d.Name+"` a record", " that is not a cell of the sheet")
 	}
-	v, ok := t.result(int(a.Index))
+	v, ok := t.result(int(a.Index()))
 	if !ok {
 		return "", fail("passes `"+d.Name+"` a record", " that Sheaf did not compute")
 	}
@@ -324,7 +324,7 @@ func increasing(rng string, n int) string {
 
 // pluginField translates the field of a plugin call's record result by
 // the field's spreadsheet form, when the registry gives one.
-func (t *translator) pluginField(call *check.Node, field string) (term, error) {
+func (t *translator) pluginField(call check.Node, field string) (term, error) {
 	d := call.Def()
 	if d == nil || d.Spreadsheet == nil || d.Spreadsheet.Fields[field] == "" {
 		name := "a plugin"
@@ -336,7 +336,7 @@ func (t *translator) pluginField(call *check.Node, field string) (term, error) {
 	return t.plugin(call, d.Spreadsheet.Fields[field])
 }
 
-func (t *translator) all(ns []*check.Node) ([]term, error) {
+func (t *translator) all(ns []check.Node) ([]term, error) {
 	out := make([]term, len(ns))
 	for i, a := range ns {
 		x, err := t.expr(a)
@@ -350,8 +350,8 @@ func (t *translator) all(ns []*check.Node) ([]term, error) {
 
 // user inlines a call of a user function: its body with the arguments in
 // place of the parameters.
-func (t *translator) user(n *check.Node) (term, error) {
-	fn := t.cells[n.Index]
+func (t *translator) user(n check.Node) (term, error) {
+	fn := t.cells[n.Index()]
 	if t.depth > 16 {
 		return term{}, fail("user functions nest too deeply to inline")
 	}
@@ -379,8 +379,8 @@ type list struct {
 	elems  []term
 }
 
-func (t *translator) list(n *check.Node) (list, error) {
-	switch n.Op {
+func (t *translator) list(n check.Node) (list, error) {
+	switch n.Op() {
 	case check.OpList:
 		xs, err := t.all(n.Args())
 		return list{elems: xs}, err
@@ -423,11 +423,11 @@ var simple = map[check.Builtin]string{
 // floor and ceil go through INT, which rounds toward minus infinity for
 // negative numbers as Go's math.Floor does; ROUND rounds half away from
 // zero as Go's math.Round does.
-func (t *translator) builtin(n *check.Node) (term, error) {
+func (t *translator) builtin(n check.Node) (term, error) {
 	isList := n.NArg() == 1 && n.Arg(0).Type().Kind == funcs.List
-	switch n.Builtin {
+	switch n.Builtin() {
 	case check.BMin, check.BMax, check.BSum, check.BMean, check.BHypot, check.BLen:
-		fn := map[check.Builtin]string{check.BMin: "MIN", check.BMax: "MAX", check.BSum: "SUM", check.BMean: "AVERAGE", check.BHypot: "SUMSQ", check.BLen: "COUNT"}[n.Builtin]
+		fn := map[check.Builtin]string{check.BMin: "MIN", check.BMax: "MAX", check.BSum: "SUM", check.BMean: "AVERAGE", check.BHypot: "SUMSQ", check.BLen: "COUNT"}[n.Builtin()]
 		var x term
 		if isList {
 			l, err := t.list(n.Arg(0))
@@ -436,15 +436,15 @@ func (t *translator) builtin(n *check.Node) (term, error) {
 			}
 			if l.rng != "" {
 				x = call(fn, term{s: l.rng})
-				if n.Builtin == check.BHypot {
+				if n.Builtin() == check.BHypot {
 					x = call("SQRT", x)
 				}
-				if n.Builtin != check.BLen {
+				if n.Builtin() != check.BLen {
 					x = scaled(x.s, l.factor)
 				}
 				return x, nil
 			}
-			if n.Builtin == check.BLen {
+			if n.Builtin() == check.BLen {
 				return num(float64(len(l.elems))), nil
 			}
 			x = call(fn, l.elems...)
@@ -455,7 +455,7 @@ func (t *translator) builtin(n *check.Node) (term, error) {
 			}
 			x = call(fn, xs...)
 		}
-		if n.Builtin == check.BHypot {
+		if n.Builtin() == check.BHypot {
 			x = call("SQRT", x)
 		}
 		return x, nil
@@ -466,10 +466,10 @@ func (t *translator) builtin(n *check.Node) (term, error) {
 	if err != nil {
 		return term{}, err
 	}
-	if fn, ok := simple[n.Builtin]; ok {
+	if fn, ok := simple[n.Builtin()]; ok {
 		return call(fn, xs...), nil
 	}
-	switch n.Builtin {
+	switch n.Builtin() {
 	case check.BCbrt:
 		x := xs[0].s
 		return term{s: "SIGN(" + x + ")*ABS(" + x + ")^(1/3)"}, nil
@@ -498,7 +498,7 @@ func l0(err error) (term, error) { return term{}, err }
 // Sheaf, the workbook does not extrapolate. (NA() in an IF branch, or INDEX in
 // its condition, would be simpler, but not every calculator evaluates them
 // lazily or as a single value.)
-func (t *translator) interp(n *check.Node) (term, error) {
+func (t *translator) interp(n check.Node) (term, error) {
 	xs, err := t.list(n.Arg(0))
 	if err != nil {
 		return term{}, err
@@ -528,7 +528,7 @@ func (t *translator) interp(n *check.Node) (term, error) {
 
 // cellFormula returns the formula of a value cell shown in a unit of
 // factor f: the SI expression divided by f.
-func (t *translator) cellFormula(body *check.Node, f float64) (string, error) {
+func (t *translator) cellFormula(body check.Node, f float64) (string, error) {
 	x, err := t.expr(body)
 	if err != nil {
 		return "", err

@@ -171,13 +171,13 @@ type calcRow struct {
 	val      funcs.Value
 	unit     units.Unit
 	input    bool
-	listUnit units.Unit  // rowField of a list of numbers: the unit its elements are shown in
-	formul   *check.Node // the field's own expression, when written in a record literal
+	listUnit units.Unit // rowField of a list of numbers: the unit its elements are shown in
+	formul   check.Node // the field's own expression, when written in a record literal
 	desc     string
 	cell     int // rowField: the index of the record cell
 	// rowField: the plugin call that made the record, when the field has
 	// a spreadsheet form (see translator.pluginField).
-	plugin *check.Node
+	plugin check.Node
 }
 
 // checkRow is a design check as the summary shows it.
@@ -356,7 +356,7 @@ func (x *exporter) markOpaque() {
 				x.formulas[i] = translated{f, err, true}
 				x.opaque[i] = err != nil
 			default:
-				x.opaque[i] = !(c.Body != nil && c.Body.Op == check.OpRecord)
+				x.opaque[i] = !(!c.Body.IsZero() && c.Body.Op() == check.OpRecord)
 			}
 		case engine.Check:
 			f, err := x.tr.checkFormula(c)
@@ -398,7 +398,7 @@ type namedRange struct{ name, rng string }
 
 // layoutRecord adds a row for each field of a record value, below the
 // record's own row, and names the numeric ones path-wise (steel.E).
-func (x *exporter) layoutRecord(c *check.Cell, path string, v *funcs.RecordValue, input bool, lit *check.Node, row int) int {
+func (x *exporter) layoutRecord(c *check.Cell, path string, v *funcs.RecordValue, input bool, lit check.Node, row int) int {
 	if v.Type == nil {
 		return row
 	}
@@ -407,15 +407,15 @@ func (x *exporter) layoutRecord(c *check.Cell, path string, v *funcs.RecordValue
 			break
 		}
 		p := path + "." + fld.Name
-		var arg *check.Node
-		if lit != nil && lit.Op == check.OpRecord && i < lit.NArg() && lit.Type() != nil && i < len(lit.Type().Fields) && lit.Type().Fields[i].Name == fld.Name {
+		var arg check.Node
+		if !lit.IsZero() && lit.Op() == check.OpRecord && i < lit.NArg() && lit.Type() != nil && i < len(lit.Type().Fields) && lit.Type().Fields[i].Name == fld.Name {
 			arg = lit.Arg(i)
 		}
 		fr := calcRow{kind: rowField, row: row, path: p, val: v.Fields[i], input: input, formul: arg, desc: fld.Doc, cell: c.Index}
 		if fld.Type != nil && fld.Type.Kind == funcs.List && fld.Type.Elem != nil {
 			fr.listUnit = x.preferred(fld.Type.Elem.Dim)
 		}
-		if path == c.Name && lit != nil && lit.Op == check.OpPlugin && !x.comboDep(c.Index) {
+		if path == c.Name && !lit.IsZero() && lit.Op() == check.OpPlugin && !x.comboDep(c.Index) {
 			if f := lit.Def().Spreadsheet; f != nil && f.Fields[fld.Name] != "" {
 				fr.plugin = lit
 				if x.liveField == nil {
@@ -424,7 +424,7 @@ func (x *exporter) layoutRecord(c *check.Cell, path string, v *funcs.RecordValue
 				x.liveField[p] = true
 			}
 		}
-		if arg != nil {
+		if !arg.IsZero() {
 			fr.expr = x.exprText(c, arg)
 		}
 		switch fv := v.Fields[i].(type) {
@@ -433,7 +433,7 @@ func (x *exporter) layoutRecord(c *check.Cell, path string, v *funcs.RecordValue
 			fr.desc = withoutSIUnit(fld.Doc, fr.unit)
 			x.tr.refs[p] = ref{name: x.pathName(p), factor: fr.unit.Factor}
 			x.values[p] = valueAt{fv, fr.unit}
-			if input && arg != nil {
+			if input && !arg.IsZero() {
 				u := fr.unit.Pretty()
 				if u == "1" {
 					u = ""
@@ -444,7 +444,7 @@ func (x *exporter) layoutRecord(c *check.Cell, path string, v *funcs.RecordValue
 			row++
 		case bool:
 			x.tr.refs[p] = ref{name: x.pathName(p), factor: 1, bool: true}
-			if input && arg != nil {
+			if input && !arg.IsZero() {
 				x.addKey(c.Index, p, fv, "")
 			}
 			x.rows = append(x.rows, fr)
@@ -465,7 +465,7 @@ func (x *exporter) layoutRecord(c *check.Cell, path string, v *funcs.RecordValue
 }
 
 // exprText is the source text of a node of cell c's expression.
-func (x *exporter) exprText(c *check.Cell, n *check.Node) string {
+func (x *exporter) exprText(c *check.Cell, n check.Node) string {
 	if c.Formula == nil {
 		return ""
 	}
@@ -479,8 +479,8 @@ func (x *exporter) exprText(c *check.Cell, n *check.Node) string {
 
 // fieldUnit is the display unit of a record field: the unit written on
 // its literal, else the preferred unit of the sheet's system.
-func (x *exporter) fieldUnit(c *check.Cell, arg *check.Node, t *funcs.Type) units.Unit {
-	if arg != nil {
+func (x *exporter) fieldUnit(c *check.Cell, arg check.Node, t *funcs.Type) units.Unit {
+	if !arg.IsZero() {
 		if q := arg.Quantity(); q != nil && q.Unit.Factor != 0 {
 			return q.Unit
 		}
