@@ -32,7 +32,7 @@ type cellAndFormula struct {
 }
 
 // cellWith returns a new cell whose Formula is an unparsed formula of e.
-func (a *arena) cellWith(e sheet.Expr) *Cell {
+func (a *arena) cellWith(e *sheet.Expr) *Cell {
 	x := a.cells.One()
 	x.f.Source = e
 	x.cell.Formula = &x.f

@@ -260,7 +260,7 @@ func (c *checker) rangeCheck(ck *sheet.Check, cell *Cell) (lo, hi *Cell) {
 		}
 		h.Name = cell.Name + suffix
 		h.Expr = body.Text
-		h.Formula = &formula.Formula{Source: body}
+		h.Formula = &formula.Formula{Source: &body}
 		h.Description = strings.TrimSpace(cell.Description + " (" + limit + ")")
 		return &h
 	}
@@ -281,17 +281,17 @@ func limitState(ck *sheet.Check) *sheet.Ident {
 func (a *arena) newCell(it sheet.Item) *Cell {
 	switch it := it.(type) {
 	case *sheet.Cell:
-		cell := a.cellWith(it.Expr)
+		cell := a.cellWith(&it.Expr)
 		cell.Name, cell.Kind, cell.NameRange, cell.Range = it.Name.Name, Derived, it.Name.Range, it.Range
 		cell.Expr, cell.Description, cell.Reference = it.Expr.Text, it.Annot.Description, it.Annot.Reference
 		return cell
 	case *sheet.FuncDef:
-		cell := a.cellWith(it.Body)
+		cell := a.cellWith(&it.Body)
 		cell.Name, cell.Kind, cell.NameRange, cell.Range = it.Name.Name, Function, it.Name.Range, it.Range
 		cell.Expr, cell.Description, cell.Reference = it.Body.Text, it.Annot.Description, it.Annot.Reference
 		return cell
 	case *sheet.Check:
-		cell := a.cellWith(it.Body)
+		cell := a.cellWith(&it.Body)
 		cell.Name, cell.Kind, cell.NameRange, cell.Range = it.Name.Name, Check, it.Name.Range, it.Range
 		cell.Expr, cell.Description, cell.Reference = it.Body.Text, it.Annot.Description, it.Annot.Reference
 		cell.more().State = limitState(it)

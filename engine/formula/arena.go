@@ -3,7 +3,7 @@ package formula
 import "github.com/sheafcalc/sheaf/internal/block"
 
 // Arena hands out the slices of many formulas from shared blocks. Parsing
-// a formula on its own allocates five small slices; a sheet of 100,000
+// a formula on its own allocates three small slices; a sheet of 100,000
 // cells parsed so spends much of its time in the allocator and the
 // garbage collector (BenchmarkLoadCheckEval100k, engine/bench_test.go).
 // With an Arena the parser works in slices it reuses and copies each
@@ -18,7 +18,6 @@ type Arena struct {
 	scratch Formula // the slices the parser appends to, reused
 	nodes   block.Block[Node]
 	args    block.Block[int32]
-	nums    block.Block[float64]
 	quants  block.Block[Quantity]
 }
 
@@ -27,6 +26,5 @@ type Arena struct {
 func (a *Arena) keep(f *Formula) {
 	f.Nodes = a.nodes.Copy(f.Nodes)
 	f.Args = a.args.Copy(f.Args)
-	f.Nums = a.nums.Copy(f.Nums)
 	f.Quantities = a.quants.Copy(f.Quantities)
 }

@@ -2,6 +2,7 @@ package formula
 
 import (
 	"iter"
+	"math"
 
 	"github.com/sheafcalc/sheaf/engine/diag"
 	"github.com/sheafcalc/sheaf/engine/sheet"
@@ -76,7 +77,9 @@ type Node struct {
 	From int32 // byte span of the node in the formula text, children included
 	To   int32
 	// A, B, C are child node indices (-1 when absent). For KNumber and
-	// KBool A indexes Formula.Nums; for KQuantity Formula.Quantities; for
+	// KBool B and C hold the value's 64 bits, low word first (Num reads
+	// them), so that a number costs no slice of its own; for KQuantity A
+	// indexes Formula.Quantities; for
 	// KCall, KList and KRecord C is the start of the arguments in
 	// Formula.Args and the count is in B for lists and records, in A for
 	// calls (whose B is the callee).
@@ -88,13 +91,12 @@ type Node struct {
 // source text; positions are byte offsets turned into line:col only when a
 // message is printed.
 type Formula struct {
-	Source sheet.Expr // the expression as written, with its place in the file
+	Source *sheet.Expr // the expression as written, with its place in the file (the sheet item's, not a copy)
 	Nodes  []Node
 	Root   int32 // index of the root node in Nodes (-1 when the text could not be parsed)
 	nrefs  int32 // KName nodes marked Ref (Refs), held where Root left a spare word
 	// Args holds the argument lists of calls, lists and records.
 	Args       []int32
-	Nums       []float64
 	Quantities []Quantity // quantity literals in order of appearance
 }
 
@@ -145,7 +147,16 @@ func (f *Formula) StringText(n int32) string {
 }
 
 // Num returns the value of a KNumber or KBool node.
-func (f *Formula) Num(n int32) float64 { return f.Nums[f.Nodes[n].A] }
+func (f *Formula) Num(n int32) float64 {
+	nd := &f.Nodes[n]
+	return math.Float64frombits(uint64(uint32(nd.B)) | uint64(uint32(nd.C))<<32)
+}
+
+// numNode is a KNumber or KBool node of value v spanning [from, to).
+func numNode(k Kind, from, to int32, v float64) Node {
+	bits := math.Float64bits(v)
+	return Node{Kind: k, From: from, To: to, A: -1, B: int32(uint32(bits)), C: int32(uint32(bits >> 32))}
+}
 
 // Quantity returns the literal of a KQuantity node.
 func (f *Formula) Quantity(n int32) *Quantity { return &f.Quantities[f.Nodes[n].A] }

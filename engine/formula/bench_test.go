@@ -23,7 +23,8 @@ func BenchmarkParse(b *testing.B) {
 	}
 	src := make([]Formula, len(exprs))
 	for i, s := range exprs {
-		src[i].Source = expr(s)
+		e := expr(s)
+		src[i].Source = &e
 	}
 	var arena Arena
 	nodes := 0

@@ -33,7 +33,7 @@ const syntaxDetail = "formulas use + - * / ^, comparisons, `a ? b : c`, calls f(
 // parsed. A formula whose units do not parse comes back with its tree and
 // the unit errors (the literal's Unit has Factor 0).
 func Parse(e sheet.Expr, opt Options) (*Formula, diag.List) {
-	f := &Formula{Source: e}
+	f := &Formula{Source: &e}
 	ok, errs := f.ParseSource(opt)
 	if !ok {
 		return nil, errs
@@ -61,10 +61,10 @@ func (f *Formula) ParseSource(opt Options) (bool, diag.List) {
 	p := parser{f: f, lex: lexer{src: e.Text}, opt: opt}
 	if a := opt.Arena; a != nil {
 		s := &a.scratch
-		f.Nodes, f.Args, f.Nums, f.Quantities = s.Nodes[:0], s.Args[:0], s.Nums[:0], s.Quantities[:0]
+		f.Nodes, f.Args, f.Quantities = s.Nodes[:0], s.Args[:0], s.Quantities[:0]
 		defer func() {
 			// The scratch keeps the grown slices for the next formula.
-			s.Nodes, s.Args, s.Nums, s.Quantities = f.Nodes, f.Args, f.Nums, f.Quantities
+			s.Nodes, s.Args, s.Quantities = f.Nodes, f.Args, f.Quantities
 			a.keep(f)
 		}()
 	}
@@ -109,9 +109,6 @@ func (p *parser) parse() (ok bool) {
 	if p.opt.Arena == nil {
 		// A formula has about one node per three bytes of text.
 		p.f.Nodes = make([]Node, 0, len(p.lex.src)/3+1)
-		// Most formulas hold a number or two: room for them up front
-		// saves the growth of a small slice per formula.
-		p.f.Nums = make([]float64, 0, 2)
 	}
 	p.next()
 	root := p.expression()
@@ -415,8 +412,7 @@ func (p *parser) primary() int32 {
 		if t.text == "true" {
 			v = 1
 		}
-		p.f.Nums = append(p.f.Nums, v)
-		return p.add(Node{Kind: KBool, From: int32(t.from), To: int32(t.to), A: int32(len(p.f.Nums) - 1), B: -1, C: -1})
+		return p.add(numNode(KBool, t.from, t.to, v))
 	case "(":
 		p.next()
 		x := p.expression()
@@ -448,8 +444,7 @@ func (p *parser) number() int32 {
 			Detail: "numbers are 64-bit floating point: their magnitude must lie between about 2.2e-308 and 1.8e308", Hint: "check the exponent"})
 	}
 	if t.unitFrom == t.to {
-		p.f.Nums = append(p.f.Nums, v)
-		return p.add(Node{Kind: KNumber, From: int32(t.from), To: int32(t.to), A: int32(len(p.f.Nums) - 1), B: -1, C: -1})
+		return p.add(numNode(KNumber, t.from, t.to, v))
 	}
 	q := Quantity{Number: num, UnitText: p.lex.src[t.unitFrom:t.to], Value: v, From: int32(t.from), To: int32(t.to)}
 	u, err := units.Parse(q.UnitText)
