@@ -255,7 +255,7 @@ func (s *Sheet) checkUnit(c *Cell) units.Unit {
 	for _, side := range []Node{c.Extra().Capacity, c.Extra().Demand} {
 		if side.Op() == OpCell {
 			if d := s.prog.Cells[side.Index()]; d.HasUnit {
-				return d.Unit
+				return d.Unit()
 			}
 		}
 	}

@@ -190,7 +190,7 @@ func ReadSources(l diag.List) diag.Sources {
 // unit, else the preferred unit of the sheet's system, else SI.
 func (s *Sheet) DisplayUnit(c *Cell) units.Unit {
 	if c.HasUnit {
-		return c.Unit
+		return c.Unit()
 	}
 	if c.Type == nil {
 		return units.Unit{Factor: 1}

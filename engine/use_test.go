@@ -154,11 +154,11 @@ func TestUseProgram(t *testing.T) {
 	}
 	// An override without an annotation keeps the template's description
 	// and drops its reference; one with an annotation has its own.
-	if c := s.Lookup("rod.upper.E"); c.Description != "modulus of elasticity" || c.Reference != "" {
-		t.Errorf("rod.upper.E: %q @ %q", c.Description, c.Reference)
+	if c := s.Lookup("rod.upper.E"); c.Description() != "modulus of elasticity" || c.Reference() != "" {
+		t.Errorf("rod.upper.E: %q @ %q", c.Description(), c.Reference())
 	}
-	if c := s.Lookup("rod.E"); c.Reference != "supplier data sheet (own assumption)" {
-		t.Errorf("rod.E reference %q", c.Reference)
+	if c := s.Lookup("rod.E"); c.Reference() != "supplier data sheet (own assumption)" {
+		t.Errorf("rod.E reference %q", c.Reference())
 	}
 	r := s.Run(nil)
 	var checks []string

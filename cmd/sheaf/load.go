@@ -215,7 +215,7 @@ func completeInputs(cmd *cobra.Command, args []string, prefix string) ([]string,
 		if c.Kind != engine.Input && c.Kind != engine.Table {
 			continue
 		}
-		out = append(out, c.Name+"=\t"+c.Description)
+		out = append(out, c.Name+"=\t"+c.Description())
 		if c.Type != nil && c.Type.Kind == funcs.Record {
 			for _, f := range c.Type.Fields {
 				out = append(out, c.Name+"."+f.Name+"=")

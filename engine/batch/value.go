@@ -35,10 +35,10 @@ func Value(s *engine.Sheet, col *Column, text string) (funcs.Value, error) {
 		switch {
 		case col.HasUnit:
 			return finiteSI(text, x*col.Unit.Factor, col.Unit.Symbol)
-		case col.Cell.Type.Dim.IsNone() && col.Cell.HasUnit && col.Cell.Unit.Factor != 1:
+		case col.Cell.Type.Dim.IsNone() && col.Cell.HasUnit && col.Cell.Unit().Factor != 1:
 			// The cell is shown in % (or ‰): a bare 5 would be 500 %.
 			return nil, fmt.Errorf("`%s` is shown in %s and a plain number is a fraction of one: write %s %s, or put the unit in the header: %s [%s]",
-				col.Name, col.Cell.Unit.Symbol, text, col.Cell.Unit.Symbol, col.Name, col.Cell.Unit.Symbol)
+				col.Name, col.Cell.Unit().Symbol, text, col.Cell.Unit().Symbol, col.Name, col.Cell.Unit().Symbol)
 		case col.Cell.Type.Dim.IsNone():
 			return x, nil
 		}

@@ -32,9 +32,10 @@ type Options struct {
 const DefaultMaxCells = 1_000_000
 
 type checker struct {
-	prog *Program
-	opt  Options
-	errs diag.List
+	prog  *Program
+	units map[string]*units.Unit // display units by their text, shared by the cells that write them
+	opt   Options
+	errs  diag.List
 	// per cell: the syntax tree to type (nil when none)
 	names []string
 	// use holds the templates of the sheet (nil when it uses none).
@@ -159,7 +160,7 @@ func (c *checker) collectFile(f *sheet.File, scope string, depth int) {
 			continue // a template's: read by useTemplate
 		case *sheet.Table:
 			cell = &Cell{Name: it.Name.Name, Kind: Table, NameRange: it.Name.Range, Range: it.Range,
-				Description: it.Annot.Description, Reference: it.Annot.Reference}
+				annot: &it.Annot}
 			c.table(cell, it)
 		case *sheet.Use:
 			c.useTemplate(f, it, scope, depth)
@@ -261,7 +262,7 @@ func (c *checker) rangeCheck(ck *sheet.Check, cell *Cell) (lo, hi *Cell) {
 		h.Name = cell.Name + suffix
 		h.Expr = body.Text
 		h.Formula = &formula.Formula{Source: &body}
-		h.Description = strings.TrimSpace(cell.Description + " (" + limit + ")")
+		h.setAnnot(strings.TrimSpace(cell.Description()+" ("+limit+")"), cell.Reference())
 		return &h
 	}
 	if r.Op == formula.OpGE || r.Op == formula.OpGT { // hi >= x >= lo
@@ -283,17 +284,17 @@ func (a *arena) newCell(it sheet.Item) *Cell {
 	case *sheet.Cell:
 		cell := a.cellWith(&it.Expr)
 		cell.Name, cell.Kind, cell.NameRange, cell.Range = it.Name.Name, Derived, it.Name.Range, it.Range
-		cell.Expr, cell.Description, cell.Reference = it.Expr.Text, it.Annot.Description, it.Annot.Reference
+		cell.Expr, cell.annot = it.Expr.Text, &it.Annot
 		return cell
 	case *sheet.FuncDef:
 		cell := a.cellWith(&it.Body)
 		cell.Name, cell.Kind, cell.NameRange, cell.Range = it.Name.Name, Function, it.Name.Range, it.Range
-		cell.Expr, cell.Description, cell.Reference = it.Body.Text, it.Annot.Description, it.Annot.Reference
+		cell.Expr, cell.annot = it.Body.Text, &it.Annot
 		return cell
 	case *sheet.Check:
 		cell := a.cellWith(&it.Body)
 		cell.Name, cell.Kind, cell.NameRange, cell.Range = it.Name.Name, Check, it.Name.Range, it.Range
-		cell.Expr, cell.Description, cell.Reference = it.Body.Text, it.Annot.Description, it.Annot.Reference
+		cell.Expr, cell.annot = it.Body.Text, &it.Annot
 		cell.more().State = limitState(it)
 		return cell
 	}
@@ -346,13 +347,21 @@ func (c *checker) displayUnit(cell *Cell, u *sheet.UnitSpec) {
 	if u == nil {
 		return
 	}
+	if shared, ok := c.units[u.Text]; ok {
+		cell.unit, cell.HasUnit = shared, true
+		return
+	}
 	parsed, err := units.Parse(u.Text)
 	if err != nil {
 		c.unitErr(u, err)
 		return
 	}
 	parsed.Symbol = u.Text
-	cell.Unit, cell.HasUnit = parsed, true
+	if c.units == nil {
+		c.units = map[string]*units.Unit{}
+	}
+	c.units[u.Text] = &parsed
+	cell.unit, cell.HasUnit = &parsed, true
 }
 
 // table converts the rows of a table to SI columns.
@@ -676,9 +685,9 @@ func (c *checker) standInFor(cell *Cell, found *funcs.Type, blocked bool) {
 		for k, p := range cell.Extra().Params {
 			ps[k] = p.Type
 		}
-		ty = funcs.FuncOf(c.arena.num(cell.Unit.Dim), ps...)
+		ty = funcs.FuncOf(c.arena.num(cell.Unit().Dim), ps...)
 	case cell.HasUnit && cell.Kind != Check:
-		ty = c.arena.num(cell.Unit.Dim)
+		ty = c.arena.num(cell.Unit().Dim)
 	case !blocked:
 		ty = found
 	}
@@ -710,33 +719,33 @@ func (c *checker) fitsUnit(t *typer, cell *Cell, body Node) bool {
 		return true
 	}
 	if body.Type().Kind != funcs.Number {
-		t.errs.Errorf(cell.Formula.Source.Range, "a display unit applies to a number", "remove [`"+cell.Unit.Symbol+"`]",
-			"display unit %s given for %s", cell.Unit.Symbol, t.describeType(body.Type()))
+		t.errs.Errorf(cell.Formula.Source.Range, "a display unit applies to a number", "remove [`"+cell.Unit().Symbol+"`]",
+			"display unit %s given for %s", cell.Unit().Symbol, t.describeType(body.Type()))
 		return false
 	}
-	if body.Type().Dim != cell.Unit.Dim {
-		what := t.describeDim(cell.Unit.Dim)
-		if cell.Unit.Quantity != "" && !cell.Unit.Dim.IsNone() { // not "a dimensionless"
-			what = cell.Unit.Quantity
+	if body.Type().Dim != cell.Unit().Dim {
+		what := t.describeDim(cell.Unit().Dim)
+		if cell.Unit().Quantity != "" && !cell.Unit().Dim.IsNone() { // not "a dimensionless"
+			what = cell.Unit().Quantity
 		}
 		hint := "write the unit of the result, e.g. [" + t.unitOf(body.Type().Dim) + "], or correct the formula"
 		if body.Type().Dim.IsNone() {
-			hint = plainNumberHint(cell.Unit, body)
+			hint = plainNumberHint(cell.Unit(), body)
 		}
 		t.errs.Errorf(cell.Formula.Source.Range,
 			"the unit in brackets sets how the value is shown and must have the dimension of the expression",
-			hint, "display unit %s is %s but the expression is %s", cell.Unit.Symbol, article(what), t.describeDim(body.Type().Dim))
+			hint, "display unit %s is %s but the expression is %s", cell.Unit().Symbol, article(what), t.describeDim(body.Type().Dim))
 		return false
 	}
-	if v, ok := bareNumber(cell.Formula); ok && cell.Unit.Dim.IsNone() && cell.Unit.Factor != 1 {
+	if v, ok := bareNumber(cell.Formula); ok && cell.Unit().Dim.IsNone() && cell.Unit().Factor != 1 {
 		// `share [%] = 5` would be 500 %: a plain number is a fraction of
 		// one, and the author almost always meant the number in the
 		// bracket's unit. As with angles, the unit is written, not guessed.
 		text := strings.TrimSpace(cell.Formula.Source.Text)
 		t.errs.Errorf(cell.Formula.Source.Range,
-			"a plain number is a fraction of one, so in ["+cell.Unit.Symbol+"] this would show "+formatScaled(v, cell.Unit.Factor)+" "+cell.Unit.Symbol,
-			"write the unit after the number, `"+text+" "+cell.Unit.Symbol+"`; a fraction is written in the unit too ("+formatScaled(v, 1)+" is `"+formatScaled(v, cell.Unit.Factor)+" "+cell.Unit.Symbol+"`)",
-			"a plain number written for [%s] is ambiguous", cell.Unit.Symbol)
+			"a plain number is a fraction of one, so in ["+cell.Unit().Symbol+"] this would show "+formatScaled(v, cell.Unit().Factor)+" "+cell.Unit().Symbol,
+			"write the unit after the number, `"+text+" "+cell.Unit().Symbol+"`; a fraction is written in the unit too ("+formatScaled(v, 1)+" is `"+formatScaled(v, cell.Unit().Factor)+" "+cell.Unit().Symbol+"`)",
+			"a plain number written for [%s] is ambiguous", cell.Unit().Symbol)
 		return false
 	}
 	return true

@@ -39,20 +39,23 @@ type Meta struct {
 // Cell is one named item of a sheet: an input, a derived cell, a check, a
 // user function or a table.
 type Cell struct {
-	Name        string
-	Kind        Kind
-	HasUnit     bool   // a display unit was written
-	Index       int    // position in Program.Cells (reading order)
-	Section     string // text of the heading above it, "" before the first
-	Description string
-	Reference   string
-	Expr        string     // the expression as written ("" for a table)
-	Unit        units.Unit // display unit; Symbol as written; zero when none
-	Type        *funcs.Type
-	Range       diag.Range // the whole item
-	NameRange   diag.Range
-	DepIdx      []int // the cells it uses, as indices into Program.Cells, in order of first use (Program.DepNames gives their names)
-	Formula     *formula.Formula
+	Name    string
+	Kind    Kind
+	HasUnit bool   // a display unit was written
+	Index   int    // position in Program.Cells (reading order)
+	Section string // text of the heading above it, "" before the first
+	// annot is the annotation written after `--` (Description and
+	// Reference read it); nil when none is known.
+	annot *sheet.Annot
+	Expr  string // the expression as written ("" for a table)
+	// unit is the display unit (Unit reads it), shared by the cells that
+	// write the same text; nil when none is written.
+	unit      *units.Unit
+	Type      *funcs.Type
+	Range     diag.Range // the whole item
+	NameRange diag.Range
+	DepIdx    []int // the cells it uses, as indices into Program.Cells, in order of first use (Program.DepNames gives their names)
+	Formula   *formula.Formula
 	// Scope is the prefix under which the formula's names are read: "" for
 	// a cell of the sheet itself, "rod." for a cell inlined from
 	// `use rod from ...` (an override keeps the scope of the sheet that
@@ -86,6 +89,36 @@ type Extra struct {
 	// Action is the item of an action cell (`action permanent G = ...`),
 	// nil for every other cell.
 	Action *sheet.Action
+}
+
+// Description is the cell's description, written after `--`.
+func (c *Cell) Description() string {
+	if c.annot == nil {
+		return ""
+	}
+	return c.annot.Description
+}
+
+// Reference is the cell's reference, written after `@`.
+func (c *Cell) Reference() string {
+	if c.annot == nil {
+		return ""
+	}
+	return c.annot.Reference
+}
+
+// setAnnot gives the cell a description and a reference of its own.
+func (c *Cell) setAnnot(description, reference string) {
+	c.annot = &sheet.Annot{Description: description, Reference: reference}
+}
+
+// Unit is the display unit, its Symbol as written; the zero Unit when
+// none is written (HasUnit).
+func (c *Cell) Unit() units.Unit {
+	if c.unit == nil {
+		return units.Unit{}
+	}
+	return *c.unit
 }
 
 // Extra returns what the cell has beyond its value's formula (see Extra);

@@ -9,7 +9,6 @@ import (
 	"github.com/sheafcalc/sheaf/engine/diag"
 	"github.com/sheafcalc/sheaf/engine/formula"
 	"github.com/sheafcalc/sheaf/engine/sheet"
-	"github.com/sheafcalc/sheaf/engine/units"
 )
 
 // Template use is inlining. `use rod from "hanger.sheaf"` checks nothing
@@ -385,12 +384,13 @@ func (c *checker) applyOverrides() {
 			cell.Range, cell.NameRange = o.Range, o.Name.Range
 			// The template's description still says what the cell is; its
 			// reference backed the template's value, not this one.
-			cell.Reference = o.Annot.Reference
-			if o.Annot.Description != "" {
-				cell.Description = o.Annot.Description
+			desc := o.Annot.Description
+			if desc == "" {
+				desc = cell.Description()
 			}
+			cell.setAnnot(desc, o.Annot.Reference)
 			if o.Unit != nil {
-				cell.Unit, cell.HasUnit = units.Unit{}, false
+				cell.unit, cell.HasUnit = nil, false
 				c.displayUnit(cell, o.Unit)
 			}
 			cell.Formula = f

@@ -325,7 +325,7 @@ func num(c *engine.CellResult) *float64 {
 func cellOf(c *engine.CellResult) Cell {
 	out := Cell{Name: c.Cell.Name, Kind: c.Cell.Kind.String(), Expr: formula(c.Cell), Value: c.Text}
 	if c.Cell.HasUnit {
-		out.Unit = c.Cell.Unit.Symbol
+		out.Unit = c.Cell.Unit().Symbol
 	}
 	if c.Cell.Kind == engine.Check {
 		out.Value = checkText(verdict(c), num(c))

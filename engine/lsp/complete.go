@@ -96,14 +96,14 @@ func (d *document) nameItems() []completionItem {
 			case c.Kind == engine.Check:
 				it.Kind = kindConstant
 			case c.HasUnit:
-				it.Detail = "[" + c.Unit.Symbol + "] " + c.Kind.String()
+				it.Detail = "[" + c.Unit().Symbol + "] " + c.Kind.String()
 			case c.Type != nil && c.Type.Kind == funcs.Number:
 				if u := d.sheet.DisplayUnit(c); u.Symbol != "" && u.Symbol != "1" {
 					it.Detail = "[" + u.Symbol + "] " + c.Kind.String()
 				}
 			}
-			if c.Description != "" {
-				it.Documentation = &markupContent{Kind: "markdown", Value: c.Description}
+			if c.Description() != "" {
+				it.Documentation = &markupContent{Kind: "markdown", Value: c.Description()}
 			}
 			out = append(out, it)
 		}
@@ -178,7 +178,7 @@ func (d *document) memberItems(base string) []completionItem {
 		seen[rest] = true
 		it := completionItem{Label: rest, Kind: kindVariable, Detail: c.Kind.String()}
 		if c.HasUnit {
-			it.Detail = "[" + c.Unit.Symbol + "] " + c.Kind.String()
+			it.Detail = "[" + c.Unit().Symbol + "] " + c.Kind.String()
 		}
 		out = append(out, it)
 	}

@@ -79,7 +79,7 @@ func (s *Server) cellHover(d *document, c *engine.Cell) string {
 	var b strings.Builder
 	b.WriteString("**" + c.Name + "**")
 	if c.HasUnit {
-		b.WriteString(" [" + c.Unit.Symbol + "]")
+		b.WriteString(" [" + c.Unit().Symbol + "]")
 	}
 	b.WriteString(" — " + c.Kind.String())
 	if c.Kind != engine.Function {
@@ -112,11 +112,11 @@ func (s *Server) cellHover(d *document, c *engine.Cell) string {
 			b.WriteString("\n```sheaf\n= " + sub + "\n```")
 		}
 	}
-	if c.Description != "" {
-		b.WriteString("\n\n" + c.Description)
+	if c.Description() != "" {
+		b.WriteString("\n\n" + c.Description())
 	}
-	if c.Reference != "" {
-		b.WriteString("\n\nReference: " + c.Reference)
+	if c.Reference() != "" {
+		b.WriteString("\n\nReference: " + c.Reference())
 	}
 	if !d.own(c.NameRange.Start()) {
 		b.WriteString("\n\nDefined in " + c.NameRange.Start().String())
@@ -136,7 +136,7 @@ func signature(c *engine.Cell) string {
 	}
 	out := c.Name + "(" + strings.Join(ps, ", ") + ")"
 	if c.HasUnit {
-		out += " [" + c.Unit.Symbol + "]"
+		out += " [" + c.Unit().Symbol + "]"
 	}
 	return out
 }
@@ -259,8 +259,8 @@ func (d *document) fieldHover(c *engine.Cell, field string) string {
 		}
 	}
 	b.WriteString("\n\nfield of " + c.Name)
-	if c.Description != "" {
-		b.WriteString(" (" + c.Description + ")")
+	if c.Description() != "" {
+		b.WriteString(" (" + c.Description() + ")")
 	}
 	return b.String()
 }

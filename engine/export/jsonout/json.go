@@ -185,7 +185,7 @@ func Build(r *engine.Results, exit int) *Document {
 	sys := r.Meta.System
 	for _, c := range r.Cells {
 		jc := Cell{Name: c.Cell.Name, Kind: c.Cell.Kind.String(), Section: c.Cell.Section, Known: c.Known,
-			Unit: c.Unit.Symbol, Text: c.Text, Description: c.Cell.Description, Reference: c.Cell.Reference,
+			Unit: c.Unit.Symbol, Text: c.Text, Description: c.Cell.Description(), Reference: c.Cell.Reference(),
 			Expr: c.Cell.Expr, Deps: depNames(r, c.Cell)}
 		if c.Cell.Extra().Action != nil {
 			jc.Action = c.Cell.Extra().Action.Kind.Text()
@@ -238,7 +238,7 @@ func Build(r *engine.Results, exit int) *Document {
 	}
 	for _, c := range r.Checks {
 		jc := Check{Name: c.Cell.Name, Known: c.Known, Unit: c.Unit.Symbol, Pass: c.Pass, Verdict: "not assessed",
-			Governing: c.Governing, Description: c.Cell.Description, Reference: c.Cell.Reference}
+			Governing: c.Governing, Description: c.Cell.Description(), Reference: c.Cell.Reference()}
 		if !c.Cell.Extra().Demand.IsZero() && c.Cell.Extra().Demand.Type() != nil {
 			jc.SIUnit = siUnit(c.Cell.Extra().Demand.Type().Dim)
 		}

@@ -28,11 +28,11 @@ func (d *doc) cell(c *engine.Cell) {
 	}
 	d.comboNote(c)
 	d.w("</div>\n")
-	if c.Reference != "" {
-		d.w("<div class=\"ref\">", esc(c.Reference), "</div>\n")
+	if c.Reference() != "" {
+		d.w("<div class=\"ref\">", esc(c.Reference()), "</div>\n")
 	}
-	if c.Description != "" {
-		d.w("<div class=\"desc\">", esc(c.Description), "</div>\n")
+	if c.Description() != "" {
+		d.w("<div class=\"desc\">", esc(c.Description()), "</div>\n")
 	}
 	if cr.Known && c.Kind != engine.Function && c.Kind != engine.Check {
 		d.details(c, cr.Value)

@@ -120,7 +120,7 @@ func (d *doc) combinations() {
 		}
 		d.w("<tr><td><a href=\"#", anchor(c.Name), "\">")
 		d.math(func(b *strings.Builder) { symbol(b, c.Name) })
-		d.w("</a></td><td>", esc(c.Extra().Action.Kind.Text()), "</td><td class=\"num\">", esc(val), "</td><td>", esc(c.Description), "</td></tr>\n")
+		d.w("</a></td><td>", esc(c.Extra().Action.Kind.Text()), "</td><td class=\"num\">", esc(val), "</td><td>", esc(c.Description()), "</td></tr>\n")
 	}
 	d.w("</tbody></table>\n")
 	var supOnly []string

@@ -74,15 +74,15 @@ func (d *doc) summary() {
 		if i == g {
 			d.w(" <span class=\"gov\">governing</span>")
 		}
-		if c.Cell.Description != "" {
-			d.w("<div class=\"desc\">", esc(c.Cell.Description), "</div>")
+		if c.Cell.Description() != "" {
+			d.w("<div class=\"desc\">", esc(c.Cell.Description()), "</div>")
 		}
 		if line := d.checkCombo(&checks[i]); line != "" {
 			d.w("<div class=\"combo\">", esc(line), "</div>")
 		}
 		d.w("</td><td class=\"num\">", esc(dem), "</td><td>", op, "</td><td class=\"num\">", esc(capa), "</td><td class=\"util\">")
 		d.utilBar(c)
-		d.w("</td><td class=\"v ", class, "\">", word, "</td><td class=\"ref\">", esc(c.Cell.Reference), "</td></tr>\n")
+		d.w("</td><td class=\"v ", class, "\">", word, "</td><td class=\"ref\">", esc(c.Cell.Reference()), "</td></tr>\n")
 	}
 	d.w("</tbody></table>\n</section>\n")
 }

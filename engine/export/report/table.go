@@ -20,12 +20,12 @@ func (d *doc) table(c *engine.Cell, it *sheet.Table) {
 		return
 	}
 	d.w("<div class=\"cell table\" id=\"", anchor(c.Name), "\">\n")
-	if c.Reference != "" {
-		d.w("<div class=\"ref\">", esc(c.Reference), "</div>\n")
+	if c.Reference() != "" {
+		d.w("<div class=\"ref\">", esc(c.Reference()), "</div>\n")
 	}
 	d.w("<div class=\"eq\"><span class=\"checkname\">table ", esc(strings.TrimPrefix(c.Name, c.Scope)), "</span></div>\n")
-	if c.Description != "" {
-		d.w("<div class=\"desc\">", esc(c.Description), "</div>\n")
+	if c.Description() != "" {
+		d.w("<div class=\"desc\">", esc(c.Description()), "</div>\n")
 	}
 	if it == nil {
 		if tv, ok := d.res.Cells[c.Index].Value.(*funcs.TableValue); ok {

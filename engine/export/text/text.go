@@ -61,7 +61,7 @@ func Write(w io.Writer, r *engine.Results, sigFigs int) error {
 			}
 		}
 		line := "  " + pad(c.Cell.Name, nameW) + "  " + pad(val, w)
-		line += annotation(c.Cell.Description, c.Cell.Reference)
+		line += annotation(c.Cell.Description(), c.Cell.Reference())
 		b.WriteString(strings.TrimRight(line, " ") + "\n")
 	}
 	if len(r.Checks) > 0 {
@@ -126,7 +126,7 @@ func writeChecks(b *strings.Builder, r *engine.Results, sig int) {
 				rw.verdict = Fail
 			}
 		}
-		rw.note = annotation(c.Cell.Description, c.Cell.Reference)
+		rw.note = annotation(c.Cell.Description(), c.Cell.Reference())
 		if c.Governing != "" {
 			rw.note = "  governed by " + c.Governing + rw.note
 		}

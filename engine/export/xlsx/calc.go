@@ -251,7 +251,7 @@ func (x *exporter) cellRow(cr *engine.CellResult) [calcCols]excelize.Cell {
 		name += "(" + strings.Join(ps, ", ") + ")"
 		value, note = x.text("function", clsText), noteFunction
 		if c.HasUnit {
-			unit = c.Unit.Pretty()
+			unit = c.Unit().Pretty()
 		}
 	case c.Kind == engine.Check:
 		ch := x.checkByCell(c)
@@ -311,8 +311,8 @@ func (x *exporter) cellRow(cr *engine.CellResult) [calcCols]excelize.Cell {
 	if n := x.actionNote(c); n != "" && note == "" {
 		note = n
 	}
-	return [calcCols]excelize.Cell{x.text(name, clsKey), x.text(c.Description, clsText), x.text(expr, clsExpr), x.text(calc, clsExpr),
-		value, x.text(unit, clsText), x.text(c.Reference, clsText), x.guardedNote(x.stale[c.Index], note)}
+	return [calcCols]excelize.Cell{x.text(name, clsKey), x.text(c.Description(), clsText), x.text(expr, clsExpr), x.text(calc, clsExpr),
+		value, x.text(unit, clsText), x.text(c.Reference(), clsText), x.guardedNote(x.stale[c.Index], note)}
 }
 
 // valueCell writes a number or a truth value: editable for an input, a

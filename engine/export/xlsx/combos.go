@@ -354,7 +354,7 @@ func (x *exporter) writeCombos() error {
 		} else {
 			val = x.text("not computed", clsValueOnly)
 		}
-		if err := put(row+2+a, x.text(c.Name, clsKey), x.text(c.Extra().Action.Kind.Text(), clsText), x.text(c.Description, clsText), val, x.text(unit, clsText)); err != nil {
+		if err := put(row+2+a, x.text(c.Name, clsKey), x.text(c.Extra().Action.Kind.Text(), clsText), x.text(c.Description(), clsText), val, x.text(unit, clsText)); err != nil {
 			return err
 		}
 	}

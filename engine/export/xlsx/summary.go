@@ -289,12 +289,12 @@ func (x *exporter) checkSummary(ch *checkRow) []any {
 		}
 		verdict = v
 	}
-	desc := c.Description
+	desc := c.Description()
 	if line := x.governsLine(c); line != "" {
 		desc = strings.TrimSpace(desc + "\n" + line)
 	}
 	return []any{x.text(c.Name, clsKey), x.text(desc, clsText), side(c.Extra().Demand, ch.demand), side(c.Extra().Capacity, ch.capacity),
-		x.text(unit, clsText), util, verdict, x.text(c.Reference, clsText)}
+		x.text(unit, clsText), util, verdict, x.text(c.Reference(), clsText)}
 }
 
 // placeholderWarning stands beside a header field that is a placeholder.

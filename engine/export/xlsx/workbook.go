@@ -282,7 +282,7 @@ func (x *exporter) layout() {
 		case *funcs.RecordValue:
 			row = x.layoutRecord(c, c.Name, v, c.Kind == engine.Input, c.Body, row)
 		case *funcs.TableValue:
-			x.addTable(c.Name, c.Description, v, x.tableUnits(c, v), c.Kind == engine.Table && len(c.Extra().Entries) == 0, i).setOwner(c.Description)
+			x.addTable(c.Name, c.Description(), v, x.tableUnits(c, v), c.Kind == engine.Table && len(c.Extra().Entries) == 0, i).setOwner(c.Description())
 		}
 	}
 	for _, b := range comments {
@@ -455,7 +455,7 @@ func (x *exporter) layoutRecord(c *check.Cell, path string, v *funcs.RecordValue
 		case *funcs.TableValue:
 			x.rows = append(x.rows, fr)
 			row++
-			x.addTable(p, fld.Doc, fv, x.tableUnits(nil, fv), false, -1).setOwner(c.Description)
+			x.addTable(p, fld.Doc, fv, x.tableUnits(nil, fv), false, -1).setOwner(c.Description())
 		default:
 			x.rows = append(x.rows, fr)
 			row++
