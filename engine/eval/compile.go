@@ -161,32 +161,33 @@ func (m *Machine) numOf(n check.Node) numFn {
 		if fn := arith(n); fn != nil {
 			return fn
 		}
-		a, b := m.numOf(n.Arg(0)), m.numOf(n.Arg(1))
-		switch n.Op() {
-		case check.OpAdd:
-			if y := n.Arg(1); y.Op() == check.OpConst {
-				k := y.Num()
+		a, y := m.numOf(n.Arg(0)), n.Arg(1)
+		if y.Op() == check.OpConst && n.Op() != check.OpSub {
+			// A constant right operand is read in place, not called.
+			k := y.Num()
+			if n.Op() == check.OpAdd {
 				return func(f *Frame) float64 { return a(f) + k }
 			}
+			return func(f *Frame) float64 { return a(f) * k }
+		}
+		b := m.numOf(y)
+		switch n.Op() {
+		case check.OpAdd:
 			return func(f *Frame) float64 { return a(f) + b(f) }
 		case check.OpSub:
 			return func(f *Frame) float64 { return a(f) - b(f) }
-		}
-		if n.Arg(1).Op() == check.OpConst {
-			k := n.Arg(1).Num()
-			return func(f *Frame) float64 { return a(f) * k }
 		}
 		return func(f *Frame) float64 { return a(f) * b(f) }
 	case check.OpDiv:
 		if fn := arith(n); fn != nil {
 			return fn
 		}
-		a, b := m.numOf(n.Arg(0)), m.numOf(n.Arg(1))
-		if y := n.Arg(1); y.Op() == check.OpConst && y.Num() != 0 {
-			k := y.Num() // a nonzero constant divisor cannot fail
+		a, den := m.numOf(n.Arg(0)), n.Arg(1)
+		if den.Op() == check.OpConst && den.Num() != 0 {
+			k := den.Num() // a nonzero constant divisor cannot fail
 			return func(f *Frame) float64 { return a(f) / k }
 		}
-		den := n.Arg(1)
+		b := m.numOf(den)
 		return func(f *Frame) float64 {
 			d := b(f)
 			if d == 0 {
