@@ -110,6 +110,11 @@ func (l *lexer) next() token {
 		}
 		return t
 	}
+	switch c {
+	case '+', '-', '^', '(', ')', '[', ']', '{', '}', ',':
+		// No two-byte operator nor slip starts with these.
+		return l.op(start, 1)
+	}
 	two := ""
 	if start+1 < len(s) {
 		two = s[start : start+2]
