@@ -252,7 +252,7 @@ func (c *checker) rangeCheck(ck *sheet.Check, cell *Cell) (lo, hi *Cell) {
 	r := f.Nodes[f.Root]
 	lower, upper := f.Nodes[r.A], f.Nodes[r.C] // the first and the last term as written
 	x := f.Nodes[r.B]
-	half := func(suffix, limit string, from, to int32) *Cell {
+	half := func(suffix, limit string, from, to uint16) *Cell {
 		body := sheet.Expr{Text: ck.Body.Text[from:to], Range: ck.Body.RangeAt(int(from), int(to))}
 		h := *cell
 		if cell.extra != nil { // each half fills its own sides

@@ -65,7 +65,7 @@ func (o Op) IsComparison() bool { return o >= OpLT && o <= OpNE }
 
 // Node is one node of a formula's syntax tree. Nodes live in the flat slice
 // Formula.Nodes and refer to each other by index, so that a formula is a
-// few allocations however many nodes it has, and a node is 24 bytes.
+// few allocations however many nodes it has, and a node is 20 bytes.
 type Node struct {
 	Kind Kind
 	Op   Op
@@ -73,9 +73,12 @@ type Node struct {
 	// Ref marks a KName that names a value or a function, not a field
 	// name after a dot nor a record key (it fills a byte the node had
 	// spare).
-	Ref  bool
-	From int32 // byte span of the node in the formula text, children included
-	To   int32
+	Ref bool
+	// From and To are the byte span of the node in the formula text,
+	// children included; a formula is at most MaxText bytes, so a span
+	// fits in 16 bits and the node is 20 bytes.
+	From uint16
+	To   uint16
 	// A, B, C are child node indices (-1 when absent). For KNumber and
 	// KBool B and C hold the value's 64 bits, low word first (Num reads
 	// them), so that a number costs no slice of its own; for KQuantity A
@@ -155,7 +158,7 @@ func (f *Formula) Num(n int32) float64 {
 // numNode is a KNumber or KBool node of value v spanning [from, to).
 func numNode(k Kind, from, to int32, v float64) Node {
 	bits := math.Float64bits(v)
-	return Node{Kind: k, From: from, To: to, A: -1, B: int32(uint32(bits)), C: int32(uint32(bits >> 32))}
+	return Node{Kind: k, From: uint16(from), To: uint16(to), A: -1, B: int32(uint32(bits)), C: int32(uint32(bits >> 32))}
 }
 
 // Quantity returns the literal of a KQuantity node.

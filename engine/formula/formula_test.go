@@ -167,6 +167,16 @@ func TestDepthAndSize(t *testing.T) {
 	if _, errs := Parse(expr(long), Options{}); !errs.HasErrors() || errs[0].Summary != "the formula is too long" {
 		t.Errorf("long: %v", errs)
 	}
+	// A formula of more than MaxText bytes is refused before it is read,
+	// however few terms it has: its spans would not fit in a node.
+	wide := "a" + strings.Repeat("b", MaxText) + " + 1"
+	if _, errs := Parse(expr(wide), Options{}); !errs.HasErrors() || errs[0].Summary != "the formula is too long" || !strings.Contains(errs[0].Detail, "65,535 bytes") {
+		t.Errorf("wide: %v", errs)
+	}
+	fits := "a" + strings.Repeat("b", MaxText-5) + " + 1"
+	if f, errs := Parse(expr(fits), Options{}); errs.HasErrors() || int(f.Nodes[f.Root].To) != len(fits) {
+		t.Errorf("%d bytes: %v", len(fits), errs)
+	}
 }
 
 func FuzzParse(f *testing.F) {
@@ -185,7 +195,7 @@ func FuzzParse(f *testing.F) {
 			return
 		}
 		for i, nd := range fm.Nodes {
-			if nd.From < 0 || nd.To > int32(len(s)) || nd.From > nd.To {
+			if int(nd.To) > len(s) || nd.From > nd.To {
 				t.Fatalf("%q: node %d span %d..%d", s, i, nd.From, nd.To)
 			}
 		}

@@ -22,6 +22,9 @@ type Options struct {
 	Arena *Arena
 }
 
+// MaxText is the longest formula text, in bytes: a node's span is 16 bits.
+const MaxText = 1<<16 - 1
+
 // DefaultMaxDepth is the default limit on expression nesting.
 const DefaultMaxDepth = 64
 
@@ -56,6 +59,11 @@ func (f *Formula) ParseSource(opt Options) (bool, diag.List) {
 	var errs diag.List
 	if strings.TrimSpace(e.Text) == "" {
 		errs.Errorf(e.Range, "an expression computes the value of the cell", "write a value such as `38 kN` or a formula such as `N / A`", "empty expression")
+		return false, errs
+	}
+	if len(e.Text) > MaxText {
+		errs.Add(&diag.Diagnostic{Range: e.RangeAt(0, 0), Summary: "the formula is too long",
+			Detail: "a formula may hold at most 65,535 bytes; this one has " + strconv.Itoa(len(e.Text)), Hint: "split it into intermediate cells"})
 		return false, errs
 	}
 	p := parser{f: f, lex: lexer{src: e.Text}, opt: opt}
@@ -132,14 +140,14 @@ func (p *parser) isOp(s string) bool { return p.tok.kind == tOp && p.tok.text ==
 // add appends a node and returns its index.
 func (p *parser) add(n Node) int32 {
 	if uint(len(p.f.Nodes)) >= p.opt.MaxNodes {
-		panic(&syntaxError{from: n.From, to: n.To, summary: "the formula is too long",
+		panic(&syntaxError{from: int32(n.From), to: int32(n.To), summary: "the formula is too long",
 			detail: "a formula may hold at most " + strconv.FormatUint(uint64(p.opt.MaxNodes), 10) + " terms", hint: "split it into intermediate cells"})
 	}
 	p.f.Nodes = append(p.f.Nodes, n)
 	return int32(len(p.f.Nodes) - 1)
 }
 
-func (p *parser) span(n int32) (int32, int32) { return p.f.Nodes[n].From, p.f.Nodes[n].To }
+func (p *parser) span(n int32) (uint16, uint16) { return p.f.Nodes[n].From, p.f.Nodes[n].To }
 
 // enter counts one level of nesting; leave undoes it.
 func (p *parser) enter() {
@@ -303,7 +311,7 @@ func (p *parser) prefix(op Op, level int) int32 {
 	defer p.leave()
 	x := p.climb(level)
 	_, to := p.span(x)
-	return p.add(Node{Kind: KUnary, Op: op, From: int32(from), To: to, A: x, B: -1, C: -1})
+	return p.add(Node{Kind: KUnary, Op: op, From: uint16(from), To: to, A: x, B: -1, C: -1})
 }
 
 // range = sum ( "<" | "<=" ) sum ( "<" | "<=" ) sum
@@ -353,13 +361,13 @@ func (p *parser) postfix() int32 {
 				p.fail(p.tok, "methods are not part of the sheet language", "pass the value as the first argument: `f(x)` rather than `x.f()`")
 			}
 			from, _ := p.span(x)
-			x = p.add(Node{Kind: KField, From: from, To: int32(p.prev.to), A: x, B: name, C: -1})
+			x = p.add(Node{Kind: KField, From: from, To: uint16(p.prev.to), A: x, B: name, C: -1})
 		case "[":
 			p.next()
 			i := p.expression()
 			p.close("[", "]")
 			from, _ := p.span(x)
-			x = p.add(Node{Kind: KIndex, From: from, To: int32(p.prev.to), A: x, B: i, C: -1})
+			x = p.add(Node{Kind: KIndex, From: from, To: uint16(p.prev.to), A: x, B: i, C: -1})
 		case "(":
 			p.fail(p.tok, "only named functions can be called", "write `f(x)` where f is a built-in, a plugin or a function of the sheet")
 		default:
@@ -374,7 +382,7 @@ func (p *parser) postfix() int32 {
 func (p *parser) name(ref bool) int32 {
 	t := p.tok
 	p.next()
-	n := p.add(Node{Kind: KName, Ref: ref, From: int32(t.from), To: int32(t.to), A: -1, B: -1, C: -1})
+	n := p.add(Node{Kind: KName, Ref: ref, From: uint16(t.from), To: uint16(t.to), A: -1, B: -1, C: -1})
 	if ref {
 		p.f.nrefs++ // after add, which stops a formula with too many nodes
 	}
@@ -417,15 +425,15 @@ func (p *parser) primary() int32 {
 		p.next()
 		x := p.expression()
 		p.close("(", ")")
-		return p.add(Node{Kind: KParen, From: int32(t.from), To: int32(p.prev.to), A: x, B: -1, C: -1})
+		return p.add(Node{Kind: KParen, From: uint16(t.from), To: uint16(p.prev.to), A: x, B: -1, C: -1})
 	case "[":
 		p.next()
 		if p.isOp("]") {
 			p.next()
-			return p.add(Node{Kind: KList, From: int32(t.from), To: int32(p.prev.to), A: -1, B: 0, C: int32(len(p.f.Args))})
+			return p.add(Node{Kind: KList, From: uint16(t.from), To: uint16(p.prev.to), A: -1, B: 0, C: int32(len(p.f.Args))})
 		}
 		args := p.args("[", "]", false)
-		return p.add(Node{Kind: KList, From: int32(t.from), To: int32(p.prev.to), A: -1, B: int32(len(args)), C: p.keep(args)})
+		return p.add(Node{Kind: KList, From: uint16(t.from), To: uint16(p.prev.to), A: -1, B: int32(len(args)), C: p.keep(args)})
 	case "{":
 		return p.record()
 	}
@@ -446,7 +454,7 @@ func (p *parser) number() int32 {
 	if t.unitFrom == t.to {
 		return p.add(numNode(KNumber, t.from, t.to, v))
 	}
-	q := Quantity{Number: num, UnitText: p.lex.src[t.unitFrom:t.to], Value: v, From: int32(t.from), To: int32(t.to)}
+	q := Quantity{Number: num, UnitText: p.lex.src[t.unitFrom:t.to], Value: v, From: t.from, To: t.to}
 	u, err := units.Parse(q.UnitText)
 	if err != nil {
 		p.errs.Add(p.unitDiag(t, err))
@@ -454,7 +462,7 @@ func (p *parser) number() int32 {
 		q.Unit, q.SI = u, v*u.Factor
 	}
 	p.f.Quantities = append(p.f.Quantities, q)
-	return p.add(Node{Kind: KQuantity, From: int32(t.from), To: int32(t.to), A: int32(len(p.f.Quantities) - 1), B: -1, C: -1})
+	return p.add(Node{Kind: KQuantity, From: uint16(t.from), To: uint16(t.to), A: int32(len(p.f.Quantities) - 1), B: -1, C: -1})
 }
 
 // call = name "(" [ args ] ")" .
@@ -464,10 +472,10 @@ func (p *parser) call() int32 {
 	p.next() // (
 	if p.isOp(")") {
 		p.next()
-		return p.add(Node{Kind: KCall, From: int32(t.from), To: int32(p.prev.to), A: 0, B: callee, C: int32(len(p.f.Args))})
+		return p.add(Node{Kind: KCall, From: uint16(t.from), To: uint16(p.prev.to), A: 0, B: callee, C: int32(len(p.f.Args))})
 	}
 	args := p.args("(", ")", true)
-	return p.add(Node{Kind: KCall, From: int32(t.from), To: int32(p.prev.to), A: int32(len(args)), B: callee, C: p.keep(args)})
+	return p.add(Node{Kind: KCall, From: uint16(t.from), To: uint16(p.prev.to), A: int32(len(args)), B: callee, C: p.keep(args)})
 }
 
 // args = arg { "," arg } [ "," ] .
@@ -500,7 +508,7 @@ func (p *parser) stringArg() int32 {
 	t := p.tok
 	p.next()
 	if p.tok.kind == tOp && (p.tok.text == "," || p.tok.text == ")" || p.tok.text == "}") {
-		return p.add(Node{Kind: KString, From: int32(t.from), To: int32(t.to), A: -1, B: -1, C: -1})
+		return p.add(Node{Kind: KString, From: uint16(t.from), To: uint16(t.to), A: -1, B: -1, C: -1})
 	}
 	p.fail(t, "text is only allowed as a function argument", "pass the text on its own, as in f(x, \"fixed\")")
 	return -1
@@ -544,7 +552,7 @@ func (p *parser) record() int32 {
 		p.next()
 	}
 	p.close("{", "}")
-	return p.add(Node{Kind: KRecord, From: int32(t.from), To: int32(p.prev.to), A: -1, B: int32(len(args)), C: p.keep(args)})
+	return p.add(Node{Kind: KRecord, From: uint16(t.from), To: uint16(p.prev.to), A: -1, B: int32(len(args)), C: p.keep(args)})
 }
 
 // close consumes the closing bracket of open or reports it missing.
