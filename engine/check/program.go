@@ -222,6 +222,13 @@ type Program struct {
 // are shared by pointer (every number of one dimension has one), so a
 // sheet holds few.
 func (p *Program) typeIndex(t *funcs.Type) int32 {
+	// Most nodes of a sheet share a few types, which the program met
+	// first: a look at those costs less than a map lookup per node.
+	for i, x := range p.types[:min(len(p.types), 8)] {
+		if x == t {
+			return int32(i)
+		}
+	}
 	if i, ok := p.typeAt[t]; ok {
 		return i
 	}

@@ -47,7 +47,7 @@ type lexer struct {
 
 // next reads the token at l.pos. A character the grammar does not have is
 // a syntax error with its own message (see slips).
-func (l *lexer) next() token {
+func (l *lexer) next(out *token) {
 	s := l.src
 	for l.pos < len(s) {
 		c := s[l.pos]
@@ -66,12 +66,14 @@ func (l *lexer) next() token {
 	}
 	start := l.pos
 	if start >= len(s) {
-		return token{kind: tEOF, from: int32(start), to: int32(start)}
+		*out = token{kind: tEOF, from: int32(start), to: int32(start)}
+		return
 	}
 	c := s[start]
 	switch {
 	case isDigit(c) || (c == '.' && start+1 < len(s) && isDigit(s[start+1])):
-		return l.number()
+		l.number(out)
+		return
 	case c == '"':
 		j := start + 1
 		for j < len(s) && s[j] != '"' && s[j] != '\n' {
@@ -81,11 +83,12 @@ func (l *lexer) next() token {
 			panic(l.slip(start, j, "unclosed text", "text is written between double quotes on one line, as in \"fixed\"", "close it with `\"`"))
 		}
 		l.pos = j + 1
-		return token{kind: tString, from: int32(start), to: int32(l.pos), text: s[start:l.pos]}
+		*out = token{kind: tString, from: int32(start), to: int32(l.pos), text: s[start:l.pos]}
+		return
 	case c == '_' || c >= utf8.RuneSelf || isLetter(rune(c)):
 		r, _ := utf8.DecodeRuneInString(s[start:])
 		if c != '_' && !isLetter(r) {
-			return l.unexpectedRune(start)
+			l.unexpectedRune(start)
 		}
 		j := start
 		for j < len(s) {
@@ -104,16 +107,17 @@ func (l *lexer) next() token {
 			j += n
 		}
 		l.pos = j
-		t := token{kind: tName, from: int32(start), to: int32(j), text: s[start:j]}
-		if isWord(t.text) {
-			t.kind = tOp
+		*out = token{kind: tName, from: int32(start), to: int32(j), text: s[start:j]}
+		if isWord(out.text) {
+			out.kind = tOp
 		}
-		return t
+		return
 	}
 	switch c {
 	case '+', '-', '^', '(', ')', '[', ']', '{', '}', ',':
 		// No two-byte operator nor slip starts with these.
-		return l.op(start, 1)
+		l.op(out, start, 1)
+		return
 	}
 	two := ""
 	if start+1 < len(s) {
@@ -121,7 +125,8 @@ func (l *lexer) next() token {
 	}
 	switch two {
 	case "<=", ">=", "==", "!=":
-		return l.op(start, 2)
+		l.op(out, start, 2)
+		return
 	case "//", "/*":
 		panic(l.slip(start, start+2, "`"+two+"` does not start a comment in a formula",
 			"comments start with # on a line of their own; after `--` a cell takes a description", "move the remark to a `#` line above, or after `--`"))
@@ -142,7 +147,8 @@ func (l *lexer) next() token {
 	}
 	switch c {
 	case '+', '-', '*', '/', '^', '<', '>', '?', ':', ',', '.', '(', ')', '[', ']', '{', '}', '=':
-		return l.op(start, 1)
+		l.op(out, start, 1)
+		return
 	case '!':
 		panic(l.slip(start, start+1, "`!` is not an operator in a sheet", "a condition is negated with the word not", "write `not (a > b)`; `!=` compares"))
 	case '|':
@@ -156,16 +162,16 @@ func (l *lexer) next() token {
 	case '\'', '`':
 		panic(l.slip(start, start+1, "text is written between double quotes", "the sheet language has one kind of text: \"fixed\"", "write \"...\""))
 	}
-	return l.unexpectedRune(start)
+	l.unexpectedRune(start)
 }
 
-// op returns the operator of n bytes at start.
-func (l *lexer) op(start, n int) token {
+// op reads the operator of n bytes at start into out.
+func (l *lexer) op(out *token, start, n int) {
 	l.pos = start + n
-	return token{kind: tOp, from: int32(start), to: int32(l.pos), text: l.src[start:l.pos]}
+	*out = token{kind: tOp, from: int32(start), to: int32(l.pos), text: l.src[start:l.pos]}
 }
 
-func (l *lexer) unexpectedRune(start int) token {
+func (l *lexer) unexpectedRune(start int) {
 	r, n := utf8.DecodeRuneInString(l.src[start:])
 	shown := string(r)
 	if r == utf8.RuneError || !unicode.IsPrint(r) {
@@ -185,7 +191,7 @@ func (l *lexer) unexpectedRune(start int) token {
 // The unit is the longest run of non-space characters after the number that
 // starts with a letter, µ, °, %, ‰ or `1/`, and it stops at a space or at
 // `)`, `,`, `]`, `}` or `:`.
-func (l *lexer) number() token {
+func (l *lexer) number(t *token) {
 	s := l.src
 	start := l.pos
 	j := start
@@ -216,14 +222,14 @@ func (l *lexer) number() token {
 	if j < len(s) && s[j] == '_' {
 		panic(l.slip(j, j+1, "`_` cannot group the digits of a number", "a number is written with its digits together, as in 1000 or 1e3", "write `"+strings.ReplaceAll(s[start:wordEnd(s, j)], "_", "")+"`"))
 	}
-	t := token{kind: tNumber, from: int32(start), to: int32(j), text: s[start:j], numEnd: int32(j), unitFrom: int32(j)}
+	*t = token{kind: tNumber, from: int32(start), to: int32(j), text: s[start:j], numEnd: int32(j), unitFrom: int32(j)}
 	k := j
 	for k < len(s) && (s[k] == ' ' || s[k] == '\t') {
 		k++
 	}
 	if k >= len(s) || !unitStart(s[k:]) {
 		l.pos = j
-		return t
+		return
 	}
 	e := k
 	for e < len(s) {
@@ -235,11 +241,10 @@ func (l *lexer) number() token {
 	}
 	if isWord(s[k:e]) {
 		l.pos = j
-		return t
+		return
 	}
 	t.unitFrom, t.to, t.text = int32(k), int32(e), s[start:e]
 	l.pos = e
-	return t
 }
 
 // wordEnd returns the end of the run of digits, letters and `_` at s[i:].

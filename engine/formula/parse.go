@@ -132,7 +132,7 @@ func (p *parser) parse() (ok bool) {
 
 func (p *parser) next() {
 	p.prev = p.tok
-	p.tok = p.lex.next()
+	p.lex.next(&p.tok)
 }
 
 func (p *parser) isOp(s string) bool { return p.tok.kind == tOp && p.tok.text == s }
