@@ -67,7 +67,7 @@ func Sheet(f *sheet.File, opt Options) (*Program, diag.List) {
 	c := &checker{prog: &Program{File: f, Files: []*sheet.File{f}, Cells: make([]*Cell, 0, items), ByName: make(map[string]int, items)}, opt: opt}
 	c.collect()
 	if len(c.prog.Cells) > opt.MaxCells {
-		c.errs.Errorf(c.prog.Cells[opt.MaxCells].Range, fmt.Sprintf("a sheet may hold at most %s; this one has %s", countText(opt.MaxCells)+" "+plural.Noun(opt.MaxCells, "cell"), countText(len(c.prog.Cells))),
+		c.errs.Errorf(c.prog.Cells[opt.MaxCells].Range, fmt.Sprintf("a sheet may hold at most %s; this one has %s", plural.Grouped(opt.MaxCells)+" "+plural.Noun(opt.MaxCells, "cell"), plural.Grouped(len(c.prog.Cells))),
 			"split the calculation into sheets, or raise the limit (--max-cells)", "too many cells")
 		c.errs.Sort()
 		return c.prog, c.errs

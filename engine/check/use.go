@@ -3,12 +3,12 @@ package check
 import (
 	"fmt"
 	"slices"
-	"strconv"
 	"strings"
 
 	"github.com/sheafcalc/sheaf/engine/diag"
 	"github.com/sheafcalc/sheaf/engine/formula"
 	"github.com/sheafcalc/sheaf/engine/sheet"
+	"github.com/sheafcalc/sheaf/internal/plural"
 )
 
 // Template use is inlining. `use rod from "hanger.sheaf"` checks nothing
@@ -107,11 +107,11 @@ func (c *checker) useTemplate(from *sheet.File, u *sheet.Use, scope string, dept
 	// every level would otherwise make millions of cells first.
 	if n := c.expandedCells(f); len(c.prog.Cells)+n > c.opt.MaxCells {
 		a.failed = true
-		what := countText(n)
+		what := plural.Grouped(n)
 		if n > c.opt.MaxCells {
-			what = "more than " + countText(c.opt.MaxCells) // the count stops there
+			what = "more than " + plural.Grouped(c.opt.MaxCells) // the count stops there
 		}
-		c.errs.Errorf(u.Range, fmt.Sprintf("using %s here brings in %s cells (its own templates' included); a sheet may hold at most %s", f.Name, what, countText(c.opt.MaxCells)),
+		c.errs.Errorf(u.Range, fmt.Sprintf("using %s here brings in %s cells (its own templates' included); a sheet may hold at most %s", f.Name, what, plural.Grouped(c.opt.MaxCells)),
 			"use the inner templates once each, split the calculation into sheets, or raise the limit (--max-cells)", "template use too large")
 		return
 	}
@@ -514,13 +514,4 @@ func (c *checker) expandedCells(f *sheet.File) int {
 	}
 	c.use.cells[f] = n
 	return n
-}
-
-// countText writes a large count as a person reads it: 12,345,678.
-func countText(n int) string {
-	s := strconv.Itoa(n)
-	for i := len(s) - 3; i > 0; i -= 3 {
-		s = s[:i] + "," + s[i:]
-	}
-	return s
 }

@@ -8,6 +8,7 @@ import (
 	"github.com/sheafcalc/sheaf/engine/diag"
 	"github.com/sheafcalc/sheaf/engine/sheet"
 	"github.com/sheafcalc/sheaf/engine/units"
+	"github.com/sheafcalc/sheaf/internal/plural"
 )
 
 // Options limit what a formula may hold.
@@ -63,7 +64,7 @@ func (f *Formula) ParseSource(opt Options) (bool, diag.List) {
 	}
 	if len(e.Text) > MaxText {
 		errs.Add(&diag.Diagnostic{Range: e.RangeAt(0, 0), Summary: "the formula is too long",
-			Detail: "a formula may hold at most 65,535 bytes; this one has " + strconv.Itoa(len(e.Text)), Hint: "split it into intermediate cells"})
+			Detail: "a formula may hold at most " + plural.Grouped(MaxText) + " bytes; this one has " + plural.Grouped(len(e.Text)), Hint: "split it into intermediate cells"})
 		return false, errs
 	}
 	p := parser{f: f, lex: lexer{src: e.Text}, opt: opt}

@@ -29,3 +29,17 @@ func Noun(n int, noun string) string {
 	}
 	return noun + "s"
 }
+
+// Grouped writes n with its thousands grouped by commas, as messages show
+// counts and limits: Grouped(65535) is "65,535", Grouped(-1200) "-1,200".
+func Grouped(n int) string {
+	s := strconv.Itoa(n)
+	first := 0
+	if n < 0 {
+		first = 1
+	}
+	for i := len(s) - 3; i > first; i -= 3 {
+		s = s[:i] + "," + s[i:]
+	}
+	return s
+}

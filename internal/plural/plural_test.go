@@ -31,3 +31,16 @@ func TestCount(t *testing.T) {
 		}
 	}
 }
+
+func TestGrouped(t *testing.T) {
+	// Common practice: digits grouped by threes with a comma, as in the
+	// limits of SPEC.md ("65,535 bytes", "10,000 terms").
+	for _, c := range []struct {
+		n    int
+		want string
+	}{{0, "0"}, {999, "999"}, {1000, "1,000"}, {65535, "65,535"}, {1234567, "1,234,567"}, {-1200, "-1,200"}, {-999, "-999"}} {
+		if got := Grouped(c.n); got != c.want {
+			t.Errorf("Grouped(%d) = %q, want %q", c.n, got, c.want)
+		}
+	}
+}
