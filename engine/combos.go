@@ -148,7 +148,8 @@ func setupCombos(prog *check.Program) (*Combos, diag.List) {
 	// must not use another action: it would be factored twice.
 	for _, i := range prog.Order {
 		c := prog.Cells[i]
-		for _, j := range c.DepIdx {
+		for _, dep := range prog.Deps(i) {
+			j := int(dep)
 			if cs.Depends[j] {
 				if c.Extra().Action != nil {
 					errs.Errorf(c.NameRange, "the characteristic value of an action is factored in each combination; one computed from another action would be factored twice",
@@ -193,7 +194,8 @@ func setupCombos(prog *check.Program) (*Combos, diag.List) {
 		for len(todo) > 0 {
 			j := todo[len(todo)-1]
 			todo = todo[:len(todo)-1]
-			for _, d := range prog.Cells[j].DepIdx {
+			for _, dep := range prog.Deps(j) {
+				d := int(dep)
 				if cs.Depends[d] && !seen[d] {
 					seen[d] = true
 					cs.feeds[d] = append(cs.feeds[d], k)
@@ -323,9 +325,9 @@ func actionUsed(prog *check.Program, dep []bool, j int) string {
 			return c.Name
 		}
 		next := -1
-		for _, k := range c.DepIdx {
+		for _, k := range prog.Deps(j) {
 			if dep[k] {
-				next = k
+				next = int(k)
 				break
 			}
 		}

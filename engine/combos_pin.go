@@ -178,8 +178,8 @@ func direct(prog *check.Program, dep []bool, pins []pin) []bool {
 			d[i] = true
 			continue
 		}
-		for _, j := range c.DepIdx {
-			if d[j] && !inPin[i][j] {
+		for _, j := range prog.Deps(i) {
+			if d[j] && !inPin[i][int(j)] {
 				d[i] = true
 				break
 			}

@@ -6,6 +6,7 @@ import (
 	"slices"
 	"strconv"
 
+	"github.com/sheafcalc/sheaf/engine/check"
 	"github.com/sheafcalc/sheaf/engine/diag"
 	"github.com/sheafcalc/sheaf/engine/units"
 	"github.com/sheafcalc/sheaf/funcs"
@@ -26,6 +27,16 @@ type Results struct {
 	// without): the cells that depend on actions show their values in the
 	// combination Combos.Shown, and each check its governing combination.
 	Combos *ComboSummary
+	prog   *check.Program // for Deps
+}
+
+// Deps returns the cells c uses, as indices into Cells, in order of first
+// use; nil for results not made by a State.
+func (r *Results) Deps(c *Cell) []int32 {
+	if r.prog == nil {
+		return nil
+	}
+	return r.prog.Deps(c.Index)
 }
 
 // CellResult is the value of one cell.
@@ -105,7 +116,7 @@ func (st *State) Results() *Results {
 	s := st.sheet
 	e := st.read()
 	n := len(s.prog.Cells)
-	r := &Results{Meta: s.prog.Meta, Cells: make([]CellResult, n)}
+	r := &Results{Meta: s.prog.Meta, Cells: make([]CellResult, n), prog: s.prog}
 	buf := make([]byte, 0, 12*n)
 	ends := make([]int32, n) // end of cell i's text in buf; -1 when not a number
 	for i, c := range s.prog.Cells {

@@ -236,8 +236,8 @@ func DefaultPick(s *engine.Sheet) []*engine.Cell {
 		if c.Kind != engine.Check {
 			continue
 		}
-		for _, i := range c.DepIdx {
-			seen[i] = true
+		for _, i := range s.Program().Deps(c.Index) {
+			seen[int(i)] = true
 		}
 	}
 	var out []*engine.Cell

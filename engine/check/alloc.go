@@ -20,7 +20,6 @@ type arena struct {
 	cells block.Block[cellAndFormula]
 	srcs  block.Block[typed]
 	nodes block.Block[slot]
-	deps  block.Block[int]
 	nums  map[units.Dim]*funcs.Type
 }
 

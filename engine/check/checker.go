@@ -430,8 +430,8 @@ func (c *checker) table(cell *Cell, t *sheet.Table) {
 // the dimension of its column; the table is left untyped when one fails
 // (or when a cell it reads failed, silently).
 func (c *checker) typeEntries(cell *Cell, sys units.System) {
-	for _, j := range cell.DepIdx {
-		if c.typeOf(j) == nil {
+	for _, j := range c.prog.Deps(cell.Index) {
+		if c.typeOf(int(j)) == nil {
 			cell.Type = nil // reported where it failed
 			return
 		}
@@ -483,24 +483,35 @@ func (c *checker) resolve() {
 	// seen[j] == i+1 when cell i already lists cell j: one slice for the
 	// sheet rather than a set per cell.
 	seen := make([]int32, len(p.Cells))
+	// A cell uses at most as many cells as its formulas name.
+	names := 0
+	for _, cell := range p.Cells {
+		if cell.Formula != nil {
+			names += cell.Formula.NumRefs()
+		}
+		for _, e := range cell.Extra().Entries {
+			names += e.Formula.NumRefs()
+		}
+	}
+	p.depAt = make([]int32, len(p.Cells)+1)
+	p.deps = make([]int32, 0, names)
 	for i := range p.Cells {
 		c.resolveCell(i, seen)
+		p.depAt[i+1] = int32(len(p.deps))
 	}
 	// The reverse edges, counted, then placed: userAt[j+1] counts the
 	// users of j, and then becomes where they end.
 	p.userAt = make([]int32, len(p.Cells)+1)
-	for _, cell := range p.Cells {
-		for _, j := range cell.DepIdx {
-			p.userAt[j+1]++
-		}
+	for _, j := range p.deps {
+		p.userAt[j+1]++
 	}
 	for j := range p.Cells {
 		p.userAt[j+1] += p.userAt[j]
 	}
 	p.users = make([]int32, p.userAt[len(p.Cells)])
 	next := slices.Clone(p.userAt[:len(p.Cells)]) // where the next user of j goes
-	for i, cell := range p.Cells {
-		for _, j := range cell.DepIdx {
+	for i := range p.Cells {
+		for _, j := range p.Deps(i) {
 			p.users[next[j]] = int32(i)
 			next[j]++
 		}
@@ -517,7 +528,7 @@ func (c *checker) resolveCell(i int, seen []int32) {
 	for _, e := range cell.Extra().Entries {
 		c.resolveRefs(i, e.Formula, seen)
 	}
-	if cell.Kind == Derived && len(cell.DepIdx) == 0 {
+	if cell.Kind == Derived && len(p.deps) == int(p.depAt[i]) {
 		cell.Kind = Input
 	}
 }
@@ -535,12 +546,7 @@ func (c *checker) resolveRefs(i int, f *formula.Formula, seen []int32) {
 			continue
 		}
 		seen[j] = int32(i + 1)
-		if cell.DepIdx == nil {
-			// Room for every name of the formula, from one block for
-			// all cells: a cell uses at most as many cells as it names.
-			cell.DepIdx = c.arena.deps.Take(f.NumRefs())[:0]
-		}
-		cell.DepIdx = append(cell.DepIdx, j)
+		p.deps = append(p.deps, int32(j))
 	}
 }
 
@@ -619,9 +625,9 @@ func (c *checker) typeOne(i int, sys units.System) {
 		return
 	}
 	blocked, tainted := false, false
-	for _, j := range cell.DepIdx {
+	for _, j := range c.prog.Deps(i) {
 		if c.prog.Cells[j].Type == nil {
-			if c.typeOf(j) == nil {
+			if c.typeOf(int(j)) == nil {
 				blocked = true
 			} else {
 				tainted = true

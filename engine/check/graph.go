@@ -42,8 +42,8 @@ func (c *checker) order() {
 		stack = append(stack, visit{i: root})
 		for len(stack) > 0 {
 			top := &stack[len(stack)-1]
-			if deps := p.Cells[top.i].DepIdx; top.next < len(deps) {
-				j := deps[top.next]
+			if deps := p.Deps(top.i); top.next < len(deps) {
+				j := int(deps[top.next])
 				top.next++
 				switch state[j] {
 				case unseen:
@@ -72,8 +72,8 @@ func (c *checker) unplaced() []int {
 	p := c.prog
 	indeg := make([]int, len(p.Cells))
 	var ready []int
-	for i, cell := range p.Cells {
-		indeg[i] = len(cell.DepIdx)
+	for i := range p.Cells {
+		indeg[i] = len(p.Deps(i))
 		if indeg[i] == 0 {
 			ready = append(ready, i)
 		}
@@ -98,7 +98,8 @@ func (c *checker) cycles(indeg []int) {
 	visit = func(i int) {
 		state[i] = 1
 		stack = append(stack, i)
-		for _, j := range p.Cells[i].DepIdx {
+		for _, dep := range p.Deps(i) {
+			j := int(dep)
 			if indeg[j] == 0 {
 				continue
 			}

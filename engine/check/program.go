@@ -54,7 +54,6 @@ type Cell struct {
 	Type      *funcs.Type
 	Range     diag.Range // the whole item
 	NameRange diag.Range
-	DepIdx    []int // the cells it uses, as indices into Program.Cells, in order of first use (Program.DepNames gives their names)
 	Formula   *formula.Formula
 	// Scope is the prefix under which the formula's names are read: "" for
 	// a cell of the sheet itself, "rod." for a cell inlined from
@@ -155,10 +154,21 @@ func (c *Cell) LimitState() string {
 // the program's: callers read it and do not change it.
 func (p *Program) Users(i int) []int32 { return p.users[p.userAt[i]:p.userAt[i+1]:p.userAt[i+1]] }
 
+// Deps returns the cells cell i uses, as indices into Cells, in order of
+// first use (DepNames gives their names). The slice is the program's:
+// callers read it and do not change it.
+func (p *Program) Deps(i int) []int32 {
+	if i+1 >= len(p.depAt) {
+		return nil // a program the checker left before resolving names
+	}
+	return p.deps[p.depAt[i]:p.depAt[i+1]:p.depAt[i+1]]
+}
+
 // DepNames returns the names of the cells c uses, in order of first use.
 func (p *Program) DepNames(c *Cell) []string {
-	names := make([]string, len(c.DepIdx))
-	for k, j := range c.DepIdx {
+	deps := p.Deps(c.Index)
+	names := make([]string, len(deps))
+	for k, j := range deps {
 		names[k] = p.Cells[j].Name
 	}
 	return names
@@ -206,6 +216,9 @@ type Program struct {
 	// flat int32 slices, not a slice per cell: a slice header and an int
 	// per edge cost four times the room.
 	userAt, users []int32
+	// deps are the edges, read by Deps: the cells cell i uses are
+	// deps[depAt[i]:depAt[i+1]], in order of first use.
+	depAt, deps []int32
 	// InCombination is set when a formula calls in_combination, so that
 	// a sheet without one is not searched for its calls.
 	InCombination bool

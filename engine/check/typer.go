@@ -160,9 +160,9 @@ func (t *typer) ident(n int32) Node {
 // map of every cell of a large sheet.
 func (t *typer) depIndex(name string) (int, bool) {
 	if t.cell != nil && t.cell.Scope == "" {
-		for _, j := range t.cell.DepIdx {
+		for _, j := range t.c.prog.Deps(t.cell.Index) {
 			if t.c.prog.Cells[j].Name == name {
-				return j, true
+				return int(j), true
 			}
 		}
 	}

@@ -25,12 +25,9 @@ type Machine struct {
 	// cell, read in one pass over contiguous memory.
 	plan []step
 	// fast[i] is the Number body of cell i when the cell has no other path
-	// (as in plan), else nil; deps[depAt[i]:depAt[i+1]] are its
-	// dependencies. An incremental Eval runs such a cell from these alone,
-	// without reaching for the cell itself.
-	fast  []numFn
-	deps  []int32
-	depAt []int32
+	// (as in plan), else nil. An incremental Eval runs such a cell from it
+	// and P.Deps(i) alone, without reaching for the cell itself.
+	fast []numFn
 	// needVal is set when some cell keeps its value in Frame.Val; else a
 	// state leaves Val nil.
 	needVal  bool
@@ -94,18 +91,6 @@ func Compile(p *check.Program) *Machine {
 	m.fast = make([]numFn, len(p.Cells))
 	for _, st := range m.plan {
 		m.fast[st.i] = st.fn
-	}
-	m.depAt = make([]int32, len(p.Cells)+1)
-	total := 0
-	for _, c := range p.Cells {
-		total += len(c.DepIdx)
-	}
-	m.deps = make([]int32, 0, total)
-	for i, c := range p.Cells {
-		for _, j := range c.DepIdx {
-			m.deps = append(m.deps, int32(j))
-		}
-		m.depAt[i+1] = int32(len(m.deps))
 	}
 	return m
 }

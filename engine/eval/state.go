@@ -264,7 +264,7 @@ func (s *State) run(i int) {
 	if c.Type == nil {
 		return
 	}
-	for _, j := range c.DepIdx {
+	for _, j := range s.M.P.Deps(i) {
 		if !s.Known[j] {
 			return // skipped: the failing cell reported it
 		}
@@ -384,8 +384,7 @@ func (s *State) ownOverrides() {
 
 // depsKnown reports whether every dependency of cell i has a value.
 func (s *State) depsKnown(i int) bool {
-	m := s.M
-	for _, j := range m.deps[m.depAt[i]:m.depAt[i+1]] {
+	for _, j := range s.M.P.Deps(i) {
 		if !s.Known[j] {
 			return false
 		}

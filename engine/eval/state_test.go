@@ -134,7 +134,8 @@ func TestIncrementalExact(t *testing.T) {
 			pos[i] = k
 		}
 		for k, i := range ran {
-			for _, d := range m.P.Cells[i].DepIdx {
+			for _, dep := range m.P.Deps(i) {
+				d := int(dep)
 				if p, ok := pos[d]; ok && p > k {
 					t.Fatalf("round %d: %s ran before %s, which it uses", round, m.P.Cells[i].Name, m.P.Cells[d].Name)
 				}

@@ -124,7 +124,7 @@ func occurrences(s *engine.Sheet, x *engine.Cell, sources func(string) *text) []
 		}
 	}
 	for _, c := range s.Cells() {
-		if slices.Contains(c.DepIdx, x.Index) {
+		if slices.Contains(s.Program().Deps(c.Index), int32(x.Index)) {
 			for _, t := range trees(c) {
 				walk(t)
 			}

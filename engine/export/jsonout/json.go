@@ -326,8 +326,9 @@ func Encode(w io.Writer, v any) error {
 // depNames are the names of the cells c uses, in order of first use (every
 // cell of the sheet is in r.Cells, in the program's order).
 func depNames(r *engine.Results, c *engine.Cell) []string {
-	names := make([]string, len(c.DepIdx))
-	for k, j := range c.DepIdx {
+	deps := r.Deps(c)
+	names := make([]string, len(deps))
+	for k, j := range deps {
 		names[k] = r.Cells[j].Cell.Name
 	}
 	return names

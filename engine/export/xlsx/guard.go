@@ -210,7 +210,8 @@ func (x *exporter) upstream(i int) []int32 {
 	for len(stack) > 0 {
 		j := stack[len(stack)-1]
 		stack = stack[:len(stack)-1]
-		for _, d := range p.Cells[j].DepIdx {
+		for _, dep := range p.Deps(j) {
+			d := int(dep)
 			if d < 0 || d >= len(p.Cells) || seen[d] {
 				continue
 			}

@@ -140,7 +140,7 @@ func (x *exporter) handCalc(c *check.Cell, expr, result string) string {
 	if sub == "" {
 		sub = expr
 	}
-	if len(c.DepIdx) == 0 && (c.Body.IsZero() || c.Body.Op() == check.OpConst || c.Body.Op() == check.OpNeg && c.Body.Arg(0).Op() == check.OpConst) {
+	if len(x.s.Program().Deps(c.Index)) == 0 && (c.Body.IsZero() || c.Body.Op() == check.OpConst || c.Body.Op() == check.OpNeg && c.Body.Arg(0).Op() == check.OpConst) {
 		return ""
 	}
 	line := c.Name + " = " + expr
