@@ -29,9 +29,13 @@ type uses struct {
 	// replaced holds, per overridden cell, the template's own formula, so
 	// that the override can be held to its type.
 	replaced map[int]*replaced
-	// targets caches, per formula, the cell each member chain `rod.x`
-	// refers to, keyed by the chain's root identifier.
-	targets map[*formula.Formula][]target
+	// targets holds, for the formula targetsOf was last asked about, the
+	// cell each member chain `rod.x` refers to, keyed by the chain's root
+	// identifier. A formula's names are resolved one after the other, so
+	// one formula's worth is enough; a map of every formula grew with the
+	// sheet.
+	targetsOf *formula.Formula
+	targets   []target
 	// cells caches expandedCells by file.
 	cells map[*sheet.File]int
 }
@@ -77,7 +81,7 @@ func (u *uses) aliasPos(name string) diag.Pos {
 func (c *checker) useTemplate(from *sheet.File, u *sheet.Use, scope string, depth int) {
 	if c.use == nil {
 		c.use = &uses{ld: newLoader(c.prog.File, c.opt), aliases: map[string]*alias{},
-			replaced: map[int]*replaced{}, targets: map[*formula.Formula][]target{}, cells: map[*sheet.File]int{}}
+			replaced: map[int]*replaced{}, cells: map[*sheet.File]int{}}
 	}
 	name := scope + u.Name.Name
 	if IsReserved(u.Name.Name) {
@@ -167,11 +171,10 @@ func (c *checker) ref(cell *Cell, f *formula.Formula, n int32) (int, bool) {
 	if c.use == nil || !c.use.isAlias(cell.Scope+name) {
 		return 0, false
 	}
-	ts, ok := c.use.targets[f]
-	if !ok {
-		ts = c.memberTargets(cell, f)
-		c.use.targets[f] = ts
+	if c.use.targetsOf != f {
+		c.use.targetsOf, c.use.targets = f, c.memberTargets(cell, f)
 	}
+	ts := c.use.targets
 	for k := len(ts) - 1; k >= 0; k-- { // the longest chain of a root was found last
 		if ts[k].root == n {
 			return ts[k].cell, true
