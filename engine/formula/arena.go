@@ -1,6 +1,9 @@
 package formula
 
-import "github.com/sheafcalc/sheaf/internal/block"
+import (
+	"github.com/sheafcalc/sheaf/engine/units"
+	"github.com/sheafcalc/sheaf/internal/block"
+)
 
 // Arena hands out the slices of many formulas from shared blocks. Parsing
 // a formula on its own allocates three small slices; a sheet of 100,000
@@ -19,6 +22,7 @@ type Arena struct {
 	nodes   block.Block[Node]
 	args    block.Block[int32]
 	quants  block.Block[Quantity]
+	units   map[string]*units.Unit // the units of quantity literals, by their text
 }
 
 // keep copies the parsed slices of f (held in the scratch slices) into

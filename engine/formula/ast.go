@@ -129,12 +129,15 @@ func (f *Formula) NumRefs() int { return int(f.nrefs) }
 
 // Quantity is a number written with a unit, such as `38 kN`.
 type Quantity struct {
-	Number   string     // the number as written, e.g. "38"
-	UnitText string     // the unit as written, e.g. "kN"
-	Value    float64    // the number's value, 38
-	Unit     units.Unit // the parsed unit (Factor 0 when it did not parse)
-	SI       float64    // Value in SI base units
-	From, To int32      // byte span of number and unit in the formula text
+	Value float64 // the number's value, 38
+	SI    float64 // Value in SI base units
+	// Unit is the parsed unit (Factor 0 when it did not parse). It is
+	// never nil, and it is shared by the literals of one Arena that write
+	// the same unit: read it, do not change it.
+	Unit     *units.Unit
+	From, To int32 // byte span of number and unit in the formula text
+	// NumEnd is the end of the number, UnitFrom the start of the unit.
+	NumEnd, UnitFrom int32
 }
 
 // Text returns the written text of node n (for a name, the name).
@@ -166,6 +169,12 @@ func (f *Formula) Quantity(n int32) *Quantity { return &f.Quantities[f.Nodes[n].
 
 // QuantityText returns the literal as written, e.g. "38 kN".
 func (f *Formula) QuantityText(q *Quantity) string { return f.Source.Text[q.From:q.To] }
+
+// QuantityNumber returns the number of the literal as written, e.g. "38".
+func (f *Formula) QuantityNumber(q *Quantity) string { return f.Source.Text[q.From:q.NumEnd] }
+
+// QuantityUnit returns the unit of the literal as written, e.g. "kN".
+func (f *Formula) QuantityUnit(q *Quantity) string { return f.Source.Text[q.UnitFrom:q.To] }
 
 // ArgList returns the arguments of a KCall, KList or KRecord node.
 func (f *Formula) ArgList(n int32) []int32 {

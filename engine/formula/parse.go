@@ -455,15 +455,42 @@ func (p *parser) number() int32 {
 	if t.unitFrom == t.to {
 		return p.add(numNode(KNumber, t.from, t.to, v))
 	}
-	q := Quantity{Number: num, UnitText: p.lex.src[t.unitFrom:t.to], Value: v, From: t.from, To: t.to}
-	u, err := units.Parse(q.UnitText)
+	q := Quantity{Value: v, From: t.from, To: t.to, NumEnd: t.numEnd, UnitFrom: t.unitFrom}
+	u, err := p.unit(p.lex.src[t.unitFrom:t.to])
+	q.Unit = u
 	if err != nil {
 		p.errs.Add(p.unitDiag(t, err))
 	} else {
-		q.Unit, q.SI = u, v*u.Factor
+		q.SI = v * u.Factor
 	}
 	p.f.Quantities = append(p.f.Quantities, q)
 	return p.add(Node{Kind: KQuantity, From: uint16(t.from), To: uint16(t.to), A: int32(len(p.f.Quantities) - 1), B: -1, C: -1})
+}
+
+// noUnit is the Unit of a literal whose unit did not parse.
+var noUnit = &units.Unit{}
+
+// unit parses the unit text of a literal, once per text for the formulas
+// of an Arena; a unit that does not parse is noUnit.
+func (p *parser) unit(text string) (*units.Unit, error) {
+	a := p.opt.Arena
+	if a != nil {
+		if u, ok := a.units[text]; ok {
+			return u, nil
+		}
+	}
+	u, err := units.Parse(text)
+	if err != nil {
+		return noUnit, err
+	}
+	if a == nil {
+		return &u, nil
+	}
+	if a.units == nil {
+		a.units = map[string]*units.Unit{}
+	}
+	a.units[text] = &u
+	return &u, nil
 }
 
 // call = name "(" [ args ] ")" .

@@ -20,7 +20,7 @@ func (f *Formula) print(b *strings.Builder, n int32) {
 		b.WriteString(f.Text(n))
 	case KQuantity:
 		q := f.Quantity(n)
-		b.WriteString("(unit " + q.Number + " " + q.UnitText + ")")
+		b.WriteString("(unit " + f.QuantityNumber(q) + " " + f.QuantityUnit(q) + ")")
 	case KUnary:
 		b.WriteString("(" + nd.Op.String() + " ")
 		f.print(b, nd.A)

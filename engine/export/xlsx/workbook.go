@@ -482,7 +482,7 @@ func (x *exporter) exprText(c *check.Cell, n check.Node) string {
 func (x *exporter) fieldUnit(c *check.Cell, arg check.Node, t *funcs.Type) units.Unit {
 	if !arg.IsZero() {
 		if q := arg.Quantity(); q != nil && q.Unit.Factor != 0 {
-			return q.Unit
+			return *q.Unit
 		}
 	}
 	if t == nil {
