@@ -2,6 +2,7 @@ package sheet
 
 import (
 	"fmt"
+	"strings"
 	"unicode"
 	"unicode/utf8"
 
@@ -22,18 +23,12 @@ type line struct {
 // lines blank so that they end the item above instead of corrupting it.
 func (p *parser) splitLines(from int) {
 	text := p.text
-	n := 0
-	for i := from; i < len(text); i++ {
-		if text[i] == '\n' {
-			n++
-		}
-	}
-	p.lines = make([]line, 0, n+1)
+	p.lines = make([]line, 0, strings.Count(text[from:], "\n")+1)
 	start := from
 	for start < len(text) {
-		end := start
-		for end < len(text) && text[end] != '\n' {
-			end++
+		end := len(text)
+		if k := strings.IndexByte(text[start:], '\n'); k >= 0 {
+			end = start + k
 		}
 		next := end + 1
 		if end > start && text[end-1] == '\r' {

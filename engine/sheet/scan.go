@@ -23,7 +23,11 @@ type bracketScanner struct {
 // the annotation.
 func (s *bracketScanner) scan(text string, from, to int) int {
 	for i := from; i < to; i++ {
-		switch c := text[i]; c {
+		c := text[i]
+		if !scanned[c] {
+			continue // most bytes of a line: a look in a table, not a switch
+		}
+		switch c {
 		case '"', '\'', '`':
 			j := stringEnd(text, i, to)
 			if j >= to && s.unclosed == 0 {
@@ -46,6 +50,10 @@ func (s *bracketScanner) scan(text string, from, to int) int {
 	}
 	return -1
 }
+
+// scanned marks the bytes bracketScanner.scan and headSplit act on: quotes,
+// brackets and the "-" of "--".
+var scanned = [256]bool{'"': true, '\'': true, '`': true, '(': true, '[': true, '{': true, ')': true, ']': true, '}': true, '-': true}
 
 // stringEnd returns the offset of the quote closing the string that opens at
 // text[i], or a value >= to when the string runs past to. A backslash escapes
@@ -70,7 +78,11 @@ func stringEnd(text string, i, to int) int {
 func headSplit(text string, from, to int) int {
 	depth := 0
 	for i := from; i < to; i++ {
-		switch c := text[i]; c {
+		c := text[i]
+		if !scanned[c] && c != '=' && c != ':' {
+			continue
+		}
+		switch c {
 		case '"', '\'', '`':
 			i = stringEnd(text, i, to)
 		case '(', '[', '{':
