@@ -191,7 +191,8 @@ func (t *typer) undefined(n int32, name string) Node {
 	return t.fail(n, "undefined name `"+name+"`", "no cell, function or constant of that name is defined in this sheet", hint)
 }
 
-var cmpOps = map[string]Op{"<": OpLT, "<=": OpLE, ">": OpGT, ">=": OpGE, "==": OpEQ, "!=": OpNE}
+// cmpOps are the typed operations of the comparisons.
+var cmpOps = [...]Op{formula.OpLT: OpLT, formula.OpLE: OpLE, formula.OpGT: OpGT, formula.OpGE: OpGE, formula.OpEQ: OpEQ, formula.OpNE: OpNE}
 
 func (t *typer) binary(n int32) Node {
 	nd := &t.f.Nodes[n]
@@ -199,55 +200,56 @@ func (t *typer) binary(n int32) Node {
 	if a.IsZero() || b.IsZero() {
 		return Node{}
 	}
-	op := nd.Op.String()
-	switch op {
-	case "and", "or":
-		if a.Type().Kind != funcs.Bool || b.Type().Kind != funcs.Bool {
+	ta, tb := a.Type(), b.Type()
+	op := nd.Op.String() // for messages
+	switch nd.Op {
+	case formula.OpAnd, formula.OpOr:
+		if ta.Kind != funcs.Bool || tb.Kind != funcs.Bool {
 			return t.fail(n, "`"+op+"` joins comparisons", "both sides must be comparisons such as `a < b`", "compare each value, as in `a > 0 "+op+" b > 0`")
 		}
-		if op == "and" {
+		if nd.Op == formula.OpAnd {
 			return t.node(n, OpAnd, funcs.BoolType)
 		}
 		return t.node(n, OpOr, funcs.BoolType)
 	}
-	if a.Type().Kind != funcs.Number || b.Type().Kind != funcs.Number {
-		bad := a
-		if a.Type().Kind == funcs.Number {
-			bad = b
+	if ta.Kind != funcs.Number || tb.Kind != funcs.Number {
+		bad := ta
+		if ta.Kind == funcs.Number {
+			bad = tb
 		}
 		hint := ""
-		if bad.Type().Kind == funcs.Record {
+		if bad.Kind == funcs.Record {
 			hint = "pick a field, e.g. `mat.E`"
-		} else if bad.Type().Kind == funcs.List || bad.Type().Kind == funcs.Table {
+		} else if bad.Kind == funcs.List || bad.Kind == funcs.Table {
 			hint = "reduce the list first, e.g. sum(xs) or max(xs), or pick one element xs[0]"
 		}
-		return t.fail(n, fmt.Sprintf("`%s` needs numbers, got %s", op, t.describeType(bad.Type())), "arithmetic and comparisons work on numbers with units", hint)
+		return t.fail(n, fmt.Sprintf("`%s` needs numbers, got %s", op, t.describeType(bad)), "arithmetic and comparisons work on numbers with units", hint)
 	}
-	da, db := a.Type().Dim, b.Type().Dim
-	switch op {
-	case "+", "-":
+	da, db := ta.Dim, tb.Dim
+	switch nd.Op {
+	case formula.OpAdd, formula.OpSub:
 		if da != db {
 			verb := "add"
-			if op == "-" {
+			if nd.Op == formula.OpSub {
 				verb = "subtract"
 			}
 			return t.fail(n, fmt.Sprintf("cannot %s %s and %s", verb, t.describeDim(da), t.describeDim(db)),
 				"both sides of + and - must be the same kind of quantity", "check the units of the two sides")
 		}
-		if op == "+" {
-			return t.node(n, OpAdd, a.Type())
+		if nd.Op == formula.OpAdd {
+			return t.node(n, OpAdd, ta)
 		}
-		return t.node(n, OpSub, a.Type())
-	case "*", "/":
+		return t.node(n, OpSub, ta)
+	case formula.OpMul, formula.OpDiv:
 		d, o := da.Mul(db), OpMul
-		if op == "/" {
+		if nd.Op == formula.OpDiv {
 			d, o = da.Div(db), OpDiv
 		}
 		if p := t.dimOverflow(d, op, da, db); p != nil {
 			return t.fail(n, p.summary, overflowDetail, p.hint)
 		}
 		return t.node(n, o, t.c.arena.num(d))
-	case "^":
+	case formula.OpPow:
 		ty, p := t.powType(a, b, "`^`")
 		if p != nil {
 			at := nd.B
@@ -258,12 +260,12 @@ func (t *typer) binary(n int32) Node {
 		}
 		return t.node(n, OpPow, ty)
 	}
-	if o, ok := cmpOps[op]; ok {
+	if nd.Op.IsComparison() {
 		if da != db {
 			return t.fail(n, fmt.Sprintf("cannot compare %s with %s", t.describeDim(da), t.describeDim(db)),
 				"both sides of a comparison must be the same kind of quantity", "check the units of the two sides")
 		}
-		return t.node(n, o, funcs.BoolType)
+		return t.node(n, cmpOps[nd.Op], funcs.BoolType)
 	}
 	return t.fail(n, "operator `"+op+"` is not part of the sheet language", "formulas use + - * / ^ (or **), comparisons, and/or/not and `a ? b : c`", "")
 }
