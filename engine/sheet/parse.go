@@ -25,6 +25,29 @@ type parser struct {
 	// open is the bracket stack the scanners of all items share, so
 	// that a sheet grows one, not one per line that opens a bracket.
 	open []int
+	// first is what extent's scanner found on the first line of the last
+	// item it measured (see lineScan).
+	first lineScan
+}
+
+// lineScan is what a fresh bracketScanner finds on line `line` from offset
+// from to the line's end. It depends on nothing else, so body, reading an
+// item of one line from the same offset, takes it from extent instead of
+// scanning the line a second time.
+type lineScan struct {
+	line, from int
+	annot      int // offset of the "--" that starts an annotation, or -1
+	unclosed   int // as bracketScanner.unclosed
+	open       int // offset of the outermost bracket left open, or -1
+}
+
+// result is what sc found, as a lineScan of line li from from.
+func (sc *bracketScanner) result(li, from, annot int) lineScan {
+	open := -1
+	if len(sc.open) > 0 {
+		open = sc.open[0]
+	}
+	return lineScan{line: li, from: from, annot: annot, unclosed: sc.unclosed, open: open}
 }
 
 // scanner returns a bracketScanner on the parser's bracket stack.
@@ -43,7 +66,7 @@ func (p *parser) keepScanner(sc *bracketScanner) { p.open = sc.open[:0] }
 // go on and report their own problems too. It never panics on any input.
 // A UTF-8 byte order mark and CRLF line breaks are accepted.
 func Parse(name string, src []byte, opts ...Option) (*File, diag.List) {
-	p := &parser{name: name, cfg: newConfig(opts), file: &File{Name: name, Src: src}, inHeader: true,
+	p := &parser{first: lineScan{line: -1}, name: name, cfg: newConfig(opts), file: &File{Name: name, Src: src}, inHeader: true,
 		cells: block.Block[cellUnit]{Min: 8, Max: 256}}
 	if len(src) > p.cfg.maxBytes {
 		p.src = diag.NewSource(name, "")
@@ -115,7 +138,8 @@ func (p *parser) extent(i, limit, base, track int) int {
 	sc := p.scanner()
 	defer p.keepScanner(&sc)
 	if track >= 0 {
-		sc.scan(p.text, track, p.lines[i].end)
+		a := sc.scan(p.text, track, p.lines[i].end)
+		p.first = sc.result(i, track, a)
 	}
 	j := i + 1
 	for j < limit {

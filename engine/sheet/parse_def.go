@@ -286,29 +286,38 @@ func (p *parser) parseCheck(i, j int) Item {
 //	annotation = "--" [ description ] [ " @ " reference ] .
 func (p *parser) body(i, j, from int) (Expr, Annot, bool) {
 	t := p.text
-	sc := p.scanner()
-	defer p.keepScanner(&sc)
 	annotAt, annotLine := -1, -1
-	for li := i; li < j; li++ {
-		s := p.lines[li].start
-		if li == i {
-			s = from
+	var found lineScan
+	if j == i+1 && p.first.line == i && p.first.from == from {
+		found = p.first // extent scanned this line from here already
+		if found.annot >= 0 {
+			annotAt, annotLine = found.annot, i
 		}
-		if a := sc.scan(t, s, p.lines[li].end); a >= 0 {
-			annotAt, annotLine = a, li
-			break
+	} else {
+		sc := p.scanner()
+		for li := i; li < j; li++ {
+			s := p.lines[li].start
+			if li == i {
+				s = from
+			}
+			if a := sc.scan(t, s, p.lines[li].end); a >= 0 {
+				annotAt, annotLine = a, li
+				break
+			}
 		}
+		found = sc.result(annotLine, from, annotAt)
+		p.keepScanner(&sc)
 	}
-	if sc.unclosed > 0 {
-		o := sc.unclosed - 1
+	if found.unclosed > 0 {
+		o := found.unclosed - 1
 		oli := p.lineOf(o, i, j)
 		p.errAt(p.rng(oli, o, p.lines[oli].end), "a string starts and ends on one line; this one has no closing quote",
 			"close the string with `"+t[o:o+1]+"` on the same line",
 			"unterminated string")
 		return Expr{}, Annot{}, false
 	}
-	if len(sc.open) > 0 {
-		o := sc.open[0]
+	if found.open >= 0 {
+		o := found.open
 		oli := p.lineOf(o, i, j)
 		closer := map[byte]string{'(': ")", '[': "]", '{': "}"}[t[o]]
 		p.errAt(p.rng(oli, o, o+1), "every bracket opened in an expression must be closed; a blank line or the end of the file ended this one",
