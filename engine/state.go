@@ -260,8 +260,8 @@ func (s *Sheet) ParseInput(name, text string) (funcs.Value, error) {
 		got := "a plain number"
 		if !n.Type().Dim.IsNone() {
 			got = "of another dimension"
-			if len(f.Quantities) == 1 && f.Quantities[0].Unit.Quantity != "" {
-				got = "a " + f.Quantities[0].Unit.Quantity
+			if q := f.Quantities; len(q) == 1 && q[0].Unit().Quantity != "" {
+				got = "a " + q[0].Unit().Quantity
 			}
 		}
 		hint := ""

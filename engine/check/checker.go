@@ -724,34 +724,35 @@ func (c *checker) fitsUnit(t *typer, cell *Cell, body Node) bool {
 	if !cell.HasUnit {
 		return true
 	}
+	u := cell.Unit()
 	if body.Type().Kind != funcs.Number {
-		t.errs.Errorf(cell.Formula.Source.Range, "a display unit applies to a number", "remove [`"+cell.Unit().Symbol+"`]",
-			"display unit %s given for %s", cell.Unit().Symbol, t.describeType(body.Type()))
+		t.errs.Errorf(cell.Formula.Source.Range, "a display unit applies to a number", "remove [`"+u.Symbol+"`]",
+			"display unit %s given for %s", u.Symbol, t.describeType(body.Type()))
 		return false
 	}
-	if body.Type().Dim != cell.Unit().Dim {
-		what := t.describeDim(cell.Unit().Dim)
-		if cell.Unit().Quantity != "" && !cell.Unit().Dim.IsNone() { // not "a dimensionless"
-			what = cell.Unit().Quantity
+	if body.Type().Dim != u.Dim {
+		what := t.describeDim(u.Dim)
+		if u.Quantity != "" && !u.Dim.IsNone() { // not "a dimensionless"
+			what = u.Quantity
 		}
 		hint := "write the unit of the result, e.g. [" + t.unitOf(body.Type().Dim) + "], or correct the formula"
 		if body.Type().Dim.IsNone() {
-			hint = plainNumberHint(cell.Unit(), body)
+			hint = plainNumberHint(u, body)
 		}
 		t.errs.Errorf(cell.Formula.Source.Range,
 			"the unit in brackets sets how the value is shown and must have the dimension of the expression",
-			hint, "display unit %s is %s but the expression is %s", cell.Unit().Symbol, article(what), t.describeDim(body.Type().Dim))
+			hint, "display unit %s is %s but the expression is %s", u.Symbol, article(what), t.describeDim(body.Type().Dim))
 		return false
 	}
-	if v, ok := bareNumber(cell.Formula); ok && cell.Unit().Dim.IsNone() && cell.Unit().Factor != 1 {
+	if v, ok := bareNumber(cell.Formula); ok && u.Dim.IsNone() && u.Factor != 1 {
 		// `share [%] = 5` would be 500 %: a plain number is a fraction of
 		// one, and the author almost always meant the number in the
 		// bracket's unit. As with angles, the unit is written, not guessed.
 		text := strings.TrimSpace(cell.Formula.Source.Text)
 		t.errs.Errorf(cell.Formula.Source.Range,
-			"a plain number is a fraction of one, so in ["+cell.Unit().Symbol+"] this would show "+formatScaled(v, cell.Unit().Factor)+" "+cell.Unit().Symbol,
-			"write the unit after the number, `"+text+" "+cell.Unit().Symbol+"`; a fraction is written in the unit too ("+formatScaled(v, 1)+" is `"+formatScaled(v, cell.Unit().Factor)+" "+cell.Unit().Symbol+"`)",
-			"a plain number written for [%s] is ambiguous", cell.Unit().Symbol)
+			"a plain number is a fraction of one, so in ["+u.Symbol+"] this would show "+formatScaled(v, u.Factor)+" "+u.Symbol,
+			"write the unit after the number, `"+text+" "+u.Symbol+"`; a fraction is written in the unit too ("+formatScaled(v, 1)+" is `"+formatScaled(v, u.Factor)+" "+u.Symbol+"`)",
+			"a plain number written for [%s] is ambiguous", u.Symbol)
 		return false
 	}
 	return true

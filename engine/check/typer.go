@@ -49,10 +49,11 @@ func (t *typer) expr(n int32) Node {
 		return t.node(n, OpConst, numNone)
 	case formula.KQuantity:
 		q := f.Quantity(n)
-		if q.Unit.Factor == 0 {
+		u := q.Unit()
+		if u.Factor == 0 {
 			return Node{} // the unit was reported already
 		}
-		return t.node(n, OpConst, t.c.arena.num(q.Unit.Dim))
+		return t.node(n, OpConst, t.c.arena.num(u.Dim))
 	case formula.KBool:
 		return t.node(n, OpBool, funcs.BoolType)
 	case formula.KString:

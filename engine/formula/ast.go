@@ -131,10 +131,9 @@ func (f *Formula) NumRefs() int { return int(f.nrefs) }
 type Quantity struct {
 	Value float64 // the number's value, 38
 	SI    float64 // Value in SI base units
-	// Unit is the parsed unit (Factor 0 when it did not parse). It is
-	// never nil, and it is shared by the literals of one Arena that write
-	// the same unit: read it, do not change it.
-	Unit     *units.Unit
+	// unit is the parsed unit (Unit reads it). It is never nil, and the
+	// literals of one Arena that write the same unit share it.
+	unit     *units.Unit
 	From, To int32 // byte span of number and unit in the formula text
 	// NumEnd is the end of the number, UnitFrom the start of the unit.
 	NumEnd, UnitFrom int32
@@ -169,6 +168,10 @@ func (f *Formula) Quantity(n int32) *Quantity { return &f.Quantities[f.Nodes[n].
 
 // QuantityText returns the literal as written, e.g. "38 kN".
 func (f *Formula) QuantityText(q *Quantity) string { return f.Source.Text[q.From:q.To] }
+
+// Unit returns the literal's parsed unit, a copy (Factor 0 when it did
+// not parse).
+func (q *Quantity) Unit() units.Unit { return *q.unit }
 
 // QuantityNumber returns the number of the literal as written, e.g. "38".
 func (f *Formula) QuantityNumber(q *Quantity) string { return f.Source.Text[q.From:q.NumEnd] }

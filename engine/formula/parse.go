@@ -457,7 +457,7 @@ func (p *parser) number() int32 {
 	}
 	q := Quantity{Value: v, From: t.from, To: t.to, NumEnd: t.numEnd, UnitFrom: t.unitFrom}
 	u, err := p.unit(p.lex.src[t.unitFrom:t.to])
-	q.Unit = u
+	q.unit = u
 	if err != nil {
 		p.errs.Add(p.unitDiag(t, err))
 	} else {

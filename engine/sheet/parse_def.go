@@ -305,7 +305,7 @@ func (p *parser) body(i, j, from int) (Expr, Annot, bool) {
 				break
 			}
 		}
-		found = sc.result(annotLine, from, annotAt)
+		found = sc.result(i, from, annotAt)
 		p.keepScanner(&sc)
 	}
 	if found.unclosed > 0 {

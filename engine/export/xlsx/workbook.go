@@ -481,8 +481,8 @@ func (x *exporter) exprText(c *check.Cell, n check.Node) string {
 // its literal, else the preferred unit of the sheet's system.
 func (x *exporter) fieldUnit(c *check.Cell, arg check.Node, t *funcs.Type) units.Unit {
 	if !arg.IsZero() {
-		if q := arg.Quantity(); q != nil && q.Unit.Factor != 0 {
-			return *q.Unit
+		if q := arg.Quantity(); q != nil && q.Unit().Factor != 0 {
+			return q.Unit()
 		}
 	}
 	if t == nil {
