@@ -152,7 +152,10 @@ func (c *Cell) LimitState() string {
 
 // Users returns the cells that use cell i, in reading order. The slice is
 // the program's: callers read it and do not change it.
-func (p *Program) Users(i int) []int32 { return p.users[p.userAt[i]:p.userAt[i+1]:p.userAt[i+1]] }
+func (p *Program) Users(i int) []int32 {
+	at := p.userAt[i : i+2 : i+2] // one bounds check for both ends
+	return p.users[at[0]:at[1]:at[1]]
+}
 
 // Deps returns the cells cell i uses, as indices into Cells, in order of
 // first use (DepNames gives their names). The slice is the program's:
@@ -161,7 +164,8 @@ func (p *Program) Deps(i int) []int32 {
 	if i+1 >= len(p.depAt) {
 		return nil // a program the checker left before resolving names
 	}
-	return p.deps[p.depAt[i]:p.depAt[i+1]:p.depAt[i+1]]
+	at := p.depAt[i : i+2 : i+2] // one bounds check for both ends
+	return p.deps[at[0]:at[1]:at[1]]
 }
 
 // DepNames returns the names of the cells c uses, in order of first use.

@@ -24,10 +24,17 @@ type Machine struct {
 	// plan is p.Order with what the first, full evaluation needs of each
 	// cell, read in one pass over contiguous memory.
 	plan []step
-	// fast[i] is the Number body of cell i when the cell has no other path
-	// (as in plan), else nil. An incremental Eval runs such a cell from it
-	// and P.Deps(i) alone, without reaching for the cell itself.
-	fast []numFn
+	// code[i] is the code of cell i (see code.go) when it is a Number cell
+	// with no other path (as in plan), else empty. An incremental Eval runs
+	// such a cell from it and P.Deps(i) alone, without reaching for the
+	// cell itself.
+	code [][]instr
+	// The code of every cell, and what its instructions index.
+	chunks   [][]instr
+	consts   []float64
+	constIdx map[uint64]int32
+	calls    []numFn
+	nodes    []check.Node
 	// needVal is set when some cell keeps its value in Frame.Val; else a
 	// state leaves Val nil.
 	needVal  bool
@@ -42,18 +49,19 @@ type Machine struct {
 	pinSlot map[check.Node]int
 }
 
-// step is one cell of the full evaluation: fn is its Number body when the
-// cell is a typed Number cell with no other path (fast), else nil.
+// step is one cell of the full evaluation: fast when the cell is a typed
+// Number cell with no other path, which runs its code.
 type step struct {
-	fn numFn
-	i  int32
+	i    int32
+	fast bool
 }
 
-// Compile turns every typed cell of p into closures. Cells without a type
+// Compile turns every typed cell of p into code or closures. Cells without a type
 // (they failed checking) get none and evaluate as unknown.
 func Compile(p *check.Program) *Machine {
 	n := len(p.Cells)
 	m := &Machine{P: p, num: make([]numFn, n), val: make([]valFn, n), topoPos: make([]int32, n),
+		code: make([][]instr, n), constIdx: map[uint64]int32{},
 		noProblem: make([]*diag.Diagnostic, n), noOver: make([]bool, n)}
 	for _, c := range p.Cells {
 		if c.Kind == check.Check {
@@ -64,8 +72,8 @@ func Compile(p *check.Program) *Machine {
 	for k, i := range p.Order {
 		m.topoPos[i] = int32(k)
 	}
-	// Cells compile in evaluation order, so the closures of cells
-	// evaluated one after the other lie side by side in memory.
+	// Cells compile in evaluation order, so the code of cells evaluated
+	// one after the other lies side by side in memory.
 	for _, i := range p.Order {
 		m.compileCell(p.Cells[i])
 	}
@@ -85,12 +93,8 @@ func Compile(p *check.Program) *Machine {
 			if c.Type.Kind != funcs.Number || m.val[i] != nil {
 				m.needVal = true
 			}
-			m.plan[k].fn = m.num[i]
+			m.plan[k].fast = len(m.code[i]) > 0
 		}
-	}
-	m.fast = make([]numFn, len(p.Cells))
-	for _, st := range m.plan {
-		m.fast[st.i] = st.fn
 	}
 	return m
 }
@@ -115,7 +119,11 @@ func (m *Machine) compileCell(c *check.Cell) {
 		}
 		switch c.Body.Type().Kind {
 		case funcs.Number:
-			m.num[c.Index] = m.numOf(c.Body)
+			if c.Kind == check.Function {
+				m.num[c.Index] = m.numOf(c.Body)
+			} else {
+				m.code[c.Index] = m.compileCode(c.Body)
+			}
 		case funcs.Bool:
 			b := m.boolOf(c.Body)
 			m.val[c.Index] = func(f *Frame) funcs.Value { return b(f) }

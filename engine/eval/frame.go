@@ -17,6 +17,9 @@ type Frame struct {
 	// the cell in its named combination, set by the engine.
 	Pins []float64
 	Fail *Failure
+	// stack is the stack of the code of a cell (see exec). Only a cell
+	// runs code, and nothing a cell calls runs a cell, so one stack serves.
+	stack [maxDepth]float64
 }
 
 // Failure is a run-time problem at a node: division by zero, a square root

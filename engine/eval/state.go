@@ -180,9 +180,9 @@ func (s *State) Eval() []int {
 			i := p.Order[w<<6+bits.TrailingZeros64(word)]
 			word &= word - 1
 			s.last = append(s.last, i)
-			if fn := m.fast[i]; fn != nil && !s.over[i] && s.depsKnown(i) {
+			if c := m.code[i]; len(c) > 0 && !s.over[i] && s.depsKnown(i) {
 				f.Fail, f.Args = nil, nil
-				if v := fn(f); f.Fail == nil && v-v == 0 { // v-v is NaN for NaN and ±Inf
+				if v := m.exec(f, c); f.Fail == nil && v-v == 0 { // v-v is NaN for NaN and ±Inf
 					s.setProblem(i, nil)
 					f.Num[i], s.Known[i] = v, true
 					continue
@@ -207,10 +207,11 @@ func (s *State) Eval() []int {
 func (s *State) full() {
 	f := &s.F
 	num, known, over := f.Num, s.Known, s.over
-	plan := s.M.plan
+	m := s.M
+	plan := m.plan
 	for k, st := range plan {
 		i := st.i
-		if st.fn == nil || over[i] {
+		if !st.fast || over[i] {
 			s.run(int(i))
 			if !known[i] {
 				s.rest(plan[k+1:])
@@ -218,9 +219,9 @@ func (s *State) full() {
 			}
 			continue
 		}
-		v := st.fn(f)
+		v := m.exec(f, m.code[i])
 		if f.Fail != nil || v-v != 0 { // v-v is NaN for NaN and ±Inf
-			s.numDone(s.M.P.Cells[i], v)
+			s.numDone(m.P.Cells[i], v)
 			s.rest(plan[k+1:])
 			return
 		}
@@ -304,6 +305,10 @@ func (s *State) run(i int) {
 		s.Known[i] = true
 		return
 	}
+	if sp := s.M.code[i]; len(sp) > 0 {
+		s.numDone(c, s.M.exec(f, sp))
+		return
+	}
 	if fn := s.M.num[i]; fn != nil {
 		s.numDone(c, fn(f))
 		return
@@ -384,8 +389,9 @@ func (s *State) ownOverrides() {
 
 // depsKnown reports whether every dependency of cell i has a value.
 func (s *State) depsKnown(i int) bool {
+	known := s.Known
 	for _, j := range s.M.P.Deps(i) {
-		if !s.Known[j] {
+		if !known[j] {
 			return false
 		}
 	}
