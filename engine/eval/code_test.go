@@ -8,6 +8,7 @@ import (
 
 	"github.com/sheafcalc/sheaf/engine/check"
 	"github.com/sheafcalc/sheaf/engine/sheet"
+	"github.com/sheafcalc/sheaf/funcs"
 )
 
 // TestCodeMatchesClosures runs every formula both ways, as its code on the
@@ -51,7 +52,6 @@ func TestCodeMatchesClosures(t *testing.T) {
 		t.Fatal(errs)
 	}
 	m := Compile(p)
-	vals := []float64{0, math.Copysign(0, -1), 1, -2.5, 3, 1e300, -1e-300, math.Inf(1), math.Inf(-1), math.NaN()}
 	for k, c := range cases {
 		cell := p.Lookup(fmt.Sprintf("c%d", k))
 		code := m.code[cell.Index]
@@ -61,26 +61,66 @@ func TestCodeMatchesClosures(t *testing.T) {
 		if call := len(code) == 1 && code[0].op() == opCall; call != c.call {
 			t.Errorf("%s: code is one call: %v, want %v", c.expr, call, c.call)
 		}
-		ref := m.numOf(cell.Body)
-		for _, x := range vals {
-			for _, y := range vals {
-				var a, b Frame
-				for _, fr := range []*Frame{&a, &b} {
-					fr.Num = make([]float64, len(p.Cells))
-					fr.Num[0], fr.Num[1], fr.Num[2] = x, y, 3
-				}
-				got, want := m.exec(&a, code), ref(&b)
-				if math.Float64bits(got) != math.Float64bits(want) && !(math.IsNaN(got) && math.IsNaN(want)) {
-					t.Errorf("%s at x=%g y=%g: code gives %g, closures %g", c.expr, x, y, got, want)
-				}
-				if (a.Fail == nil) != (b.Fail == nil) {
-					t.Fatalf("%s at x=%g y=%g: code fails %v, closures %v", c.expr, x, y, a.Fail, b.Fail)
-				}
-				if a.Fail != nil && (a.Fail.Msg != b.Fail.Msg || a.Fail.Node.Range() != b.Fail.Node.Range()) {
-					t.Errorf("%s at x=%g y=%g: code fails with %q at %v, closures with %q at %v", c.expr, x, y,
-						a.Fail.Msg, a.Fail.Node.Range().Start(), b.Fail.Msg, b.Fail.Node.Range().Start())
-				}
+		sameBothWays(t, m, cell, c.expr)
+	}
+}
+
+// sweepXY are the inputs a formula of x and y is run on both ways.
+var sweepXY = []float64{0, math.Copysign(0, -1), 1, -2.5, 3, 1e300, -1e-300, math.Inf(1), math.Inf(-1), math.NaN()}
+
+// sameBothWays runs cell, a formula of x, y and z (the first three cells
+// of m's program), as code and as closures over sweepXY, and reports any
+// difference in bits or in failure.
+func sameBothWays(t *testing.T, m *Machine, cell *check.Cell, expr string) {
+	t.Helper()
+	code, ref := m.code[cell.Index], m.numOf(cell.Body)
+	for _, x := range sweepXY {
+		for _, y := range sweepXY {
+			var a, b Frame
+			for _, fr := range []*Frame{&a, &b} {
+				fr.Num = make([]float64, len(m.P.Cells))
+				fr.Num[0], fr.Num[1], fr.Num[2] = x, y, 3
+			}
+			got, want := m.exec(&a, code), ref(&b)
+			if math.Float64bits(got) != math.Float64bits(want) && !(math.IsNaN(got) && math.IsNaN(want)) {
+				t.Errorf("%s at x=%g y=%g: code gives %g, closures %g", expr, x, y, got, want)
+			}
+			if (a.Fail == nil) != (b.Fail == nil) {
+				t.Fatalf("%s at x=%g y=%g: code fails %v, closures %v", expr, x, y, a.Fail, b.Fail)
+			}
+			if a.Fail != nil && (a.Fail.Msg != b.Fail.Msg || a.Fail.Node.Range() != b.Fail.Node.Range()) {
+				t.Errorf("%s at x=%g y=%g: code fails with %q at %v, closures with %q at %v", expr, x, y,
+					a.Fail.Msg, a.Fail.Node.Range().Start(), b.Fail.Msg, b.Fail.Node.Range().Start())
 			}
 		}
 	}
+}
+
+// FuzzCodeMatchesClosures compiles a formula of x, y and z that checks
+// and runs it both ways: any formula the checker accepts as a number
+// must give the same bits and the same failure.
+func FuzzCodeMatchesClosures(f *testing.F) {
+	for _, s := range []string{"x + y", "(x + y) / 2 + z / 10", "x ^ y - 2 / x", "-(x * y) / (y - x)",
+		"sqrt(x) + min(x, y) * 2", "x > y ? x / y : y ^ 3", "1 / (x - x) + y"} {
+		f.Add(s)
+	}
+	f.Fuzz(func(t *testing.T, expr string) {
+		if strings.ContainsAny(expr, "\n\r#") {
+			return // one line of formula
+		}
+		src := "x = 1\ny = 1\nz = 3\nc = " + expr + "\n"
+		sf, errs := sheet.Parse("t.sheaf", []byte(src))
+		if sf == nil || errs.HasErrors() {
+			return
+		}
+		p, errs := check.Sheet(sf, check.Options{})
+		if errs.HasErrors() {
+			return
+		}
+		cell := p.Lookup("c")
+		if cell == nil || cell.Type == nil || cell.Body.IsZero() || cell.Body.Type().Kind != funcs.Number || len(p.Cells) != 4 {
+			return
+		}
+		sameBothWays(t, Compile(p), cell, expr)
+	})
 }
