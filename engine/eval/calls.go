@@ -11,13 +11,13 @@ import (
 // userCall calls a user function with a Number result.
 func (m *Machine) userCall(n check.Node) numFn {
 	args, idx := m.nums(n.Args()), int(n.Index())
-	return func(f *Frame) float64 { return call(m, f, args, idx, m.num[idx], nan) }
+	return func(f *Frame) float64 { return call(m, f, args, idx, m.numAt(idx), nan) }
 }
 
 // userCallVal calls a user function whose result is not a number.
 func (m *Machine) userCallVal(n check.Node) valFn {
 	args, idx := m.nums(n.Args()), int(n.Index())
-	return func(f *Frame) funcs.Value { return call(m, f, args, idx, m.val[idx], nil) }
+	return func(f *Frame) funcs.Value { return call(m, f, args, idx, m.valAt(idx), nil) }
 }
 
 // call runs body, the compiled body of user function idx (read at run
@@ -62,7 +62,7 @@ func (m *Machine) funcRef(n check.Node) valFn {
 	idx, name, ty := int(n.Index()), n.Str(), n.Type()
 	return func(f *Frame) funcs.Value {
 		num, val := f.Num, f.Val
-		body := m.num[idx]
+		body := m.numAt(idx)
 		return &funcs.FuncValue{Type: ty, Name: name, Call: func(args ...float64) float64 {
 			if body == nil {
 				return nan

@@ -83,10 +83,15 @@ func (in instr) b() int     { return int(in >> (8 + argBits)) }
 // deeper (no real one is) compiles to closures alone.
 const maxDepth = 16
 
-// chunkSize is the number of instructions of a chunk of code. Code lies in
-// chunks rather than in one growing slice, which would be copied over and
-// over as a large sheet compiles (a slice grows by a quarter at a time).
-const chunkSize = 4096
+// Code lies in chunks rather than in one growing slice, which would be
+// copied over and over as a large sheet compiles (a large slice grows by a
+// quarter at a time). The first chunk holds firstChunk instructions and
+// each next one twice as many as the last, up to chunkSize: a small sheet
+// fills a chunk or two of a few kilobytes, a large one chunks of 32 kB.
+const (
+	firstChunk = 256
+	chunkSize  = 4096
+)
 
 // emitter compiles one formula into the last chunk of the machine.
 type emitter struct {
@@ -106,8 +111,10 @@ func (m *Machine) compileCode(n check.Node) []instr {
 		// A long formula (a sum of a thousand terms) gets a chunk of
 		// its own, as long as it needs.
 		m.chunks = append(m.chunks, make([]instr, 0, room))
-	} else if len(m.chunks) == 0 || cap(m.chunks[len(m.chunks)-1])-len(m.chunks[len(m.chunks)-1]) < room {
-		m.chunks = append(m.chunks, make([]instr, 0, chunkSize))
+	} else if len(m.chunks) == 0 {
+		m.chunks = append(m.chunks, make([]instr, 0, max(firstChunk, room)))
+	} else if last := m.chunks[len(m.chunks)-1]; cap(last)-len(last) < room {
+		m.chunks = append(m.chunks, make([]instr, 0, max(min(2*cap(last), chunkSize), room)))
 	}
 	k := len(m.chunks) - 1
 	from := len(m.chunks[k])

@@ -21,11 +21,8 @@ type Machine struct {
 	demand   []numFn
 	capacity []numFn
 	topoPos  []int32
-	// plan is p.Order with what the first, full evaluation needs of each
-	// cell, read in one pass over contiguous memory.
-	plan []step
-	// code[i] is the code of cell i (see code.go) when it is a Number cell
-	// with no other path (as in plan), else empty. An incremental Eval runs
+	// code[i] is the code of cell i (see code.go) when it is an input or
+	// a derived cell of type Number, which has no other path; else empty. An incremental Eval runs
 	// such a cell from it and P.Deps(i) alone, without reaching for the
 	// cell itself.
 	code [][]instr
@@ -49,18 +46,11 @@ type Machine struct {
 	pinSlot map[check.Node]int
 }
 
-// step is one cell of the full evaluation: fast when the cell is a typed
-// Number cell with no other path, which runs its code.
-type step struct {
-	i    int32
-	fast bool
-}
-
 // Compile turns every typed cell of p into code or closures. Cells without a type
 // (they failed checking) get none and evaluate as unknown.
 func Compile(p *check.Program) *Machine {
 	n := len(p.Cells)
-	m := &Machine{P: p, num: make([]numFn, n), val: make([]valFn, n), topoPos: make([]int32, n),
+	m := &Machine{P: p, topoPos: make([]int32, n),
 		code: make([][]instr, n), constIdx: map[uint64]int32{},
 		noProblem: make([]*diag.Diagnostic, n), noOver: make([]bool, n)}
 	for _, c := range p.Cells {
@@ -77,10 +67,8 @@ func Compile(p *check.Program) *Machine {
 	for _, i := range p.Order {
 		m.compileCell(p.Cells[i])
 	}
-	m.plan = make([]step, len(p.Order))
-	for k, i := range p.Order {
+	for _, i := range p.Order {
 		c := p.Cells[i]
-		m.plan[k] = step{i: int32(i)}
 		if c.Type == nil {
 			continue
 		}
@@ -90,13 +78,44 @@ func Compile(p *check.Program) *Machine {
 		case check.Function, check.Table:
 			m.needVal = true
 		default:
-			if c.Type.Kind != funcs.Number || m.val[i] != nil {
+			if c.Type.Kind != funcs.Number || m.valAt(i) != nil {
 				m.needVal = true
 			}
-			m.plan[k].fast = len(m.code[i]) > 0
 		}
 	}
 	return m
+}
+
+// setNum and setVal set the closure of cell i, making the table on the
+// first: a sheet of Number cells and no functions (a large one, most
+// often) needs neither table, and each is 8 bytes a cell.
+func (m *Machine) setNum(i int, fn numFn) {
+	if m.num == nil {
+		m.num = make([]numFn, len(m.P.Cells))
+	}
+	m.num[i] = fn
+}
+
+func (m *Machine) setVal(i int, fn valFn) {
+	if m.val == nil {
+		m.val = make([]valFn, len(m.P.Cells))
+	}
+	m.val[i] = fn
+}
+
+// numAt and valAt return the closure of cell i, nil when it has none.
+func (m *Machine) numAt(i int) numFn {
+	if m.num == nil {
+		return nil
+	}
+	return m.num[i]
+}
+
+func (m *Machine) valAt(i int) valFn {
+	if m.val == nil {
+		return nil
+	}
+	return m.val[i]
 }
 
 // compileCell fills the slots of cell c.
@@ -111,7 +130,7 @@ func (m *Machine) compileCell(c *check.Cell) {
 		m.capacity[c.Index] = m.numOf(xc.Capacity)
 	case check.Table:
 		if len(c.Extra().Entries) > 0 {
-			m.val[c.Index] = m.tableOf(c)
+			m.setVal(c.Index, m.tableOf(c))
 		}
 	default:
 		if c.Body.IsZero() {
@@ -120,15 +139,15 @@ func (m *Machine) compileCell(c *check.Cell) {
 		switch c.Body.Type().Kind {
 		case funcs.Number:
 			if c.Kind == check.Function {
-				m.num[c.Index] = m.numOf(c.Body)
+				m.setNum(c.Index, m.numOf(c.Body))
 			} else {
 				m.code[c.Index] = m.compileCode(c.Body)
 			}
 		case funcs.Bool:
 			b := m.boolOf(c.Body)
-			m.val[c.Index] = func(f *Frame) funcs.Value { return b(f) }
+			m.setVal(c.Index, func(f *Frame) funcs.Value { return b(f) })
 		default:
-			m.val[c.Index] = m.valOf(c.Body)
+			m.setVal(c.Index, m.valOf(c.Body))
 		}
 	}
 }

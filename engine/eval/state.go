@@ -208,21 +208,21 @@ func (s *State) full() {
 	f := &s.F
 	num, known, over := f.Num, s.Known, s.over
 	m := s.M
-	plan := m.plan
-	for k, st := range plan {
-		i := st.i
-		if !st.fast || over[i] {
-			s.run(int(i))
+	order := m.P.Order
+	for k, i := range order {
+		code := m.code[i]
+		if len(code) == 0 || over[i] {
+			s.run(i)
 			if !known[i] {
-				s.rest(plan[k+1:])
+				s.rest(order[k+1:])
 				return
 			}
 			continue
 		}
-		v := m.exec(f, m.code[i])
+		v := m.exec(f, code)
 		if f.Fail != nil || v-v != 0 { // v-v is NaN for NaN and ±Inf
 			s.numDone(m.P.Cells[i], v)
-			s.rest(plan[k+1:])
+			s.rest(order[k+1:])
 			return
 		}
 		num[i] = v
@@ -230,10 +230,10 @@ func (s *State) full() {
 	}
 }
 
-// rest evaluates the remaining steps of a full evaluation with run.
-func (s *State) rest(plan []step) {
-	for _, st := range plan {
-		s.run(int(st.i))
+// rest evaluates the remaining cells of a full evaluation with run.
+func (s *State) rest(order []int) {
+	for _, i := range order {
+		s.run(i)
 	}
 }
 
@@ -278,7 +278,7 @@ func (s *State) run(i int) {
 		s.Known[i] = true
 		return
 	case check.Table:
-		if !s.over[i] && s.M.val[i] == nil { // a table of numbers as written
+		if !s.over[i] && s.M.valAt(i) == nil { // a table of numbers as written
 			f.Val[i] = c.Extra().Table
 			s.Known[i] = true
 			return
@@ -309,11 +309,7 @@ func (s *State) run(i int) {
 		s.numDone(c, s.M.exec(f, sp))
 		return
 	}
-	if fn := s.M.num[i]; fn != nil {
-		s.numDone(c, fn(f))
-		return
-	}
-	if fn := s.M.val[i]; fn != nil {
+	if fn := s.M.valAt(i); fn != nil {
 		v := fn(f)
 		if f.Fail != nil {
 			s.failed(c, f.Fail)
