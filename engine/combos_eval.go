@@ -181,10 +181,10 @@ func (st *State) recomputeCombos() {
 			}
 			// The check's own problem, or those of the cells it depends
 			// on: in this combination only, so the view may not show them.
-			if p := work.Problem[i]; p != nil {
+			if p := work.Problem(i); p != nil {
 				v.own = p
 			} else {
-				for j, p := range work.Problem {
+				for j, p := range work.Problems() {
 					if p != nil && cs.Depends[j] {
 						probs = append(probs, p)
 					}
@@ -294,7 +294,7 @@ func (st *State) recomputeCombos() {
 		v := vals[k]
 		own := v.own
 		if !v.kn && own == nil && g == worst {
-			own = work.Problem[i] // nil when a cell it uses failed (the view shows that one)
+			own = work.Problem(i) // nil when a cell it uses failed (the view shows that one)
 		}
 		if own != nil {
 			own = inCombo(own, cs, g)
@@ -436,7 +436,7 @@ func (st *State) addCombos(r *Results) {
 	// (A check's own problem names its governing combination already.)
 	inView := map[*diag.Diagnostic]bool{}
 	prog := st.sheet.prog
-	for i, p := range cm.view.Problem {
+	for i, p := range cm.view.Problems() {
 		if p != nil && cs.Depends[i] && prog.Cells[i].Kind != Check && (cm.cellIn[i] == cm.shown || cm.cellIn[i] < 0) {
 			inView[p] = true
 		}

@@ -122,7 +122,7 @@ func (st *State) Results() *Results {
 	for i, c := range s.prog.Cells {
 		cr := &r.Cells[i]
 		ends[i] = -1
-		if p := e.Problem[i]; p != nil {
+		if p := e.Problem(i); p != nil {
 			r.Problems = append(r.Problems, p)
 		}
 		if st.fill(cr, i) {
@@ -193,7 +193,7 @@ func (st *State) checkResult(cr *CellResult, i int) CheckResult {
 			ch.Governing = g.Text()
 		}
 	} else if e.Unassessed(i) {
-		ch.Problem = e.Problem[i]
+		ch.Problem = e.Problem(i)
 	}
 	return ch
 }
@@ -246,7 +246,7 @@ func (st *State) Update(r *Results, idx []int) {
 		}
 	}
 	r.Problems = r.Problems[:0]
-	for _, p := range st.st.Problem {
+	for _, p := range st.st.Problems() {
 		if p != nil {
 			r.Problems = append(r.Problems, p)
 		}

@@ -116,11 +116,8 @@ func (s *State) Governing(i int) check.Node {
 // checks refused by Assess: the cells that could not be computed. It costs
 // nothing while no cell has had a problem.
 func (s *State) Uncomputed() int {
-	if !s.ownProblem {
-		return 0
-	}
 	n := 0
-	for i, p := range s.Problem {
+	for i, p := range s.problems {
 		if p != nil && !s.Unassessed(i) {
 			n++
 		}

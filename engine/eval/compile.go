@@ -6,7 +6,6 @@ import (
 	"strconv"
 
 	"github.com/sheafcalc/sheaf/engine/check"
-	"github.com/sheafcalc/sheaf/engine/diag"
 	"github.com/sheafcalc/sheaf/engine/units"
 	"github.com/sheafcalc/sheaf/funcs"
 	"github.com/sheafcalc/sheaf/internal/plural"
@@ -36,10 +35,9 @@ type Machine struct {
 	// state leaves Val nil.
 	needVal  bool
 	hasCheck bool
-	// noProblem and noOver are all nil and all false, shared read only by
-	// every state until it writes its own (see State.setProblem).
-	noProblem []*diag.Diagnostic
-	noOver    []bool
+	// noOver is all false, shared read only by every state until it
+	// writes its own (see State.ownOverrides).
+	noOver []bool
 	// Pins lists the in_combination calls; Frame.Pins holds their values
 	// in the same order.
 	Pins    []check.Node
@@ -52,7 +50,7 @@ func Compile(p *check.Program) *Machine {
 	n := len(p.Cells)
 	m := &Machine{P: p, topoPos: make([]int32, n),
 		code: make([][]instr, n), constIdx: map[uint64]int32{},
-		noProblem: make([]*diag.Diagnostic, n), noOver: make([]bool, n)}
+		noOver: make([]bool, n)}
 	for _, c := range p.Cells {
 		if c.Kind == check.Check {
 			m.demand, m.capacity = make([]numFn, n), make([]numFn, n)

@@ -52,7 +52,7 @@ func TestFailureAtNode(t *testing.T) {
 			if st.Known[bad.Index] {
 				t.Fatalf("%s is known: %g", c.cell, st.F.Num[bad.Index])
 			}
-			p := st.Problem[bad.Index]
+			p := st.Problem(bad.Index)
 			if p == nil {
 				t.Fatalf("%s failed without a problem", c.cell)
 			}
@@ -68,8 +68,8 @@ func TestFailureAtNode(t *testing.T) {
 				t.Errorf("summary %q, want %q about `%s`", p.Summary, c.msg, c.cell)
 			}
 			for _, other := range m.P.Cells {
-				if other != bad && st.Problem[other.Index] != nil {
-					t.Errorf("%s reported too: %v", other.Name, st.Problem[other.Index])
+				if other != bad && st.Problem(other.Index) != nil {
+					t.Errorf("%s reported too: %v", other.Name, st.Problem(other.Index))
 				}
 			}
 			if u := cell(t, m, "use_it"); bad.Kind != check.Check && st.Known[u.Index] {
@@ -90,7 +90,7 @@ func TestFailureInFunction(t *testing.T) {
 	st.Eval()
 	for _, name := range []string{"b", "c"} {
 		c := cell(t, m, name)
-		p := st.Problem[c.Index]
+		p := st.Problem(c.Index)
 		if p == nil || st.Known[c.Index] {
 			t.Fatalf("%s: known=%v problem=%v", name, st.Known[c.Index], p)
 		}
@@ -122,11 +122,11 @@ func TestCheckOutcomes(t *testing.T) {
 			assessable := cp > 0 && !math.IsInf(cp, 0) && finite(d) && d >= 0
 			for _, i := range []int{u, v} {
 				if st.Known[i] != assessable {
-					t.Errorf("dem=%g cap=%g: known=%v, want %v (%v)", d, cp, st.Known[i], assessable, st.Problem[i])
+					t.Errorf("dem=%g cap=%g: known=%v, want %v (%v)", d, cp, st.Known[i], assessable, st.Problem(i))
 					continue
 				}
 				if !assessable {
-					if p := st.Problem[i]; p == nil || !strings.Contains(p.Summary, "assessed") {
+					if p := st.Problem(i); p == nil || !strings.Contains(p.Summary, "assessed") {
 						t.Errorf("dem=%g cap=%g: problem %v", d, cp, p)
 					}
 					continue

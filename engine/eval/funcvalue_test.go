@@ -38,7 +38,7 @@ func held(t *testing.T, src, name string) *funcs.FuncValue {
 	st.Eval()
 	c := cell(t, m, name)
 	if !st.Known[c.Index] {
-		t.Fatalf("%s: %v", name, st.Problem[c.Index])
+		t.Fatalf("%s: %v", name, st.Problem(c.Index))
 	}
 	fv, ok := st.F.Val[c.Index].(*funcs.RecordValue).Payload.(*funcs.FuncValue)
 	if !ok {

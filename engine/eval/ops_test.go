@@ -70,12 +70,12 @@ func checkCell(t *testing.T, st *eval.State, cc *check.Cell, want, rel float64, 
 	i := cc.Index
 	if finite(want) {
 		if !st.Known[i] {
-			t.Errorf("%s: unknown (%v), want %.17g", what, st.Problem[i], want)
+			t.Errorf("%s: unknown (%v), want %.17g", what, st.Problem(i), want)
 		} else if got := st.F.Num[i]; !within(got, want, rel) {
 			t.Errorf("%s = %.17g, want %.17g", what, got, want)
 		}
-		if st.Problem[i] != nil {
-			t.Errorf("%s: problem %v on a finite result", what, st.Problem[i])
+		if st.Problem(i) != nil {
+			t.Errorf("%s: problem %v on a finite result", what, st.Problem(i))
 		}
 		return
 	}
@@ -83,7 +83,7 @@ func checkCell(t *testing.T, st *eval.State, cc *check.Cell, want, rel float64, 
 		t.Errorf("%s = %.17g, want a failure (Go gives %g)", what, st.F.Num[i], want)
 		return
 	}
-	p := st.Problem[i]
+	p := st.Problem(i)
 	if p == nil {
 		t.Errorf("%s: unknown without a problem", what)
 		return

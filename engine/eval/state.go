@@ -1,6 +1,7 @@
 package eval
 
 import (
+	"iter"
 	"math"
 	"math/bits"
 	"slices"
@@ -16,14 +17,14 @@ type State struct {
 	M        *Machine
 	F        Frame
 	Known    []bool
-	Demand   []float64 // check cells: demand in SI
-	Capacity []float64 // check cells: capacity in SI
-	Problem  []*diag.Diagnostic
-	over     []bool // overridden inputs
-	// Problem and over start as the machine's shared empty slices (most
+	Demand   []float64          // check cells: demand in SI
+	Capacity []float64          // check cells: capacity in SI
+	problems []*diag.Diagnostic // nil until the first problem; Problem reads it
+	over     []bool             // overridden inputs
+	// over starts as the machine's shared empty slice (most
 	// states never write either) and are copied on the first write.
-	ownProblem, ownOver bool
-	dirty               []int
+	ownOver bool
+	dirty   []int
 	// stale has one bit per position of Program.Order: the cells an
 	// incremental Eval must run. Reading the bits in order gives them in
 	// evaluation order without a sort; Eval leaves every bit clear.
@@ -40,11 +41,10 @@ type State struct {
 func (m *Machine) NewState() *State {
 	n := len(m.P.Cells)
 	s := &State{
-		M:       m,
-		F:       Frame{Num: make([]float64, n), Stack: make([]float64, 0, 16)},
-		Known:   make([]bool, n),
-		Problem: m.noProblem,
-		over:    m.noOver,
+		M:     m,
+		F:     Frame{Num: make([]float64, n), Stack: make([]float64, 0, 16)},
+		Known: make([]bool, n),
+		over:  m.noOver,
 	}
 	// A sheet of numbers and no checks (the large generated ones) needs
 	// neither general values nor check sides: a fresh state is then a
@@ -68,17 +68,13 @@ func (s *State) Clone() *State {
 		Known:    slices.Clone(s.Known),
 		Demand:   slices.Clone(s.Demand),
 		Capacity: slices.Clone(s.Capacity),
-		Problem:  s.Problem,
 		over:     s.over,
 		// Own lists are copied; the machine's shared empty ones are not.
-		ownProblem: s.ownProblem,
-		ownOver:    s.ownOver,
-		dirty:      slices.Clone(s.dirty),
-		done:       s.done,
-		last:       slices.Clone(s.last),
-	}
-	if c.ownProblem {
-		c.Problem = slices.Clone(s.Problem)
+		problems: slices.Clone(s.problems),
+		ownOver:  s.ownOver,
+		dirty:    slices.Clone(s.dirty),
+		done:     s.done,
+		last:     slices.Clone(s.last),
 	}
 	if c.ownOver {
 		c.over = slices.Clone(s.over)
@@ -325,7 +321,7 @@ func (s *State) run(i int) {
 // that is missing, not a cell that failed to compute.
 func (s *State) Unassessed(i int) bool {
 	c := s.M.P.Cells[i]
-	if c.Kind != check.Check || s.Known[i] || s.Problem[i] == nil || s.Demand == nil {
+	if c.Kind != check.Check || s.Known[i] || s.Problem(i) == nil || s.Demand == nil {
 		return false
 	}
 	return !math.IsNaN(s.Demand[i]) && !math.IsNaN(s.Capacity[i])
@@ -355,18 +351,38 @@ func (s *State) failed(c *check.Cell, fl *Failure) {
 // order of Program.Order.
 func (s *State) Last() []int { return s.last }
 
-// setProblem records d (nil: none) as the problem of cell i. A state
-// shares the machine's empty problem list until its first problem: a
-// fresh state of a large sheet then costs a slice less, and clearing a
-// problem it never had writes nothing.
+// setProblem records d (nil: none) as the problem of cell i. A state has
+// no problem list until its first problem: a fresh state of a large sheet
+// then costs a slice less, and clearing a problem it never had writes
+// nothing.
 func (s *State) setProblem(i int, d *diag.Diagnostic) {
-	if !s.ownProblem {
+	if s.problems == nil {
 		if d == nil {
 			return
 		}
-		s.Problem, s.ownProblem = slices.Clone(s.Problem), true
+		s.problems = make([]*diag.Diagnostic, len(s.F.Num))
 	}
-	s.Problem[i] = d
+	s.problems[i] = d
+}
+
+// Problem returns the problem of cell i, nil when it has none.
+func (s *State) Problem(i int) *diag.Diagnostic {
+	if s.problems == nil {
+		return nil
+	}
+	return s.problems[i]
+}
+
+// Problems yields the cells that have a problem, with it, in the order of
+// Program.Cells.
+func (s *State) Problems() iter.Seq2[int, *diag.Diagnostic] {
+	return func(yield func(int, *diag.Diagnostic) bool) {
+		for i, p := range s.problems {
+			if p != nil && !yield(i, p) {
+				return
+			}
+		}
+	}
 }
 
 // SetProblem records d (nil: none) as the problem of cell i, for a caller

@@ -54,10 +54,10 @@ func randomSheet(rng *rand.Rand, inputs, derived int) string {
 func sameValues(m *eval.Machine, a, b *eval.State) string {
 	for _, c := range m.P.Cells {
 		i := c.Index
-		if a.Known[i] != b.Known[i] || (a.Problem[i] == nil) != (b.Problem[i] == nil) ||
+		if a.Known[i] != b.Known[i] || (a.Problem(i) == nil) != (b.Problem(i) == nil) ||
 			math.Float64bits(a.F.Num[i]) != math.Float64bits(b.F.Num[i]) {
 			return fmt.Sprintf("%s: known %v/%v, value %.17g/%.17g, problem %v/%v",
-				c.Name, a.Known[i], b.Known[i], a.F.Num[i], b.F.Num[i], a.Problem[i], b.Problem[i])
+				c.Name, a.Known[i], b.Known[i], a.F.Num[i], b.F.Num[i], a.Problem(i), b.Problem(i))
 		}
 	}
 	return ""
@@ -370,7 +370,7 @@ func TestRecomputeSteps(t *testing.T) {
 				// (nothing reads it), so only known values are compared.
 				for _, cl := range m.P.Cells {
 					j := cl.Index
-					a, b := st.Problem[j], fresh.Problem[j]
+					a, b := st.Problem(j), fresh.Problem(j)
 					if st.Known[j] != fresh.Known[j] || (a == nil) != (b == nil) || a != nil && a.Summary != b.Summary ||
 						st.Known[j] && math.Float64bits(st.F.Num[j]) != math.Float64bits(fresh.F.Num[j]) {
 						t.Fatalf("step %d: incremental and fresh differ at %s: known %v/%v, value %g/%g, problem %v/%v",
