@@ -21,7 +21,7 @@ func (s *Sheet) Files() []string {
 // can read its results without allocating.
 func (st *State) Number(c *Cell) (float64, bool) {
 	e := st.read()
-	if c == nil || c.Index >= len(st.sheet.prog.Cells) || st.sheet.prog.Cells[c.Index] != c || !e.Known[c.Index] {
+	if c == nil || c.Index >= len(st.sheet.prog.Cells) || st.sheet.prog.Cells[c.Index] != c || !e.Known(c.Index) {
 		return 0, false
 	}
 	if c.Type != nil && (c.Type.Kind == funcs.Number || c.Kind == Check) {

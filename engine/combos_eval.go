@@ -60,7 +60,7 @@ func (st *State) recomputeCombos() {
 	chars := make([]float64, len(cs.Cells))
 	known := make([]bool, len(cs.Cells))
 	for a, c := range cs.Cells {
-		chars[a], known[a] = base.F.Num[c.Index], base.Known[c.Index]
+		chars[a], known[a] = base.F.Num[c.Index], base.Known(c.Index)
 	}
 	work := base.Clone()
 	apply := func(m int) {
@@ -79,7 +79,7 @@ func (st *State) recomputeCombos() {
 			u, d, c := math.NaN(), math.NaN(), math.NaN()
 			if cs.states[k] == state {
 				switch {
-				case work.Known[i]:
+				case work.Known(i):
 					u, d, c = work.F.Num[i], work.Demand[i], work.Capacity[i]
 				case work.Unassessed(i):
 					// Both sides computed, the check refused by
@@ -267,7 +267,7 @@ func (st *State) recomputeCombos() {
 		}
 		findTerms(m)
 		for _, i := range cells {
-			sv := saved{i: i, num: work.F.Num[i], known: work.Known[i]}
+			sv := saved{i: i, num: work.F.Num[i], known: work.Known(i)}
 			if work.F.Val != nil {
 				sv.val = work.F.Val[i]
 			}
@@ -281,7 +281,8 @@ func (st *State) recomputeCombos() {
 		findTerms(worst)
 	}
 	for _, sv := range keep {
-		work.F.Num[sv.i], work.Known[sv.i] = sv.num, sv.known
+		work.F.Num[sv.i] = sv.num
+		work.SetKnown(sv.i, sv.known)
 		if work.F.Val != nil {
 			work.F.Val[sv.i] = sv.val
 		}
@@ -300,7 +301,8 @@ func (st *State) recomputeCombos() {
 			own = inCombo(own, cs, g)
 		}
 		work.SetProblem(i, own)
-		work.F.Num[i], work.Demand[i], work.Capacity[i], work.Known[i] = v.u, v.d, v.c, v.kn
+		work.F.Num[i], work.Demand[i], work.Capacity[i] = v.u, v.d, v.c
+		work.SetKnown(i, v.kn)
 	}
 	// Action cells show their characteristic values (the cells downstream
 	// keep those of the shown combination).

@@ -210,13 +210,13 @@ func (cs *Combos) evalPins(base *eval.State) {
 		w := base.Clone()
 		f := cs.All[p.combo].Factors
 		for a, c := range cs.Cells {
-			if base.Known[c.Index] {
+			if base.Known(c.Index) {
 				w.Set(c.Index, f[a]*base.F.Num[c.Index])
 			}
 		}
 		w.Eval()
 		v := math.NaN()
-		if w.Known[p.of] {
+		if w.Known(p.of) {
 			v = w.F.Num[p.of]
 		}
 		if base.F.Pins[k] != v || math.IsNaN(v) {

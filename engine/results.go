@@ -156,7 +156,7 @@ func (st *State) Results() *Results {
 func (st *State) fill(cr *CellResult, i int) (numText bool) {
 	s, e := st.sheet, st.read()
 	c := s.prog.Cells[i]
-	*cr = CellResult{Cell: c, Known: e.Known[i], Unit: s.DisplayUnit(c)}
+	*cr = CellResult{Cell: c, Known: e.Known(i), Unit: s.DisplayUnit(c)}
 	if cr.Known {
 		cr.Value = st.value(c)
 		if x, ok := cr.Value.(float64); ok {

@@ -111,7 +111,7 @@ func (st *State) Recompute() {
 // Value returns the current SI value of a cell and whether it is known.
 func (st *State) Value(name string) (funcs.Value, bool) {
 	c := st.sheet.Lookup(name)
-	if c == nil || !st.read().Known[c.Index] {
+	if c == nil || !st.read().Known(c.Index) {
 		return nil, false
 	}
 	return st.value(c), true

@@ -78,12 +78,12 @@ func OppositeSense(c *check.Cell) (is, writtenFor string) {
 // evaluated again on the current values; the first of equal terms wins.
 func (s *State) Governing(i int) check.Node {
 	c := s.M.P.Cells[i]
-	if c.Kind != check.Check || !s.Known[i] || c.Extra().Capacity.IsZero() {
+	if c.Kind != check.Check || !s.known[i] || c.Extra().Capacity.IsZero() {
 		return check.Node{}
 	}
 	n := c.Extra().Capacity
 	if n.Op() == check.OpCell {
-		if k := int(n.Index()); k >= 0 && k < len(s.M.P.Cells) && !s.M.P.Cells[k].Body.IsZero() && s.Known[k] {
+		if k := int(n.Index()); k >= 0 && k < len(s.M.P.Cells) && !s.M.P.Cells[k].Body.IsZero() && s.known[k] {
 			n = s.M.P.Cells[k].Body
 		}
 	}

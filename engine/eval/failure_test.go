@@ -49,7 +49,7 @@ func TestFailureAtNode(t *testing.T) {
 			st := m.NewState()
 			st.Eval()
 			bad := cell(t, m, c.cell)
-			if st.Known[bad.Index] {
+			if st.Known(bad.Index) {
 				t.Fatalf("%s is known: %g", c.cell, st.F.Num[bad.Index])
 			}
 			p := st.Problem(bad.Index)
@@ -72,7 +72,7 @@ func TestFailureAtNode(t *testing.T) {
 					t.Errorf("%s reported too: %v", other.Name, st.Problem(other.Index))
 				}
 			}
-			if u := cell(t, m, "use_it"); bad.Kind != check.Check && st.Known[u.Index] {
+			if u := cell(t, m, "use_it"); bad.Kind != check.Check && st.Known(u.Index) {
 				t.Error("a user of the failed cell has a value")
 			}
 		})
@@ -91,8 +91,8 @@ func TestFailureInFunction(t *testing.T) {
 	for _, name := range []string{"b", "c"} {
 		c := cell(t, m, name)
 		p := st.Problem(c.Index)
-		if p == nil || st.Known[c.Index] {
-			t.Fatalf("%s: known=%v problem=%v", name, st.Known[c.Index], p)
+		if p == nil || st.Known(c.Index) {
+			t.Fatalf("%s: known=%v problem=%v", name, st.Known(c.Index), p)
 		}
 		if p.Range.Start().Line != c.Pos().Line || !strings.Contains(p.Summary, "division by zero") {
 			t.Errorf("%s: problem %v, want division by zero on line %d", name, p, c.Pos().Line)
@@ -121,8 +121,8 @@ func TestCheckOutcomes(t *testing.T) {
 			want := d / cp
 			assessable := cp > 0 && !math.IsInf(cp, 0) && finite(d) && d >= 0
 			for _, i := range []int{u, v} {
-				if st.Known[i] != assessable {
-					t.Errorf("dem=%g cap=%g: known=%v, want %v (%v)", d, cp, st.Known[i], assessable, st.Problem(i))
+				if st.Known(i) != assessable {
+					t.Errorf("dem=%g cap=%g: known=%v, want %v (%v)", d, cp, st.Known(i), assessable, st.Problem(i))
 					continue
 				}
 				if !assessable {

@@ -37,7 +37,7 @@ func held(t *testing.T, src, name string) *funcs.FuncValue {
 	st := m.NewState()
 	st.Eval()
 	c := cell(t, m, name)
-	if !st.Known[c.Index] {
+	if !st.Known(c.Index) {
 		t.Fatalf("%s: %v", name, st.Problem(c.Index))
 	}
 	fv, ok := st.F.Val[c.Index].(*funcs.RecordValue).Payload.(*funcs.FuncValue)

@@ -69,7 +69,7 @@ func checkCell(t *testing.T, st *eval.State, cc *check.Cell, want, rel float64, 
 	t.Helper()
 	i := cc.Index
 	if finite(want) {
-		if !st.Known[i] {
+		if !st.Known(i) {
 			t.Errorf("%s: unknown (%v), want %.17g", what, st.Problem(i), want)
 		} else if got := st.F.Num[i]; !within(got, want, rel) {
 			t.Errorf("%s = %.17g, want %.17g", what, got, want)
@@ -79,7 +79,7 @@ func checkCell(t *testing.T, st *eval.State, cc *check.Cell, want, rel float64, 
 		}
 		return
 	}
-	if st.Known[i] {
+	if st.Known(i) {
 		t.Errorf("%s = %.17g, want a failure (Go gives %g)", what, st.F.Num[i], want)
 		return
 	}

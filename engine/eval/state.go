@@ -14,9 +14,13 @@ import (
 // State holds the values of one evaluation of a Machine. A State is not
 // safe for concurrent use; Clone gives each worker its own.
 type State struct {
-	M        *Machine
-	F        Frame
-	Known    []bool
+	M     *Machine
+	F     Frame
+	known []bool // Known reads it, SetKnown writes it from outside
+	// allKnown is set while every cell is known and nothing but the
+	// state's own evaluation has written known since: an incremental Eval
+	// then needs no look at the dependencies of a cell (see Eval).
+	allKnown bool
 	Demand   []float64          // check cells: demand in SI
 	Capacity []float64          // check cells: capacity in SI
 	problems []*diag.Diagnostic // nil until the first problem; Problem reads it
@@ -43,7 +47,7 @@ func (m *Machine) NewState() *State {
 	s := &State{
 		M:     m,
 		F:     Frame{Num: make([]float64, n), Stack: make([]float64, 0, 16)},
-		Known: make([]bool, n),
+		known: make([]bool, n),
 		over:  m.noOver,
 	}
 	// A sheet of numbers and no checks (the large generated ones) needs
@@ -65,7 +69,8 @@ func (s *State) Clone() *State {
 	c := &State{
 		M:        s.M,
 		F:        Frame{Num: slices.Clone(s.F.Num), Val: slices.Clone(s.F.Val), Stack: make([]float64, 0, 16), Pins: slices.Clone(s.F.Pins)},
-		Known:    slices.Clone(s.Known),
+		known:    slices.Clone(s.known),
+		allKnown: s.allKnown,
 		Demand:   slices.Clone(s.Demand),
 		Capacity: slices.Clone(s.Capacity),
 		over:     s.over,
@@ -168,7 +173,12 @@ func (s *State) Eval() []int {
 		}
 	}
 	// They run in the order of the bits, Program.Order, and are listed
-	// again in s.last as they run.
+	// again in s.last as they run. While every cell was known before and
+	// every cell run so far is known, the dependencies of the next are
+	// known: each is either not stale, so known as before, or stale and
+	// run before it. Then (trust) a cell is not looked at any further.
+	trust := s.allKnown
+	defer func() { s.allKnown = trust }()
 	n := len(s.last)
 	s.last = s.last[:0]
 	for w, word := range stale {
@@ -176,15 +186,16 @@ func (s *State) Eval() []int {
 			i := p.Order[w<<6+bits.TrailingZeros64(word)]
 			word &= word - 1
 			s.last = append(s.last, i)
-			if c := m.code[i]; len(c) > 0 && !s.over[i] && s.depsKnown(i) {
+			if c := m.code[i]; len(c) > 0 && !s.over[i] && (trust || s.depsKnown(i)) {
 				f.Fail, f.Args = nil, nil
 				if v := m.exec(f, c); f.Fail == nil && v-v == 0 { // v-v is NaN for NaN and ±Inf
 					s.setProblem(i, nil)
-					f.Num[i], s.Known[i] = v, true
+					f.Num[i], s.known[i] = v, true
 					continue
 				}
 			}
 			s.run(i) // the general path, which also reports a failure
+			trust = trust && s.known[i]
 		}
 		stale[w] = 0
 		if len(s.last) == n {
@@ -202,7 +213,7 @@ func (s *State) Eval() []int {
 // unknown switches to run, which checks the dependencies of each cell.
 func (s *State) full() {
 	f := &s.F
-	num, known, over := f.Num, s.Known, s.over
+	num, known, over := f.Num, s.known, s.over
 	m := s.M
 	order := m.P.Order
 	for k, i := range order {
@@ -224,6 +235,7 @@ func (s *State) full() {
 		num[i] = v
 		known[i] = true
 	}
+	s.allKnown = true // the loop ran to its end: every cell is known
 }
 
 // rest evaluates the remaining cells of a full evaluation with run.
@@ -250,19 +262,19 @@ func (s *State) numDone(c *check.Cell, v float64) {
 		return
 	}
 	f.Num[i] = v
-	s.Known[i] = true
+	s.known[i] = true
 }
 
 // run evaluates cell i.
 func (s *State) run(i int) {
 	c := s.M.P.Cells[i]
 	s.setProblem(i, nil)
-	s.Known[i] = false
+	s.known[i] = false
 	if c.Type == nil {
 		return
 	}
 	for _, j := range s.M.P.Deps(i) {
-		if !s.Known[j] {
+		if !s.known[j] {
 			return // skipped: the failing cell reported it
 		}
 	}
@@ -271,12 +283,12 @@ func (s *State) run(i int) {
 	f.Args = nil
 	switch c.Kind {
 	case check.Function:
-		s.Known[i] = true
+		s.known[i] = true
 		return
 	case check.Table:
 		if !s.over[i] && s.M.valAt(i) == nil { // a table of numbers as written
 			f.Val[i] = c.Extra().Table
-			s.Known[i] = true
+			s.known[i] = true
 			return
 		}
 		// A table with entries that follow cells takes the general path.
@@ -294,11 +306,11 @@ func (s *State) run(i int) {
 			return
 		}
 		f.Num[i] = d / cp
-		s.Known[i] = true
+		s.known[i] = true
 		return
 	}
 	if s.over[i] {
-		s.Known[i] = true
+		s.known[i] = true
 		return
 	}
 	if sp := s.M.code[i]; len(sp) > 0 {
@@ -312,7 +324,7 @@ func (s *State) run(i int) {
 			return
 		}
 		f.Val[i] = v
-		s.Known[i] = true
+		s.known[i] = true
 	}
 }
 
@@ -321,7 +333,7 @@ func (s *State) run(i int) {
 // that is missing, not a cell that failed to compute.
 func (s *State) Unassessed(i int) bool {
 	c := s.M.P.Cells[i]
-	if c.Kind != check.Check || s.Known[i] || s.Problem(i) == nil || s.Demand == nil {
+	if c.Kind != check.Check || s.known[i] || s.Problem(i) == nil || s.Demand == nil {
 		return false
 	}
 	return !math.IsNaN(s.Demand[i]) && !math.IsNaN(s.Capacity[i])
@@ -365,6 +377,17 @@ func (s *State) setProblem(i int, d *diag.Diagnostic) {
 	s.problems[i] = d
 }
 
+// Known reports whether cell i has a value.
+func (s *State) Known(i int) bool { return s.known[i] }
+
+// SetKnown records whether cell i has a value, for a caller that puts
+// together a state from others (as SetProblem). The next Eval then looks
+// at the dependencies of every cell it runs.
+func (s *State) SetKnown(i int, v bool) {
+	s.known[i] = v
+	s.allKnown = false
+}
+
 // Problem returns the problem of cell i, nil when it has none.
 func (s *State) Problem(i int) *diag.Diagnostic {
 	if s.problems == nil {
@@ -401,7 +424,7 @@ func (s *State) ownOverrides() {
 
 // depsKnown reports whether every dependency of cell i has a value.
 func (s *State) depsKnown(i int) bool {
-	known := s.Known
+	known := s.known
 	for _, j := range s.M.P.Deps(i) {
 		if !known[j] {
 			return false

@@ -54,10 +54,10 @@ func randomSheet(rng *rand.Rand, inputs, derived int) string {
 func sameValues(m *eval.Machine, a, b *eval.State) string {
 	for _, c := range m.P.Cells {
 		i := c.Index
-		if a.Known[i] != b.Known[i] || (a.Problem(i) == nil) != (b.Problem(i) == nil) ||
+		if a.Known(i) != b.Known(i) || (a.Problem(i) == nil) != (b.Problem(i) == nil) ||
 			math.Float64bits(a.F.Num[i]) != math.Float64bits(b.F.Num[i]) {
 			return fmt.Sprintf("%s: known %v/%v, value %.17g/%.17g, problem %v/%v",
-				c.Name, a.Known[i], b.Known[i], a.F.Num[i], b.F.Num[i], a.Problem(i), b.Problem(i))
+				c.Name, a.Known(i), b.Known(i), a.F.Num[i], b.F.Num[i], a.Problem(i), b.Problem(i))
 		}
 	}
 	return ""
@@ -279,6 +279,13 @@ func TestRecomputeSteps(t *testing.T) {
 				{cell: "in0", v: 2, unknown: []string{"d", "e"}, values: map[string]float64{"f": 6}},
 				{cell: "in0", v: 3, values: map[string]float64{"d": 1, "e": 4, "f": 9}},
 			}},
+		{name: "a failure reaches cells through other stale cells",
+			src: "in0 = 1\nd = 1 / (in0 - 2)\ne = d * 2\nf = e + 1\ng = in0 + 1\n",
+			steps: []step{
+				{cell: "in0", v: 2, unknown: []string{"d", "e", "f"}, values: map[string]float64{"g": 3}},
+				{cell: "in0", v: 4, values: map[string]float64{"d": 0.5, "e": 1, "f": 2, "g": 5}},
+				{cell: "in0", v: 2, unknown: []string{"d", "e", "f"}, values: map[string]float64{"g": 3}},
+			}},
 		{name: "infinite and NaN mid-recompute",
 			src: "x = 1\ny = x * 1e300\nz = y * 1e10\nw = x * 0\n",
 			steps: []step{
@@ -371,25 +378,25 @@ func TestRecomputeSteps(t *testing.T) {
 				for _, cl := range m.P.Cells {
 					j := cl.Index
 					a, b := st.Problem(j), fresh.Problem(j)
-					if st.Known[j] != fresh.Known[j] || (a == nil) != (b == nil) || a != nil && a.Summary != b.Summary ||
-						st.Known[j] && math.Float64bits(st.F.Num[j]) != math.Float64bits(fresh.F.Num[j]) {
+					if st.Known(j) != fresh.Known(j) || (a == nil) != (b == nil) || a != nil && a.Summary != b.Summary ||
+						st.Known(j) && math.Float64bits(st.F.Num[j]) != math.Float64bits(fresh.F.Num[j]) {
 						t.Fatalf("step %d: incremental and fresh differ at %s: known %v/%v, value %g/%g, problem %v/%v",
-							k, cl.Name, st.Known[j], fresh.Known[j], st.F.Num[j], fresh.F.Num[j], a, b)
+							k, cl.Name, st.Known(j), fresh.Known(j), st.F.Num[j], fresh.F.Num[j], a, b)
 					}
 				}
 				for _, name := range s.unknown {
-					if j := cell(t, m, name).Index; st.Known[j] {
+					if j := cell(t, m, name).Index; st.Known(j) {
 						t.Errorf("step %d: %s has the value %g, want none", k, name, st.F.Num[j])
 					}
 				}
 				for name, v := range s.values {
-					if j := cell(t, m, name).Index; !st.Known[j] || st.F.Num[j] != v {
-						t.Errorf("step %d: %s = %g (known %v), want %g", k, name, st.F.Num[j], st.Known[j], v)
+					if j := cell(t, m, name).Index; !st.Known(j) || st.F.Num[j] != v {
+						t.Errorf("step %d: %s = %g (known %v), want %g", k, name, st.F.Num[j], st.Known(j), v)
 					}
 				}
 				known := 0
 				for _, cl := range m.P.Cells {
-					if st.Known[cl.Index] {
+					if st.Known(cl.Index) {
 						known++
 					}
 				}
