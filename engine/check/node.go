@@ -50,7 +50,7 @@ const (
 // same indices: slot i is the type and meaning of syntax node i. What the
 // syntax already holds (the arguments, a literal's value, a name, the
 // span) is read from it rather than copied, and the type is an index into
-// the program's types, so a slot is 12 bytes without a pointer: the
+// the program's types, so a slot is 8 bytes without a pointer: the
 // collector does not scan a million of them. Brackets and a unary plus
 // have no node of their own: they stand for what they enclose.
 type Node struct {
@@ -60,11 +60,20 @@ type Node struct {
 
 // slot is what the checker found a syntax node to mean.
 type slot struct {
-	op      Op
-	builtin Builtin // for OpBuiltin
-	index   int32   // see Node.Index
-	ty      int32   // the type, in Program.types
+	word uint32 // op<<24 | index: see Node.Index; the Builtin for OpBuiltin
+	ty   int32  // the type, in Program.types
 }
+
+// maxIndex is the largest index a slot holds: cell indices stay below it
+// because Sheet caps Options.MaxCells (see maxCells).
+const maxIndex = 1<<24 - 1
+
+func (s *slot) op() Op { return Op(s.word >> 24) }
+
+func (s *slot) index() int32 { return int32(s.word & maxIndex) }
+
+// setIndex sets the index of s; i is in [0, maxIndex].
+func (s *slot) setIndex(i int32) { s.word = s.word&^maxIndex | uint32(i)&maxIndex }
 
 // IsZero reports whether n stands for no expression (a cell with no value
 // formula, a side of a check that failed).
@@ -73,14 +82,14 @@ func (n Node) IsZero() bool { return n.src == nil }
 func (n Node) slot() *slot { return &n.src.nodes[n.at] }
 
 // Op is the operation of the node.
-func (n Node) Op() Op { return n.src.nodes[n.at].op }
+func (n Node) Op() Op { return n.src.nodes[n.at].op() }
 
 // Builtin is the built-in function an OpBuiltin node applies.
-func (n Node) Builtin() Builtin { return n.src.nodes[n.at].builtin }
+func (n Node) Builtin() Builtin { return Builtin(n.src.nodes[n.at].index()) }
 
 // Index is the cell, parameter or field index the node refers to (see
 // Op); for OpPlugin, an index of Program.plugins.
-func (n Node) Index() int32 { return n.src.nodes[n.at].index }
+func (n Node) Index() int32 { return n.src.nodes[n.at].index() }
 
 // Type is the type of the node's value.
 func (n Node) Type() *funcs.Type { return n.src.prog.types[n.src.nodes[n.at].ty] }

@@ -32,7 +32,7 @@ func (t *typer) node(n int32, op Op, ty *funcs.Type) Node {
 	if t.typed == nil {
 		t.typed = t.c.arena.typed(t.f, t.c.prog)
 	}
-	t.typed.nodes[n] = slot{op: op, ty: t.c.prog.typeIndex(ty)}
+	t.typed.nodes[n] = slot{word: uint32(op) << 24, ty: t.c.prog.typeIndex(ty)}
 	t.typed.count++
 	t.typed.calls = t.typed.calls || op == OpUser || op == OpFuncRef
 	return Node{src: t.typed, at: n}
@@ -121,7 +121,7 @@ func (t *typer) ident(n int32) Node {
 	for i, p := range t.params {
 		if p.Name == name {
 			r := t.node(n, OpParam, p.Type)
-			r.slot().index = int32(i)
+			r.slot().setIndex(int32(i))
 			return r
 		}
 	}
@@ -138,7 +138,7 @@ func (t *typer) ident(n int32) Node {
 			return Node{} // failed or in a cycle: reported there
 		}
 		r := t.node(n, OpCell, ty)
-		r.slot().index = int32(i)
+		r.slot().setIndex(int32(i))
 		return r
 	}
 	if t.c.use.isAlias(t.scope() + name) {
@@ -305,11 +305,11 @@ func (t *typer) member(n int32) Node {
 			}
 			if x.Type().Kind == funcs.Table {
 				r := t.node(n, OpColumn, funcs.ListOf(x.Type().Fields[i].Type))
-				r.slot().index = int32(i)
+				r.slot().setIndex(int32(i))
 				return r
 			}
 			r := t.node(n, OpField, x.Type().Fields[i].Type)
-			r.slot().index = int32(i)
+			r.slot().setIndex(int32(i))
 			return r
 		}
 		return t.fail(n, "`."+field+"` needs a record or a table, got "+t.describeType(x.Type()), "fields belong to records such as `{E: 210 GPa}` and columns to tables",
