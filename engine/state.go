@@ -251,7 +251,7 @@ func (s *Sheet) ParseInput(name, text string) (funcs.Value, error) {
 		}
 		return nil, fmt.Errorf("cannot read %q for `%s`: %s", text, name, msg)
 	}
-	if c.HasUnit && c.Unit().Dim.IsNone() && c.Unit().Factor != 1 && len(f.Quantities) == 0 && f.NumRefs() == 0 {
+	if c.HasUnit && c.Unit().Dim.IsNone() && c.Unit().Factor != 1 && len(f.Quantities()) == 0 && f.NumRefs() == 0 {
 		// As in the sheet: `--set share=5` for a cell shown in % would be
 		// 500 %; the unit is written, not guessed.
 		return nil, fmt.Errorf("`%s` is shown in %s and a plain number is a fraction of one: write the unit, e.g. %s %s", name, c.Unit().Symbol, strings.TrimSpace(text), c.Unit().Symbol)
@@ -260,7 +260,7 @@ func (s *Sheet) ParseInput(name, text string) (funcs.Value, error) {
 		got := "a plain number"
 		if !n.Type().Dim.IsNone() {
 			got = "of another dimension"
-			if q := f.Quantities; len(q) == 1 && q[0].Unit().Quantity != "" {
+			if q := f.Quantities(); len(q) == 1 && q[0].Unit().Quantity != "" {
 				got = "a " + q[0].Unit().Quantity
 			}
 		}

@@ -18,17 +18,26 @@ import (
 // blocks). An Arena is used from one goroutine; its formulas live as long
 // as any of them is reachable.
 type Arena struct {
-	scratch Formula // the slices the parser appends to, reused
-	nodes   block.Block[Node]
-	args    block.Block[int32]
-	quants  block.Block[Quantity]
-	units   map[string]*units.Unit // the units of quantity literals, by their text
+	// the slices the parser appends to, reused
+	scratchNodes  []Node
+	scratchArgs   []int32
+	scratchQuants []Quantity
+	nodes         block.Block[Node]
+	args          block.Block[int32]
+	quants        block.Block[Quantity]
+	sides         block.Block[side]
+	units         map[string]*units.Unit // the units of quantity literals, by their text
 }
 
-// keep copies the parsed slices of f (held in the scratch slices) into
-// the arena's blocks.
-func (a *Arena) keep(f *Formula) {
+// keep copies the parsed slices of f and p (held in the scratch slices)
+// into the arena's blocks, and keeps the grown scratch slices for the next
+// formula.
+func (a *Arena) keep(f *Formula, p *parser) {
+	a.scratchNodes, a.scratchArgs, a.scratchQuants = f.Nodes, p.argList, p.quants
 	f.Nodes = a.nodes.Copy(f.Nodes)
-	f.Args = a.args.Copy(f.Args)
-	f.Quantities = a.quants.Copy(f.Quantities)
+	if len(p.argList) > 0 || len(p.quants) > 0 {
+		f.side = a.sides.One()
+		f.side.args = a.args.Copy(p.argList)
+		f.side.quants = a.quants.Copy(p.quants)
+	}
 }

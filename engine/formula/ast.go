@@ -82,9 +82,9 @@ type Node struct {
 	// A, B, C are child node indices (-1 when absent). For KNumber and
 	// KBool B and C hold the value's 64 bits, low word first (Num reads
 	// them), so that a number costs no slice of its own; for KQuantity A
-	// indexes Formula.Quantities; for
+	// indexes Formula.Quantities(); for
 	// KCall, KList and KRecord C is the start of the arguments in
-	// Formula.Args and the count is in B for lists and records, in A for
+	// the formula's argument lists and the count is in B for lists and records, in A for
 	// calls (whose B is the callee).
 	A, B, C int32
 }
@@ -98,9 +98,24 @@ type Formula struct {
 	Nodes  []Node
 	Root   int32 // index of the root node in Nodes (-1 when the text could not be parsed)
 	nrefs  int32 // KName nodes marked Ref (Refs), held where Root left a spare word
-	// Args holds the argument lists of calls, lists and records.
-	Args       []int32
-	Quantities []Quantity // quantity literals in order of appearance
+	// side holds the argument lists and the quantity literals; nil when
+	// the formula has neither, as most formulas of a large sheet have
+	// (cells that combine other cells), which keeps a Formula at 48 bytes.
+	side *side
+}
+
+// side is what only some formulas have.
+type side struct {
+	args   []int32    // the argument lists of calls, lists and records
+	quants []Quantity // quantity literals in order of appearance
+}
+
+// Quantities returns the quantity literals of f in order of appearance.
+func (f *Formula) Quantities() []Quantity {
+	if f.side == nil {
+		return nil
+	}
+	return f.side.quants
 }
 
 // Refs yields the KName nodes that name a value or a function (not the
@@ -164,7 +179,7 @@ func numNode(k Kind, from, to int32, v float64) Node {
 }
 
 // Quantity returns the literal of a KQuantity node.
-func (f *Formula) Quantity(n int32) *Quantity { return &f.Quantities[f.Nodes[n].A] }
+func (f *Formula) Quantity(n int32) *Quantity { return &f.side.quants[f.Nodes[n].A] }
 
 // QuantityText returns the literal as written, e.g. "38 kN".
 func (f *Formula) QuantityText(q *Quantity) string { return f.Source.Text[q.From:q.To] }
@@ -186,7 +201,10 @@ func (f *Formula) ArgList(n int32) []int32 {
 	if nd.Kind == KCall {
 		count = nd.A
 	}
-	return f.Args[nd.C : nd.C+count]
+	if count == 0 {
+		return nil
+	}
+	return f.side.args[nd.C : nd.C+count]
 }
 
 // Callee returns the name a KCall node calls.

@@ -84,12 +84,12 @@ func TestQuantities(t *testing.T) {
 			t.Errorf("%q: %v", c.text, errs)
 			continue
 		}
-		if len(f.Quantities) != len(c.quant) {
-			t.Errorf("%q: quantities %+v", c.text, f.Quantities)
+		if len(f.Quantities()) != len(c.quant) {
+			t.Errorf("%q: quantities %+v", c.text, f.Quantities())
 			continue
 		}
-		for i := range f.Quantities {
-			q := &f.Quantities[i]
+		for i := range f.Quantities() {
+			q := &f.Quantities()[i]
 			if f.QuantityText(q) != c.quant[i] || math.Abs(q.SI-c.si[i]) > 1e-15*math.Abs(c.si[i]) {
 				t.Errorf("%q: quantity %d = %q %g", c.text, i, f.QuantityText(q), q.SI)
 			}

@@ -69,15 +69,13 @@ func (f *Formula) ParseSource(opt Options) (bool, diag.List) {
 	}
 	p := parser{f: f, lex: lexer{src: e.Text}, opt: opt}
 	if a := opt.Arena; a != nil {
-		s := &a.scratch
-		f.Nodes, f.Args, f.Quantities = s.Nodes[:0], s.Args[:0], s.Quantities[:0]
-		defer func() {
-			// The scratch keeps the grown slices for the next formula.
-			s.Nodes, s.Args, s.Quantities = f.Nodes, f.Args, f.Quantities
-			a.keep(f)
-		}()
+		f.Nodes, p.argList, p.quants = a.scratchNodes[:0], a.scratchArgs[:0], a.scratchQuants[:0]
+		defer a.keep(f, &p)
 	}
 	ok := p.parse()
+	if opt.Arena == nil && (len(p.argList) > 0 || len(p.quants) > 0) {
+		f.side = &side{args: p.argList, quants: p.quants}
+	}
 	errs = p.errs
 	if !ok {
 		errs.Sort()
@@ -95,13 +93,15 @@ func (f *Formula) ParseSource(opt Options) (bool, diag.List) {
 // *syntaxError caught in parse): a formula is one line, and what follows a
 // slip is rarely worth a second message.
 type parser struct {
-	f     *Formula
-	lex   lexer
-	tok   token
-	prev  token // the token before tok
-	opt   Options
-	depth int
-	errs  diag.List // held here, not behind a pointer, so it need not escape
+	f       *Formula
+	argList []int32    // the formula's argument lists, kept in f.side
+	quants  []Quantity // its quantity literals, kept in f.side
+	lex     lexer
+	tok     token
+	prev    token // the token before tok
+	opt     Options
+	depth   int
+	errs    diag.List // held here, not behind a pointer, so it need not escape
 }
 
 func (p *parser) parse() (ok bool) {
@@ -431,7 +431,7 @@ func (p *parser) primary() int32 {
 		p.next()
 		if p.isOp("]") {
 			p.next()
-			return p.add(Node{Kind: KList, From: uint16(t.from), To: uint16(p.prev.to), A: -1, B: 0, C: int32(len(p.f.Args))})
+			return p.add(Node{Kind: KList, From: uint16(t.from), To: uint16(p.prev.to), A: -1, B: 0, C: int32(len(p.argList))})
 		}
 		args := p.args("[", "]", false)
 		return p.add(Node{Kind: KList, From: uint16(t.from), To: uint16(p.prev.to), A: -1, B: int32(len(args)), C: p.keep(args)})
@@ -463,8 +463,8 @@ func (p *parser) number() int32 {
 	} else {
 		q.SI = v * u.Factor
 	}
-	p.f.Quantities = append(p.f.Quantities, q)
-	return p.add(Node{Kind: KQuantity, From: uint16(t.from), To: uint16(t.to), A: int32(len(p.f.Quantities) - 1), B: -1, C: -1})
+	p.quants = append(p.quants, q)
+	return p.add(Node{Kind: KQuantity, From: uint16(t.from), To: uint16(t.to), A: int32(len(p.quants) - 1), B: -1, C: -1})
 }
 
 // noUnit is the Unit of a literal whose unit did not parse.
@@ -500,7 +500,7 @@ func (p *parser) call() int32 {
 	p.next() // (
 	if p.isOp(")") {
 		p.next()
-		return p.add(Node{Kind: KCall, From: uint16(t.from), To: uint16(p.prev.to), A: 0, B: callee, C: int32(len(p.f.Args))})
+		return p.add(Node{Kind: KCall, From: uint16(t.from), To: uint16(p.prev.to), A: 0, B: callee, C: int32(len(p.argList))})
 	}
 	args := p.args("(", ")", true)
 	return p.add(Node{Kind: KCall, From: uint16(t.from), To: uint16(p.prev.to), A: int32(len(args)), B: callee, C: p.keep(args)})
@@ -544,8 +544,8 @@ func (p *parser) stringArg() int32 {
 
 // keep appends args to the formula's argument lists and returns their start.
 func (p *parser) keep(args []int32) int32 {
-	start := int32(len(p.f.Args))
-	p.f.Args = append(p.f.Args, args...)
+	start := int32(len(p.argList))
+	p.argList = append(p.argList, args...)
 	return start
 }
 
