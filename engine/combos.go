@@ -126,10 +126,10 @@ func setupCombos(prog *check.Program) (*Combos, diag.List) {
 	for _, f := range prog.Factors {
 		v, err := strconv.ParseFloat(f.Value.Text, 64)
 		src := "sheet line " + strconv.Itoa(f.Range.Start().Line)
-		if f.Annot.Reference != "" {
-			src += ", " + f.Annot.Reference
-		} else if f.Annot.Description != "" {
-			src += ", " + f.Annot.Description
+		if desc, ref := f.Annot.Text(); ref != "" {
+			src += ", " + ref
+		} else if desc != "" {
+			src += ", " + desc
 		}
 		if err == nil {
 			err = rules.Set(f.Key, v, src)

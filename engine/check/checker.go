@@ -166,7 +166,7 @@ func (c *checker) collectFile(f *sheet.File, scope string, depth int) {
 			continue // a template's: read by useTemplate
 		case *sheet.Table:
 			cell = &Cell{Name: it.Name.Name, Kind: Table, NameRange: it.Name.Range, Range: it.Range,
-				annot: &it.Annot}
+				annot: it.Annot}
 			c.table(cell, it)
 		case *sheet.Use:
 			c.useTemplate(f, it, scope, depth)
@@ -290,17 +290,17 @@ func (a *arena) newCell(it sheet.Item) *Cell {
 	case *sheet.Cell:
 		cell := a.cellWith(&it.Expr)
 		cell.Name, cell.Kind, cell.NameRange, cell.Range = it.Name.Name, Derived, it.Name.Range, it.Range
-		cell.Expr, cell.annot = it.Expr.Text, &it.Annot
+		cell.Expr, cell.annot = it.Expr.Text, it.Annot
 		return cell
 	case *sheet.FuncDef:
 		cell := a.cellWith(&it.Body)
 		cell.Name, cell.Kind, cell.NameRange, cell.Range = it.Name.Name, Function, it.Name.Range, it.Range
-		cell.Expr, cell.annot = it.Body.Text, &it.Annot
+		cell.Expr, cell.annot = it.Body.Text, it.Annot
 		return cell
 	case *sheet.Check:
 		cell := a.cellWith(&it.Body)
 		cell.Name, cell.Kind, cell.NameRange, cell.Range = it.Name.Name, Check, it.Name.Range, it.Range
-		cell.Expr, cell.annot = it.Body.Text, &it.Annot
+		cell.Expr, cell.annot = it.Body.Text, it.Annot
 		cell.more().State = limitState(it)
 		return cell
 	}

@@ -387,11 +387,11 @@ func (c *checker) applyOverrides() {
 			cell.Range, cell.NameRange = o.Range, o.Name.Range
 			// The template's description still says what the cell is; its
 			// reference backed the template's value, not this one.
-			desc := o.Annot.Description
+			desc, ref := o.Annot.Text()
 			if desc == "" {
 				desc = cell.Description()
 			}
-			cell.setAnnot(desc, o.Annot.Reference)
+			cell.setAnnot(desc, ref)
 			if o.Unit != nil {
 				cell.unit, cell.HasUnit = nil, false
 				c.displayUnit(cell, o.Unit)

@@ -279,7 +279,7 @@ func (d *document) inputsOnly(a, b *sheet.File) bool {
 			}
 		case *sheet.Use:
 			y, ok := y.(*sheet.Use)
-			if !ok || x.Name.Name != y.Name.Name || x.Path != y.Path || x.Annot != y.Annot || len(x.Overrides) != len(y.Overrides) {
+			if !ok || x.Name.Name != y.Name.Name || x.Path != y.Path || !sameAnnot(x.Annot, y.Annot) || len(x.Overrides) != len(y.Overrides) {
 				return false
 			}
 			for j := range x.Overrides {
@@ -300,9 +300,17 @@ func (d *document) inputsOnly(a, b *sheet.File) bool {
 	return true
 }
 
+// sameAnnot reports whether two annotations say the same (where they
+// stand aside).
+func sameAnnot(x, y *sheet.Annot) bool {
+	xd, xr := x.Text()
+	yd, yr := y.Text()
+	return xd == yd && xr == yr
+}
+
 // sameCell reports whether two cells agree in all but their expression.
 func sameCell(x, y *sheet.Cell) bool {
-	if x.Name.Name != y.Name.Name || x.Annot.Description != y.Annot.Description || x.Annot.Reference != y.Annot.Reference {
+	if x.Name.Name != y.Name.Name || !sameAnnot(x.Annot, y.Annot) {
 		return false
 	}
 	if (x.Unit == nil) != (y.Unit == nil) || (x.Unit != nil && x.Unit.Text != y.Unit.Text) {

@@ -330,9 +330,9 @@ func TestGrammar(t *testing.T) {
 				}
 			}
 		}
-		annot := func(a sheet.Annot) {
+		annot := func(a *sheet.Annot) {
 			t.Helper()
-			if !a.Range.Start().IsValid() {
+			if a == nil || !a.Range.Start().IsValid() {
 				return
 			}
 			has("annotation", a.Range, "comment.line.double-dash.sheaf")

@@ -374,11 +374,12 @@ func itemHover(it sheet.Item) string {
 			b.WriteString(" [" + it.Unit.Text + "]")
 		}
 		b.WriteString("\n\n```sheaf\n" + it.Expr.Text + "\n```")
-		if it.Annot.Description != "" {
-			b.WriteString("\n\n" + it.Annot.Description)
+		desc, ref := it.Annot.Text()
+		if desc != "" {
+			b.WriteString("\n\n" + desc)
 		}
-		if it.Annot.Reference != "" {
-			b.WriteString("\n\nReference: " + it.Annot.Reference)
+		if ref != "" {
+			b.WriteString("\n\nReference: " + ref)
 		}
 	case *sheet.Check:
 		b.WriteString(" — check\n\n```sheaf\n" + it.Body.Text + "\n```")

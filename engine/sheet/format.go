@@ -212,8 +212,10 @@ func unitText(u *UnitSpec) string {
 }
 
 // annotText prints an annotation: "-- description @ reference".
-func annotText(a Annot) string {
+func annotText(a *Annot) string {
 	switch {
+	case a == nil:
+		return ""
 	case a.Description == "" && a.Reference == "":
 		return ""
 	case a.Reference == "":

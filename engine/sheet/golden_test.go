@@ -93,7 +93,12 @@ func summary(f *File) string {
 		}
 		return u.Text
 	}
-	annot := func(a Annot) string { return a.Description + " @@ " + a.Reference }
+	annot := func(a *Annot) string {
+		if a == nil {
+			return " @@ "
+		}
+		return a.Description + " @@ " + a.Reference
+	}
 	cell := func(prefix string, c *Cell) {
 		b.WriteString(prefix + "cell " + c.Name.Name + " [" + unit(c.Unit) + "] = " + expr(c.Expr.Text) + " -- " + annot(c.Annot) + "\n")
 	}

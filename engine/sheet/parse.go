@@ -22,6 +22,8 @@ type parser struct {
 	seenMeta map[string]diag.Range
 	// cells hands out the cells of the sheet (see alloc.go).
 	cells block.Block[cellUnit]
+	// annots hands out the annotations.
+	annots block.Block[Annot]
 	// open is the bracket stack the scanners of all items share, so
 	// that a sheet grows one, not one per line that opens a bracket.
 	open []int
@@ -67,7 +69,7 @@ func (p *parser) keepScanner(sc *bracketScanner) { p.open = sc.open[:0] }
 // A UTF-8 byte order mark and CRLF line breaks are accepted.
 func Parse(name string, src []byte, opts ...Option) (*File, diag.List) {
 	p := &parser{first: lineScan{line: -1}, name: name, cfg: newConfig(opts), file: &File{Name: name, Src: src}, inHeader: true,
-		cells: block.Block[cellUnit]{Min: 8, Max: 256}}
+		cells: block.Block[cellUnit]{Min: 8, Max: 256}, annots: block.Block[Annot]{Min: 8, Max: 256}}
 	if len(src) > p.cfg.maxBytes {
 		p.src = diag.NewSource(name, "")
 		p.file.Source = p.src

@@ -50,7 +50,7 @@ type Factor struct {
 	Key      string
 	KeyRange diag.Range
 	Value    Literal
-	Annot    Annot
+	Annot    *Annot // nil when none is written
 	Range    diag.Range
 }
 

@@ -284,7 +284,7 @@ func (p *parser) parseCheck(i, j int) Item {
 //
 //	expression = text up to an annotation, brackets balanced, strings closed .
 //	annotation = "--" [ description ] [ " @ " reference ] .
-func (p *parser) body(i, j, from int) (Expr, Annot, bool) {
+func (p *parser) body(i, j, from int) (Expr, *Annot, bool) {
 	t := p.text
 	annotAt, annotLine := -1, -1
 	var found lineScan
@@ -314,7 +314,7 @@ func (p *parser) body(i, j, from int) (Expr, Annot, bool) {
 		p.errAt(p.rng(oli, o, p.lines[oli].end), "a string starts and ends on one line; this one has no closing quote",
 			"close the string with `"+t[o:o+1]+"` on the same line",
 			"unterminated string")
-		return Expr{}, Annot{}, false
+		return Expr{}, nil, false
 	}
 	if found.open >= 0 {
 		o := found.open
@@ -323,7 +323,7 @@ func (p *parser) body(i, j, from int) (Expr, Annot, bool) {
 		p.errAt(p.rng(oli, o, o+1), "every bracket opened in an expression must be closed; a blank line or the end of the file ended this one",
 			"close it with `"+closer+"`",
 			"unclosed `%c`", t[o])
-		return Expr{}, Annot{}, false
+		return Expr{}, nil, false
 	}
 	end := p.lines[j-1].end
 	if annotLine >= 0 {
@@ -334,7 +334,7 @@ func (p *parser) body(i, j, from int) (Expr, Annot, bool) {
 				"the annotation `-- description @ reference` ends an item; nothing of the expression may follow it",
 				"move the annotation to the end of the expression's last line",
 				"expression continues after its annotation")
-			return Expr{}, Annot{}, false
+			return Expr{}, nil, false
 		}
 	}
 	a, b := trimSpan(t, from, end)
@@ -343,10 +343,10 @@ func (p *parser) body(i, j, from int) (Expr, Annot, bool) {
 		p.errAt(p.rng(i, max(at-1, p.lines[i].start), at), "a value or formula must follow `=` (or the colon of a check)",
 			"write e.g. `P = 38 kN` or `sigma [MPa] = N / A`",
 			"empty expression")
-		return Expr{}, Annot{}, false
+		return Expr{}, nil, false
 	}
 	e := Expr{Text: t[a:b], Range: p.span(a, b)}
-	var an Annot
+	var an *Annot
 	if annotLine >= 0 {
 		an = p.annot(annotLine, annotAt)
 	}
@@ -367,7 +367,7 @@ func (p *parser) lineOf(off, i, j int) int {
 // The description and the reference are split at the first "@" that stands
 // alone (spaces or tabs, or the ends of the annotation, on both sides), so
 // that an address such as `a@b` stays in the description.
-func (p *parser) annot(li, at int) Annot {
+func (p *parser) annot(li, at int) *Annot {
 	ln := p.lines[li]
 	raw := p.text[at+2 : ln.end]
 	desc, ref := trimText(raw), ""
@@ -378,5 +378,7 @@ func (p *parser) annot(li, at int) Annot {
 			break
 		}
 	}
-	return Annot{Description: desc, Reference: ref, Range: p.rng(li, at, ln.end)}
+	a := p.annots.One()
+	*a = Annot{Description: desc, Reference: ref, Range: p.rng(li, at, ln.end)}
+	return a
 }

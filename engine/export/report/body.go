@@ -147,10 +147,10 @@ func (d *doc) use(u *sheet.Use, outer, no string) {
 	defer func() { d.usePrefix, d.replaced = savedPrefix, savedReplaced }()
 	path := u.Path
 	d.w("<section class=\"use\">\n<h3><span class=\"no\">", no, "</span>Template use <b>", esc(u.Name.Name), "</b> of <span class=\"file\">", esc(path), "</span></h3>\n")
-	if u.Annot.Description != "" || u.Annot.Reference != "" {
-		d.w("<p class=\"usedesc\">", esc(u.Annot.Description))
-		if u.Annot.Reference != "" {
-			d.w(" <span class=\"ref\">", esc(u.Annot.Reference), "</span>")
+	if desc, ref := u.Annot.Text(); desc != "" || ref != "" {
+		d.w("<p class=\"usedesc\">", esc(desc))
+		if ref != "" {
+			d.w(" <span class=\"ref\">", esc(ref), "</span>")
 		}
 		d.w("</p>\n")
 	}
@@ -176,7 +176,8 @@ func (d *doc) use(u *sheet.Use, outer, no string) {
 			if !c.Body.IsZero() {
 				d.math(func(b *strings.Builder) { t.expr(b, c.Body, 0) })
 			}
-			d.w("</td><td class=\"num\">", esc(d.resultText(c)), "</td><td>", esc(o.Annot.Description), "</td></tr>\n")
+			desc, _ := o.Annot.Text()
+			d.w("</td><td class=\"num\">", esc(d.resultText(c)), "</td><td>", esc(desc), "</td></tr>\n")
 		}
 		d.w("</tbody></table>\n")
 	}
