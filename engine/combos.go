@@ -98,7 +98,7 @@ func setupCombos(prog *check.Program) (*Combos, diag.List) {
 		for _, t := range prog.Templates {
 			if t.Combinations != "" {
 				hint = "add the header line `combinations: " + t.Combinations + "` to this sheet, as " + t.File + " has; the using sheet's rules combine its templates' actions"
-				if acts[0].Scope != "" {
+				if acts[0].Scope() != "" {
 					at = t.Use
 				}
 				break

@@ -92,7 +92,7 @@ func oneLineInputs(s *engine.Sheet) map[int]*engine.Cell {
 	m := map[int]*engine.Cell{}
 	for _, c := range s.Cells() {
 		r := c.Range
-		if c.Kind != engine.Input || c.Scope != "" || r.Start().File != s.Name() || r.Start().Line != r.End().Line || c.Formula == nil {
+		if c.Kind != engine.Input || c.Scope() != "" || r.Start().File != s.Name() || r.Start().Line != r.End().Line || c.Formula == nil {
 			continue
 		}
 		m[r.Start().Line] = c

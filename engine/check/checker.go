@@ -55,6 +55,8 @@ type checker struct {
 	// badParams marks the user functions with a parameter whose unit did
 	// not parse.
 	badParams map[*Cell]bool
+	// places holds the places of the cells, one per heading and scope.
+	places map[place]*place
 	// looped marks the cells of a cycle and those after one (nil when the
 	// sheet has none): they stay silent.
 	looped []bool
@@ -190,12 +192,12 @@ func (c *checker) collectFile(f *sheet.File, scope string, depth int) {
 // and reports a reserved or a duplicate name.
 func (c *checker) addCell(cell *Cell, section, scope string) {
 	p := c.prog
-	cell.Section = section
+	c.setPlace(cell, section, scope)
 	if IsReserved(cell.Name) {
 		c.errs.Errorf(cell.NameRange, "built-in names, constants and keywords cannot be redefined", "choose another name, e.g. `"+cell.Name+"_1`", "`%s` is a reserved name", cell.Name)
 	}
 	if scope != "" {
-		cell.Name, cell.Scope = scope+cell.Name, scope
+		cell.Name = scope + cell.Name
 	}
 	if c.use.isAlias(cell.Name) {
 		c.errs.Errorf(cell.NameRange, "`"+cell.Name+"` names a template use at "+c.use.aliasPos(cell.Name).String()+"; each name names one thing",
@@ -220,11 +222,30 @@ func (c *checker) addCell(cell *Cell, section, scope string) {
 	p.Cells = append(p.Cells, cell)
 }
 
+// setPlace sets the section and the scope of cell, sharing a place with
+// the cells that have the same.
+func (c *checker) setPlace(cell *Cell, section, scope string) {
+	key := place{section, scope}
+	if key == (place{}) {
+		cell.place = nil
+		return
+	}
+	pl := c.places[key]
+	if pl == nil {
+		if c.places == nil {
+			c.places = make(map[place]*place)
+		}
+		pl = &place{section, scope}
+		c.places[key] = pl
+	}
+	cell.place = pl
+}
+
 // rangeHalf is "lower" or "upper" for a half of a range check (its name
 // is the written name and _min or _max), "" for any other cell.
 func rangeHalf(cell *Cell) string {
 	written := int(cell.NameRange.End().Offset - cell.NameRange.Start().Offset)
-	if cell.Kind != Check || len(cell.Name)-len(cell.Scope) != written+4 {
+	if cell.Kind != Check || len(cell.Name)-len(cell.Scope()) != written+4 {
 		return ""
 	}
 	switch {

@@ -43,7 +43,10 @@ type Cell struct {
 	Kind    Kind
 	HasUnit bool   // a display unit was written
 	Index   int    // position in Program.Cells (reading order)
-	Section string // text of the heading above it, "" before the first
+	// place is the heading above the cell and the scope of its formula
+	// (Section and Scope read it); nil for a cell of the sheet itself
+	// before its first heading.
+	place *place
 	// annot is the annotation written after `--` (Description and
 	// Reference read it); nil when none is known.
 	annot *sheet.Annot
@@ -55,11 +58,6 @@ type Cell struct {
 	Range     diag.Range // the whole item
 	NameRange diag.Range
 	Formula   *formula.Formula
-	// Scope is the prefix under which the formula's names are read: "" for
-	// a cell of the sheet itself, "rod." for a cell inlined from
-	// `use rod from ...` (an override keeps the scope of the sheet that
-	// wrote it, though its name is the template's "rod.P").
-	Scope string
 
 	// Body is the typed tree of the value (Input, Derived, Function).
 	Body Node
@@ -88,6 +86,32 @@ type Extra struct {
 	// Action is the item of an action cell (`action permanent G = ...`),
 	// nil for every other cell.
 	Action *sheet.Action
+}
+
+// place is where a cell was written. The cells under one heading of one
+// file share one place (checker.place), which keeps the two texts out of
+// every cell.
+type place struct {
+	section, scope string
+}
+
+// Section is the text of the heading above the cell, "" before the first.
+func (c *Cell) Section() string {
+	if c.place == nil {
+		return ""
+	}
+	return c.place.section
+}
+
+// Scope is the prefix under which the formula's names are read: "" for a
+// cell of the sheet itself, "rod." for a cell inlined from `use rod from
+// ...` (an override keeps the scope of the sheet that wrote it, though its
+// name is the template's "rod.P").
+func (c *Cell) Scope() string {
+	if c.place == nil {
+		return ""
+	}
+	return c.place.scope
 }
 
 // Description is the cell's description, written after `--`.

@@ -160,7 +160,7 @@ func (t *typer) ident(n int32) Node {
 // resolved already, are searched first: a short list beats a lookup in a
 // map of every cell of a large sheet.
 func (t *typer) depIndex(name string) (int, bool) {
-	if t.cell != nil && t.cell.Scope == "" {
+	if t.cell != nil && t.cell.Scope() == "" {
 		for _, j := range t.c.prog.Deps(t.cell.Index) {
 			if t.c.prog.Cells[j].Name == name {
 				return int(j), true

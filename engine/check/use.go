@@ -145,8 +145,8 @@ func (c *checker) useTemplate(from *sheet.File, u *sheet.Use, scope string, dept
 // local returns the cell that name means in the scope of cell (nil cell:
 // the sheet itself).
 func (c *checker) local(cell *Cell, name string) (int, bool) {
-	if cell != nil && cell.Scope != "" {
-		name = cell.Scope + name
+	if cell != nil && cell.Scope() != "" {
+		name = cell.Scope() + name
 	}
 	i, ok := c.prog.ByName[name]
 	return i, ok
@@ -157,7 +157,7 @@ func (t *typer) scope() string {
 	if t.cell == nil {
 		return ""
 	}
-	return t.cell.Scope
+	return t.cell.Scope()
 }
 
 // ref returns the cell a formula's name refers to: a cell of its scope, or
@@ -168,7 +168,7 @@ func (c *checker) ref(cell *Cell, f *formula.Formula, n int32) (int, bool) {
 	if i, ok := c.local(cell, name); ok {
 		return i, true
 	}
-	if c.use == nil || !c.use.isAlias(cell.Scope+name) {
+	if c.use == nil || !c.use.isAlias(cell.Scope()+name) {
 		return 0, false
 	}
 	if c.use.targetsOf != f {
@@ -224,7 +224,7 @@ func (c *checker) usePath(cell *Cell, f *formula.Formula, n int32) (string, int3
 		name := f.Text(n)
 		scope := ""
 		if cell != nil {
-			scope = cell.Scope
+			scope = cell.Scope()
 			if isParam(cell, name) {
 				return "", -1, false
 			}
@@ -381,9 +381,9 @@ func (c *checker) applyOverrides() {
 			if !c.overridable(b, written, cell, o) {
 				continue
 			}
-			c.use.replaced[i] = &replaced{orig: cell.Formula, scope: cell.Scope}
+			c.use.replaced[i] = &replaced{orig: cell.Formula, scope: cell.Scope()}
 			cell.Expr = o.Expr.Text
-			cell.Scope = b.scope
+			c.setPlace(cell, cell.Section(), b.scope)
 			cell.Range, cell.NameRange = o.Range, o.Name.Range
 			// The template's description still says what the cell is; its
 			// reference backed the template's value, not this one.
@@ -445,7 +445,7 @@ func (c *checker) templateDeps(cell *Cell) []string {
 			continue
 		}
 		if j, ok := c.ref(cell, cell.Formula, r); ok {
-			n := strings.TrimPrefix(c.prog.Cells[j].Name, cell.Scope)
+			n := strings.TrimPrefix(c.prog.Cells[j].Name, cell.Scope())
 			if !slices.Contains(out, n) {
 				out = append(out, n)
 			}
@@ -477,13 +477,13 @@ func (c *checker) fitsOverride(t *typer, cell *Cell, body Node) bool {
 		return true
 	}
 	var scratch diag.List
-	ot := &typer{c: c, f: r.orig, cell: &Cell{Name: cell.Name, Scope: r.scope}, system: t.system, errs: &scratch}
+	ot := &typer{c: c, f: r.orig, cell: c.scoped(cell.Name, r.scope), system: t.system, errs: &scratch}
 	want := ot.expr(r.orig.Root)
 	if want.IsZero() || sameType(want.Type(), body.Type()) {
 		return true // a broken template input is reported when the template is checked alone
 	}
 	local := strings.TrimPrefix(cell.Name, r.scope)
-	written := strings.TrimPrefix(strings.TrimSuffix(r.scope, "."), cell.Scope)
+	written := strings.TrimPrefix(strings.TrimSuffix(r.scope, "."), cell.Scope())
 	hint := "the template writes `" + r.orig.Source.Text + "`; give a value of that kind"
 	t.errs.Errorf(cell.Formula.Source.Range, "a use block replaces an input with a value of the same kind, so that the template's formulas keep their units",
 		hint, "`%s` of template `%s` is %s, but this value is %s", local, written, article(t.describeType(want.Type())), article(t.describeType(body.Type())))
@@ -517,4 +517,12 @@ func (c *checker) expandedCells(f *sheet.File) int {
 	}
 	c.use.cells[f] = n
 	return n
+}
+
+// scoped returns a stand-in cell named name whose formula reads its names
+// in scope, for typing a formula apart from the cell that holds it.
+func (c *checker) scoped(name, scope string) *Cell {
+	cell := &Cell{Name: name}
+	c.setPlace(cell, "", scope)
+	return cell
 }

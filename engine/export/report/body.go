@@ -172,7 +172,7 @@ func (d *doc) use(u *sheet.Use, outer, no string) {
 			d.w("<tr><td>")
 			d.math(func(b *strings.Builder) { symbol(b, o.Name.Name) })
 			d.w("</td><td>")
-			t := &typesetter{d: d, scope: c.Scope}
+			t := &typesetter{d: d, scope: c.Scope()}
 			if !c.Body.IsZero() {
 				d.math(func(b *strings.Builder) { t.expr(b, c.Body, 0) })
 			}
@@ -191,8 +191,8 @@ func (d *doc) use(u *sheet.Use, outer, no string) {
 		if !strings.HasPrefix(c.Name, prefix) {
 			continue
 		}
-		if c.Section != section {
-			section = c.Section
+		if c.Section() != section {
+			section = c.Section()
 			h := strings.TrimPrefix(section, u.Name.Name+": ")
 			if h != "" {
 				d.w("<h4>", esc(h), "</h4>\n")

@@ -49,7 +49,7 @@ func (d *doc) part(f func(b *strings.Builder)) {
 }
 
 func (d *doc) valueLine(c *engine.Cell, cr *engine.CellResult) {
-	scope := c.Scope
+	scope := c.Scope()
 	sym := func(b *strings.Builder) { symbol(b, d.local(c)) }
 	body := c.Body
 	lone := body.IsZero() || body.Op() == check.OpConst || body.Op() == check.OpString || body.Op() == check.OpBool
@@ -96,7 +96,7 @@ func (d *doc) local(c *engine.Cell) string {
 	if d.usePrefix != "" && strings.HasPrefix(c.Name, d.usePrefix) {
 		return c.Name[len(d.usePrefix):]
 	}
-	return strings.TrimPrefix(c.Name, c.Scope)
+	return strings.TrimPrefix(c.Name, c.Scope())
 }
 
 // pathOnly reports whether n only reads a value (a cell, a field of a
@@ -133,9 +133,9 @@ func normalise(s string) string {
 }
 
 func (d *doc) functionLine(c *engine.Cell) {
-	t := &typesetter{d: d, fn: c, scope: c.Scope}
+	t := &typesetter{d: d, fn: c, scope: c.Scope()}
 	d.part(func(b *strings.Builder) {
-		b.WriteString("<mrow><mi mathvariant=\"normal\">" + esc(strings.TrimPrefix(c.Name, c.Scope)) + "</mi><mo>(</mo>")
+		b.WriteString("<mrow><mi mathvariant=\"normal\">" + esc(strings.TrimPrefix(c.Name, c.Scope())) + "</mi><mo>(</mo>")
 		for i, p := range c.Extra().Params {
 			if i > 0 {
 				b.WriteString("<mo separator=\"true\">,</mo>")
@@ -164,7 +164,7 @@ func (d *doc) checkLine(c *engine.Cell) {
 		left, right, op = xc.Capacity, xc.Demand, "≥"
 	}
 	d.w("<span class=\"checkname\">check ", esc(d.local(c)), "</span>")
-	t := &typesetter{d: d, scope: c.Scope}
+	t := &typesetter{d: d, scope: c.Scope()}
 	d.part(func(b *strings.Builder) {
 		t.expr(b, left, 0)
 		b.WriteString("<mo>" + op + "</mo>")
@@ -259,7 +259,7 @@ func (d *doc) record(c *engine.Cell, r *funcs.RecordValue) {
 	if r.Type.Name != "" {
 		name = " <span class=\"rtype\">" + esc(r.Type.Name) + "</span>"
 	}
-	d.w("<table class=\"fields\">", "<caption>fields of ", esc(strings.TrimPrefix(c.Name, c.Scope)), name, "</caption><tbody>")
+	d.w("<table class=\"fields\">", "<caption>fields of ", esc(strings.TrimPrefix(c.Name, c.Scope())), name, "</caption><tbody>")
 	n := 0
 	for i, f := range r.Type.Fields {
 		if i >= len(r.Fields) || f.Type == nil || f.Type.Kind == funcs.Table {
@@ -277,7 +277,7 @@ func (d *doc) record(c *engine.Cell, r *funcs.RecordValue) {
 		d.w("</th><td>")
 		switch {
 		case written && i < c.Body.NArg():
-			t := &typesetter{d: d, scope: c.Scope}
+			t := &typesetter{d: d, scope: c.Scope()}
 			arg := c.Body.Arg(i)
 			d.math(func(b *strings.Builder) { t.expr(b, arg, 0) })
 			if arg.Op() != check.OpConst {

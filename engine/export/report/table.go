@@ -23,7 +23,7 @@ func (d *doc) table(c *engine.Cell, it *sheet.Table) {
 	if c.Reference() != "" {
 		d.w("<div class=\"ref\">", esc(c.Reference()), "</div>\n")
 	}
-	d.w("<div class=\"eq\"><span class=\"checkname\">table ", esc(strings.TrimPrefix(c.Name, c.Scope)), "</span></div>\n")
+	d.w("<div class=\"eq\"><span class=\"checkname\">table ", esc(strings.TrimPrefix(c.Name, c.Scope())), "</span></div>\n")
 	if c.Description() != "" {
 		d.w("<div class=\"desc\">", esc(c.Description()), "</div>\n")
 	}

@@ -45,8 +45,8 @@ func Write(w io.Writer, r *engine.Results, sigFigs int) error {
 		if c.Cell.Kind == engine.Check {
 			continue
 		}
-		if c.Cell.Section != section {
-			section = c.Cell.Section
+		if c.Cell.Section() != section {
+			section = c.Cell.Section()
 			if section != "" {
 				b.WriteString("\n" + section + "\n" + strings.Repeat("-", utf8.RuneCountInString(section)) + "\n")
 			} else {

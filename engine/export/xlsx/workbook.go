@@ -226,7 +226,7 @@ func (x *exporter) layout() {
 	section := ""
 	headings := 0
 	for i := range x.r.Cells {
-		if s := x.r.Cells[i].Cell.Section; s != section {
+		if s := x.r.Cells[i].Cell.Section(); s != section {
 			section = s
 			if s != "" {
 				headings++
@@ -246,8 +246,8 @@ func (x *exporter) layout() {
 				comments = comments[1:]
 			}
 		}
-		if c.Section != section {
-			section = c.Section
+		if c.Section() != section {
+			section = c.Section()
 			if section != "" {
 				x.rows = append(x.rows, calcRow{kind: rowHeading, row: row, title: section})
 				row++
@@ -542,7 +542,7 @@ func (x *exporter) tableColumns(c *check.Cell) []sheet.Column {
 
 // tableItem is the table item that wrote table cell c (see tableColumns).
 func (x *exporter) tableItem(c *check.Cell) *sheet.Table {
-	name := strings.TrimPrefix(c.Name, c.Scope)
+	name := strings.TrimPrefix(c.Name, c.Scope())
 	var file *sheet.File
 	for _, pf := range x.s.Program().Files {
 		if pf != nil && pf.Name == c.Pos().File {
