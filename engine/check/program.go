@@ -41,8 +41,8 @@ type Meta struct {
 type Cell struct {
 	Name    string
 	Kind    Kind
-	HasUnit bool   // a display unit was written
-	Index   int    // position in Program.Cells (reading order)
+	HasUnit bool // a display unit was written
+	Index   int  // position in Program.Cells (reading order)
 	// place is the heading above the cell and the scope of its formula
 	// (Section and Scope read it); nil for a cell of the sheet itself
 	// before its first heading.
