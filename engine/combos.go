@@ -117,7 +117,7 @@ func setupCombos(prog *check.Program) (*Combos, diag.List) {
 			a.Category = k.Category[0]
 		}
 		if c.Type != nil && c.Type.Kind != funcs.Number {
-			errs.Errorf(c.NameRange, "an action's characteristic value is a number with its unit (a force, a line load, a pressure, a temperature change)",
+			errs.Errorf(c.NameRange(), "an action's characteristic value is a number with its unit (a force, a line load, a pressure, a temperature change)",
 				"write e.g. `action permanent G [kN] = 12 kN`", "action `%s` is a %s, not a number", c.Name, c.Type.Kind)
 		}
 		cs.Actions = append(cs.Actions, a)
@@ -152,7 +152,7 @@ func setupCombos(prog *check.Program) (*Combos, diag.List) {
 			j := int(dep)
 			if cs.Depends[j] {
 				if c.Extra().Action != nil {
-					errs.Errorf(c.NameRange, "the characteristic value of an action is factored in each combination; one computed from another action would be factored twice",
+					errs.Errorf(c.NameRange(), "the characteristic value of an action is factored in each combination; one computed from another action would be factored twice",
 						"compute it from cells that are not actions", "action `%s` uses the action `%s`", c.Name, actionUsed(prog, cs.Depends, j))
 				}
 				cs.Depends[i] = true
@@ -170,7 +170,7 @@ func setupCombos(prog *check.Program) (*Combos, diag.List) {
 		}
 		st := StateOf(c)
 		if !slices.Contains(rules.States, st) {
-			at := c.NameRange
+			at := c.NameRange()
 			if c.Extra().State != nil {
 				at = c.Extra().State.Range
 			}
@@ -210,10 +210,10 @@ func setupCombos(prog *check.Program) (*Combos, diag.List) {
 		reach := reachesCheck(prog, c.Index)
 		switch {
 		case len(reach) == 0:
-			errs.Errorf(c.NameRange, "no design check depends on this action, so leaving it out of a formula would pass unnoticed",
+			errs.Errorf(c.NameRange(), "no design check depends on this action, so leaving it out of a formula would pass unnoticed",
 				"use it in the formula of the force it acts in, or delete it", "action `%s` reaches no check", c.Name)
 		case cs.Actions[a].Class == combine.Accidental && !slices.ContainsFunc(reach, func(i int) bool { return StateOf(prog.Cells[i]) == combine.AccidentalLS }):
-			errs.Errorf(c.NameRange, "an accidental action is combined only in the accidental limit state (EN 1990 6.11b), and no check that uses it is in it",
+			errs.Errorf(c.NameRange(), "an accidental action is combined only in the accidental limit state (EN 1990 6.11b), and no check that uses it is in it",
 				"write `check NAME in accidental: ...` for the check it acts on", "accidental action `%s` reaches no check in accidental", c.Name)
 		}
 	}
@@ -235,7 +235,7 @@ func setupCombos(prog *check.Program) (*Combos, diag.List) {
 			at := md.CombinationsPos
 			for k, i := range cs.checks {
 				if cs.states[k] == st {
-					at = prog.Cells[i].NameRange
+					at = prog.Cells[i].NameRange()
 					break
 				}
 			}

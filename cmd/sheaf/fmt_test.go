@@ -136,7 +136,7 @@ func sameCells(t *testing.T, name string, a, b *engine.Sheet) {
 	for i := range ca {
 		x, y := ca[i], cb[i]
 		if x.Name != y.Name || x.Kind != y.Kind || x.Description() != y.Description() || x.Reference() != y.Reference() ||
-			x.Unit().Symbol != y.Unit().Symbol || strings.Join(strings.Fields(x.Expr), " ") != strings.Join(strings.Fields(y.Expr), " ") {
+			x.Unit().Symbol != y.Unit().Symbol || strings.Join(strings.Fields(x.Expr()), " ") != strings.Join(strings.Fields(y.Expr()), " ") {
 			t.Errorf("%s: cell %d changed: %+v -> %+v", name, i, *x, *y)
 		}
 		va, vb := ra.Cells[i], rb.Cells[i]

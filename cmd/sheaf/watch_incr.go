@@ -91,7 +91,7 @@ func editedValue(c *engine.Cell, ol, nl []byte, lineStart int) (string, bool) {
 func oneLineInputs(s *engine.Sheet) map[int]*engine.Cell {
 	m := map[int]*engine.Cell{}
 	for _, c := range s.Cells() {
-		r := c.Range
+		r := c.Range()
 		if c.Kind != engine.Input || c.Scope() != "" || r.Start().File != s.Name() || r.Start().Line != r.End().Line || c.Formula == nil {
 			continue
 		}

@@ -34,7 +34,7 @@ type cellAndFormula struct {
 func (a *arena) cellWith(e *sheet.Expr) *Cell {
 	x := a.cells.One()
 	x.f.Source = e
-	x.cell.Formula = &x.f
+	x.cell.Formula, x.cell.expr = &x.f, e
 	return &x.cell
 }
 

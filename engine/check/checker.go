@@ -75,7 +75,7 @@ func Sheet(f *sheet.File, opt Options) (*Program, diag.List) {
 	c := &checker{prog: &Program{File: f, Files: []*sheet.File{f}, Cells: make([]*Cell, 0, items), ByName: make(map[string]int, items)}, opt: opt}
 	c.collect()
 	if len(c.prog.Cells) > opt.MaxCells {
-		c.errs.Errorf(c.prog.Cells[opt.MaxCells].Range, fmt.Sprintf("a sheet may hold at most %s; this one has %s", plural.Grouped(opt.MaxCells)+" "+plural.Noun(opt.MaxCells, "cell"), plural.Grouped(len(c.prog.Cells))),
+		c.errs.Errorf(c.prog.Cells[opt.MaxCells].Range(), fmt.Sprintf("a sheet may hold at most %s; this one has %s", plural.Grouped(opt.MaxCells)+" "+plural.Noun(opt.MaxCells, "cell"), plural.Grouped(len(c.prog.Cells))),
 			"split the calculation into sheets, or raise the limit (--max-cells)", "too many cells")
 		c.errs.Sort()
 		return c.prog, c.errs
@@ -167,8 +167,7 @@ func (c *checker) collectFile(f *sheet.File, scope string, depth int) {
 			}
 			continue // a template's: read by useTemplate
 		case *sheet.Table:
-			cell = &Cell{Name: it.Name.Name, Kind: Table, NameRange: it.Name.Range, Range: it.Range,
-				annot: it.Annot}
+			cell = &Cell{Name: it.Name.Name, Kind: Table, def: &it.Def}
 			c.table(cell, it)
 		case *sheet.Use:
 			c.useTemplate(f, it, scope, depth)
@@ -194,13 +193,13 @@ func (c *checker) addCell(cell *Cell, section, scope string) {
 	p := c.prog
 	c.setPlace(cell, section, scope)
 	if IsReserved(cell.Name) {
-		c.errs.Errorf(cell.NameRange, "built-in names, constants and keywords cannot be redefined", "choose another name, e.g. `"+cell.Name+"_1`", "`%s` is a reserved name", cell.Name)
+		c.errs.Errorf(cell.NameRange(), "built-in names, constants and keywords cannot be redefined", "choose another name, e.g. `"+cell.Name+"_1`", "`%s` is a reserved name", cell.Name)
 	}
 	if scope != "" {
 		cell.Name = scope + cell.Name
 	}
 	if c.use.isAlias(cell.Name) {
-		c.errs.Errorf(cell.NameRange, "`"+cell.Name+"` names a template use at "+c.use.aliasPos(cell.Name).String()+"; each name names one thing",
+		c.errs.Errorf(cell.NameRange(), "`"+cell.Name+"` names a template use at "+c.use.aliasPos(cell.Name).String()+"; each name names one thing",
 			"rename one of them", "`%s` is defined twice", cell.Name)
 		return
 	}
@@ -213,7 +212,7 @@ func (c *checker) addCell(cell *Cell, section, scope string) {
 		case rangeHalf(cell) != "":
 			what = "the range check `" + cell.Name[:len(cell.Name)-4] + "` names its " + rangeHalf(cell) + " limit `" + cell.Name + "`, and `" + cell.Name + "` is first defined at " + first.Pos().String()
 		}
-		c.errs.Errorf(cell.NameRange, what+"; each name names one cell",
+		c.errs.Errorf(cell.NameRange(), what+"; each name names one cell",
 			"rename one of them", "`%s` is defined twice", cell.Name)
 		return
 	}
@@ -244,7 +243,7 @@ func (c *checker) setPlace(cell *Cell, section, scope string) {
 // rangeHalf is "lower" or "upper" for a half of a range check (its name
 // is the written name and _min or _max), "" for any other cell.
 func rangeHalf(cell *Cell) string {
-	written := int(cell.NameRange.End().Offset - cell.NameRange.Start().Offset)
+	written := int(cell.NameRange().End().Offset - cell.NameRange().Start().Offset)
 	if cell.Kind != Check || len(cell.Name)-len(cell.Scope()) != written+4 {
 		return ""
 	}
@@ -287,7 +286,7 @@ func (c *checker) rangeCheck(ck *sheet.Check, cell *Cell) (lo, hi *Cell) {
 			h.extra = &x
 		}
 		h.Name = cell.Name + suffix
-		h.Expr = body.Text
+		h.expr = &body
 		h.Formula = &formula.Formula{Source: &body}
 		h.setAnnot(strings.TrimSpace(cell.Description()+" ("+limit+")"), cell.Reference())
 		return &h
@@ -310,18 +309,15 @@ func (a *arena) newCell(it sheet.Item) *Cell {
 	switch it := it.(type) {
 	case *sheet.Cell:
 		cell := a.cellWith(&it.Expr)
-		cell.Name, cell.Kind, cell.NameRange, cell.Range = it.Name.Name, Derived, it.Name.Range, it.Range
-		cell.Expr, cell.annot = it.Expr.Text, it.Annot
+		cell.Name, cell.Kind, cell.def = it.Name.Name, Derived, &it.Def
 		return cell
 	case *sheet.FuncDef:
 		cell := a.cellWith(&it.Body)
-		cell.Name, cell.Kind, cell.NameRange, cell.Range = it.Name.Name, Function, it.Name.Range, it.Range
-		cell.Expr, cell.annot = it.Body.Text, it.Annot
+		cell.Name, cell.Kind, cell.def = it.Name.Name, Function, &it.Def
 		return cell
 	case *sheet.Check:
 		cell := a.cellWith(&it.Body)
-		cell.Name, cell.Kind, cell.NameRange, cell.Range = it.Name.Name, Check, it.Name.Range, it.Range
-		cell.Expr, cell.annot = it.Body.Text, it.Annot
+		cell.Name, cell.Kind, cell.def = it.Name.Name, Check, &it.Def
 		cell.more().State = limitState(it)
 		return cell
 	}

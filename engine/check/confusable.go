@@ -36,7 +36,7 @@ func (c *checker) confusableNames() {
 		if isASCII(prev.Name) && isASCII(cell.Name) {
 			continue
 		}
-		c.errs.Errorf(cell.NameRange, "`"+cell.Name+"` looks the same as `"+prev.Name+"`, defined at "+prev.Pos().String()+", but is written with other characters; a reader cannot tell the two cells apart",
+		c.errs.Errorf(cell.NameRange(), "`"+cell.Name+"` looks the same as `"+prev.Name+"`, defined at "+prev.Pos().String()+", but is written with other characters; a reader cannot tell the two cells apart",
 			"rename one of them, in the letters of one script", "`%s` can be mistaken for `%s`", cell.Name, prev.Name)
 	}
 }

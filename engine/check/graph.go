@@ -155,6 +155,6 @@ func (c *checker) reportCycle(cyc []int) {
 	if len(cyc) == 1 {
 		summary = "`" + head.Name + "` uses itself"
 	}
-	c.errs.Errorf(head.NameRange, "cells of the cycle: "+strings.Join(where, "; "),
+	c.errs.Errorf(head.NameRange(), "cells of the cycle: "+strings.Join(where, "; "),
 		"a cell cannot depend on itself, directly or through other cells; break the loop with an input", "%s", summary)
 }

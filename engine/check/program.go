@@ -47,17 +47,17 @@ type Cell struct {
 	// (Section and Scope read it); nil for a cell of the sheet itself
 	// before its first heading.
 	place *place
-	// annot is the annotation written after `--` (Description and
-	// Reference read it); nil when none is known.
-	annot *sheet.Annot
-	Expr  string // the expression as written ("" for a table)
+	// def is the written name, annotation and span of the item (Range,
+	// NameRange, Description and Reference read it); nil for a stand-in
+	// cell of the checker's own.
+	def *sheet.Def
+	// expr is the expression as written (Expr reads it); nil for a table.
+	expr *sheet.Expr
 	// unit is the display unit (Unit reads it), shared by the cells that
 	// write the same text; nil when none is written.
-	unit      *units.Unit
-	Type      *funcs.Type
-	Range     diag.Range // the whole item
-	NameRange diag.Range
-	Formula   *formula.Formula
+	unit    *units.Unit
+	Type    *funcs.Type
+	Formula *formula.Formula
 
 	// Body is the typed tree of the value (Input, Derived, Function).
 	Body Node
@@ -114,25 +114,48 @@ func (c *Cell) Scope() string {
 	return c.place.scope
 }
 
-// Description is the cell's description, written after `--`.
-func (c *Cell) Description() string {
-	if c.annot == nil {
+// Range is the span of the whole item that defines the cell.
+func (c *Cell) Range() diag.Range {
+	if c.def == nil {
+		return diag.Range{}
+	}
+	return c.def.Range
+}
+
+// NameRange is the span of the cell's name as written.
+func (c *Cell) NameRange() diag.Range {
+	if c.def == nil {
+		return diag.Range{}
+	}
+	return c.def.Name.Range
+}
+
+// Expr is the expression as written, "" for a table.
+func (c *Cell) Expr() string {
+	if c.expr == nil {
 		return ""
 	}
-	return c.annot.Description
+	return c.expr.Text
+}
+
+// Description is the cell's description, written after `--`.
+func (c *Cell) Description() string {
+	d, _ := c.def.Annot.Text()
+	return d
 }
 
 // Reference is the cell's reference, written after `@`.
 func (c *Cell) Reference() string {
-	if c.annot == nil {
-		return ""
-	}
-	return c.annot.Reference
+	_, r := c.def.Annot.Text()
+	return r
 }
 
-// setAnnot gives the cell a description and a reference of its own.
+// setAnnot gives the cell a description and a reference of its own: a
+// copy of its definition, which other cells may share.
 func (c *Cell) setAnnot(description, reference string) {
-	c.annot = &sheet.Annot{Description: description, Reference: reference}
+	d := *c.def
+	d.Annot = &sheet.Annot{Description: description, Reference: reference}
+	c.def = &d
 }
 
 // Unit is the display unit, its Symbol as written; the zero Unit when
@@ -163,7 +186,7 @@ func (c *Cell) more() *Extra {
 }
 
 // Pos is where the cell's name is.
-func (c *Cell) Pos() diag.Pos { return c.NameRange.Start() }
+func (c *Cell) Pos() diag.Pos { return c.NameRange().Start() }
 
 // LimitState is the limit state a check names after `in` ("" for the
 // default one).

@@ -382,15 +382,14 @@ func (c *checker) applyOverrides() {
 				continue
 			}
 			c.use.replaced[i] = &replaced{orig: cell.Formula, scope: cell.Scope()}
-			cell.Expr = o.Expr.Text
 			c.setPlace(cell, cell.Section(), b.scope)
-			cell.Range, cell.NameRange = o.Range, o.Name.Range
 			// The template's description still says what the cell is; its
 			// reference backed the template's value, not this one.
 			desc, ref := o.Annot.Text()
 			if desc == "" {
 				desc = cell.Description()
 			}
+			cell.expr, cell.def = &o.Expr, &o.Def
 			cell.setAnnot(desc, ref)
 			if o.Unit != nil {
 				cell.unit, cell.HasUnit = nil, false

@@ -205,7 +205,7 @@ func verdict(c *engine.CellResult) string {
 // parameters for a function.
 func formula(c *engine.Cell) string {
 	if c.Kind != engine.Function {
-		return c.Expr
+		return c.Expr()
 	}
 	ps := make([]string, len(c.Extra().Params))
 	for i, p := range c.Extra().Params {
@@ -214,7 +214,7 @@ func formula(c *engine.Cell) string {
 			ps[i] += " [" + p.Unit.Symbol + "]"
 		}
 	}
-	return "(" + strings.Join(ps, ", ") + ") = " + c.Expr
+	return "(" + strings.Join(ps, ", ") + ") = " + c.Expr()
 }
 
 // normalise drops the spacing of a formula, so a reformatted sheet shows

@@ -27,7 +27,7 @@ func (d *document) problems() diag.List {
 		if c.Pass || !c.Known {
 			continue // an unknown check has its problem reported at its cause
 		}
-		out = append(out, &diag.Diagnostic{Severity: diag.Warning, Range: c.Cell.NameRange,
+		out = append(out, &diag.Diagnostic{Severity: diag.Warning, Range: c.Cell.NameRange(),
 			Summary: fmt.Sprintf("design check `%s` FAILS: utilisation %s %%", c.Cell.Name, units.FormatNumber(c.Util*100, 4)),
 			Detail:  fmt.Sprintf("demand %s against capacity %s", units.Format(c.Demand, c.Unit, 4), units.Format(c.Capacity, c.Unit, 4))})
 	}

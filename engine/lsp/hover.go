@@ -106,9 +106,9 @@ func (s *Server) cellHover(d *document, c *engine.Cell) string {
 	if c.Kind == engine.Function {
 		b.WriteString("\n\n```sheaf\n" + signature(c) + "\n```")
 	}
-	if c.Expr != "" {
-		b.WriteString("\n\n```sheaf\n" + c.Expr + "\n```")
-		if sub := s.substituted(d, c); sub != "" && sub != c.Expr {
+	if c.Expr() != "" {
+		b.WriteString("\n\n```sheaf\n" + c.Expr() + "\n```")
+		if sub := s.substituted(d, c); sub != "" && sub != c.Expr() {
 			b.WriteString("\n```sheaf\n= " + sub + "\n```")
 		}
 	}
@@ -118,8 +118,8 @@ func (s *Server) cellHover(d *document, c *engine.Cell) string {
 	if c.Reference() != "" {
 		b.WriteString("\n\nReference: " + c.Reference())
 	}
-	if !d.own(c.NameRange.Start()) {
-		b.WriteString("\n\nDefined in " + c.NameRange.Start().String())
+	if !d.own(c.NameRange().Start()) {
+		b.WriteString("\n\nDefined in " + c.NameRange().Start().String())
 	}
 	return b.String()
 }
@@ -145,17 +145,17 @@ func signature(c *engine.Cell) string {
 // replaced by that cell's value in its display unit, from the source the
 // cell was written in; "" when the formula cannot be found there.
 func (s *Server) substituted(d *document, c *engine.Cell) string {
-	t := s.textOf(d, c.Range.Start().File)
-	from, to := t.offsetOfDiag(c.Range.Start()), t.offsetOfDiag(c.Range.End())
+	t := s.textOf(d, c.Range().Start().File)
+	from, to := t.offsetOfDiag(c.Range().Start()), t.offsetOfDiag(c.Range().End())
 	if from < 0 || to > len(t.src) || from >= to {
 		return ""
 	}
 	item := t.src[from:to]
-	at := strings.Index(item, c.Expr)
+	at := strings.Index(item, c.Expr())
 	if at < 0 {
 		return ""
 	}
-	exprFrom, exprTo := from+at, from+at+len(c.Expr)
+	exprFrom, exprTo := from+at, from+at+len(c.Expr())
 	type rep struct {
 		from, to int
 		text     string

@@ -44,15 +44,15 @@ func (s *Server) inlayHints(params json.RawMessage) (any, *rpcError) {
 		first, last = p.Range.Start.Line, p.Range.End.Line
 	}
 	for _, c := range d.sheet.Cells() {
-		if c.Kind == engine.Function || !d.own(c.Range.Start()) {
+		if c.Kind == engine.Function || !d.own(c.Range().Start()) {
 			continue
 		}
-		line := c.Range.End().Line - 1
-		if c.Range.End().Col == 1 && line > c.Range.Start().Line-1 {
+		line := c.Range().End().Line - 1
+		if c.Range().End().Col == 1 && line > c.Range().Start().Line-1 {
 			line-- // an end at the start of the next line
 		}
 		if c.Kind == engine.Table {
-			line = c.Range.Start().Line - 1 // beside `table name`, not its last row
+			line = c.Range().Start().Line - 1 // beside `table name`, not its last row
 		}
 		if line < first || line > last {
 			continue

@@ -354,11 +354,11 @@ func TestBundledSheets(t *testing.T) {
 		n := 0
 		for _, cr := range res.Cells {
 			x := cr.Cell
-			if x.Kind == engine.Function || x.Range.Start().File != abs {
+			if x.Kind == engine.Function || x.Range().Start().File != abs {
 				continue
 			}
 			n++
-			got := byLine[x.Range.End().Line-1]
+			got := byLine[x.Range().End().Line-1]
 			if x.Kind != engine.Check && x.Type != nil && cr.Known && strings.HasSuffix(cr.Text, "") {
 				want := "= " + cr.Text
 				if res.Combos != nil && res.Combos.CellIn[x.Index] >= 0 {
@@ -372,8 +372,8 @@ func TestBundledSheets(t *testing.T) {
 			}
 			// Hover on each cell's name names it.
 			var hv hover
-			li := x.NameRange.Start().Line - 1
-			c.call("textDocument/hover", at(uri, li, x.NameRange.Start().Col-1), &hv)
+			li := x.NameRange().Start().Line - 1
+			c.call("textDocument/hover", at(uri, li, x.NameRange().Start().Col-1), &hv)
 			if !strings.Contains(hv.Contents.Value, "**"+x.Name+"**") {
 				t.Errorf("%s: hover on %s:\n%s", p, x.Name, hv.Contents.Value)
 			}
@@ -434,7 +434,7 @@ func TestBundledSheets(t *testing.T) {
 		if m := st0.CellCombination(cr.Cell); m != "" {
 			want += " (" + m + ")" // a cell that depends on actions names its combination
 		}
-		if got := byLine[cr.Cell.Range.End().Line-1]; got != want {
+		if got := byLine[cr.Cell.Range().End().Line-1]; got != want {
 			t.Errorf("after d = 20 mm: %s shows %q, the engine's run %q", name, got, want)
 		}
 	}

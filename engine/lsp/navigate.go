@@ -69,7 +69,7 @@ func (s *Server) definition(params json.RawMessage) (any, *rpcError) {
 	}
 	switch t.kind {
 	case tCell, tField:
-		return []location{s.locationOf(d, t.cell.NameRange)}, nil
+		return []location{s.locationOf(d, t.cell.NameRange())}, nil
 	case tItem:
 		return []location{s.locationOf(d, itemNameRange(t.item))}, nil
 	case tParam:
@@ -101,8 +101,8 @@ type occurrence struct {
 func occurrences(s *engine.Sheet, x *engine.Cell, sources func(string) *text) []occurrence {
 	local := x.Name[strings.LastIndexByte(x.Name, '.')+1:]
 	var out []occurrence
-	if x.NameRange.Start().IsValid() {
-		out = append(out, occurrence{r: x.NameRange, decl: true})
+	if x.NameRange().Start().IsValid() {
+		out = append(out, occurrence{r: x.NameRange(), decl: true})
 	}
 	var walk func(n check.Node)
 	walk = func(n check.Node) {
@@ -198,7 +198,7 @@ func (s *Server) prepareRename(params json.RawMessage) (any, *rpcError) {
 		if seg, ok := lastSegment(t.node.Range(), local, d.lines); ok {
 			r = d.lines.rangeOf(seg)
 		}
-	} else if seg, ok := lastSegment(t.cell.NameRange, local, d.lines); ok && d.own(t.cell.NameRange.Start()) {
+	} else if seg, ok := lastSegment(t.cell.NameRange(), local, d.lines); ok && d.own(t.cell.NameRange().Start()) {
 		r = d.lines.rangeOf(seg)
 	}
 	return map[string]any{"range": r, "placeholder": local}, nil
@@ -229,11 +229,11 @@ func (s *Server) rename(params json.RawMessage) (any, *rpcError) {
 	if msg := badName(p.NewName); msg != "" {
 		return nil, &rpcError{Code: codeRequestFailed, Message: msg}
 	}
-	defFile := t.cell.NameRange.Start().File
+	defFile := t.cell.NameRange().Start().File
 	local := t.cell.Name[strings.LastIndexByte(t.cell.Name, '.')+1:]
 	// The definition: where the name's own file writes it. An instance
 	// of a template in this sheet (`rod.sigma`) is defined in the template.
-	defAt := t.cell.NameRange.Start()
+	defAt := t.cell.NameRange().Start()
 	if strings.Contains(t.cell.Name, ".") && defFile == d.path {
 		// An override in a `use` block: the name is the template's.
 		f, at, ok := s.templateDef(d, t.cell.Name)
@@ -261,7 +261,7 @@ func (s *Server) rename(params json.RawMessage) (any, *rpcError) {
 		for _, x := range sh.Cells() {
 			// Every instance of the renamed cell: the cell defined at the
 			// same place, under whatever prefix this sheet uses it.
-			if x.NameRange.Start().File != defFile || x.NameRange.Start().Offset != defAt.Offset || x.NameRange.Start().Line != defAt.Line {
+			if x.NameRange().Start().File != defFile || x.NameRange().Start().Offset != defAt.Offset || x.NameRange().Start().Line != defAt.Line {
 				if !overrides(sh, x, defFile, defAt) {
 					continue
 				}
@@ -313,7 +313,7 @@ func (s *Server) rename(params json.RawMessage) (any, *rpcError) {
 // overrides reports whether cell x of sh is an override (in a `use` block)
 // of the template input defined at defAt in defFile.
 func overrides(sh *engine.Sheet, x *engine.Cell, defFile string, defAt diag.Pos) bool {
-	if x.NameRange.Start().File == defFile {
+	if x.NameRange().Start().File == defFile {
 		return false
 	}
 	f := sh.File()
@@ -326,7 +326,7 @@ func overrides(sh *engine.Sheet, x *engine.Cell, defFile string, defAt diag.Pos)
 			continue
 		}
 		for _, o := range u.Overrides {
-			if o.Name.Range.Start().Offset == x.NameRange.Start().Offset && u.Name.Name+"."+o.Name.Name == x.Name {
+			if o.Name.Range.Start().Offset == x.NameRange().Start().Offset && u.Name.Name+"."+o.Name.Name == x.Name {
 				return templatePath(sh.Name(), u.Path) == filepath.Clean(defFile)
 			}
 		}

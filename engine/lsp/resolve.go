@@ -171,7 +171,7 @@ func (d *document) cellAt(l, c int) *engine.Cell {
 		return nil
 	}
 	for _, x := range d.sheet.Cells() {
-		if d.own(x.Range.Start()) && contains(x.Range, l, c) {
+		if d.own(x.Range().Start()) && contains(x.Range(), l, c) {
 			return x
 		}
 	}
@@ -261,8 +261,8 @@ func (d *document) resolve(p position) *target {
 		return nil
 	}
 	if x := d.cellAt(l, c); x != nil && !d.stale {
-		if contains(x.NameRange, l, c) {
-			return &target{kind: tCell, name: x.Name, cell: x, rng: d.lines.rangeOf(x.NameRange)}
+		if contains(x.NameRange(), l, c) {
+			return &target{kind: tCell, name: x.Name, cell: x, rng: d.lines.rangeOf(x.NameRange())}
 		}
 		for _, t := range trees(x) {
 			n := nodeAt(t, l, c)

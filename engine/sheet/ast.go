@@ -95,13 +95,20 @@ type Blank struct {
 	Range diag.Range
 }
 
+// Def is what every item that defines a cell has: the name, the
+// annotation and the span of the whole item, all its lines. The checker's
+// cells point at it rather than copy it.
+type Def struct {
+	Name  Ident
+	Annot *Annot     // nil when none is written
+	Range diag.Range // the whole item, all its lines
+}
+
 // Cell is "name [unit] = expr -- description @ reference".
 type Cell struct {
-	Name  Ident
-	Unit  *UnitSpec // nil when no display unit is written
-	Expr  Expr
-	Annot *Annot     // nil when none is written
-	Range diag.Range // the whole cell, all its lines
+	Def
+	Unit *UnitSpec // nil when no display unit is written
+	Expr Expr
 }
 
 // Param is a parameter of a user function: "name [unit]"; Unit may be nil
@@ -113,25 +120,21 @@ type Param struct {
 
 // FuncDef is a user function "name(p1 [unit], p2) [unit] = expr -- ...".
 type FuncDef struct {
-	Name   Ident
+	Def
 	Params []Param
 	Unit   *UnitSpec // result display unit; nil if not written
 	Body   Expr
-	Annot  *Annot // nil when none is written
-	Range  diag.Range
 }
 
 // Check is "check name: demand <= capacity -- ... @ ...". Body holds the whole
 // comparison; the checker splits it at its top-level comparison operator.
 type Check struct {
-	Name Ident
+	Def
 	// State is the limit state written after `in` (`check sag in
 	// frequent: ...`); its Name is "" when none is written (the default,
 	// ultimate limit state).
 	State Ident
 	Body  Expr
-	Annot *Annot // nil when none is written
-	Range diag.Range
 }
 
 // Column is a table column header "name [unit]".
@@ -152,11 +155,9 @@ type Literal struct {
 // Table is "table name -- ..." followed by an indented header row and
 // indented data rows.
 type Table struct {
-	Name    Ident
-	Annot   *Annot // nil when none is written
+	Def
 	Columns []Column
 	Rows    [][]Literal
-	Range   diag.Range
 }
 
 // Use is "use name from "path" -- ..." followed by indented override cells.

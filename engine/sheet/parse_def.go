@@ -140,7 +140,7 @@ func (p *parser) parseDef(i, j, at int, funcs bool) Item {
 	}
 	r := p.span(at, p.lines[j-1].end)
 	if isFunc {
-		fd := &FuncDef{Name: id, Params: params, Body: body, Annot: annot, Range: r}
+		fd := &FuncDef{Def: Def{Name: id, Annot: annot, Range: r}, Params: params, Body: body}
 		if hasUnit {
 			fu := u
 			fd.Unit = &fu
@@ -148,7 +148,7 @@ func (p *parser) parseDef(i, j, at int, funcs bool) Item {
 		return fd
 	}
 	a := p.newCell()
-	a.c = Cell{Name: id, Expr: body, Annot: annot, Range: r}
+	a.c = Cell{Def: Def{Name: id, Annot: annot, Range: r}, Expr: body}
 	if hasUnit {
 		a.u = u
 		a.c.Unit = &a.u
@@ -275,8 +275,7 @@ func (p *parser) parseCheck(i, j int) Item {
 	if !ok || !bok {
 		return nil
 	}
-	return &Check{Name: id, State: state, Body: body, Annot: annot,
-		Range: p.span(ln.start, p.lines[j-1].end)}
+	return &Check{Def: Def{Name: id, Annot: annot, Range: p.span(ln.start, p.lines[j-1].end)}, State: state, Body: body}
 }
 
 // body reads an expression that starts at offset from on line i and runs

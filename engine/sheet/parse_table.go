@@ -26,7 +26,7 @@ func (p *parser) parseTable(i, j int) Item {
 	if id.Name == "" {
 		return nil
 	}
-	tb := &Table{Name: id, Range: p.span(ln.start, p.lines[j-1].end)}
+	tb := &Table{Def: Def{Name: id, Range: p.span(ln.start, p.lines[j-1].end)}}
 	k = skipSpace(t, k+len(id.Name), ln.end)
 	switch {
 	case k >= ln.end:

@@ -186,7 +186,7 @@ func Build(r *engine.Results, exit int) *Document {
 	for _, c := range r.Cells {
 		jc := Cell{Name: c.Cell.Name, Kind: c.Cell.Kind.String(), Section: c.Cell.Section(), Known: c.Known,
 			Unit: c.Unit.Symbol, Text: c.Text, Description: c.Cell.Description(), Reference: c.Cell.Reference(),
-			Expr: c.Cell.Expr, Deps: depNames(r, c.Cell)}
+			Expr: c.Cell.Expr(), Deps: depNames(r, c.Cell)}
 		if c.Cell.Extra().Action != nil {
 			jc.Action = c.Cell.Extra().Action.Kind.Text()
 		}

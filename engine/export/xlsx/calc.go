@@ -239,7 +239,7 @@ func (x *exporter) staleColours() error {
 // hand calculation, value, unit, reference, note.
 func (x *exporter) cellRow(cr *engine.CellResult) [calcCols]excelize.Cell {
 	c := cr.Cell
-	name, expr := c.Name, oneLine(c.Expr)
+	name, expr := c.Name, oneLine(c.Expr())
 	var calc, unit, note string
 	var value excelize.Cell
 	switch {

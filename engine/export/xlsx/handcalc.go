@@ -153,11 +153,11 @@ func (x *exporter) handCalc(c *check.Cell, expr, result string) string {
 // checkCalc is the hand-calculation line of a check.
 func (x *exporter) checkCalc(c *check.Cell, cr *checkRow) string {
 	if !cr.known {
-		return oneLine(c.Expr) + ": not assessed"
+		return oneLine(c.Expr()) + ": not assessed"
 	}
 	sub := x.substituted(c, c.Extra().Demand, c.Extra().Capacity)
 	if sub == "" {
-		sub = oneLine(c.Expr)
+		sub = oneLine(c.Expr())
 	}
 	return sub + "; utilisation " + x.format(cr.demand, cr.unit) + " / " + x.format(cr.capacity, cr.unit) +
 		" = " + units.FormatNumber(cr.util*100, 3) + " %"

@@ -239,8 +239,8 @@ func (x *exporter) layout() {
 	for i := range x.r.Cells {
 		cr := &x.r.Cells[i]
 		c := cr.Cell
-		if c.Range.Start().File == x.s.Name() {
-			for len(comments) > 0 && comments[0].off < c.Range.Start().Offset {
+		if c.Range().Start().File == x.s.Name() {
+			for len(comments) > 0 && comments[0].off < c.Range().Start().Offset {
 				x.rows = append(x.rows, calcRow{kind: rowComment, row: row, title: comments[0].text})
 				row++
 				comments = comments[1:]
