@@ -276,8 +276,9 @@ func (c *checker) rangeCheck(ck *sheet.Check, cell *Cell) (lo, hi *Cell) {
 		return nil, nil
 	}
 	r := f.Nodes[f.Root]
-	lower, upper := f.Nodes[r.A], f.Nodes[r.C] // the first and the last term as written
-	x := f.Nodes[r.B]
+	first, mid, last := f.Terms(f.Root)
+	lower, upper := f.Nodes[first], f.Nodes[last] // the first and the last term as written
+	x := f.Nodes[mid]
 	half := func(suffix, limit string, from, to uint16) *Cell {
 		body := sheet.Expr{Text: ck.Body.Text[from:to], Range: ck.Body.RangeAt(int(from), int(to))}
 		h := *cell

@@ -142,14 +142,14 @@ func (n Node) Arg(k int) Node {
 		return n.src.node(n.src.f.ArgList(n.at)[k])
 	case OpRecord:
 		return n.src.node(n.src.f.ArgList(n.at)[2*k+1]) // keys and values alternate
+	case OpCond:
+		c, x, y := n.src.f.Terms(n.at)
+		return n.src.node([3]int32{c, x, y}[k])
 	}
-	switch k {
-	case 0:
+	if k == 0 {
 		return n.src.node(nd.A)
-	case 1:
-		return n.src.node(nd.B)
 	}
-	return n.src.node(nd.C)
+	return n.src.node(nd.B)
 }
 
 // Args returns the arguments of the node in a new slice (nil when it has

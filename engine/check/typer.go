@@ -83,12 +83,13 @@ func (t *typer) expr(n int32) Node {
 	case formula.KBinary:
 		return t.binary(n)
 	case formula.KCond:
-		c, a, b := t.expr(nd.A), t.expr(nd.B), t.expr(nd.C)
+		cn, an, bn := f.Terms(n)
+		c, a, b := t.expr(cn), t.expr(an), t.expr(bn)
 		if c.IsZero() || a.IsZero() || b.IsZero() {
 			return Node{}
 		}
 		if c.Type().Kind != funcs.Bool {
-			return t.fail(nd.A, "the condition of `? :` must be a comparison, got "+t.describeType(c.Type()), "", "write e.g. `N > 0 ? a : b`")
+			return t.fail(cn, "the condition of `? :` must be a comparison, got "+t.describeType(c.Type()), "", "write e.g. `N > 0 ? a : b`")
 		}
 		if !sameType(a.Type(), b.Type()) {
 			return t.fail(n, fmt.Sprintf("the two choices of `? :` differ: %s and %s", t.describeType(a.Type()), t.describeType(b.Type())), "both results of a choice must be the same kind of quantity", "check the units of the two choices")

@@ -20,14 +20,14 @@ const (
 	KName                 // a name: Text(n)
 	KUnary                // Op A
 	KBinary               // A Op B
-	KCond                 // A ? B : C
-	KCall                 // B(args): B is the KName callee, args are Args(n)
+	KCond                 // x ? y : z, the three Terms(n)
+	KCall                 // f(args): Callee(n) names f, args are ArgList(n)
 	KField                // A.B: B is the KName of the field
 	KIndex                // A[B]
-	KList                 // [args]
-	KRecord               // {k: v, ...}: Args(n) alternates KName keys and values
+	KList                 // [args]: ArgList(n)
+	KRecord               // {k: v, ...}: ArgList(n) alternates KName keys and values
 	KParen                // (A): kept so that spans and printing keep the brackets
-	KRange                // A Op B Op2 C: a check between two limits (Options.Range only)
+	KRange                // x Op y Op2 z, the three Terms(n): a check between two limits (Options.Range only)
 )
 
 // Op is the operator of a KUnary or KBinary node.
@@ -65,7 +65,7 @@ func (o Op) IsComparison() bool { return o >= OpLT && o <= OpNE }
 
 // Node is one node of a formula's syntax tree. Nodes live in the flat slice
 // Formula.Nodes and refer to each other by index, so that a formula is a
-// few allocations however many nodes it has, and a node is 20 bytes.
+// few allocations however many nodes it has, and a node is 16 bytes.
 type Node struct {
 	Kind Kind
 	Op   Op
@@ -76,17 +76,18 @@ type Node struct {
 	Ref bool
 	// From and To are the byte span of the node in the formula text,
 	// children included; a formula is at most MaxText bytes, so a span
-	// fits in 16 bits and the node is 20 bytes.
+	// fits in 16 bits and the node is 16 bytes.
 	From uint16
 	To   uint16
-	// A, B, C are child node indices (-1 when absent). For KNumber and
-	// KBool B and C hold the value's 64 bits, low word first (Num reads
-	// them), so that a number costs no slice of its own; for KQuantity A
-	// indexes Formula.Quantities(); for
-	// KCall, KList and KRecord C is the start of the arguments in
-	// the formula's argument lists and the count is in B for lists and records, in A for
-	// calls (whose B is the callee).
-	A, B, C int32
+	// A and B are child node indices (-1 when absent) of a KUnary,
+	// KBinary, KParen, KField (B the field's name) and KIndex. A node
+	// with more children keeps them in the formula's argument lists:
+	// for KCall, KList, KRecord, KCond and KRange A is their start there
+	// and B their count (ArgList, Terms). For KNumber and KBool A and B
+	// hold the value's 64 bits, low word first (Num reads them), so that
+	// a number costs no slice of its own; for KQuantity A indexes
+	// Formula.Quantities().
+	A, B int32
 }
 
 // Formula is one parsed expression of a sheet: its text, its syntax tree
@@ -169,13 +170,13 @@ func (f *Formula) StringText(n int32) string {
 // Num returns the value of a KNumber or KBool node.
 func (f *Formula) Num(n int32) float64 {
 	nd := &f.Nodes[n]
-	return math.Float64frombits(uint64(uint32(nd.B)) | uint64(uint32(nd.C))<<32)
+	return math.Float64frombits(uint64(uint32(nd.A)) | uint64(uint32(nd.B))<<32)
 }
 
 // numNode is a KNumber or KBool node of value v spanning [from, to).
 func numNode(k Kind, from, to int32, v float64) Node {
 	bits := math.Float64bits(v)
-	return Node{Kind: k, From: uint16(from), To: uint16(to), A: -1, B: int32(uint32(bits)), C: int32(uint32(bits >> 32))}
+	return Node{Kind: k, From: uint16(from), To: uint16(to), A: int32(uint32(bits)), B: int32(uint32(bits >> 32))}
 }
 
 // Quantity returns the literal of a KQuantity node.
@@ -194,21 +195,30 @@ func (f *Formula) QuantityNumber(q *Quantity) string { return f.Source.Text[q.Fr
 // QuantityUnit returns the unit of the literal as written, e.g. "kN".
 func (f *Formula) QuantityUnit(q *Quantity) string { return f.Source.Text[q.UnitFrom:q.To] }
 
-// ArgList returns the arguments of a KCall, KList or KRecord node.
+// ArgList returns the arguments of a KCall, KList or KRecord node (a
+// record's keys and values alternate).
 func (f *Formula) ArgList(n int32) []int32 {
 	nd := &f.Nodes[n]
-	count := nd.B
-	if nd.Kind == KCall {
-		count = nd.A
-	}
-	if count == 0 {
+	if nd.B == 0 {
 		return nil
 	}
-	return f.side.args[nd.C : nd.C+count]
+	start := nd.A
+	if nd.Kind == KCall {
+		start++ // past the callee
+	}
+	return f.side.args[start : start+nd.B]
+}
+
+// Terms returns the three operands of a KCond (the condition and the two
+// choices) or a KRange (the lower limit, the middle and the upper limit,
+// as written).
+func (f *Formula) Terms(n int32) (a, b, c int32) {
+	t := f.side.args[f.Nodes[n].A:]
+	return t[0], t[1], t[2]
 }
 
 // Callee returns the name a KCall node calls.
-func (f *Formula) Callee(n int32) string { return f.Text(f.Nodes[n].B) }
+func (f *Formula) Callee(n int32) string { return f.Text(f.side.args[f.Nodes[n].A]) }
 
 // Span returns the byte span of node n in the formula text.
 func (f *Formula) Span(n int32) (from, to int) {

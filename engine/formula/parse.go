@@ -182,7 +182,7 @@ func (p *parser) expression() int32 {
 	b := p.expression()
 	from, _ := p.span(c)
 	_, to := p.span(b)
-	return p.add(Node{Kind: KCond, From: from, To: to, A: c, B: a, C: b})
+	return p.add(Node{Kind: KCond, From: from, To: to, A: p.keep(c, a, b), B: 3})
 }
 
 // The binary operators are read by precedence climbing, one loop over the
@@ -312,7 +312,7 @@ func (p *parser) prefix(op Op, level int) int32 {
 	defer p.leave()
 	x := p.climb(level)
 	_, to := p.span(x)
-	return p.add(Node{Kind: KUnary, Op: op, From: uint16(from), To: to, A: x, B: -1, C: -1})
+	return p.add(Node{Kind: KUnary, Op: op, From: uint16(from), To: to, A: x, B: -1})
 }
 
 // range = sum ( "<" | "<=" ) sum ( "<" | "<=" ) sum
@@ -333,7 +333,7 @@ func (p *parser) rangeTail(first int32) int32 {
 	hi := p.climb(precSum)
 	fn := p.f.Nodes[first]
 	_, to := p.span(hi)
-	return p.add(Node{Kind: KRange, Op: op1, Op2: op2, From: fn.From, To: to, A: fn.A, B: fn.B, C: hi})
+	return p.add(Node{Kind: KRange, Op: op1, Op2: op2, From: fn.From, To: to, A: p.keep(fn.A, fn.B, hi), B: 3})
 }
 
 func compareOp(s string) Op {
@@ -344,7 +344,7 @@ func compareOp(s string) Op {
 func (p *parser) binary(op Op, a, b int32) int32 {
 	from, _ := p.span(a)
 	_, to := p.span(b)
-	return p.add(Node{Kind: KBinary, Op: op, From: from, To: to, A: a, B: b, C: -1})
+	return p.add(Node{Kind: KBinary, Op: op, From: from, To: to, A: a, B: b})
 }
 
 // postfix = primary { "." name | "[" expression "]" } .
@@ -362,13 +362,13 @@ func (p *parser) postfix() int32 {
 				p.fail(p.tok, "methods are not part of the sheet language", "pass the value as the first argument: `f(x)` rather than `x.f()`")
 			}
 			from, _ := p.span(x)
-			x = p.add(Node{Kind: KField, From: from, To: uint16(p.prev.to), A: x, B: name, C: -1})
+			x = p.add(Node{Kind: KField, From: from, To: uint16(p.prev.to), A: x, B: name})
 		case "[":
 			p.next()
 			i := p.expression()
 			p.close("[", "]")
 			from, _ := p.span(x)
-			x = p.add(Node{Kind: KIndex, From: from, To: uint16(p.prev.to), A: x, B: i, C: -1})
+			x = p.add(Node{Kind: KIndex, From: from, To: uint16(p.prev.to), A: x, B: i})
 		case "(":
 			p.fail(p.tok, "only named functions can be called", "write `f(x)` where f is a built-in, a plugin or a function of the sheet")
 		default:
@@ -383,7 +383,7 @@ func (p *parser) postfix() int32 {
 func (p *parser) name(ref bool) int32 {
 	t := p.tok
 	p.next()
-	n := p.add(Node{Kind: KName, Ref: ref, From: uint16(t.from), To: uint16(t.to), A: -1, B: -1, C: -1})
+	n := p.add(Node{Kind: KName, Ref: ref, From: uint16(t.from), To: uint16(t.to), A: -1, B: -1})
 	if ref {
 		p.f.nrefs++ // after add, which stops a formula with too many nodes
 	}
@@ -426,15 +426,15 @@ func (p *parser) primary() int32 {
 		p.next()
 		x := p.expression()
 		p.close("(", ")")
-		return p.add(Node{Kind: KParen, From: uint16(t.from), To: uint16(p.prev.to), A: x, B: -1, C: -1})
+		return p.add(Node{Kind: KParen, From: uint16(t.from), To: uint16(p.prev.to), A: x, B: -1})
 	case "[":
 		p.next()
 		if p.isOp("]") {
 			p.next()
-			return p.add(Node{Kind: KList, From: uint16(t.from), To: uint16(p.prev.to), A: -1, B: 0, C: int32(len(p.argList))})
+			return p.add(Node{Kind: KList, From: uint16(t.from), To: uint16(p.prev.to), A: int32(len(p.argList)), B: 0})
 		}
 		args := p.args("[", "]", false)
-		return p.add(Node{Kind: KList, From: uint16(t.from), To: uint16(p.prev.to), A: -1, B: int32(len(args)), C: p.keep(args)})
+		return p.add(Node{Kind: KList, From: uint16(t.from), To: uint16(p.prev.to), A: p.keep(args...), B: int32(len(args))})
 	case "{":
 		return p.record()
 	}
@@ -464,7 +464,7 @@ func (p *parser) number() int32 {
 		q.SI = v * u.Factor
 	}
 	p.quants = append(p.quants, q)
-	return p.add(Node{Kind: KQuantity, From: uint16(t.from), To: uint16(t.to), A: int32(len(p.quants) - 1), B: -1, C: -1})
+	return p.add(Node{Kind: KQuantity, From: uint16(t.from), To: uint16(t.to), A: int32(len(p.quants) - 1), B: -1})
 }
 
 // noUnit is the Unit of a literal whose unit did not parse.
@@ -500,10 +500,13 @@ func (p *parser) call() int32 {
 	p.next() // (
 	if p.isOp(")") {
 		p.next()
-		return p.add(Node{Kind: KCall, From: uint16(t.from), To: uint16(p.prev.to), A: 0, B: callee, C: int32(len(p.argList))})
+		return p.add(Node{Kind: KCall, From: uint16(t.from), To: uint16(p.prev.to), A: p.keep(callee), B: 0})
 	}
 	args := p.args("(", ")", true)
-	return p.add(Node{Kind: KCall, From: uint16(t.from), To: uint16(p.prev.to), A: int32(len(args)), B: callee, C: p.keep(args)})
+	// The callee, then the arguments right after it.
+	start := p.keep(callee)
+	p.keep(args...)
+	return p.add(Node{Kind: KCall, From: uint16(t.from), To: uint16(p.prev.to), A: start, B: int32(len(args))})
 }
 
 // args = arg { "," arg } [ "," ] .
@@ -536,16 +539,17 @@ func (p *parser) stringArg() int32 {
 	t := p.tok
 	p.next()
 	if p.tok.kind == tOp && (p.tok.text == "," || p.tok.text == ")" || p.tok.text == "}") {
-		return p.add(Node{Kind: KString, From: uint16(t.from), To: uint16(t.to), A: -1, B: -1, C: -1})
+		return p.add(Node{Kind: KString, From: uint16(t.from), To: uint16(t.to), A: -1, B: -1})
 	}
 	p.fail(t, "text is only allowed as a function argument", "pass the text on its own, as in f(x, \"fixed\")")
 	return -1
 }
 
-// keep appends args to the formula's argument lists and returns their start.
-func (p *parser) keep(args []int32) int32 {
+// keep appends terms to the formula's argument lists and returns their
+// start.
+func (p *parser) keep(terms ...int32) int32 {
 	start := int32(len(p.argList))
-	p.argList = append(p.argList, args...)
+	p.argList = append(p.argList, terms...)
 	return start
 }
 
@@ -580,7 +584,7 @@ func (p *parser) record() int32 {
 		p.next()
 	}
 	p.close("{", "}")
-	return p.add(Node{Kind: KRecord, From: uint16(t.from), To: uint16(p.prev.to), A: -1, B: int32(len(args)), C: p.keep(args)})
+	return p.add(Node{Kind: KRecord, From: uint16(t.from), To: uint16(p.prev.to), A: p.keep(args...), B: int32(len(args))})
 }
 
 // close consumes the closing bracket of open or reports it missing.

@@ -35,20 +35,10 @@ func (f *Formula) print(b *strings.Builder, n int32) {
 		f.print(b, nd.A)
 	case KRange:
 		b.WriteString("(range " + nd.Op.String() + " " + nd.Op2.String() + " ")
-		f.print(b, nd.A)
-		b.WriteString(" ")
-		f.print(b, nd.B)
-		b.WriteString(" ")
-		f.print(b, nd.C)
-		b.WriteString(")")
+		f.printTerms(b, n)
 	case KCond:
 		b.WriteString("(? ")
-		f.print(b, nd.A)
-		b.WriteString(" ")
-		f.print(b, nd.B)
-		b.WriteString(" ")
-		f.print(b, nd.C)
-		b.WriteString(")")
+		f.printTerms(b, n)
 	case KField:
 		b.WriteString("(. ")
 		f.print(b, nd.A)
@@ -81,4 +71,16 @@ func (f *Formula) print(b *strings.Builder, n int32) {
 		}
 		b.WriteString(")")
 	}
+}
+
+// printTerms prints the three operands of a KCond or a KRange and the
+// closing bracket.
+func (f *Formula) printTerms(b *strings.Builder, n int32) {
+	x, y, z := f.Terms(n)
+	f.print(b, x)
+	b.WriteString(" ")
+	f.print(b, y)
+	b.WriteString(" ")
+	f.print(b, z)
+	b.WriteString(")")
 }
