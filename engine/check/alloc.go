@@ -1,6 +1,8 @@
 package check
 
 import (
+	"slices"
+
 	"github.com/sheafcalc/sheaf/engine/formula"
 	"github.com/sheafcalc/sheaf/engine/sheet"
 	"github.com/sheafcalc/sheaf/engine/units"
@@ -8,18 +10,18 @@ import (
 	"github.com/sheafcalc/sheaf/internal/block"
 )
 
-// arena hands out the cells and typed nodes of a program from blocks, and
-// shares one number type per dimension. A sheet of 100,000 cells types
-// about a million nodes: one allocation per node made checking a large
-// sheet slow, mostly by the memory it took up fresh. The program keeps
-// every cell and node for its whole life, so a block never pins memory
-// that would otherwise be freed. Each kind of block grows on its own from
-// a few items, so a small sheet stays small. An arena belongs to one
+// arena hands out the cells and typed formulas of a program from blocks
+// (their typed nodes lie in one slice, Program.slots), and shares one
+// number type per dimension. A sheet of 100,000 cells types about a
+// million nodes: one allocation per node made checking a large sheet
+// slow, mostly by the memory it took up fresh. The program keeps every
+// cell and node for its whole life, so a block never pins memory that
+// would otherwise be freed. Each kind of block grows on its own from a
+// few items, so a small sheet stays small. An arena belongs to one
 // checker and is used from one goroutine.
 type arena struct {
 	cells block.Block[cellAndFormula]
 	srcs  block.Block[typed]
-	nodes block.Block[slot]
 	nums  map[units.Dim]*funcs.Type
 }
 
@@ -53,8 +55,8 @@ func (a *arena) reserveCells(items []sheet.Item, limit int) {
 }
 
 // reserveTyped makes room for the typed nodes of every formula of p in
-// one block: they are all parsed before the first is typed, so their
-// sizes are known.
+// p.slots: they are all parsed before the first is typed, so their sizes
+// are known.
 func (a *arena) reserveTyped(p *Program) {
 	nodes, formulas := 0, 0
 	add := func(f *formula.Formula) {
@@ -69,14 +71,15 @@ func (a *arena) reserveTyped(p *Program) {
 			add(e.Formula)
 		}
 	}
-	a.nodes.Reserve(nodes)
+	p.slots = slices.Grow(p.slots, nodes)
 	a.srcs.Reserve(formulas)
 }
 
 // typed returns room for the typed nodes of f, one slot per syntax node.
 func (a *arena) typed(f *formula.Formula, p *Program) *typed {
 	s := a.srcs.One()
-	s.f, s.prog, s.nodes = f, p, a.nodes.Take(len(f.Nodes))
+	s.f, s.prog, s.at = f, p, int32(len(p.slots))
+	p.slots = append(p.slots, make([]slot, len(f.Nodes))...)
 	return s
 }
 

@@ -79,28 +79,30 @@ func (s *slot) setIndex(i int32) { s.word = s.word&^maxIndex | uint32(i)&maxInde
 // formula, a side of a check that failed).
 func (n Node) IsZero() bool { return n.src == nil }
 
-func (n Node) slot() *slot { return &n.src.nodes[n.at] }
+func (n Node) slot() *slot { return &n.src.prog.slots[n.src.at+n.at] }
 
 // Op is the operation of the node.
-func (n Node) Op() Op { return n.src.nodes[n.at].op() }
+func (n Node) Op() Op { return n.slot().op() }
 
 // Builtin is the built-in function an OpBuiltin node applies.
-func (n Node) Builtin() Builtin { return Builtin(n.src.nodes[n.at].index()) }
+func (n Node) Builtin() Builtin { return Builtin(n.slot().index()) }
 
 // Index is the cell, parameter or field index the node refers to (see
 // Op); for OpPlugin, an index of Program.plugins.
-func (n Node) Index() int32 { return n.src.nodes[n.at].index() }
+func (n Node) Index() int32 { return n.slot().index() }
 
 // Type is the type of the node's value.
-func (n Node) Type() *funcs.Type { return n.src.prog.types[n.src.nodes[n.at].ty] }
+func (n Node) Type() *funcs.Type { return n.src.prog.types[n.slot().ty] }
 
 // typed is a formula with its typed nodes.
 type typed struct {
-	f     *formula.Formula
-	prog  *Program // for the names of the cells a node refers to
-	nodes []slot   // len(f.Nodes); a slot is set when its syntax node was typed
-	count int32    // slots set
-	calls bool     // some slot calls a function of the sheet (OpUser, OpFuncRef)
+	f    *formula.Formula
+	prog *Program // for the names of the cells a node refers to, and the slots
+	// at is where the formula's slots begin in prog.slots: one per
+	// syntax node, set when the node was typed.
+	at    int32
+	count int32 // slots set
+	calls bool  // some slot calls a function of the sheet (OpUser, OpFuncRef)
 }
 
 // node returns the typed node standing for syntax node n: brackets and a

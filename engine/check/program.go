@@ -280,6 +280,9 @@ type Program struct {
 	// typeAt finds one in it.
 	types  []*funcs.Type
 	typeAt map[*funcs.Type]int32
+	// slots are the typed nodes of every formula, one formula's after
+	// another (typed.at is where a formula's begin).
+	slots []slot
 }
 
 // typeIndex returns the index of t in p.types, adding it when new. Types

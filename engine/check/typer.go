@@ -32,7 +32,7 @@ func (t *typer) node(n int32, op Op, ty *funcs.Type) Node {
 	if t.typed == nil {
 		t.typed = t.c.arena.typed(t.f, t.c.prog)
 	}
-	t.typed.nodes[n] = slot{word: uint32(op) << 24, ty: t.c.prog.typeIndex(ty)}
+	t.c.prog.slots[t.typed.at+n] = slot{word: uint32(op) << 24, ty: t.c.prog.typeIndex(ty)}
 	t.typed.count++
 	t.typed.calls = t.typed.calls || op == OpUser || op == OpFuncRef
 	return Node{src: t.typed, at: n}
