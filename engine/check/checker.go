@@ -791,7 +791,7 @@ func bareNumber(f *formula.Formula) (float64, bool) {
 		switch {
 		case nd.Kind == formula.KNumber:
 			return sign * f.Num(n), true
-		case nd.Kind == formula.KParen, nd.Kind == formula.KUnary && nd.Op == formula.OpPlus:
+		case nd.Kind == formula.KUnary && nd.Op == formula.OpPlus:
 			n = nd.A
 		case nd.Kind == formula.KUnary && nd.Op == formula.OpNeg:
 			sign, n = -sign, nd.A

@@ -46,13 +46,14 @@ const (
 // It is a handle, passed by value: the formula it lies in and the index
 // of its syntax node. The zero Node stands for no expression (IsZero).
 //
-// A formula's typed nodes lie in one slice beside its syntax nodes, at the
-// same indices: slot i is the type and meaning of syntax node i. What the
-// syntax already holds (the arguments, a literal's value, a name, the
-// span) is read from it rather than copied, and the type is an index into
-// the program's types, so a slot is 8 bytes without a pointer: the
-// collector does not scan a million of them. Brackets and a unary plus
-// have no node of their own: they stand for what they enclose.
+// A formula's typed nodes lie in the program's slots, one run per formula
+// at the indices of its syntax nodes: slot typed.at+i is the type and
+// meaning of syntax node i. What the syntax already holds (the arguments,
+// a literal's value, a name, the span) is read from it rather than
+// copied, and the type is an index into the program's types, so a slot is
+// 8 bytes without a pointer: the collector does not scan a million of
+// them. A unary plus has no node of its own: it stands for what it
+// encloses (and brackets have no syntax node either).
 type Node struct {
 	src *typed
 	at  int32 // the syntax node in src.f
@@ -105,12 +106,12 @@ type typed struct {
 	calls bool  // some slot calls a function of the sheet (OpUser, OpFuncRef)
 }
 
-// node returns the typed node standing for syntax node n: brackets and a
-// unary plus stand for what they enclose.
+// node returns the typed node standing for syntax node n: a unary plus
+// stands for what it encloses (brackets have no node).
 func (s *typed) node(n int32) Node {
 	for {
 		nd := &s.f.Nodes[n]
-		if nd.Kind != formula.KParen && (nd.Kind != formula.KUnary || nd.Op != formula.OpPlus) {
+		if nd.Kind != formula.KUnary || nd.Op != formula.OpPlus {
 			return Node{src: s, at: n}
 		}
 		n = nd.A

@@ -60,8 +60,6 @@ func (t *typer) expr(n int32) Node {
 		return t.node(n, OpString, funcs.StringType)
 	case formula.KName:
 		return t.ident(n)
-	case formula.KParen:
-		return t.expr(nd.A)
 	case formula.KUnary:
 		x := t.expr(nd.A)
 		if x.IsZero() {

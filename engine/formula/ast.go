@@ -26,7 +26,6 @@ const (
 	KIndex                // A[B]
 	KList                 // [args]: ArgList(n)
 	KRecord               // {k: v, ...}: ArgList(n) alternates KName keys and values
-	KParen                // (A): kept so that spans and printing keep the brackets
 	KRange                // x Op y Op2 z, the three Terms(n): a check between two limits (Options.Range only)
 )
 
@@ -80,7 +79,7 @@ type Node struct {
 	From uint16
 	To   uint16
 	// A and B are child node indices (-1 when absent) of a KUnary,
-	// KBinary, KParen, KField (B the field's name) and KIndex. A node
+	// KBinary, KField (B the field's name) and KIndex. A node
 	// with more children keeps them in the formula's argument lists:
 	// for KCall, KList, KRecord, KCond and KRange A is their start there
 	// and B their count (ArgList, Terms). For KNumber and KBool A and B

@@ -285,3 +285,35 @@ func TestRange(t *testing.T) {
 		t.Error("a chained comparison parsed without Options.Range")
 	}
 }
+
+// TestSpans: brackets have no node; the span of a node runs from its first
+// token to its last, so a node that encloses brackets takes them in and a
+// bracketed expression's own span leaves them out. The spans are listed in
+// node order (children before their parent).
+func TestSpans(t *testing.T) {
+	cases := []struct{ text, want string }{
+		{"(a + b) * c", "a|b|a + b|c|(a + b) * c"},
+		{"2 ^ (3 m)", "2|3 m|2 ^ (3 m)"},
+		{"((a))", "a"},
+		{"(a) + (b)", "a|b|(a) + (b)"},
+		{"-(x)", "x|-(x)"},
+		{"(x) > 0 ? (a) : b", "x|0|(x) > 0|a|b|(x) > 0 ? (a) : b"},
+		{"f((a), b)[0]", "f|a|b|f((a), b)|0|f((a), b)[0]"},
+		{"(r).E", "r|E|(r).E"},
+		{"[(1 m)]", "1 m|[(1 m)]"},
+	}
+	for _, c := range cases {
+		f, errs := Parse(expr(c.text), Options{})
+		if errs.HasErrors() || f == nil {
+			t.Errorf("%q: %v", c.text, errs)
+			continue
+		}
+		texts := make([]string, len(f.Nodes))
+		for i := range f.Nodes {
+			texts[i] = f.Text(int32(i))
+		}
+		if got := strings.Join(texts, "|"); got != c.want {
+			t.Errorf("%q:\n got %s\nwant %s", c.text, got, c.want)
+		}
+	}
+}

@@ -166,6 +166,7 @@ func (p *parser) leave() { p.depth-- }
 func (p *parser) expression() int32 {
 	p.enter()
 	defer p.leave()
+	from := p.tok.from
 	c := p.climb(precOr)
 	if !p.isOp("?") {
 		return c
@@ -180,9 +181,7 @@ func (p *parser) expression() int32 {
 	}
 	p.next()
 	b := p.expression()
-	from, _ := p.span(c)
-	_, to := p.span(b)
-	return p.add(Node{Kind: KCond, From: from, To: to, A: p.keep(c, a, b), B: 3})
+	return p.add(Node{Kind: KCond, From: uint16(from), To: uint16(p.prev.to), A: p.keep(c, a, b), B: 3})
 }
 
 // The binary operators are read by precedence climbing, one loop over the
@@ -258,6 +257,7 @@ func isCompare(s string) bool {
 
 // climb reads an expression of level at least level (see precOr).
 func (p *parser) climb(level int) int32 {
+	from := p.tok.from
 	x := p.operand(level)
 	last := precPower + 1 // the level of the operator x was made with
 	for {
@@ -273,16 +273,16 @@ func (p *parser) climb(level int) int32 {
 		switch prec {
 		case precPower: // right-associative, and its exponent may have a sign
 			p.enter()
-			x = p.binary(op, x, p.climb(precUnary))
+			x = p.binary(op, from, x, p.climb(precUnary))
 			p.leave()
 		case precCompare:
-			x = p.binary(op, x, p.climb(precSum))
+			x = p.binary(op, from, x, p.climb(precSum))
 			if p.tok.kind == tOp && isCompare(p.tok.text) && !(p.opt.Range && p.depth == 1) {
 				p.fail(p.tok, "comparisons do not chain",
 					"write each comparison on its own and join them: `a < b and b < c`; a check may be written between two limits, `check name: lo <= x <= hi`")
 			}
 		default:
-			x = p.binary(op, x, p.climb(prec+1))
+			x = p.binary(op, from, x, p.climb(prec+1))
 		}
 		last = prec
 	}
@@ -311,8 +311,7 @@ func (p *parser) prefix(op Op, level int) int32 {
 	p.enter()
 	defer p.leave()
 	x := p.climb(level)
-	_, to := p.span(x)
-	return p.add(Node{Kind: KUnary, Op: op, From: uint16(from), To: to, A: x, B: -1})
+	return p.add(Node{Kind: KUnary, Op: op, From: uint16(from), To: uint16(p.prev.to), A: x, B: -1})
 }
 
 // range = sum ( "<" | "<=" ) sum ( "<" | "<=" ) sum
@@ -332,8 +331,7 @@ func (p *parser) rangeTail(first int32) int32 {
 	p.next()
 	hi := p.climb(precSum)
 	fn := p.f.Nodes[first]
-	_, to := p.span(hi)
-	return p.add(Node{Kind: KRange, Op: op1, Op2: op2, From: fn.From, To: to, A: p.keep(fn.A, fn.B, hi), B: 3})
+	return p.add(Node{Kind: KRange, Op: op1, Op2: op2, From: fn.From, To: uint16(p.prev.to), A: p.keep(fn.A, fn.B, hi), B: 3})
 }
 
 func compareOp(s string) Op {
@@ -341,14 +339,15 @@ func compareOp(s string) Op {
 	return op
 }
 
-func (p *parser) binary(op Op, a, b int32) int32 {
-	from, _ := p.span(a)
-	_, to := p.span(b)
-	return p.add(Node{Kind: KBinary, Op: op, From: from, To: to, A: a, B: b})
+// binary makes the node of a op b, read from offset from up to the last
+// token read.
+func (p *parser) binary(op Op, from int32, a, b int32) int32 {
+	return p.add(Node{Kind: KBinary, Op: op, From: uint16(from), To: uint16(p.prev.to), A: a, B: b})
 }
 
 // postfix = primary { "." name | "[" expression "]" } .
 func (p *parser) postfix() int32 {
+	from := p.tok.from
 	x := p.primary()
 	for p.tok.kind == tOp {
 		switch p.tok.text {
@@ -361,14 +360,12 @@ func (p *parser) postfix() int32 {
 			if p.isOp("(") {
 				p.fail(p.tok, "methods are not part of the sheet language", "pass the value as the first argument: `f(x)` rather than `x.f()`")
 			}
-			from, _ := p.span(x)
-			x = p.add(Node{Kind: KField, From: from, To: uint16(p.prev.to), A: x, B: name})
+			x = p.add(Node{Kind: KField, From: uint16(from), To: uint16(p.prev.to), A: x, B: name})
 		case "[":
 			p.next()
 			i := p.expression()
 			p.close("[", "]")
-			from, _ := p.span(x)
-			x = p.add(Node{Kind: KIndex, From: from, To: uint16(p.prev.to), A: x, B: i})
+			x = p.add(Node{Kind: KIndex, From: uint16(from), To: uint16(p.prev.to), A: x, B: i})
 		case "(":
 			p.fail(p.tok, "only named functions can be called", "write `f(x)` where f is a built-in, a plugin or a function of the sheet")
 		default:
@@ -426,7 +423,9 @@ func (p *parser) primary() int32 {
 		p.next()
 		x := p.expression()
 		p.close("(", ")")
-		return p.add(Node{Kind: KParen, From: uint16(t.from), To: uint16(p.prev.to), A: x, B: -1})
+		// The brackets take no node: the spans of the nodes around x
+		// run from token to token, so they take the brackets in.
+		return x
 	case "[":
 		p.next()
 		if p.isOp("]") {

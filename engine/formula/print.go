@@ -31,8 +31,6 @@ func (f *Formula) print(b *strings.Builder, n int32) {
 		b.WriteString(" ")
 		f.print(b, nd.B)
 		b.WriteString(")")
-	case KParen:
-		f.print(b, nd.A)
 	case KRange:
 		b.WriteString("(range " + nd.Op.String() + " " + nd.Op2.String() + " ")
 		f.printTerms(b, n)
