@@ -339,8 +339,8 @@ func capacityChoice(prog *check.Program, c *Cell) bool {
 		return false
 	}
 	if n.Op() == check.OpCell {
-		if k := int(n.Index()); k >= 0 && k < len(prog.Cells) && !prog.Cells[k].Body.IsZero() {
-			n = prog.Cells[k].Body
+		if k := int(n.Index()); k >= 0 && k < len(prog.Cells) && !prog.Cells[k].Body().IsZero() {
+			n = prog.Cells[k].Body()
 		}
 	}
 	return n.Op() == check.OpBuiltin && (n.Builtin() == check.BMin || n.Builtin() == check.BMax) && n.NArg() >= 2

@@ -50,7 +50,7 @@ func findPins(prog *check.Program, errs *diag.List) []pin {
 	}
 	for _, c := range prog.Cells {
 		xc := c.Extra()
-		walk(c, c.Body)
+		walk(c, c.Body())
 		walk(c, xc.Demand)
 		walk(c, xc.Capacity)
 		for _, e := range xc.Entries {
@@ -165,7 +165,7 @@ func direct(prog *check.Program, dep []bool, pins []pin) []bool {
 			}
 		}
 		xc := c.Extra()
-		walk(c.Body)
+		walk(c.Body())
 		walk(xc.Demand)
 		walk(xc.Capacity)
 		for _, e := range xc.Entries {

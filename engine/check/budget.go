@@ -55,7 +55,7 @@ func (c *checker) budget() {
 		if cell.Type == nil {
 			continue
 		}
-		s := steps(cell.Body) + steps(cell.Extra().Demand, cell.Extra().Capacity) // a check's two sides are one formula
+		s := steps(cell.Body()) + steps(cell.Extra().Demand, cell.Extra().Capacity) // a check's two sides are one formula
 		for _, e := range cell.Extra().Entries {
 			s += steps(e.Node)
 		}

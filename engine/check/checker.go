@@ -687,14 +687,15 @@ func (c *checker) typeCell(t *typer, cell *Cell) {
 		for k, p := range cell.Extra().Params {
 			ps[k] = p.Type
 		}
-		cell.Body = body
+		cell.setBody(body)
 		cell.Type = funcs.FuncOf(body.Type(), ps...)
 	default:
 		body := t.expr(cell.Formula.Root)
 		if body.IsZero() || !c.fitsOverride(t, cell, body) || !c.fitsUnit(t, cell, body) {
 			return
 		}
-		cell.Body, cell.Type = body, body.Type()
+		cell.setBody(body)
+		cell.Type = body.Type()
 	}
 }
 

@@ -58,7 +58,7 @@ func TestNodeCount(t *testing.T) {
 			if c.Type == nil {
 				continue
 			}
-			roots := [][]Node{{c.Body}, {c.Extra().Demand, c.Extra().Capacity}}
+			roots := [][]Node{{c.Body()}, {c.Extra().Demand, c.Extra().Capacity}}
 			for _, e := range c.Extra().Entries {
 				roots = append(roots, []Node{e.Node})
 			}

@@ -59,8 +59,9 @@ type Cell struct {
 	Type    *funcs.Type
 	Formula *formula.Formula
 
-	// Body is the typed tree of the value (Input, Derived, Function).
-	Body Node
+	// body is the typed formula of the value (Input, Derived, Function;
+	// Body reads it); nil when none was typed.
+	body *typed
 	// extra holds what a check, function, table or action cell has
 	// beyond that; nil for an input or a derived cell, which are most of
 	// a large sheet (Extra reads it).
@@ -137,6 +138,18 @@ func (c *Cell) Expr() string {
 	}
 	return c.expr.Text
 }
+
+// Body is the typed tree of the value (Input, Derived, Function); the zero
+// Node when the cell has none or it failed.
+func (c *Cell) Body() Node {
+	if c.body == nil {
+		return Node{}
+	}
+	return c.body.node(c.body.f.Root)
+}
+
+// setBody makes n, the typed root of the cell's formula, its Body.
+func (c *Cell) setBody(n Node) { c.body = n.src }
 
 // Description is the cell's description, written after `--`.
 func (c *Cell) Description() string {

@@ -83,8 +83,8 @@ func (s *State) Governing(i int) check.Node {
 	}
 	n := c.Extra().Capacity
 	if n.Op() == check.OpCell {
-		if k := int(n.Index()); k >= 0 && k < len(s.M.P.Cells) && !s.M.P.Cells[k].Body.IsZero() && s.known[k] {
-			n = s.M.P.Cells[k].Body
+		if k := int(n.Index()); k >= 0 && k < len(s.M.P.Cells) && !s.M.P.Cells[k].Body().IsZero() && s.known[k] {
+			n = s.M.P.Cells[k].Body()
 		}
 	}
 	if n.Op() != check.OpBuiltin || (n.Builtin() != check.BMin && n.Builtin() != check.BMax) || n.NArg() < 2 {

@@ -73,7 +73,7 @@ var sweepXY = []float64{0, math.Copysign(0, -1), 1, -2.5, 3, 1e300, -1e-300, mat
 // difference in bits or in failure.
 func sameBothWays(t *testing.T, m *Machine, cell *check.Cell, expr string) {
 	t.Helper()
-	code, ref := m.code[cell.Index], m.numOf(cell.Body)
+	code, ref := m.code[cell.Index], m.numOf(cell.Body())
 	for _, x := range sweepXY {
 		for _, y := range sweepXY {
 			var a, b Frame
@@ -118,7 +118,7 @@ func FuzzCodeMatchesClosures(f *testing.F) {
 			return
 		}
 		cell := p.Lookup("c")
-		if cell == nil || cell.Type == nil || cell.Body.IsZero() || cell.Body.Type().Kind != funcs.Number || len(p.Cells) != 4 {
+		if cell == nil || cell.Type == nil || cell.Body().IsZero() || cell.Body().Type().Kind != funcs.Number || len(p.Cells) != 4 {
 			return
 		}
 		sameBothWays(t, Compile(p), cell, expr)

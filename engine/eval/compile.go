@@ -131,21 +131,21 @@ func (m *Machine) compileCell(c *check.Cell) {
 			m.setVal(c.Index, m.tableOf(c))
 		}
 	default:
-		if c.Body.IsZero() {
+		if c.Body().IsZero() {
 			return
 		}
-		switch c.Body.Type().Kind {
+		switch c.Body().Type().Kind {
 		case funcs.Number:
 			if c.Kind == check.Function {
-				m.setNum(c.Index, m.numOf(c.Body))
+				m.setNum(c.Index, m.numOf(c.Body()))
 			} else {
-				m.code[c.Index] = m.compileCode(c.Body)
+				m.code[c.Index] = m.compileCode(c.Body())
 			}
 		case funcs.Bool:
-			b := m.boolOf(c.Body)
+			b := m.boolOf(c.Body())
 			m.setVal(c.Index, func(f *Frame) funcs.Value { return b(f) })
 		default:
-			m.setVal(c.Index, m.valOf(c.Body))
+			m.setVal(c.Index, m.valOf(c.Body()))
 		}
 	}
 }

@@ -193,7 +193,7 @@ func nodeAt(n check.Node, l, c int) check.Node {
 
 // trees returns the typed trees of a cell.
 func trees(c *engine.Cell) []check.Node {
-	return []check.Node{c.Body, c.Extra().Demand, c.Extra().Capacity}
+	return []check.Node{c.Body(), c.Extra().Demand, c.Extra().Capacity}
 }
 
 // unitSpecs returns the unit specs written on an item.

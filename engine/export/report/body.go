@@ -173,8 +173,8 @@ func (d *doc) use(u *sheet.Use, outer, no string) {
 			d.math(func(b *strings.Builder) { symbol(b, o.Name.Name) })
 			d.w("</td><td>")
 			t := &typesetter{d: d, scope: c.Scope()}
-			if !c.Body.IsZero() {
-				d.math(func(b *strings.Builder) { t.expr(b, c.Body, 0) })
+			if !c.Body().IsZero() {
+				d.math(func(b *strings.Builder) { t.expr(b, c.Body(), 0) })
 			}
 			desc, _ := o.Annot.Text()
 			d.w("</td><td class=\"num\">", esc(d.resultText(c)), "</td><td>", esc(desc), "</td></tr>\n")

@@ -51,7 +51,7 @@ func (d *doc) part(f func(b *strings.Builder)) {
 func (d *doc) valueLine(c *engine.Cell, cr *engine.CellResult) {
 	scope := c.Scope()
 	sym := func(b *strings.Builder) { symbol(b, d.local(c)) }
-	body := c.Body
+	body := c.Body()
 	lone := body.IsZero() || body.Op() == check.OpConst || body.Op() == check.OpString || body.Op() == check.OpBool
 	if !body.IsZero() && body.Op() == check.OpRecord {
 		d.part(func(b *strings.Builder) { sym(b); b.WriteString("<mo>=</mo><mtext>record of the fields below</mtext>") })
@@ -146,7 +146,7 @@ func (d *doc) functionLine(c *engine.Cell) {
 			}
 		}
 		b.WriteString("<mo>)</mo></mrow><mo>=</mo>")
-		t.expr(b, c.Body, 0)
+		t.expr(b, c.Body(), 0)
 	})
 	d.w("<span class=\"kindnote\">function of the sheet</span>")
 }
@@ -254,7 +254,7 @@ func (d *doc) record(c *engine.Cell, r *funcs.RecordValue) {
 	if r.Type == nil {
 		return
 	}
-	written := !c.Body.IsZero() && c.Body.Op() == check.OpRecord
+	written := !c.Body().IsZero() && c.Body().Op() == check.OpRecord
 	name := ""
 	if r.Type.Name != "" {
 		name = " <span class=\"rtype\">" + esc(r.Type.Name) + "</span>"
@@ -276,9 +276,9 @@ func (d *doc) record(c *engine.Cell, r *funcs.RecordValue) {
 		d.math(func(b *strings.Builder) { symbol(b, f.Name) })
 		d.w("</th><td>")
 		switch {
-		case written && i < c.Body.NArg():
+		case written && i < c.Body().NArg():
 			t := &typesetter{d: d, scope: c.Scope()}
-			arg := c.Body.Arg(i)
+			arg := c.Body().Arg(i)
 			d.math(func(b *strings.Builder) { t.expr(b, arg, 0) })
 			if arg.Op() != check.OpConst {
 				if x, ok := r.Fields[i].(float64); ok {

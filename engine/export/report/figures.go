@@ -480,10 +480,10 @@ func (d *doc) curveFigure(c *engine.Cell, t *funcs.TableValue) {
 // (cells written as squash_load(col, ...) and strain_for_force(col, N),
 // possibly negated), to mark them on the curve.
 func (d *doc) curveMarks(c *engine.Cell, n []float64, fu units.Unit) []mark {
-	if c.Body.IsZero() || c.Body.Op() != check.OpPlugin || c.Body.NArg() == 0 || c.Body.Arg(0).Op() != check.OpCell {
+	if c.Body().IsZero() || c.Body().Op() != check.OpPlugin || c.Body().NArg() == 0 || c.Body().Arg(0).Op() != check.OpCell {
 		return nil
 	}
-	col := c.Body.Arg(0).Index()
+	col := c.Body().Arg(0).Index()
 	lo, hi := 0.0, 0.0
 	for _, x := range n {
 		lo, hi = math.Min(lo, x), math.Max(hi, x)
@@ -491,7 +491,7 @@ func (d *doc) curveMarks(c *engine.Cell, n []float64, fu units.Unit) []mark {
 	compression := -lo > hi
 	var out []mark
 	for _, o := range d.prog.Cells {
-		body, sign := o.Body, 1.0
+		body, sign := o.Body(), 1.0
 		if !body.IsZero() && body.Op() == check.OpNeg {
 			body, sign = body.Arg(0), -1
 		}

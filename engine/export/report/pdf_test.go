@@ -136,8 +136,8 @@ func TestPrintPDF(t *testing.T) {
 // the digits only (signs and exponents are set as MathML).
 func printedValue(d *doc, c *engine.Cell, x float64, cr engine.CellResult) string {
 	s := d.formatSI(x, cr.Unit)
-	if !c.Body.IsZero() && c.Body.Op() == check.OpConst {
-		if lit := strings.TrimSpace(d.text(c.Body)); lit != "" && (normalise(lit) == normalise(s) || d.sameUnit(c.Body, &cr)) {
+	if !c.Body().IsZero() && c.Body().Op() == check.OpConst {
+		if lit := strings.TrimSpace(d.text(c.Body())); lit != "" && (normalise(lit) == normalise(s) || d.sameUnit(c.Body(), &cr)) {
 			s, _ = splitLiteral(lit)
 		}
 	}

@@ -278,7 +278,7 @@ func (x *exporter) cellRow(cr *engine.CellResult) [calcCols]excelize.Cell {
 			x.stats.Inputs++
 		}
 	default:
-		value, note = x.valueCell(c, cr.Value, c.Kind == engine.Input, c.Body, cr.Unit.Factor)
+		value, note = x.valueCell(c, cr.Value, c.Kind == engine.Input, c.Body(), cr.Unit.Factor)
 		if _, num := cr.Value.(float64); num && c.Kind == engine.Input {
 			// As written and as typed: no digit hidden.
 			value.StyleID = x.st.id(clsInput, generalFormat)
@@ -296,8 +296,8 @@ func (x *exporter) cellRow(cr *engine.CellResult) [calcCols]excelize.Cell {
 				note = "record: its fields follow"
 				if x.opaque[c.Index] {
 					note = noteValueOnly + "its fields follow"
-					if !c.Body.IsZero() && c.Body.Str() != "" {
-						note = noteValueOnly + "computed with `" + c.Body.Str() + "`; its fields follow"
+					if !c.Body().IsZero() && c.Body().Str() != "" {
+						note = noteValueOnly + "computed with `" + c.Body().Str() + "`; its fields follow"
 					}
 				}
 			case *funcs.TableValue:

@@ -103,10 +103,10 @@ func (x *exporter) sampleOf(n check.Node) (u sampleUse, ok bool) {
 			n = n.Arg(0)
 		case n.Op() == check.OpCell:
 			c := cells[n.Index()]
-			if c.Kind != check.Derived || c.Body.IsZero() {
+			if c.Kind != check.Derived || c.Body().IsZero() {
 				return u, false
 			}
-			n = c.Body
+			n = c.Body()
 		case n.Op() == check.OpIndex && n.NArg() == 2 && n.Arg(1).Op() == check.OpConst:
 			k := n.Arg(1).Num()
 			if k != math.Trunc(k) || k < 0 || k > 1e9 {
@@ -243,10 +243,10 @@ func (x *exporter) passOn(n check.Node) check.Node {
 	cells := x.s.Program().Cells
 	for depth := 0; !n.IsZero() && n.Op() == check.OpCell && depth < 32; depth++ {
 		c := cells[n.Index()]
-		if c.Kind != check.Derived || c.Body.IsZero() || c.Body.Op() != check.OpCell {
+		if c.Kind != check.Derived || c.Body().IsZero() || c.Body().Op() != check.OpCell {
 			return n
 		}
-		n = c.Body
+		n = c.Body()
 	}
 	return n
 }
@@ -264,7 +264,7 @@ func (x *exporter) pluginCall(n check.Node, name string) check.Node {
 	n = x.passOn(n)
 	if !n.IsZero() && n.Op() == check.OpCell {
 		if c := x.s.Program().Cells[n.Index()]; c.Kind == check.Derived {
-			n = c.Body
+			n = c.Body()
 		}
 	}
 	if n.IsZero() || n.Op() != check.OpPlugin || n.Def() == nil || n.Def().Name != name {
@@ -280,7 +280,7 @@ func (x *exporter) curveMarks(s chartSpec) []chartMark {
 		return nil
 	}
 	cells := x.s.Program().Cells
-	curve := x.pluginCall(cells[owner].Body, "n_eps_curve")
+	curve := x.pluginCall(cells[owner].Body(), "n_eps_curve")
 	if curve.IsZero() || curve.NArg() == 0 || x.comboDep(owner) {
 		return nil
 	}
@@ -329,14 +329,14 @@ func (x *exporter) strainAt(comp check.Node, c *check.Cell, ch *checkRow) (int, 
 		}
 	}
 	for i, cell := range cells {
-		if cell.Kind != check.Derived || cell.Body.IsZero() || !x.r.Cells[i].Known {
+		if cell.Kind != check.Derived || cell.Body().IsZero() || !x.r.Cells[i].Known {
 			continue
 		}
 		v, ok := x.r.Cells[i].Value.(float64)
 		if !ok {
 			continue
 		}
-		body, sign := cell.Body, 1.0
+		body, sign := cell.Body(), 1.0
 		if body.Op() == check.OpNeg {
 			body, sign = body.Arg(0), -1
 		}

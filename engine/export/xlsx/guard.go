@@ -102,7 +102,7 @@ func (x *exporter) guardStale() {
 		}
 		if x.opaque[i] {
 			x.stale[i] = x.upstream(i)
-			if b := c.Body; !b.IsZero() && b.Op() == check.OpPlugin && b.Def().Spreadsheet != nil {
+			if b := c.Body(); !b.IsZero() && b.Op() == check.OpPlugin && b.Def().Spreadsheet != nil {
 				// Its fields with a spreadsheet form are live: out of
 				// date only through what the call's arguments read.
 				if x.staleFields == nil {
@@ -112,7 +112,7 @@ func (x *exporter) guardStale() {
 			}
 			continue
 		}
-		x.stale[i] = x.staleOf(c.Body, c.Extra().Demand, c.Extra().Capacity)
+		x.stale[i] = x.staleOf(c.Body(), c.Extra().Demand, c.Extra().Capacity)
 	}
 	for _, s := range x.stale {
 		for _, k := range s {

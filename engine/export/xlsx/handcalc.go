@@ -136,11 +136,11 @@ func (x *exporter) format(si float64, u units.Unit) string {
 // has none: its expression already says everything. expr is
 // oneLine(c.Expr), which the caller has at hand.
 func (x *exporter) handCalc(c *check.Cell, expr, result string) string {
-	sub := x.substituted(c, c.Body)
+	sub := x.substituted(c, c.Body())
 	if sub == "" {
 		sub = expr
 	}
-	if len(x.s.Program().Deps(c.Index)) == 0 && (c.Body.IsZero() || c.Body.Op() == check.OpConst || c.Body.Op() == check.OpNeg && c.Body.Arg(0).Op() == check.OpConst) {
+	if len(x.s.Program().Deps(c.Index)) == 0 && (c.Body().IsZero() || c.Body().Op() == check.OpConst || c.Body().Op() == check.OpNeg && c.Body().Arg(0).Op() == check.OpConst) {
 		return ""
 	}
 	line := c.Name + " = " + expr

@@ -151,7 +151,7 @@ func TestRecomputeAfterChange(t *testing.T) {
 					compareFormulas(t, f, s, r, c.Name+" × 1.1")
 				})
 			case *funcs.RecordValue:
-				if c.Kind != engine.Input || c.Body.IsZero() || c.Body.Op() != check.OpRecord {
+				if c.Kind != engine.Input || c.Body().IsZero() || c.Body().Op() != check.OpRecord {
 					continue
 				}
 				for i, fv := range v.Fields {

@@ -361,7 +361,7 @@ func (t *translator) user(n check.Node) (term, error) {
 	}
 	t.args = append(t.args, args)
 	t.depth++
-	x, err := t.expr(fn.Body)
+	x, err := t.expr(fn.Body())
 	t.depth--
 	t.args = t.args[:len(t.args)-1]
 	if err != nil {

@@ -280,7 +280,7 @@ func (x *exporter) layout() {
 		}
 		switch v := cr.Value.(type) {
 		case *funcs.RecordValue:
-			row = x.layoutRecord(c, c.Name, v, c.Kind == engine.Input, c.Body, row)
+			row = x.layoutRecord(c, c.Name, v, c.Kind == engine.Input, c.Body(), row)
 		case *funcs.TableValue:
 			x.addTable(c.Name, c.Description(), v, x.tableUnits(c, v), c.Kind == engine.Table && len(c.Extra().Entries) == 0, i).setOwner(c.Description())
 		}
@@ -352,11 +352,11 @@ func (x *exporter) markOpaque() {
 		case engine.Derived:
 			switch cr.Value.(type) {
 			case float64, bool:
-				f, err := x.tr.cellFormula(c.Body, x.tr.refs[c.Name].factor)
+				f, err := x.tr.cellFormula(c.Body(), x.tr.refs[c.Name].factor)
 				x.formulas[i] = translated{f, err, true}
 				x.opaque[i] = err != nil
 			default:
-				x.opaque[i] = !(!c.Body.IsZero() && c.Body.Op() == check.OpRecord)
+				x.opaque[i] = !(!c.Body().IsZero() && c.Body().Op() == check.OpRecord)
 			}
 		case engine.Check:
 			f, err := x.tr.checkFormula(c)
@@ -374,7 +374,7 @@ func (x *exporter) markOpaque() {
 			if !live {
 				reads = append(reads, x.reads[d]...)
 			}
-		}, c.Body, c.Extra().Demand, c.Extra().Capacity)
+		}, c.Body(), c.Extra().Demand, c.Extra().Capacity)
 		slices.Sort(reads)
 		x.reads[i] = slices.Compact(reads)
 	}
