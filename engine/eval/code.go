@@ -100,12 +100,34 @@ type emitter struct {
 	failed       bool // an instruction did not fit: the formula compiles to a closure
 }
 
+// codeSpan is where the code of a cell lies: n instructions from from in
+// chunk k; n is 0 for a cell without code. A chunk holds at most chunkSize
+// instructions unless it holds one formula alone, from 0, and a formula
+// has at most maxCodeLen (compileCode keeps to it), so 16 bits hold both:
+// a span is 8 bytes where a slice is 24.
+type codeSpan struct {
+	k       int32
+	from, n uint16
+}
+
+// maxCodeLen is the most instructions a formula's code may have.
+const maxCodeLen = 1<<16 - 1
+
+// codeOf returns the code of cell i, empty when it has none.
+func (m *Machine) codeOf(i int) []instr {
+	c := m.code[i]
+	if c.n == 0 {
+		return nil
+	}
+	return m.chunks[c.k][c.from : c.from+c.n : c.from+c.n]
+}
+
 // compileCode appends the code of Number node n, the body of a cell, and
-// returns it. A syntax node gives at most two instructions, so the
+// returns where it lies. A syntax node gives at most two instructions, so the
 // chunk is given room for that many first. A formula that needs a deeper
 // stack than maxDepth compiles to a closure, called by a single
 // instruction.
-func (m *Machine) compileCode(n check.Node) []instr {
+func (m *Machine) compileCode(n check.Node) codeSpan {
 	room := 2*len(n.Formula().Nodes) + 1
 	if room > chunkSize {
 		// A long formula (a sum of a thousand terms) gets a chunk of
@@ -120,10 +142,10 @@ func (m *Machine) compileCode(n check.Node) []instr {
 	from := len(m.chunks[k])
 	e := emitter{m: m}
 	e.num(n)
-	if e.worst > maxDepth || e.failed {
+	if e.worst > maxDepth || e.failed || len(m.chunks[k])-from > maxCodeLen {
 		m.chunks[k] = append(m.chunks[k][:from], mkInstr(opCall, m.call(m.numOf(n)), 0))
 	}
-	return m.chunks[k][from:len(m.chunks[k]):len(m.chunks[k])]
+	return codeSpan{k: int32(k), from: uint16(from), n: uint16(len(m.chunks[k]) - from)}
 }
 
 // emit appends an instruction with one index; push is what it adds to the

@@ -54,7 +54,7 @@ func TestCodeMatchesClosures(t *testing.T) {
 	m := Compile(p)
 	for k, c := range cases {
 		cell := p.Lookup(fmt.Sprintf("c%d", k))
-		code := m.code[cell.Index]
+		code := m.codeOf(cell.Index)
 		if len(code) == 0 {
 			t.Fatalf("%s: no code", c.expr)
 		}
@@ -73,7 +73,7 @@ var sweepXY = []float64{0, math.Copysign(0, -1), 1, -2.5, 3, 1e300, -1e-300, mat
 // difference in bits or in failure.
 func sameBothWays(t *testing.T, m *Machine, cell *check.Cell, expr string) {
 	t.Helper()
-	code, ref := m.code[cell.Index], m.numOf(cell.Body())
+	code, ref := m.codeOf(cell.Index), m.numOf(cell.Body())
 	for _, x := range sweepXY {
 		for _, y := range sweepXY {
 			var a, b Frame

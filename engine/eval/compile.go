@@ -20,11 +20,11 @@ type Machine struct {
 	demand   []numFn
 	capacity []numFn
 	topoPos  []int32
-	// code[i] is the code of cell i (see code.go) when it is an input or
-	// a derived cell of type Number, which has no other path; else empty. An incremental Eval runs
-	// such a cell from it and P.Deps(i) alone, without reaching for the
-	// cell itself.
-	code [][]instr
+	// code[i] is where the code of cell i lies (see code.go, codeOf)
+	// when it is an input or a derived cell of type Number, which has no
+	// other path; else empty. An incremental Eval runs such a cell from
+	// it and P.Deps(i) alone, without reaching for the cell itself.
+	code []codeSpan
 	// The code of every cell, and what its instructions index.
 	chunks   [][]instr
 	consts   []float64
@@ -49,7 +49,7 @@ type Machine struct {
 func Compile(p *check.Program) *Machine {
 	n := len(p.Cells)
 	m := &Machine{P: p, topoPos: make([]int32, n),
-		code: make([][]instr, n), constIdx: map[uint64]int32{},
+		code: make([]codeSpan, n), constIdx: map[uint64]int32{},
 		noOver: make([]bool, n)}
 	for _, c := range p.Cells {
 		if c.Kind == check.Check {

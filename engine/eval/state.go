@@ -186,7 +186,7 @@ func (s *State) Eval() []int {
 			i := p.Order[w<<6+bits.TrailingZeros64(word)]
 			word &= word - 1
 			s.last = append(s.last, i)
-			if c := m.code[i]; len(c) > 0 && !s.over[i] && (trust || s.depsKnown(i)) {
+			if c := m.codeOf(i); len(c) > 0 && !s.over[i] && (trust || s.depsKnown(i)) {
 				f.Fail, f.Args = nil, nil
 				if v := m.exec(f, c); f.Fail == nil && v-v == 0 { // v-v is NaN for NaN and ±Inf
 					s.setProblem(i, nil)
@@ -217,7 +217,7 @@ func (s *State) full() {
 	m := s.M
 	order := m.P.Order
 	for k, i := range order {
-		code := m.code[i]
+		code := m.codeOf(i)
 		if len(code) == 0 || over[i] {
 			s.run(i)
 			if !known[i] {
@@ -313,7 +313,7 @@ func (s *State) run(i int) {
 		s.known[i] = true
 		return
 	}
-	if sp := s.M.code[i]; len(sp) > 0 {
+	if sp := s.M.codeOf(i); len(sp) > 0 {
 		s.numDone(c, s.M.exec(f, sp))
 		return
 	}
