@@ -66,7 +66,7 @@ type slot struct {
 }
 
 // maxIndex is the largest index a slot holds: cell indices stay below it
-// because Sheet caps Options.MaxCells (see maxCells).
+// because Sheet caps Options.MaxCells (see CellsCap).
 const maxIndex = 1<<24 - 1
 
 func (s *slot) op() Op { return Op(s.word >> 24) }

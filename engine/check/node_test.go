@@ -93,7 +93,7 @@ func TestSlotWord(t *testing.T) {
 		{OpCell, 1},
 		{OpBuiltin, int32(BInCombo)},
 		{OpRecord, maxIndex},
-		{OpCell, maxCells},
+		{OpCell, CellsCap},
 	}
 	for _, tt := range tests {
 		s := slot{word: uint32(tt.op) << 24}
