@@ -73,7 +73,8 @@ func Sheet(f *sheet.File, opt Options) (*Program, diag.List) {
 	// Most items of a sheet are cells: room for them up front (templates
 	// add theirs beyond it).
 	items := min(len(f.Items), opt.MaxCells)
-	c := &checker{prog: &Program{File: f, Files: []*sheet.File{f}, Cells: make([]*Cell, 0, items), ByName: make(map[string]int, items)}, opt: opt}
+	c := &checker{prog: &Program{File: f, Files: []*sheet.File{f}, Cells: make([]*Cell, 0, items)}, opt: opt}
+	c.prog.names.reserve(nil, items)
 	c.collect()
 	if len(c.prog.Cells) > opt.MaxCells {
 		c.errs.Errorf(c.prog.Cells[opt.MaxCells].Range(), fmt.Sprintf("a sheet may hold at most %s; this one has %s", plural.Grouped(opt.MaxCells)+" "+plural.Noun(opt.MaxCells, "cell"), plural.Grouped(len(c.prog.Cells))),
@@ -204,7 +205,7 @@ func (c *checker) addCell(cell *Cell, section, scope string) {
 			"rename one of them", "`%s` is defined twice", cell.Name)
 		return
 	}
-	if j, dup := p.ByName[cell.Name]; dup {
+	if j, dup := p.index(cell.Name); dup {
 		first := p.Cells[j]
 		what := "`" + cell.Name + "` is first defined at " + first.Pos().String()
 		switch {
@@ -218,8 +219,8 @@ func (c *checker) addCell(cell *Cell, section, scope string) {
 		return
 	}
 	cell.Index = len(p.Cells)
-	p.ByName[cell.Name] = cell.Index
 	p.Cells = append(p.Cells, cell)
+	p.names.add(p.Cells, cell.Index)
 }
 
 // setPlace sets the section and the scope of cell, sharing a place with
@@ -858,13 +859,13 @@ func (p *Program) TypeValue(f *formula.Formula, sys units.System) (Node, diag.Li
 	var errs diag.List
 	for r := range f.Refs() {
 		name := f.Text(r)
-		if _, ok := p.ByName[name]; ok {
+		if _, ok := p.index(name); ok {
 			errs.Errorf(f.Range(r), "a value given for an input is a quantity such as `45 kN`",
 				"write the number with its unit", "a value cannot refer to the cell `%s`", name)
 			return Node{}, errs
 		}
 	}
-	c := &checker{prog: &Program{ByName: map[string]int{}}}
+	c := &checker{prog: &Program{}}
 	t := &typer{c: c, f: f, system: sys, errs: &errs}
 	n := t.expr(f.Root)
 	return n, errs

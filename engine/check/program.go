@@ -271,7 +271,8 @@ type Program struct {
 	// template written for another standard or with a factor the using
 	// sheet does not repeat.
 	Templates []TemplateCombos
-	ByName    map[string]int
+	// names finds a cell by its name (index, Lookup).
+	names nameIndex
 	// Order lists every cell index in a topological order of the
 	// dependency graph (dependencies first, level by level; see order).
 	Order []int
@@ -333,11 +334,14 @@ func (p *Program) plugin(d *funcs.Def) int32 {
 
 // Lookup returns the named cell or nil.
 func (p *Program) Lookup(name string) *Cell {
-	if i, ok := p.ByName[name]; ok {
+	if i, ok := p.index(name); ok {
 		return p.Cells[i]
 	}
 	return nil
 }
+
+// index returns the index of the named cell.
+func (p *Program) index(name string) (int, bool) { return p.names.find(p.Cells, name) }
 
 // TemplateCombos is what one template use declares about combinations.
 type TemplateCombos struct {

@@ -88,7 +88,7 @@ func (c *checker) useTemplate(from *sheet.File, u *sheet.Use, scope string, dept
 		c.errs.Errorf(u.Name.Range, "built-in names, constants and keywords cannot name a template use", "choose another name, e.g. `"+u.Name.Name+"_1`", "`%s` is a reserved name", u.Name.Name)
 		return
 	}
-	if j, dup := c.prog.ByName[name]; dup {
+	if j, dup := c.prog.index(name); dup {
 		c.errs.Errorf(u.Name.Range, "`"+name+"` is first defined at "+c.prog.Cells[j].Pos().String()+"; each name names one thing",
 			"rename one of them", "`%s` is defined twice", name)
 		return
@@ -148,7 +148,7 @@ func (c *checker) local(cell *Cell, name string) (int, bool) {
 	if cell != nil && cell.Scope() != "" {
 		name = cell.Scope() + name
 	}
-	i, ok := c.prog.ByName[name]
+	i, ok := c.prog.index(name)
 	return i, ok
 }
 
@@ -204,7 +204,7 @@ func (c *checker) memberTargets(cell *Cell, f *formula.Formula) []target {
 		if !ok {
 			continue
 		}
-		if i, ok := c.prog.ByName[prefix+f.Text(nd.B)]; ok {
+		if i, ok := c.prog.index(prefix + f.Text(nd.B)); ok {
 			ts = append(ts, target{root, i})
 		}
 	}
@@ -264,7 +264,7 @@ func (t *typer) templateMember(n int32) (Node, bool) {
 		return t.fail(n, "`"+written+"."+field+"` is a template use, not a value", "`"+written+"` uses it to bring in the cells of "+t.c.use.aliases[name].file,
 			"refer to one of its cells, e.g. `"+written+"."+field+"."+t.c.firstCell(name+".")+"`"), true
 	}
-	i, ok := t.c.prog.ByName[name]
+	i, ok := t.c.prog.index(name)
 	if !ok {
 		hint := ""
 		if near := diag.Nearest(field, t.c.localNames(pre)); near != "" {
@@ -361,7 +361,7 @@ func (c *checker) applyOverrides() {
 			seen[local] = o.Name.Range.Start()
 			f, ferrs := formula.Parse(o.Expr, opt)
 			c.errs = append(c.errs, ferrs...)
-			i, ok := c.prog.ByName[b.prefix+local]
+			i, ok := c.prog.index(b.prefix + local)
 			if !ok {
 				hint := ""
 				inputs := c.inputsOf(b.prefix)
