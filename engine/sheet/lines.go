@@ -13,9 +13,9 @@ import (
 // without the line break ("\n" or "\r\n").
 type line struct {
 	start, end int
-	indent     int  // bytes of leading spaces and tabs
-	blank      bool // only spaces and tabs (or unreadable, see bad)
-	bad        bool // holds invalid UTF-8 or a control character
+	indent     int32 // bytes of leading spaces and tabs
+	blank      bool  // only spaces and tabs (or unreadable, see bad)
+	bad        bool  // holds invalid UTF-8 or a control character
 }
 
 // splitLines cuts text into lines, starting at offset from (past a BOM). It
@@ -55,7 +55,7 @@ func (p *parser) scanLine(ln *line) {
 	for i < ln.end && (text[i] == ' ' || text[i] == '\t') {
 		i++
 	}
-	ln.indent = i - ln.start
+	ln.indent = int32(i - ln.start)
 	ln.blank = i == ln.end
 	for j := i; j < ln.end; {
 		c := text[j]

@@ -120,7 +120,7 @@ func (p *parser) parseItems() {
 			for j < len(p.lines) && !p.lines[j].blank && p.lines[j].indent > 0 {
 				j++
 			}
-			at := ln.start + ln.indent
+			at := ln.start + int(ln.indent)
 			p.errAt(p.rng(i, at, ln.end),
 				"an indented line continues the item above it, and there is none here",
 				"start the line in column 1, or join it to the item it belongs to",
@@ -146,7 +146,7 @@ func (p *parser) extent(i, limit, base, track int) int {
 	j := i + 1
 	for j < limit {
 		l := p.lines[j]
-		if l.blank || l.indent <= base && len(sc.open) == 0 {
+		if l.blank || int(l.indent) <= base && len(sc.open) == 0 {
 			break
 		}
 		if track >= 0 {
@@ -247,7 +247,7 @@ func (p *parser) singleLine(i int, what string) int {
 	j := p.extent(i, len(p.lines), 0, -1)
 	if j > i+1 {
 		l := p.lines[i+1]
-		p.errAt(p.rng(i+1, l.start+l.indent, l.end),
+		p.errAt(p.rng(i+1, l.start+int(l.indent), l.end),
 			what+" is one line; an indented line below it has nothing to continue",
 			"start the line in column 1 (begin it with `#` if it is a comment)",
 			"indented line after %s", what)

@@ -329,7 +329,7 @@ func (p *parser) body(i, j, from int) (Expr, *Annot, bool) {
 		end = annotAt
 		if annotLine < j-1 {
 			l := p.lines[annotLine+1]
-			p.errAt(p.rng(annotLine+1, l.start+l.indent, l.end),
+			p.errAt(p.rng(annotLine+1, l.start+int(l.indent), l.end),
 				"the annotation `-- description @ reference` ends an item; nothing of the expression may follow it",
 				"move the annotation to the end of the expression's last line",
 				"expression continues after its annotation")

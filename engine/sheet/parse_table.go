@@ -69,7 +69,7 @@ func (p *parser) parseTable(i, j int) Item {
 func (p *parser) tableHeader(li int, tb *Table) bool {
 	ln := p.lines[li]
 	t := p.text
-	k := ln.start + ln.indent
+	k := ln.start + int(ln.indent)
 	if c := t[k]; c == '+' || c == '-' || c == '.' || '0' <= c && c <= '9' {
 		p.errAt(p.rng(li, k, ln.end), "the first indented line of a table names its columns, with their units",
 			"add a header row above the numbers, e.g. `    L [m]  A [mm^2]`",
@@ -108,7 +108,7 @@ func (p *parser) tableRow(li, n int) ([]Literal, bool) {
 	ln := p.lines[li]
 	t := p.text
 	row := make([]Literal, 0, n)
-	for k := ln.start + ln.indent; k < ln.end; {
+	for k := ln.start + int(ln.indent); k < ln.end; {
 		e, expr := k, false
 		switch c := t[k]; {
 		case c == '(':
@@ -151,7 +151,7 @@ func (p *parser) tableRow(li, n int) ([]Literal, bool) {
 		k = skipSpace(t, e, ln.end)
 	}
 	if len(row) != n {
-		p.errAt(p.rng(li, ln.start+ln.indent, ln.end),
+		p.errAt(p.rng(li, ln.start+int(ln.indent), ln.end),
 			"each row has one entry per column; the header has "+plural.Count(n, "column"),
 			"add or remove entries so the row matches the header",
 			"row has %s, the table has %s", plural.Count(len(row), "entry"), plural.Count(n, "column"))

@@ -59,8 +59,8 @@ func (p *parser) parseUse(i, j int) Item {
 	}
 	for li := i + 1; li < j; {
 		l := p.lines[li]
-		at := l.start + l.indent
-		e := p.extent(li, j, l.indent, headSplit(t, at, l.end))
+		at := l.start + int(l.indent)
+		e := p.extent(li, j, int(l.indent), headSplit(t, at, l.end))
 		if identEnd(t, at, l.end) == at {
 			p.errAt(p.rng(li, at, l.end), "a use block holds indented cells that replace inputs of the template",
 				"write e.g. `    P = 45 kN`", "expected an override `name = expression`")
