@@ -153,20 +153,32 @@ func (c *Cell) setBody(n Node) { c.body = n.src }
 
 // Description is the cell's description, written after `--`.
 func (c *Cell) Description() string {
-	d, _ := c.def.Annot.Text()
+	d, _ := c.annot().Text()
 	return d
 }
 
 // Reference is the cell's reference, written after `@`.
 func (c *Cell) Reference() string {
-	_, r := c.def.Annot.Text()
+	_, r := c.annot().Text()
 	return r
+}
+
+// annot is the cell's annotation, nil when none is written or the cell is
+// a stand-in of the checker's own.
+func (c *Cell) annot() *sheet.Annot {
+	if c.def == nil {
+		return nil
+	}
+	return c.def.Annot
 }
 
 // setAnnot gives the cell a description and a reference of its own: a
 // copy of its definition, which other cells may share.
 func (c *Cell) setAnnot(description, reference string) {
-	d := *c.def
+	var d sheet.Def
+	if c.def != nil {
+		d = *c.def
+	}
 	d.Annot = &sheet.Annot{Description: description, Reference: reference}
 	c.def = &d
 }
