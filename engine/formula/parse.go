@@ -148,8 +148,6 @@ func (p *parser) add(n Node) int32 {
 	return int32(len(p.f.Nodes) - 1)
 }
 
-func (p *parser) span(n int32) (uint16, uint16) { return p.f.Nodes[n].From, p.f.Nodes[n].To }
-
 // enter counts one level of nesting; leave undoes it.
 func (p *parser) enter() {
 	p.depth++
