@@ -16,8 +16,6 @@ const (
 	DefaultMaxEvalSteps = check.MaxEvalSteps
 	DefaultMaxDepth     = formula.DefaultMaxDepth
 	DefaultSigFigs      = 4
-	// CellsCap is the largest limit WithMaxCells may set: 16,777,214.
-	CellsCap = check.CellsCap
 )
 
 // Option adjusts Load and Compile.

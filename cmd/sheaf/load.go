@@ -52,9 +52,6 @@ func (f *sheetFlags) options() ([]engine.Option, error) {
 	if f.maxCells < 0 {
 		return nil, userErrorf("--max-cells %d: give a positive number of cells", f.maxCells)
 	}
-	if f.maxCells > engine.CellsCap {
-		return nil, userErrorf("--max-cells %d: a sheet may hold at most %d cells", f.maxCells, engine.CellsCap)
-	}
 	if f.maxSteps < 0 {
 		return nil, userErrorf("--max-eval-steps %d: give a positive number of steps", f.maxSteps)
 	}

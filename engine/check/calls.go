@@ -38,7 +38,7 @@ func (t *typer) call(n int32, name string, argNodes []int32) Node {
 			return t.fail(at, p.summary, "the rule of "+b.Name+": "+b.Rule, p.hint)
 		}
 		r := t.node(n, OpBuiltin, ty)
-		r.slot().setIndex(int32(b.ID))
+		r.setIndex(int32(b.ID))
 		if b.ID == BInCombo {
 			t.c.prog.InCombination = true
 		}
@@ -86,7 +86,7 @@ func (t *typer) userCall(n int32, idx int, fn *Cell, fnType *funcs.Type, argNode
 		}
 	}
 	r := t.node(n, OpUser, fnType.Result)
-	r.slot().setIndex(int32(idx))
+	r.setIndex(int32(idx))
 	return r
 }
 
@@ -117,7 +117,7 @@ func (t *typer) pluginCall(n int32, def *funcs.Def, argNodes []int32) Node {
 					return Node{}
 				}
 				r := t.node(a, OpFuncRef, fnType)
-				r.slot().setIndex(int32(j))
+				r.setIndex(int32(j))
 				args[i], types[i] = r, fnType
 				if !p.Type.Accepts(fnType) {
 					t.fail(a, fmt.Sprintf("%s of %s must be %s, got %s", p.Name, def.Name, p.Type.String(), fnType.String()), p.Doc,
@@ -153,7 +153,7 @@ func (t *typer) pluginCall(n int32, def *funcs.Def, argNodes []int32) Node {
 		return t.fail(n, def.Name+" returns nothing", "a plugin function must declare its result", "report this to the author of the "+def.Family+" functions")
 	}
 	r := t.node(n, OpPlugin, res)
-	r.slot().setIndex(t.c.prog.plugin(def))
+	r.setIndex(t.c.prog.plugin(def))
 	return r
 }
 

@@ -3,6 +3,7 @@ package check
 import (
 	"fmt"
 	"maps"
+	"math"
 	"slices"
 	"strconv"
 	"strings"
@@ -30,12 +31,6 @@ type Options struct {
 
 // DefaultMaxCells is the default limit on the number of cells of a sheet.
 const DefaultMaxCells = 1_000_000
-
-// CellsCap is the largest limit Options.MaxCells may set (a larger one
-// counts as this): a typed node keeps a cell index in 24 bits (slot), and a
-// sheet past the limit stops before typing with one cell more than the
-// limit.
-const CellsCap = maxIndex - 1
 
 type checker struct {
 	prog  *Program
@@ -69,7 +64,9 @@ func Sheet(f *sheet.File, opt Options) (*Program, diag.List) {
 	if opt.MaxCells <= 0 {
 		opt.MaxCells = DefaultMaxCells
 	}
-	opt.MaxCells = min(opt.MaxCells, CellsCap)
+	// A typed node notes a cell index in 32 bits (Node.setIndex); no file
+	// a person writes comes near.
+	opt.MaxCells = min(opt.MaxCells, math.MaxInt32-1)
 	// Most items of a sheet are cells: room for them up front (templates
 	// add theirs beyond it).
 	items := min(len(f.Items), opt.MaxCells)

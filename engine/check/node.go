@@ -59,41 +59,72 @@ type Node struct {
 	at  int32 // the syntax node in src.f
 }
 
-// slot is what the checker found a syntax node to mean.
-type slot struct {
-	word uint32 // op<<24 | index: see Node.Index; the Builtin for OpBuiltin
-	ty   int32  // the type, in Program.types
+// slot is what the checker found a syntax node to mean: its operation
+// (the low 8 bits) and its type (the rest, an index into Program.types).
+// A name, a call and a field also refer to something — a cell, a
+// parameter, a field, a plugin, a built-in — and the checker notes its
+// index in a name node of the formula (noteAt), whose two words a name
+// has spare. A slot is 4 bytes without a pointer.
+type slot uint32
+
+// maxTypes is the most distinct types a program's slots can tell apart
+// (typer.node refuses more). A variable only so that a test can reach it
+// with a small sheet.
+var maxTypes int32 = 1 << 24
+
+// noteAt returns the name node that holds the index of syntax node n: a
+// name itself, the callee of a call, the field's name of a field; -1 for
+// any other node, which refers to nothing.
+func noteAt(f *formula.Formula, n int32) int32 {
+	nd := &f.Nodes[n]
+	switch nd.Kind {
+	case formula.KName:
+		return n
+	case formula.KField:
+		return nd.B
+	case formula.KCall:
+		return f.CalleeNode(n)
+	}
+	return -1
 }
-
-// maxIndex is the largest index a slot holds: cell indices stay below it
-// because Sheet caps Options.MaxCells (see CellsCap).
-const maxIndex = 1<<24 - 1
-
-func (s *slot) op() Op { return Op(s.word >> 24) }
-
-func (s *slot) index() int32 { return int32(s.word & maxIndex) }
-
-// setIndex sets the index of s; i is in [0, maxIndex].
-func (s *slot) setIndex(i int32) { s.word = s.word&^maxIndex | uint32(i)&maxIndex }
 
 // IsZero reports whether n stands for no expression (a cell with no value
 // formula, a side of a check that failed).
 func (n Node) IsZero() bool { return n.src == nil }
 
-func (n Node) slot() *slot { return &n.src.prog.slots[n.src.at+n.at] }
+// setIndex notes i as the index of n, a name, a call or a field; it does
+// nothing for the zero Node (a node typer.node refused).
+func (n Node) setIndex(i int32) {
+	if n.src == nil {
+		return
+	}
+	f := n.src.f
+	f.SetNote(noteAt(f, n.at), -1, i)
+}
+
+func (n Node) slot() slot { return n.src.prog.slots[n.src.at+n.at] }
 
 // Op is the operation of the node.
-func (n Node) Op() Op { return n.slot().op() }
+func (n Node) Op() Op { return Op(n.slot() & 0xff) }
 
 // Builtin is the built-in function an OpBuiltin node applies.
-func (n Node) Builtin() Builtin { return Builtin(n.slot().index()) }
+func (n Node) Builtin() Builtin { return Builtin(n.Index()) }
 
 // Index is the cell, parameter or field index the node refers to (see
-// Op); for OpPlugin, an index of Program.plugins.
-func (n Node) Index() int32 { return n.slot().index() }
+// Op); for OpPlugin, an index of Program.plugins; -1 for a node that
+// refers to none.
+func (n Node) Index() int32 {
+	f := n.src.f
+	at := noteAt(f, n.at)
+	if at < 0 {
+		return -1
+	}
+	_, i := f.Note(at)
+	return i
+}
 
 // Type is the type of the node's value.
-func (n Node) Type() *funcs.Type { return n.src.prog.types[n.slot().ty] }
+func (n Node) Type() *funcs.Type { return n.src.prog.types[n.slot()>>8] }
 
 // typed is a formula with its typed nodes.
 type typed struct {

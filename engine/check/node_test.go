@@ -81,26 +81,3 @@ func TestNodeCount(t *testing.T) {
 		t.Errorf("only %d formulas compared", cells)
 	}
 }
-
-// TestSlotWord: a slot's operation and index share one word and neither
-// disturbs the other, up to the largest index a cell may have.
-func TestSlotWord(t *testing.T) {
-	tests := []struct {
-		op    Op
-		index int32
-	}{
-		{OpConst, 0},
-		{OpCell, 1},
-		{OpBuiltin, int32(BInCombo)},
-		{OpRecord, maxIndex},
-		{OpCell, CellsCap},
-	}
-	for _, tt := range tests {
-		s := slot{word: uint32(tt.op) << 24}
-		s.setIndex(7)
-		s.setIndex(tt.index)
-		if s.op() != tt.op || s.index() != tt.index {
-			t.Errorf("op %d index %d: read back op %d index %d", tt.op, tt.index, s.op(), s.index())
-		}
-	}
-}

@@ -8,6 +8,7 @@ import (
 	"github.com/sheafcalc/sheaf/engine/formula"
 	"github.com/sheafcalc/sheaf/engine/units"
 	"github.com/sheafcalc/sheaf/funcs"
+	"github.com/sheafcalc/sheaf/internal/plural"
 )
 
 // typer types one formula.
@@ -32,7 +33,11 @@ func (t *typer) node(n int32, op Op, ty *funcs.Type) Node {
 	if t.typed == nil {
 		t.typed = t.c.arena.typed(t.f, t.c.prog)
 	}
-	t.c.prog.slots[t.typed.at+n] = slot{word: uint32(op) << 24, ty: t.c.prog.typeIndex(ty)}
+	i := t.c.prog.typeIndex(ty)
+	if i >= maxTypes {
+		return t.fail(n, "the sheet has too many kinds of value", "a sheet may build at most "+plural.Grouped(int(maxTypes))+" distinct lists, records and functions", "split the calculation into sheets")
+	}
+	t.c.prog.slots[t.typed.at+n] = slot(i)<<8 | slot(op)
 	t.typed.count++
 	t.typed.calls = t.typed.calls || op == OpUser || op == OpFuncRef
 	return Node{src: t.typed, at: n}
@@ -120,7 +125,7 @@ func (t *typer) ident(n int32) Node {
 	for i, p := range t.params {
 		if p.Name == name {
 			r := t.node(n, OpParam, p.Type)
-			r.slot().setIndex(int32(i))
+			r.setIndex(int32(i))
 			return r
 		}
 	}
@@ -137,7 +142,7 @@ func (t *typer) ident(n int32) Node {
 			return Node{} // failed or in a cycle: reported there
 		}
 		r := t.node(n, OpCell, ty)
-		r.slot().setIndex(int32(i))
+		r.setIndex(int32(i))
 		return r
 	}
 	if t.c.use.isAlias(t.scope() + name) {
@@ -304,11 +309,11 @@ func (t *typer) member(n int32) Node {
 			}
 			if x.Type().Kind == funcs.Table {
 				r := t.node(n, OpColumn, funcs.ListOf(x.Type().Fields[i].Type))
-				r.slot().setIndex(int32(i))
+				r.setIndex(int32(i))
 				return r
 			}
 			r := t.node(n, OpField, x.Type().Fields[i].Type)
-			r.slot().setIndex(int32(i))
+			r.setIndex(int32(i))
 			return r
 		}
 		return t.fail(n, "`."+field+"` needs a record or a table, got "+t.describeType(x.Type()), "fields belong to records such as `{E: 210 GPa}` and columns to tables",

@@ -285,7 +285,7 @@ func (t *typer) templateMember(n int32) (Node, bool) {
 		return Node{}, true // failed or in a cycle: reported there
 	}
 	r := t.node(n, OpCell, ty)
-	r.slot().setIndex(int32(i))
+	r.setIndex(int32(i))
 	return r, true
 }
 

@@ -79,7 +79,9 @@ type Node struct {
 	From uint16
 	To   uint16
 	// A and B are child node indices (-1 when absent) of a KUnary,
-	// KBinary, KField (B the field's name) and KIndex. A node
+	// KBinary, KField (B the field's name) and KIndex. A KName has no
+	// children: its two words are a note for the formula's reader (Note),
+	// -1 until it writes one. A node
 	// with more children keeps them in the formula's argument lists:
 	// for KCall, KList, KRecord, KCond and KRange A is their start there
 	// and B their count (ArgList, Terms). For KNumber and KBool A and B
@@ -217,7 +219,29 @@ func (f *Formula) Terms(n int32) (a, b, c int32) {
 }
 
 // Callee returns the name a KCall node calls.
-func (f *Formula) Callee(n int32) string { return f.Text(f.side.args[f.Nodes[n].A]) }
+func (f *Formula) Callee(n int32) string { return f.Text(f.CalleeNode(n)) }
+
+// CalleeNode returns the KName node of the name a KCall node calls.
+func (f *Formula) CalleeNode(n int32) int32 { return f.side.args[f.Nodes[n].A] }
+
+// Note returns the two words a KName node keeps for the formula's reader:
+// the checker notes there what the name, or the call or the field it
+// names, stands for. The parser leaves them -1.
+func (f *Formula) Note(n int32) (a, b int32) {
+	nd := &f.Nodes[n]
+	return nd.A, nd.B
+}
+
+// SetNote writes the note of KName node n. A node of another kind has
+// children where a name has its note: writing one there is a bug of the
+// caller, and SetNote panics.
+func (f *Formula) SetNote(n int32, a, b int32) {
+	nd := &f.Nodes[n]
+	if nd.Kind != KName {
+		panic("formula: SetNote of a node that is not a name")
+	}
+	nd.A, nd.B = a, b
+}
 
 // Span returns the byte span of node n in the formula text.
 func (f *Formula) Span(n int32) (from, to int) {

@@ -317,3 +317,34 @@ func TestSpans(t *testing.T) {
 		}
 	}
 }
+
+// TestNotes: a name node keeps the two words its reader notes, starting at
+// -1, and a node of another kind refuses a note (its words are children).
+func TestNotes(t *testing.T) {
+	f, errs := Parse(expr("f(x) + r.E"), Options{})
+	if errs.HasErrors() || f == nil {
+		t.Fatal(errs)
+	}
+	for i := range f.Nodes {
+		n := int32(i)
+		if f.Nodes[n].Kind != KName {
+			continue
+		}
+		if a, b := f.Note(n); a != -1 || b != -1 {
+			t.Fatalf("%s: note %d %d before any was written", f.Text(n), a, b)
+		}
+		f.SetNote(n, 3, n+10)
+		if a, b := f.Note(n); a != 3 || b != n+10 {
+			t.Fatalf("%s: note %d %d, want 3 %d", f.Text(n), a, b, n+10)
+		}
+	}
+	if got := f.String(); got != "(+ (call f x) (. r E))" {
+		t.Fatalf("notes changed the tree: %s", got)
+	}
+	defer func() {
+		if recover() == nil {
+			t.Fatal("SetNote of the root (a binary node) did not panic")
+		}
+	}()
+	f.SetNote(f.Root, 1, 1)
+}
