@@ -41,8 +41,8 @@ func (c *checker) budget() {
 		if roots[0].IsZero() {
 			return 0
 		}
-		if !roots[0].src.calls {
-			return float64(roots[0].src.count)
+		if !roots[0].src.calls() {
+			return float64(roots[0].src.count())
 		}
 		s := 0.0
 		for _, r := range roots {

@@ -132,10 +132,22 @@ type typed struct {
 	prog *Program // for the names of the cells a node refers to, and the slots
 	// at is where the formula's slots begin in prog.slots: one per
 	// syntax node, set when the node was typed.
-	at    int32
-	count int32 // slots set
-	calls bool  // some slot calls a function of the sheet (OpUser, OpFuncRef)
+	at int32
+	// set counts the slots set (the low 31 bits, far more than the nodes
+	// of a formula of at most 65,535 bytes; count reads it); the top
+	// bit is set when some slot calls a function of the sheet (OpUser,
+	// OpFuncRef; calls reads it). One word for both keeps a typed formula
+	// at 24 bytes, 8 less per cell.
+	set uint32
 }
+
+const callsBit = 1 << 31
+
+// count is the number of slots set.
+func (s *typed) count() int32 { return int32(s.set &^ callsBit) }
+
+// calls reports whether some slot calls a function of the sheet.
+func (s *typed) calls() bool { return s.set&callsBit != 0 }
 
 // node returns the typed node standing for syntax node n: a unary plus
 // stands for what it encloses (brackets have no node).

@@ -70,7 +70,7 @@ func TestNodeCount(t *testing.T) {
 				for _, r := range rs {
 					n += walk(r)
 				}
-				if got := rs[0].src.count; got != n {
+				if got := rs[0].src.count(); got != n {
 					t.Errorf("%s: cell %s counts %d typed nodes, %d reached", p, c.Name, got, n)
 				}
 				cells++

@@ -38,8 +38,10 @@ func (t *typer) node(n int32, op Op, ty *funcs.Type) Node {
 		return t.fail(n, "the sheet has too many kinds of value", "a sheet may build at most "+plural.Grouped(int(maxTypes))+" distinct lists, records and functions", "split the calculation into sheets")
 	}
 	t.c.prog.slots[t.typed.at+n] = slot(i)<<8 | slot(op)
-	t.typed.count++
-	t.typed.calls = t.typed.calls || op == OpUser || op == OpFuncRef
+	t.typed.set++
+	if op == OpUser || op == OpFuncRef {
+		t.typed.set |= callsBit
+	}
 	return Node{src: t.typed, at: n}
 }
 
