@@ -51,8 +51,8 @@ const (
 // meaning of syntax node i. What the syntax already holds (the arguments,
 // a literal's value, a name, the span) is read from it rather than
 // copied, and the type is an index into the program's types, so a slot is
-// 8 bytes without a pointer: the collector does not scan a million of
-// them. A unary plus has no node of its own: it stands for what it
+// 4 bytes without a pointer (see slot): the collector does not scan a
+// million of them. A unary plus has no node of its own: it stands for what it
 // encloses (and brackets have no syntax node either).
 type Node struct {
 	src *typed

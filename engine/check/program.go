@@ -90,7 +90,7 @@ type Extra struct {
 }
 
 // place is where a cell was written. The cells under one heading of one
-// file share one place (checker.place), which keeps the two texts out of
+// file share one place (checker.setPlace), which keeps the two texts out of
 // every cell.
 type place struct {
 	section, scope string

@@ -81,10 +81,10 @@ type Node struct {
 	// A and B are child node indices (-1 when absent) of a KUnary,
 	// KBinary, KField (B the field's name) and KIndex. A KName has no
 	// children: its two words are a note for the formula's reader (Note),
-	// -1 until it writes one. A node
-	// with more children keeps them in the formula's argument lists:
-	// for KCall, KList, KRecord, KCond and KRange A is their start there
-	// and B their count (ArgList, Terms). For KNumber and KBool A and B
+	// -1 until it writes one. A node with more children keeps them in the
+	// formula's argument lists: for KCall, KList, KRecord, KCond and
+	// KRange A is their start there and B their count (ArgList, Terms); a
+	// KCall's list starts with its callee, not counted in B (CalleeNode). For KNumber and KBool A and B
 	// hold the value's 64 bits, low word first (Num reads them), so that
 	// a number costs no slice of its own; for KQuantity A indexes
 	// Formula.Quantities().
